@@ -1,0 +1,35 @@
+/**
+ * Named unit conversions. core/ works in SI and radians; degrees, feet and MHz only at the
+ * edges, through these functions (one quantity per name, unit as suffix).
+ */
+export const FT_PER_M = 1 / 0.3048; // international foot, exact by definition (1959)
+export const SPEED_OF_LIGHT_M_PER_S = 299_792_458; // exact, SI definition
+
+export const feetToM = (ft: number): number => ft * 0.3048;
+export const mToFeet = (m: number): number => m / 0.3048;
+export const mhzToHz = (mhz: number): number => mhz * 1e6;
+export const hzToMhz = (hz: number): number => hz / 1e6;
+export const khzToHz = (khz: number): number => khz * 1e3;
+export const degToRad = (deg: number): number => (deg * Math.PI) / 180;
+export const radToDeg = (rad: number): number => (rad * 180) / Math.PI;
+export const wavelengthM = (freqHz: number): number => SPEED_OF_LIGHT_M_PER_S / freqHz;
+export const mSPerMToSPerM = (mSPerM: number): number => mSPerM / 1000;
+export const sPerMToMsPerM = (sPerM: number): number => sPerM * 1000;
+export const linearToDb = (power: number): number => 10 * Math.log10(power);
+export const dbToLinear = (db: number): number => 10 ** (db / 10);
+
+export type UnitSystem = 'metric' | 'imperial';
+
+/** Format a length for display in the user's unit system. */
+export function formatLength(m: number, units: UnitSystem, digits = 1): string {
+  return units === 'metric' ? `${m.toFixed(digits)} m` : `${mToFeet(m).toFixed(digits)} ft`;
+}
+
+/** Parse a length typed in the user's unit system back to metres. */
+export function lengthFromDisplay(value: number, units: UnitSystem): number {
+  return units === 'metric' ? value : feetToM(value);
+}
+
+export function lengthToDisplay(m: number, units: UnitSystem): number {
+  return units === 'metric' ? m : mToFeet(m);
+}
