@@ -1,0 +1,249 @@
+/**
+ * The one project schema. A project is one lot scenario: the lot boundary, the supports with
+ * their usable heights, keep-out zones, the station point, the soil, the target regions, the
+ * bands and the user's settings. The same schema describes a project file, what the store keeps,
+ * what the command line reads and what the API carries. Positions are WGS84 [lon, lat] in degrees
+ * (GeoJSON order, RFC 7946 §3.1.1); heights and distances are metres.
+ *
+ * Versioned: `schemaVersion` is the document version; `migrateProjectDocument` brings older
+ * documents forward before validation.
+ */
+import { z } from 'zod';
+import { SOIL_CLASS_IDS } from '../em/soils.ts';
+
+export const PROJECT_SCHEMA_VERSION = 1;
+
+const finite = z.number().refine(Number.isFinite, 'must be a finite number');
+
+/** [lon, lat] in degrees, WGS84. */
+export const LonLatSchema = z.tuple([
+  finite.refine((v) => v >= -180 && v <= 180, 'longitude must be between -180 and 180 degrees'),
+  finite.refine((v) => v >= -90 && v <= 90, 'latitude must be between -90 and 90 degrees'),
+]);
+export type LonLat = z.infer<typeof LonLatSchema>;
+
+const idSchema = z
+  .string()
+  .min(1, 'must not be empty')
+  .max(64, 'must be at most 64 characters')
+  .regex(/^[A-Za-z0-9_-]+$/, 'may contain only letters, digits, "-" and "_"');
+
+const nameSchema = z.string().trim().min(1, 'must not be empty').max(200, 'must be at most 200 characters');
+const notesSchema = z.string().max(5000, 'must be at most 5000 characters').default('');
+
+/** A closed ring of at least 4 positions whose first and last coincide (RFC 7946 §3.1.6). */
+export const RingSchema = z
+  .array(LonLatSchema)
+  .min(4, 'a ring needs at least 4 positions (3 corners and the closing point)')
+  .max(10_000, 'a ring may have at most 10000 positions')
+  .refine((ring) => {
+    const a = ring[0];
+    const b = ring[ring.length - 1];
+    return a !== undefined && b !== undefined && a[0] === b[0] && a[1] === b[1];
+  }, 'a ring must be closed: its last position must equal its first');
+
+export const PolygonSchema = z.object({
+  type: z.literal('Polygon'),
+  coordinates: z
+    .array(RingSchema)
+    .min(1, 'a polygon needs an outer ring')
+    .max(1, 'holes are not supported in a lot boundary or keep-out'),
+});
+export type Polygon = z.infer<typeof PolygonSchema>;
+
+export const LineStringSchema = z.object({
+  type: z.literal('LineString'),
+  coordinates: z.array(LonLatSchema).min(2, 'a line needs at least 2 positions').max(10_000),
+});
+export type LineString = z.infer<typeof LineStringSchema>;
+
+export const SUPPORT_KINDS = ['tree', 'mast', 'tower', 'building'] as const;
+export type SupportKind = (typeof SUPPORT_KINDS)[number];
+
+/** Highest usable attachment height we accept, in metres (a very tall tower). */
+export const MAX_SUPPORT_HEIGHT_M = 200;
+
+export const SupportSchema = z.object({
+  id: idSchema,
+  name: nameSchema,
+  kind: z.enum(SUPPORT_KINDS, { message: `must be one of ${SUPPORT_KINDS.join(', ')}` }),
+  position: LonLatSchema,
+  usableHeightM: finite
+    .refine((v) => v > 0, 'must be greater than 0 m')
+    .refine((v) => v <= MAX_SUPPORT_HEIGHT_M, `must be at most ${MAX_SUPPORT_HEIGHT_M} m`),
+  notes: notesSchema,
+});
+export type Support = z.infer<typeof SupportSchema>;
+
+export const KEEP_OUT_KINDS = ['building', 'power-line', 'other'] as const;
+export type KeepOutKind = (typeof KEEP_OUT_KINDS)[number];
+
+export const KeepOutSchema = z
+  .object({
+    id: idSchema,
+    name: nameSchema,
+    kind: z.enum(KEEP_OUT_KINDS, { message: `must be one of ${KEEP_OUT_KINDS.join(', ')}` }),
+    geometry: z.discriminatedUnion('type', [PolygonSchema, LineStringSchema], {
+      message: 'must be a Polygon or a LineString',
+    }),
+    /** Horizontal clearance kept around the zone, metres. For a power line: the fall distance plus a margin. */
+    clearanceM: finite.refine((v) => v >= 0 && v <= 500, 'must be between 0 and 500 m').default(0),
+    /** Height of the object (building ridge, power-line conductors), metres, if known. */
+    heightM: finite.refine((v) => v >= 0 && v <= 300, 'must be between 0 and 300 m').optional(),
+    notes: notesSchema,
+  })
+  .refine((k) => k.geometry.type === 'Polygon' || k.kind !== 'building', {
+    message: 'a building must be drawn as a polygon',
+    path: ['geometry'],
+  });
+export type KeepOut = z.infer<typeof KeepOutSchema>;
+
+export const SoilSchema = z.union([
+  z.object({
+    classId: z.enum(SOIL_CLASS_IDS as [string, ...string[]], {
+      message: `must be one of the soil classes: ${SOIL_CLASS_IDS.join(', ')}`,
+    }),
+  }),
+  z.object({
+    permittivity: finite.refine((v) => v >= 1 && v <= 100, 'relative permittivity must be between 1 and 100'),
+    conductivitySPerM: finite.refine((v) => v >= 0 && v <= 10, 'conductivity must be between 0 and 10 S/m'),
+  }),
+]);
+export type Soil = z.infer<typeof SoilSchema>;
+
+export const BANDS = ['160m', '80m', '40m'] as const;
+export type Band = (typeof BANDS)[number];
+
+export const TargetSchema = z.union([
+  z.object({
+    regionId: idSchema,
+    weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
+  }),
+  z.object({
+    id: idSchema,
+    name: nameSchema,
+    weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
+    area: z.union([
+      z.object({
+        center: LonLatSchema,
+        radiusKm: finite.refine((v) => v > 0 && v <= 5000, 'radius must be between 0 and 5000 km'),
+      }),
+      PolygonSchema,
+    ]),
+  }),
+]);
+export type Target = z.infer<typeof TargetSchema>;
+
+export const SettingsSchema = z.object({
+  units: z.enum(['metric', 'imperial']).default('metric'),
+  /** Setback kept from the lot boundary, metres. */
+  setbackM: finite.refine((v) => v >= 0 && v <= 50, 'must be between 0 and 50 m').default(1),
+  /** Lowest wire end above ground where people walk, metres. */
+  minEndHeightM: finite.refine((v) => v >= 0 && v <= 30, 'must be between 0 and 30 m').default(2.5),
+  /** Tallest self-supporting vertical the user would put up, metres. */
+  maxVerticalHeightM: finite.refine((v) => v >= 0 && v <= 60, 'must be between 0 and 60 m').default(12),
+  /** Number of radials the user would lay. */
+  radialCount: z
+    .number()
+    .int('must be a whole number')
+    .min(0, 'must be at least 0')
+    .max(240, 'must be at most 240')
+    .default(32),
+  /** The user's own imagery tile URL template ({z}/{x}/{y}); empty means no imagery (offline). */
+  tileUrlTemplate: z
+    .string()
+    .max(500)
+    .refine((s) => s === '' || /^https?:\/\/[^\s"'<>]+$/.test(s), 'must be an http(s) URL template or empty')
+    .default(''),
+  tileAttribution: z.string().max(300).default(''),
+});
+export type Settings = z.infer<typeof SettingsSchema>;
+
+export const ProjectSchema = z.object({
+  schemaVersion: z.literal(PROJECT_SCHEMA_VERSION, {
+    message: `must be ${PROJECT_SCHEMA_VERSION} (this version of Yardwire reads project schema ${PROJECT_SCHEMA_VERSION})`,
+  }),
+  id: idSchema,
+  name: nameSchema,
+  notes: notesSchema,
+  boundary: PolygonSchema.nullable().default(null),
+  supports: z.array(SupportSchema).max(500, 'at most 500 supports').default([]),
+  keepOuts: z.array(KeepOutSchema).max(500, 'at most 500 keep-out zones').default([]),
+  station: LonLatSchema.nullable().default(null),
+  soil: SoilSchema.default({ classId: 'average' }),
+  targets: z.array(TargetSchema).max(100).default([]),
+  bands: z.array(z.enum(BANDS)).max(3).default(['80m']),
+  settings: SettingsSchema.default(SettingsSchema.parse({})),
+});
+export type Project = z.infer<typeof ProjectSchema>;
+export type ProjectInput = z.input<typeof ProjectSchema>;
+
+/** One validation problem: where (a JSON path like `supports[2].usableHeightM`) and what is wrong. */
+export interface FieldError {
+  path: string;
+  message: string;
+}
+
+export function formatPath(path: readonly PropertyKey[]): string {
+  let out = '';
+  for (const p of path) {
+    if (typeof p === 'number') out += `[${p}]`;
+    else out += out === '' ? String(p) : `.${String(p)}`;
+  }
+  return out === '' ? '(document)' : out;
+}
+
+export type ParseResult<T> = { ok: true; value: T } | { ok: false; errors: FieldError[] };
+
+/** Brings older documents forward. Version 1 is the first; later versions add steps here. */
+export function migrateProjectDocument(doc: unknown): unknown {
+  if (doc === null || typeof doc !== 'object' || Array.isArray(doc)) return doc;
+  const version = (doc as { schemaVersion?: unknown }).schemaVersion;
+  if (version === undefined) return { ...(doc as object), schemaVersion: PROJECT_SCHEMA_VERSION };
+  return doc;
+}
+
+/** Validate an unknown document (after migration) as a project, collecting every error. */
+export function parseProject(doc: unknown): ParseResult<Project> {
+  const version = (doc as { schemaVersion?: unknown } | null)?.schemaVersion;
+  if (typeof version === 'number' && version > PROJECT_SCHEMA_VERSION) {
+    return {
+      ok: false,
+      errors: [
+        {
+          path: 'schemaVersion',
+          message: `this file was written by a newer Yardwire (schema ${version}); this version reads up to ${PROJECT_SCHEMA_VERSION}`,
+        },
+      ],
+    };
+  }
+  const result = ProjectSchema.safeParse(migrateProjectDocument(doc));
+  if (result.success) {
+    const dup = duplicateIds(result.data);
+    if (dup.length > 0) return { ok: false, errors: dup };
+    return { ok: true, value: result.data };
+  }
+  return {
+    ok: false,
+    errors: result.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })),
+  };
+}
+
+function duplicateIds(p: Project): FieldError[] {
+  const errors: FieldError[] = [];
+  const seen = new Set<string>();
+  p.supports.forEach((s, i) => {
+    if (seen.has(s.id)) errors.push({ path: `supports[${i}].id`, message: `duplicate id "${s.id}"` });
+    seen.add(s.id);
+  });
+  p.keepOuts.forEach((k, i) => {
+    if (seen.has(k.id)) errors.push({ path: `keepOuts[${i}].id`, message: `duplicate id "${k.id}"` });
+    seen.add(k.id);
+  });
+  return errors;
+}
+
+/** A new, empty project. */
+export function emptyProject(id: string, name: string): Project {
+  return ProjectSchema.parse({ schemaVersion: PROJECT_SCHEMA_VERSION, id, name });
+}
