@@ -13,6 +13,22 @@ import { SOIL_CLASS_IDS } from '../em/soils.ts';
 
 export const PROJECT_SCHEMA_VERSION = 1;
 
+/** Plain-words messages for the commonest problems, in place of the validator's defaults. */
+function plainMessage(issue: { code: string; input?: unknown; expected?: unknown }): string | undefined {
+  if (issue.code === 'invalid_type') {
+    if (issue.input === undefined) return 'is required';
+    const got = issue.input === null ? 'null' : Array.isArray(issue.input) ? 'a list' : typeof issue.input;
+    return `must be ${article(String(issue.expected))}, not ${got === 'object' ? 'an object' : got}`;
+  }
+  if (issue.code === 'unrecognized_keys') return undefined;
+  return undefined;
+}
+function article(t: string): string {
+  if (t === 'array' || t === 'tuple') return 'a list';
+  return /^[aeiou]/.test(t) ? `an ${t}` : `a ${t}`;
+}
+z.config({ customError: plainMessage });
+
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
 
 /** [lon, lat] in degrees, WGS84. */
@@ -172,7 +188,10 @@ export const ProjectSchema = z.object({
   station: LonLatSchema.nullable().default(null),
   soil: SoilSchema.default({ classId: 'average' }),
   targets: z.array(TargetSchema).max(100).default([]),
-  bands: z.array(z.enum(BANDS)).max(3).default(['80m']),
+  bands: z
+    .array(z.enum(BANDS, { message: `must be one of ${BANDS.join(', ')}` }))
+    .max(3, 'at most 3 bands')
+    .default(['80m']),
   settings: SettingsSchema.default(SettingsSchema.parse({})),
 });
 export type Project = z.infer<typeof ProjectSchema>;

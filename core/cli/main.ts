@@ -1,0 +1,62 @@
+/**
+ * The command-line entry (`npm run -s cli -- <command> …`). The only part of core/ that may use
+ * node:*; each command is a function of (argv, io) → exit code, so tests call it directly.
+ */
+import { readFile } from 'node:fs/promises';
+import { runSite } from './site.ts';
+
+export interface CliIo {
+  stdout: (s: string) => void;
+  stderr: (s: string) => void;
+  readFile: (path: string) => Promise<string>;
+}
+
+type Command = (argv: string[], io: CliIo) => Promise<number>;
+
+const COMMANDS: Record<string, { run: Command; summary: string }> = {
+  site: {
+    run: runSite,
+    summary: 'site --demo --json | site FILE.json   print the demo project, or validate a project file',
+  },
+};
+
+export const USAGE = `Usage: npm run -s cli -- <command> [options]
+
+Commands:
+${Object.values(COMMANDS)
+  .map((c) => `  ${c.summary}`)
+  .join('\n')}
+`;
+
+export async function runCli(argv: string[], io: CliIo): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    io.stdout(USAGE);
+    return name === undefined ? 2 : 0;
+  }
+  const cmd = COMMANDS[name];
+  if (!cmd) {
+    io.stderr(`unknown command "${name}"\n${USAGE}`);
+    return 2;
+  }
+  return cmd.run(rest, io);
+}
+
+const isEntry =
+  process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/'));
+if (isEntry) {
+  const io: CliIo = {
+    stdout: (s) => process.stdout.write(s),
+    stderr: (s) => process.stderr.write(s),
+    readFile: (p) => readFile(p, 'utf8'),
+  };
+  runCli(process.argv.slice(2), io).then(
+    (code) => {
+      process.exitCode = code;
+    },
+    (e: unknown) => {
+      process.stderr.write(`yardwire: ${e instanceof Error ? e.message : String(e)}\n`);
+      process.exitCode = 1;
+    },
+  );
+}

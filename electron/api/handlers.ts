@@ -1,0 +1,131 @@
+/**
+ * The API handlers, shared by the Electron main process (over IPC) and the browser-mode server
+ * (over HTTP). Each handler takes `unknown`, validates it against the contract's request schema,
+ * and answers `{ ok, value } | { ok: false, error }`. Nothing here imports electron.
+ */
+import { randomUUID } from 'node:crypto';
+import {
+  API,
+  MAX_MESSAGE_BYTES,
+  type ApiError,
+  type ApiName,
+  type ApiResponse,
+  type ApiResults,
+  type HostInfo,
+} from '../../core/api/contract.ts';
+import { emptyProject, formatPath, type Project } from '../../core/project/schema.ts';
+import { buildDemoProject, DEMO_PROJECT_ID } from '../../data/demo/demoProject.ts';
+import { ProjectStore, StoreError } from '../../data/store.ts';
+
+export type HandlerTable = { [K in ApiName]: (request: unknown) => ApiResponse<ApiResults[K]> };
+
+function fail(
+  code: ApiError['code'],
+  message: string,
+  fields?: ApiError['fields'],
+): { ok: false; error: ApiError } {
+  return { ok: false, error: fields ? { code, message, fields } : { code, message } };
+}
+
+function fromError(e: unknown): { ok: false; error: ApiError } {
+  if (e instanceof StoreError) {
+    const code =
+      e.code === 'not-found' ? 'not-found' : e.code === 'invalid-project' ? 'invalid-project' : 'storage';
+    return fail(code, e.message, e.fields.length > 0 ? e.fields : undefined);
+  }
+  return fail('internal', e instanceof Error ? e.message : String(e));
+}
+
+/** Short random id for a new project. */
+export function newProjectId(): string {
+  return `p-${randomUUID().replaceAll('-', '').slice(0, 16)}`;
+}
+
+/** Measure a message before parsing its schema (size limit on every message). */
+export function messageTooLarge(request: unknown): boolean {
+  try {
+    return JSON.stringify(request ?? null).length > MAX_MESSAGE_BYTES;
+  } catch {
+    return true;
+  }
+}
+
+export function createHandlers(store: ProjectStore, host: Omit<HostInfo, 'dataFile'>): HandlerTable {
+  function ensureDemo(): Project {
+    if (store.hasProject(DEMO_PROJECT_ID)) return store.getProject(DEMO_PROJECT_ID);
+    return store.saveProject(buildDemoProject()).project;
+  }
+
+  const impl: { [K in ApiName]: (req: never) => ApiResults[K] } = {
+    hostInfo: () => ({ ...host, dataFile: store.file }),
+    listProjects: () => store.listProjects(),
+    openInitialProject: () => {
+      const last = store.lastOpenedId();
+      const project = last && store.hasProject(last) ? store.getProject(last) : ensureDemo();
+      store.markOpened(project.id);
+      return project;
+    },
+    openProject: (req: { id: string }) => {
+      const p = store.getProject(req.id);
+      store.markOpened(p.id);
+      return p;
+    },
+    saveProject: (req: { project: unknown }) => ({ updatedAt: store.saveProject(req.project).updatedAt }),
+    createProject: (req: { name: string }) => {
+      const p = store.saveProject(emptyProject(newProjectId(), req.name)).project;
+      store.markOpened(p.id);
+      return p;
+    },
+    duplicateProject: (req: { id: string }) => {
+      const src = store.getProject(req.id);
+      const copy = store.saveProject({
+        ...src,
+        id: newProjectId(),
+        name: `${src.name} (copy)`.slice(0, 200),
+      }).project;
+      const overlay = store.getOverlay(src.id);
+      if (overlay) store.setOverlay({ ...overlay, projectId: copy.id });
+      store.markOpened(copy.id);
+      return copy;
+    },
+    deleteProject: (req: { id: string }) => {
+      store.deleteProject(req.id);
+      return { deleted: true as const };
+    },
+    resetDemoProject: () => {
+      const p = store.saveProject(buildDemoProject()).project;
+      store.markOpened(p.id);
+      return p;
+    },
+    getOverlay: (req: { projectId: string }) => store.getOverlay(req.projectId),
+    setOverlay: (req: Parameters<ProjectStore['setOverlay']>[0]) => {
+      store.setOverlay(req);
+      return { saved: true as const };
+    },
+    clearOverlay: (req: { projectId: string }) => {
+      store.clearOverlay(req.projectId);
+      return { cleared: true as const };
+    },
+  };
+
+  const table = {} as Record<ApiName, (request: unknown) => ApiResponse<unknown>>;
+  for (const name of Object.keys(API) as ApiName[]) {
+    table[name] = (request: unknown) => {
+      if (messageTooLarge(request)) return fail('too-large', `the ${name} message is larger than allowed`);
+      const parsed = API[name].request.safeParse(request ?? {});
+      if (!parsed.success) {
+        return fail(
+          'invalid-request',
+          `invalid ${name} request`,
+          parsed.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })),
+        );
+      }
+      try {
+        return { ok: true, value: (impl[name] as (r: unknown) => unknown)(parsed.data) };
+      } catch (e) {
+        return fromError(e);
+      }
+    };
+  }
+  return table as HandlerTable;
+}

@@ -1,0 +1,59 @@
+/**
+ * Electron main process: startup is a short list of setup steps, each in its own module.
+ * The store lives in Electron's userData folder. Logic lives in plain modules (handlers, ipc,
+ * window) that unit tests call with `electron` mocked.
+ */
+import { app, BrowserWindow, ipcMain, Menu, session, shell, dialog } from 'electron';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { createHandlers } from './api/handlers.ts';
+import { setupIpc } from './ipc.ts';
+import { buildMenuTemplate } from './menu.ts';
+import { createMainWindow, setupContentSecurityPolicy } from './window.ts';
+import { ProjectStore, StoreError } from '../data/store.ts';
+import { databasePath } from './server/dataDir.ts';
+
+let mainWindow: BrowserWindow | null = null;
+
+function openStore(): ProjectStore | null {
+  const file = databasePath(app.getPath('userData'));
+  try {
+    return new ProjectStore(file);
+  } catch (e) {
+    dialog.showErrorBox(
+      'Yardwire cannot open its project database',
+      e instanceof StoreError ? e.message : String(e),
+    );
+    return null;
+  }
+}
+
+async function start(): Promise<void> {
+  app.enableSandbox();
+  await app.whenReady();
+  const store = openStore();
+  if (!store) {
+    app.quit();
+    return;
+  }
+  const indexHtml = join(__dirname, '..', 'renderer', 'index.html');
+  setupContentSecurityPolicy(session.defaultSession);
+  setupIpc(
+    ipcMain,
+    createHandlers(store, { shell: 'electron', version: app.getVersion() }),
+    () => mainWindow?.webContents ?? null,
+    pathToFileURL(indexHtml).href,
+  );
+  Menu.setApplicationMenu(Menu.buildFromTemplate(buildMenuTemplate(process.platform)));
+  mainWindow = createMainWindow({ BrowserWindow, shell }, join(__dirname, 'preload.cjs'), indexHtml);
+  app.on('web-contents-created', (_e, contents) => {
+    contents.on('will-navigate', (event) => event.preventDefault());
+    contents.setWindowOpenHandler(() => ({ action: 'deny' }));
+  });
+  app.on('window-all-closed', () => {
+    store.close();
+    app.quit();
+  });
+}
+
+void start();

@@ -1,0 +1,43 @@
+/**
+ * Entry of browser mode (`npm run serve`, and `npm start` when the Electron binary is absent).
+ * Environment: YARDWIRE_PORT (default 5719; 0 picks a free port), YARDWIRE_DATA_DIR.
+ * Prints exactly one line on stdout: `Yardwire is running at <url with token>`.
+ */
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { createHandlers } from '../api/handlers.ts';
+import { ProjectStore, StoreError } from '../../data/store.ts';
+import { databasePath, defaultDataDir } from './dataDir.ts';
+import { startBrowserServer } from './server.ts';
+
+const here = dirname(fileURLToPath(import.meta.url));
+
+async function main(): Promise<void> {
+  const file = databasePath(defaultDataDir());
+  let store: ProjectStore;
+  try {
+    store = new ProjectStore(file);
+  } catch (e) {
+    process.stderr.write(`Yardwire cannot start: ${e instanceof StoreError ? e.message : String(e)}\n`);
+    process.exit(2);
+  }
+  const version = process.env.npm_package_version ?? '0.1.0';
+  const handlers = createHandlers(store, { shell: 'browser', version });
+  const port = process.env.YARDWIRE_PORT === undefined ? 5719 : Number(process.env.YARDWIRE_PORT);
+  const staticDir = process.env.YARDWIRE_RENDERER_DIR ?? join(here, '..', 'renderer');
+  const srv = await startBrowserServer({ handlers, staticDir, port });
+  process.stdout.write(`Yardwire is running at ${srv.url}\n`);
+  process.stderr.write(
+    `Project database: ${file}\nOpen the address above in a browser; press Ctrl+C to stop.\n`,
+  );
+  const stop = (): void => {
+    void srv.close().then(() => {
+      store.close();
+      process.exit(0);
+    });
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
+
+void main();
