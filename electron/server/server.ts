@@ -89,13 +89,23 @@ export function resolveStaticPath(root: string, urlPath: string): string | null 
   }
 }
 
+/** Refuse an oversized body: answer at once, discard the rest, and close the connection. */
+function tooLarge(req: IncomingMessage, res: ServerResponse): void {
+  res.setHeader('connection', 'close');
+  send(res, 413, 'request too large');
+  req.resume();
+}
+
 async function readBody(req: IncomingMessage, limit: number): Promise<string | null> {
   const chunks: Buffer[] = [];
   let size = 0;
   for await (const chunk of req) {
     const buf = chunk as Buffer;
     size += buf.length;
-    if (size > limit) return null;
+    if (size > limit) {
+      req.resume();
+      return null;
+    }
     chunks.push(buf);
   }
   return Buffer.concat(chunks).toString('utf8');
@@ -124,9 +134,9 @@ export async function startBrowserServer(options: BrowserServerOptions): Promise
         const name = url.pathname.slice('/api/'.length);
         if (!names.has(name)) return send(res, 404, 'no such call');
         const contentLength = Number(req.headers['content-length'] ?? 0);
-        if (contentLength > MAX_MESSAGE_BYTES) return send(res, 413, 'request too large');
+        if (contentLength > MAX_MESSAGE_BYTES) return tooLarge(req, res);
         const body = await readBody(req, MAX_MESSAGE_BYTES);
-        if (body === null) return send(res, 413, 'request too large');
+        if (body === null) return tooLarge(req, res);
         let request: unknown;
         try {
           request = body === '' ? {} : JSON.parse(body);
