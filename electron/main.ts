@@ -18,7 +18,9 @@ let mainWindow: BrowserWindow | null = null;
 function openStore(): ProjectStore | null {
   const file = databasePath(app.getPath('userData'));
   try {
-    return new ProjectStore(file);
+    // The Electron-ABI build of better-sqlite3, kept apart from Node's (see electron/build/electron-sqlite.mjs).
+    const nativeBinding = process.env.YARDWIRE_SQLITE_BINDING;
+    return new ProjectStore(file, nativeBinding ? { nativeBinding } : {});
   } catch (e) {
     dialog.showErrorBox(
       'Yardwire cannot open its project database',

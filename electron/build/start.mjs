@@ -29,7 +29,13 @@ if (buildCode !== 0) process.exit(buildCode);
 
 const bin = electronBinary();
 if (bin && !process.env.YARDWIRE_BROWSER_MODE) {
-  process.exit(await run(bin, [join(root, 'dist/electron/main.cjs')]));
+  const { ensureElectronSqlite } = await import('./electron-sqlite.mjs');
+  const binding = ensureElectronSqlite();
+  process.exit(
+    await run(bin, [join(root, 'dist/electron/main.cjs')], {
+      env: { ...process.env, YARDWIRE_SQLITE_BINDING: binding },
+    }),
+  );
 }
 console.log(
   'The Electron binary is not installed (it could not be downloaded), so Yardwire runs in browser mode:\n' +
