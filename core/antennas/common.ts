@@ -1,0 +1,137 @@
+/**
+ * Shared pieces of the antenna builders: band design frequencies, wire size, segmenting, the cut
+ * allowance and rope limits.
+ */
+import type { Band } from '../project/schema.ts';
+import { wavelengthM } from '../units/index.ts';
+import type { Element } from '../site/feasibility.ts';
+import { placeXY, placeXYZ, type XYZ } from '../site/geometry.ts';
+import type { BandPlan, CutItem, Design, ModelWire, Placement } from './types.ts';
+
+/**
+ * Design frequencies, Hz. 160 m: 1.83 MHz, 80 m: 3.55 MHz, 40 m: 7.05 MHz — the centres of the
+ * segments where low-band long-distance contacts are mostly made (common practice, no source).
+ */
+export const DESIGN_FREQ_HZ: Record<Band, number> = { '160m': 1.83e6, '80m': 3.55e6, '40m': 7.05e6 };
+
+export function bandPlan(band: Band): BandPlan {
+  const f = DESIGN_FREQ_HZ[band];
+  return { band, designFreqHz: f, wavelengthM: wavelengthM(f) };
+}
+
+/** Wire radius of the model: 2 mm diameter copper, a usual antenna wire (common practice, no source). */
+export const WIRE_RADIUS_M = 0.001;
+/** Radial wire radius: 1.6 mm diameter (common practice, no source). */
+export const RADIAL_RADIUS_M = 0.0008;
+/** Cut allowance per end for the loop through an insulator or the connection, metres (common practice, no source). */
+export const CUT_ALLOWANCE_PER_END_M = 0.2;
+/** Longest rope between a wire end and its support, metres (common practice, no source). */
+export const MAX_ROPE_M = 40;
+/** Target segment length as a fraction of the wavelength (solver convergence aside, about 20 per half wave). */
+export const SEGMENT_FRACTION = 1 / 40;
+
+/**
+ * Segments for a wire of `lengthM` at wavelength `lambdaM`: at least 1, even when `even` (the
+ * solver puts a feed on the nearest segment end, so a centre feed needs a node at the middle).
+ */
+export function segmentsFor(lengthM: number, lambdaM: number, even = false): number {
+  let n = Math.max(1, Math.ceil(lengthM / (lambdaM * SEGMENT_FRACTION)));
+  if (even && n % 2 === 1) n += 1;
+  return n;
+}
+
+export function wire(from: XYZ, to: XYZ, lambdaM: number, label: string, even = false): ModelWire {
+  const len = Math.hypot(to[0] - from[0], to[1] - from[1], to[2] - from[2]);
+  return {
+    from,
+    to,
+    radiusM: WIRE_RADIUS_M,
+    segments: segmentsFor(len, lambdaM, even),
+    material: 'copper',
+    label,
+  };
+}
+
+export function wireLength(w: { from: XYZ; to: XYZ }): number {
+  return Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
+}
+
+export function lambdaOf(design: Design): number {
+  return wavelengthM(design.designFreqHz);
+}
+
+export function num(design: Design, key: string): number {
+  const v = design.params[key];
+  if (typeof v !== 'number') throw new Error(`design ${design.type}: parameter ${key} missing`);
+  return v;
+}
+
+export function arr(design: Design, key: string): number[] {
+  const v = design.params[key];
+  if (!Array.isArray(v)) throw new Error(`design ${design.type}: parameter ${key} missing`);
+  return v;
+}
+
+export function cut(label: string, count: number, lengthM: number, ends = 2): CutItem {
+  return { label, count, lengthM, cutLengthM: lengthM + ends * CUT_ALLOWANCE_PER_END_M };
+}
+
+/** Move canonical-frame elements onto the site. */
+export function placeElements(elements: readonly Element[], p: Placement): Element[] {
+  return elements.map((e): Element => {
+    switch (e.kind) {
+      case 'wire':
+      case 'rope':
+      case 'radial':
+        return {
+          ...e,
+          from: placeXYZ(e.from, p.rotationDeg, p.originXY),
+          to: placeXYZ(e.to, p.rotationDeg, p.originXY),
+        };
+      case 'end':
+      case 'anchor':
+        return { ...e, at: placeXYZ(e.at, p.rotationDeg, p.originXY) };
+      case 'support':
+      case 'mast':
+        return { ...e, at: placeXY(e.at, p.rotationDeg, p.originXY) };
+    }
+  });
+}
+
+/** Radial elements of a ground system at `base` (canonical), lengths in canonical bearing order. */
+export function radialElements(lengthsM: readonly number[], base: XYZ = [0, 0, 0]): Element[] {
+  const n = lengthsM.length;
+  return lengthsM.map((len, k) => {
+    const b = (k * 2 * Math.PI) / n;
+    return {
+      kind: 'radial' as const,
+      label: `radial ${k + 1}`,
+      from: base,
+      to: [base[0] + len * Math.sin(b), base[1] + len * Math.cos(b), 0] as XYZ,
+    };
+  });
+}
+
+export const round = (v: number, digits = 2): number => Math.round(v * 10 ** digits) / 10 ** digits;
+
+/** Shortest radial worth laying, metres; shorter clipped radials are left out (common practice, no source). */
+export const MIN_RADIAL_M = 1;
+
+/**
+ * Radial lengths for a ground system at site point `baseXY`, `count` radials of `nominalM` at equal
+ * bearings from canonical north (site bearing = canonical + rotationDeg), each clipped by the lot and
+ * keep-outs. Radials shorter than MIN_RADIAL_M are left out.
+ */
+export function clippedRadials(
+  clip: (bearingDeg: number, nominalM: number) => number,
+  rotationDeg: number,
+  count: number,
+  nominalM: number,
+): number[] {
+  const out: number[] = [];
+  for (let k = 0; k < count; k++) {
+    const len = clip(rotationDeg + (k * 360) / count, nominalM);
+    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
+  }
+  return out;
+}

@@ -1,0 +1,168 @@
+/**
+ * Horizontal (or sloping) centre-fed half-wave dipole between two supports.
+ *
+ * Canonical frame: support A at (−s/2, 0), support B at (+s/2, 0), heights hA and hB; the top wire
+ * runs along the straight line between the two attachment points. If the span s is at least the
+ * wire length L, the wire is centred in the span and tied with ropes to both supports; if the span
+ * is shorter, the top wire runs the whole span and each end hangs straight down by (L − s)/2
+ * (so the lower end may fall below the end-height limit, which rejects the placement).
+ * Trim dimension: the total wire length L.
+ */
+import type { Element } from '../site/feasibility.ts';
+import type { XYZ } from '../site/geometry.ts';
+import { bearingOf, dist2 } from '../site/geometry.ts';
+import { MAX_ROPE_M, cut, lambdaOf, num, round, wire, wireLength } from './common.ts';
+import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
+
+interface Shape {
+  top: [XYZ, XYZ];
+  drops: [XYZ, XYZ][];
+  ropes: [XYZ, XYZ][];
+  ends: XYZ[];
+}
+
+function shape(d: Design, L: number): Shape {
+  const s = num(d, 'spanM');
+  const hA = num(d, 'heightAM');
+  const hB = num(d, 'heightBM');
+  const A: XYZ = [-s / 2, 0, hA];
+  const B: XYZ = [s / 2, 0, hB];
+  const lineLen = Math.hypot(s, hB - hA);
+  if (L >= lineLen) {
+    const drop = (L - lineLen) / 2;
+    return {
+      top: [A, B],
+      drops:
+        drop > 1e-3
+          ? [
+              [A, [A[0], 0, hA - drop]],
+              [B, [B[0], 0, hB - drop]],
+            ]
+          : [],
+      ropes: [],
+      ends:
+        drop > 1e-3
+          ? [
+              [A[0], 0, hA - drop],
+              [B[0], 0, hB - drop],
+            ]
+          : [A, B],
+    };
+  }
+  const t0 = (1 - L / lineLen) / 2;
+  const at = (t: number): XYZ => [A[0] + t * s, 0, hA + t * (hB - hA)];
+  const P = at(t0);
+  const Q = at(1 - t0);
+  return {
+    top: [P, Q],
+    drops: [],
+    ropes: [
+      [A, P],
+      [Q, B],
+    ],
+    ends: [P, Q],
+  };
+}
+
+export const dipoleBuilder: Builder = {
+  type: 'dipole',
+  label: 'Dipole between two supports',
+  propose({ site, band }) {
+    const proposals: Proposal[] = [];
+    const rejections: Rejection[] = [];
+    const sup = site.site.supports;
+    const nominal = 0.48 * band.wavelengthM;
+    for (let i = 0; i < sup.length; i++) {
+      for (let j = i + 1; j < sup.length; j++) {
+        const a = sup[i];
+        const b = sup[j];
+        const s = dist2(a.xy, b.xy);
+        const where = `between ${a.name} and ${b.name}`;
+        const ropeM = (s - nominal) / 2;
+        if (ropeM > MAX_ROPE_M) {
+          rejections.push({
+            type: 'dipole',
+            band: band.band,
+            supports: [a.id, b.id],
+            where,
+            reasons: [
+              `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${MAX_ROPE_M} m rope limit`,
+            ],
+          });
+          continue;
+        }
+        const bearing = bearingOf(a.xy, b.xy);
+        proposals.push({
+          design: {
+            type: 'dipole',
+            band: band.band,
+            designFreqHz: band.designFreqHz,
+            params: { spanM: round(s, 3), heightAM: a.heightM, heightBM: b.heightM },
+            trim: {
+              name: 'total wire length',
+              nominalM: nominal,
+              minM: 0.4 * band.wavelengthM,
+              maxM: 0.56 * band.wavelengthM,
+            },
+          },
+          placement: {
+            originXY: [(a.xy[0] + b.xy[0]) / 2, (a.xy[1] + b.xy[1]) / 2],
+            rotationDeg: bearing - 90,
+          },
+          supports: [a.id, b.id],
+          groupKey: `dipole:${a.id}:${b.id}`,
+          where,
+          broadsideDeg: [(bearing + 90) % 360, (bearing + 270) % 360],
+        });
+      }
+    }
+    return { proposals, rejections };
+  },
+  model(d, L): WireModel {
+    const lambda = lambdaOf(d);
+    const sh = shape(d, L);
+    const wires = [wire(sh.top[0], sh.top[1], lambda, 'top wire', true)];
+    sh.drops.forEach(([p, q], k) => wires.push(wire(p, q, lambda, k === 0 ? 'end A drop' : 'end B drop')));
+    return { wires, feeds: [{ wire: 0, position: 0.5 }], radials: [] };
+  },
+  elements(d, L): Element[] {
+    const sh = shape(d, L);
+    const s = num(d, 'spanM');
+    const els: Element[] = [
+      { kind: 'wire', label: 'top wire', from: sh.top[0], to: sh.top[1] },
+      ...sh.drops.map(([p, q], k): Element => ({
+        kind: 'wire',
+        label: `end ${k === 0 ? 'A' : 'B'} drop`,
+        from: p,
+        to: q,
+      })),
+      ...sh.ropes.map(([p, q], k): Element => ({
+        kind: 'rope',
+        label: `rope to support ${k === 0 ? 'A' : 'B'}`,
+        from: p,
+        to: q,
+      })),
+      ...sh.ends.map((p, k): Element => ({ kind: 'end', label: `wire end ${k === 0 ? 'A' : 'B'}`, at: p })),
+      { kind: 'support', label: 'support A', supportId: 'A', at: [-s / 2, 0], heightM: num(d, 'heightAM') },
+      { kind: 'support', label: 'support B', supportId: 'B', at: [s / 2, 0], heightM: num(d, 'heightBM') },
+    ];
+    return els;
+  },
+  heights(d, L) {
+    const sh = shape(d, L);
+    return [
+      { label: 'feed point', heightM: (sh.top[0][2] + sh.top[1][2]) / 2 },
+      { label: 'end A', heightM: sh.ends[0][2] },
+      { label: 'end B', heightM: sh.ends[1][2] },
+    ];
+  },
+  cutList(d, L) {
+    const sh = shape(d, L);
+    const items = [cut('dipole leg (centre insulator to end)', 2, L / 2)];
+    if (sh.ropes.length)
+      items.push({
+        ...cut('rope to support', 2, wireLength({ from: sh.ropes[0][0], to: sh.ropes[0][1] }), 0),
+      });
+    return items;
+  },
+};

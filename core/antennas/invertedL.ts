@@ -1,0 +1,161 @@
+/**
+ * Inverted-L: a vertical wire up support A, the rest running toward support B at the top, fed at
+ * the base against buried radials. Proposed where A is too short for a quarter-wave vertical.
+ *
+ * Canonical frame: base at the origin, A's attachment at height hA; B at (s, 0) with attachment
+ * height hB. The upper wire runs from A's top along the straight line toward B's attachment for
+ * L − hA metres and is tied to B by a rope for the rest. Trim dimension: the total wire length L.
+ */
+import { clipRadial } from '../site/feasibility.ts';
+import type { Element } from '../site/feasibility.ts';
+import type { XYZ } from '../site/geometry.ts';
+import { bearingOf, dist2 } from '../site/geometry.ts';
+import {
+  MAX_ROPE_M,
+  RADIAL_RADIUS_M,
+  arr,
+  clippedRadials,
+  cut,
+  lambdaOf,
+  num,
+  radialElements,
+  round,
+  wire,
+} from './common.ts';
+import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
+import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
+
+/** Nominal total length as a fraction of the wavelength (common practice, no source). */
+export const INVERTED_L_NOMINAL_FRACTION = 0.26;
+
+function shape(d: Design, L: number): { top: XYZ; end: XYZ; far: XYZ } {
+  const hA = num(d, 'heightAM');
+  const hB = num(d, 'heightBM');
+  const s = num(d, 'spanM');
+  const top: XYZ = [0, 0, hA];
+  const far: XYZ = [s, 0, hB];
+  const run = Math.hypot(s, hB - hA);
+  const t = Math.max(0, L - hA) / run;
+  return { top, end: [t * s, 0, hA + t * (hB - hA)], far };
+}
+
+export const invertedLBuilder: Builder = {
+  type: 'inverted-l',
+  label: 'Inverted-L up one support toward another',
+  propose({ site, band }) {
+    const proposals: Proposal[] = [];
+    const rejections: Rejection[] = [];
+    const st = site.site.settings;
+    const lambda = band.wavelengthM;
+    const nominal = INVERTED_L_NOMINAL_FRACTION * lambda;
+    const sup = site.site.supports;
+    for (const a of sup) {
+      if (a.heightM >= VERTICAL_NOMINAL_FRACTION * lambda) continue; // tall enough for a plain vertical
+      if (a.heightM < 0.08 * lambda) {
+        rejections.push({
+          type: 'inverted-l',
+          band: band.band,
+          supports: [a.id],
+          where: `up ${a.name}`,
+          reasons: [
+            `${a.name} at ${a.heightM.toFixed(1)} m is too short for the vertical part (at least ${(0.08 * lambda).toFixed(1)} m)`,
+          ],
+        });
+        continue;
+      }
+      for (const b of sup) {
+        if (b === a) continue;
+        const s = dist2(a.xy, b.xy);
+        const run = Math.hypot(s, b.heightM - a.heightM);
+        const horiz = nominal - a.heightM;
+        const where = `up ${a.name} toward ${b.name}`;
+        if (run < horiz * 1.1 || run - horiz > MAX_ROPE_M) {
+          rejections.push({
+            type: 'inverted-l',
+            band: band.band,
+            supports: [a.id, b.id],
+            where,
+            reasons: [
+              run < horiz * 1.1
+                ? `${b.name} is ${s.toFixed(1)} m away, too close for a ${horiz.toFixed(1)} m top wire`
+                : `${b.name} is ${s.toFixed(1)} m away: the rope would be ${(run - horiz).toFixed(1)} m, over the ${MAX_ROPE_M} m limit`,
+            ],
+          });
+          continue;
+        }
+        const bearing = bearingOf(a.xy, b.xy);
+        // Radials are listed from canonical north; the placement rotates by bearing − 90, so re-clip in that frame.
+        const rot = bearing - 90;
+        const lengths = clippedRadials(
+          (bb, n) => clipRadial(site, a.xy, bb, n),
+          rot,
+          st.radialCount,
+          0.25 * lambda,
+        );
+        proposals.push({
+          design: {
+            type: 'inverted-l',
+            band: band.band,
+            designFreqHz: band.designFreqHz,
+            params: { heightAM: a.heightM, heightBM: b.heightM, spanM: round(s, 3), radialLengthsM: lengths },
+            trim: {
+              name: 'total wire length',
+              nominalM: nominal,
+              minM: a.heightM + 0.02 * lambda,
+              maxM: Math.min(0.4 * lambda, a.heightM + run),
+            },
+          },
+          placement: { originXY: a.xy, rotationDeg: rot },
+          supports: [a.id, b.id],
+          groupKey: `inverted-l:${a.id}:${b.id}`,
+          where,
+          broadsideDeg: [],
+        });
+      }
+    }
+    return { proposals, rejections };
+  },
+  model(d, L): WireModel {
+    const lambda = lambdaOf(d);
+    const { top, end } = shape(d, L);
+    const v = wire([0, 0, 0], top, lambda, 'vertical part');
+    const lengths = arr(d, 'radialLengthsM');
+    return {
+      wires: [v, wire(top, end, lambda, 'top part')],
+      feeds: [{ wire: 0, position: 0 }],
+      radials: lengths.length
+        ? [{ wire: 0, count: lengths.length, lengthsM: lengths, radiusM: RADIAL_RADIUS_M }]
+        : [],
+    };
+  },
+  elements(d, L): Element[] {
+    const { top, end, far } = shape(d, L);
+    return [
+      { kind: 'wire', label: 'vertical part', from: [0, 0, 0], to: top },
+      { kind: 'wire', label: 'top part', from: top, to: end },
+      { kind: 'rope', label: 'rope to the far support', from: end, to: far },
+      { kind: 'end', label: 'far end', at: end },
+      { kind: 'support', label: 'support A', supportId: 'A', at: [0, 0], heightM: num(d, 'heightAM') },
+      { kind: 'support', label: 'support B', supportId: 'B', at: [far[0], 0], heightM: num(d, 'heightBM') },
+      ...radialElements(arr(d, 'radialLengthsM')),
+    ];
+  },
+  heights(d, L) {
+    const { top, end } = shape(d, L);
+    return [
+      { label: 'feed point (base)', heightM: 0 },
+      { label: 'top of the vertical part', heightM: top[2] },
+      { label: 'far end', heightM: end[2] },
+    ];
+  },
+  cutList(d, L) {
+    const lengths = arr(d, 'radialLengthsM');
+    const items = [cut('radiator (vertical and top in one piece)', 1, L)];
+    const byLen = new Map<number, number>();
+    for (const l of lengths) byLen.set(l, (byLen.get(l) ?? 0) + 1);
+    [...byLen.entries()]
+      .sort((p, q) => q[0] - p[0])
+      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1)));
+    return items;
+  },
+};

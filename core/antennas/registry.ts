@@ -1,0 +1,24 @@
+/**
+ * The registry of antenna types. Adding a type means writing one builder module
+ * (core/antennas/<type>.ts implementing Builder) and listing it here.
+ */
+import { dipoleBuilder } from './dipole.ts';
+import { halfSquareBuilder } from './halfSquare.ts';
+import { invertedLBuilder } from './invertedL.ts';
+import { invertedVBuilder } from './invertedV.ts';
+import type { AntennaTypeId, Builder } from './types.ts';
+import { verticalBuilder } from './vertical.ts';
+
+export const BUILDERS: readonly Builder[] = [
+  dipoleBuilder,
+  invertedVBuilder,
+  halfSquareBuilder,
+  verticalBuilder,
+  invertedLBuilder,
+];
+
+export function builderFor(type: AntennaTypeId): Builder {
+  const b = BUILDERS.find((x) => x.type === type);
+  if (!b) throw new Error(`no builder for antenna type "${type}"`);
+  return b;
+}

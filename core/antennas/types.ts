@@ -1,0 +1,125 @@
+/**
+ * The common shape of an antenna type. A builder proposes placements of its type on a site and
+ * turns a design (a serialisable description: type, band, parameters, the trim dimension) into
+ * wire geometry in metres in the design's own canonical frame. A placement puts that canonical
+ * frame on the site by a compass rotation and a translation; over laterally uniform ground the
+ * antenna's pattern rotates with it exactly, so one evaluation serves every orientation.
+ */
+import type { Band } from '../project/schema.ts';
+import type { XY } from '../site/frame.ts';
+import type { Element, PreparedSite } from '../site/feasibility.ts';
+import type { XYZ } from '../site/geometry.ts';
+
+export type AntennaTypeId =
+  'dipole' | 'inverted-v' | 'half-square' | 'vertical' | 'inverted-l' | (string & {});
+
+/** One straight conductor of the model. */
+export interface ModelWire {
+  from: XYZ;
+  to: XYZ;
+  radiusM: number;
+  segments?: number;
+  material?: 'copper' | 'aluminium' | 'perfect';
+  /** Plain-words name used in cut lists and reasons. */
+  label: string;
+}
+
+export interface ModelFeed {
+  wire: number;
+  /** Fraction along the wire from its `from` end, 0..1; the segment holding it carries the source. */
+  position: number;
+}
+
+export interface ModelRadials {
+  /** Index of the wire whose end lies on the ground. */
+  wire: number;
+  count: number;
+  /** One length per radial, metres, in order of bearing from the design's canonical north, equally spaced. */
+  lengthsM: number[];
+  radiusM: number;
+}
+
+/** Wire geometry in the canonical frame, in the solver's input form (less frequencies, ground and pattern). */
+export interface WireModel {
+  wires: ModelWire[];
+  feeds: ModelFeed[];
+  radials: ModelRadials[];
+}
+
+export type DesignParams = Record<string, number | number[]>;
+
+/** A serialisable antenna design. Its evaluation is a pure function of this, the soil and the frequency. */
+export interface Design {
+  type: AntennaTypeId;
+  band: Band;
+  designFreqHz: number;
+  params: DesignParams;
+  /** The dimension adjusted to bring the feed to resonance, with its nominal value and limits (metres). */
+  trim: { name: string; nominalM: number; minM: number; maxM: number };
+}
+
+/** Canonical frame → site: rotate clockwise (compass sense) by rotationDeg about the origin, then translate. */
+export interface Placement {
+  originXY: XY;
+  rotationDeg: number;
+}
+
+export interface Proposal {
+  design: Design;
+  placement: Placement;
+  /** Ids of the supports used. */
+  supports: string[];
+  /** Distinct-placement key: proposals with the same key are variants of one placement (orientations). */
+  groupKey: string;
+  /** Short human description of where it goes. */
+  where: string;
+  /** Bearings of strongest broadside radiation in plan, degrees (empty for an omnidirectional vertical). */
+  broadsideDeg: number[];
+}
+
+/** A type-level or placement-level reason a proposal was not made (before any solver work). */
+export interface Rejection {
+  type: AntennaTypeId;
+  band: Band;
+  supports: string[];
+  where: string;
+  reasons: string[];
+}
+
+export interface BandPlan {
+  band: Band;
+  designFreqHz: number;
+  wavelengthM: number;
+}
+
+export interface BuildContext {
+  site: PreparedSite;
+  band: BandPlan;
+}
+
+export interface CutItem {
+  label: string;
+  count: number;
+  /** Electrical length of one piece as modelled, metres. */
+  lengthM: number;
+  /** What to cut: lengthM plus the allowance for loops and connections. */
+  cutLengthM: number;
+}
+
+export interface HeightItem {
+  label: string;
+  heightM: number;
+}
+
+export interface Builder {
+  type: AntennaTypeId;
+  label: string;
+  /** Proposals (before solver work) and the reasons some were not proposed. */
+  propose(ctx: BuildContext): { proposals: Proposal[]; rejections: Rejection[] };
+  /** Wire model at the trim value, canonical frame. */
+  model(design: Design, trimM: number): WireModel;
+  /** Everything that must fit on the site (wires, ropes, ends, anchors, supports, radials), canonical frame. */
+  elements(design: Design, trimM: number): Element[];
+  heights(design: Design, trimM: number): HeightItem[];
+  cutList(design: Design, trimM: number): CutItem[];
+}

@@ -1,0 +1,50 @@
+/**
+ * The contract between the planner and the field solver. The planner never computes fields: it
+ * sends wire models to an Evaluator and reads back impedance, power balance and gain. The
+ * adapter to the project's method-of-moments solver lives in ./solver.ts; tests of planning
+ * mechanics may pass their own Evaluator.
+ */
+import type { Soil } from '../project/schema.ts';
+import type { WireModel } from '../antennas/types.ts';
+
+export type EvalGround = Soil | 'perfect' | 'free-space';
+
+export interface PatternRequest {
+  elevationsDeg: readonly number[];
+  azimuthsDeg: readonly number[];
+}
+
+export interface EvalRequest {
+  model: WireModel;
+  ground: EvalGround;
+  frequenciesHz: readonly number[];
+  /** Pattern grid, or null when only the feed is wanted. */
+  pattern: PatternRequest | null;
+}
+
+export interface EvalFrequency {
+  freqHz: number;
+  /** Feed-point impedance [R, X], ohms. */
+  zOhm: [number, number];
+  inputPowerW: number;
+  radiatedPowerW: number;
+  conductorLossW: number;
+  groundLossW: number;
+  /** Total gain, dBi, on the requested grid: elevation-major (index = iEl·nAz + iAz). */
+  gainDbi: Float64Array | null;
+  diagnostics: string[];
+}
+
+/** Evaluates a wire model over ground at each frequency. Synchronous, deterministic. */
+export type Evaluator = (request: EvalRequest) => EvalFrequency[];
+
+/** Reference impedance of the feed line for SWR, ohms (50 Ω coax). */
+export const Z0_OHM = 50;
+
+/** SWR of impedance z on a line of impedance z0. */
+export function swrOf([r, x]: readonly [number, number], z0 = Z0_OHM): number {
+  const nr = r - z0;
+  const dr = r + z0;
+  const g = Math.sqrt((nr * nr + x * x) / (dr * dr + x * x));
+  return g >= 1 ? Infinity : (1 + g) / (1 - g);
+}

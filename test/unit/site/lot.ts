@@ -1,0 +1,63 @@
+/** Test lots written in metres and converted with the site frame (invented geometry). */
+import {
+  ProjectSchema,
+  PROJECT_SCHEMA_VERSION,
+  type Project,
+  type ProjectInput,
+} from '../../../core/project/schema.ts';
+import { makeSiteFrame } from '../../../core/site/frame.ts';
+
+export const TEST_ORIGIN: [number, number] = [5.5, 47.25];
+const frame = makeSiteFrame(TEST_ORIGIN);
+export const ll = (x: number, y: number): [number, number] => frame.toLonLat([x, y]);
+export const ring = (pts: [number, number][]): [number, number][] => {
+  const r = pts.map(([x, y]) => ll(x, y));
+  return [...r, r[0]];
+};
+
+export interface LotSpec {
+  /** Rectangle half-widths around the origin, metres. */
+  halfX?: number;
+  halfY?: number;
+  supports?: { id: string; x: number; y: number; h: number }[];
+  keepOuts?: ProjectInput['keepOuts'];
+  settings?: Partial<Project['settings']>;
+  soil?: Project['soil'];
+  targets?: Project['targets'];
+  bands?: Project['bands'];
+  station?: [number, number];
+}
+
+export function testLot(spec: LotSpec): Project {
+  const hx = spec.halfX ?? 50;
+  const hy = spec.halfY ?? 30;
+  return ProjectSchema.parse({
+    schemaVersion: PROJECT_SCHEMA_VERSION,
+    id: 'test-lot',
+    name: 'Test lot',
+    boundary: {
+      type: 'Polygon',
+      coordinates: [
+        ring([
+          [-hx, -hy],
+          [hx, -hy],
+          [hx, hy],
+          [-hx, hy],
+        ]),
+      ],
+    },
+    supports: (spec.supports ?? []).map((s) => ({
+      id: s.id,
+      name: s.id,
+      kind: 'tree',
+      position: ll(s.x, s.y),
+      usableHeightM: s.h,
+    })),
+    keepOuts: spec.keepOuts ?? [],
+    station: ll(...(spec.station ?? [0, 0])),
+    soil: spec.soil ?? { classId: 'average' },
+    targets: spec.targets ?? [],
+    bands: spec.bands ?? ['80m'],
+    settings: { ...ProjectSchema.shape.settings.parse(undefined), ...spec.settings },
+  });
+}
