@@ -1,0 +1,86 @@
+// Geometry helpers of the lot editor.
+import { describe, expect, it } from 'vitest';
+import { buildDemoProject, demoLonLat } from '../../../data/demo/demoProject.ts';
+import {
+  closeRing,
+  formatArea,
+  maidenhead,
+  parsePlace,
+  perimeterM,
+  pointWarnings,
+  polygonAreaM2,
+  ringSides,
+} from './geo.ts';
+
+describe('lot measures', () => {
+  const demo = buildDemoProject();
+  it('measures the demo lot sides as laid out in metres', () => {
+    const sides = ringSides(demo.boundary!.coordinates[0]!).map((s) => s.lengthM);
+    // Layout corners (0,0) (165,0) (172,104) (4,98): side lengths by Pythagoras.
+    const expected = [165, Math.hypot(7, 104), Math.hypot(168, 6), Math.hypot(4, 98)];
+    sides.forEach((s, i) => expect(Math.abs(s - expected[i]!) / expected[i]!).toBeLessThan(0.005));
+    expect(perimeterM(demo.boundary!)).toBeCloseTo(
+      expected.reduce((a, b) => a + b),
+      -1,
+    );
+  });
+
+  it('gives the demo lot 1.68 ha (shoelace of the layout corners)', () => {
+    const shoelace =
+      0.5 * Math.abs(0 * 0 - 165 * 0 + (165 * 104 - 172 * 0) + (172 * 98 - 4 * 104) + (4 * 0 - 0 * 98));
+    expect(Math.abs(polygonAreaM2(demo.boundary!) - shoelace) / shoelace).toBeLessThan(0.01);
+    expect(formatArea(shoelace, 'metric')).toBe('1.68 ha');
+    expect(formatArea(shoelace, 'imperial')).toBe('4.15 acres');
+    expect(formatArea(500, 'metric')).toBe('500 m²');
+    expect(formatArea(500, 'imperial')).toBe('5382 ft²');
+  });
+
+  it('closes a ring once', () => {
+    expect(
+      closeRing([
+        [0, 0],
+        [1, 0],
+        [1, 1],
+      ]),
+    ).toHaveLength(4);
+    expect(
+      closeRing([
+        [0, 0],
+        [1, 0],
+        [1, 1],
+        [0, 0],
+      ]),
+    ).toHaveLength(4);
+    expect(closeRing([])).toEqual([]);
+  });
+});
+
+describe('Maidenhead locator', () => {
+  it('computes field, square and subsquare', () => {
+    expect(maidenhead([0, 0])).toBe('JJ00aa');
+    expect(maidenhead([-0.0001, -0.0001])).toBe('II99xx');
+    // -93.75, 44.90: x = 86.25 → E, 3, d; y = 134.90 → N, 4, v.
+    expect(maidenhead([-93.75, 44.9])).toBe('EN34dv');
+    expect(maidenhead([180, 90])).toBe('RR99xx');
+  });
+
+  it('parses a locator or "lat, lon" back to a point', () => {
+    const p = parsePlace('EN34dv')!;
+    expect(maidenhead(p)).toBe('EN34dv');
+    expect(parsePlace('44.9, -93.75')).toEqual([-93.75, 44.9]);
+    expect(parsePlace('jj00')).toEqual([1, 0.5]);
+    expect(parsePlace('95, 10')).toBeNull();
+    expect(parsePlace('somewhere')).toBeNull();
+  });
+});
+
+describe('pointWarnings', () => {
+  const demo = buildDemoProject();
+  it('warns inside the power-line band and outside the lot', () => {
+    const nearLine = demoLonLat(80, 5);
+    expect(pointWarnings(nearLine, demo).join(' ')).toMatch(/clearance of “Distribution line/);
+    expect(pointWarnings(demoLonLat(100, 60), demo)).toEqual([]);
+    expect(pointWarnings(demoLonLat(100, 140), demo)).toEqual(['Outside the lot boundary.']);
+    expect(pointWarnings(demoLonLat(25, 20), demo)[0]).toBe('Inside “House”.');
+  });
+});

@@ -1,0 +1,162 @@
+/**
+ * Plane and sphere helpers for the lot editor: side lengths and area of the lot, clearance bands
+ * around keep-outs, the Maidenhead locator of a point, and new ids. Positions are [lon, lat]
+ * (GeoJSON order), lengths metres, areas square metres.
+ */
+import {
+  area as turfArea,
+  booleanPointInPolygon,
+  buffer as turfBuffer,
+  distance as turfDistance,
+} from '@turf/turf';
+import type { Feature, MultiPolygon, Polygon as GeoPolygon } from 'geojson';
+import type { KeepOut, LonLat, Polygon, Project } from '../../../core/project/schema.ts';
+import { mToFeet, type UnitSystem } from '../../../core/units/index.ts';
+
+/** Great-circle distance in metres (turf's haversine on the mean Earth radius; < 0.5 % off geodesic). */
+export function distanceM(a: LonLat, b: LonLat): number {
+  return turfDistance(a, b, { units: 'meters' });
+}
+
+export interface Side {
+  from: LonLat;
+  to: LonLat;
+  mid: LonLat;
+  lengthM: number;
+}
+
+/** The sides of a closed ring (first position repeated at the end), with their lengths. */
+export function ringSides(ring: readonly LonLat[]): Side[] {
+  const sides: Side[] = [];
+  for (let i = 0; i + 1 < ring.length; i++) {
+    const from = ring[i]!;
+    const to = ring[i + 1]!;
+    sides.push({
+      from,
+      to,
+      mid: [(from[0] + to[0]) / 2, (from[1] + to[1]) / 2],
+      lengthM: distanceM(from, to),
+    });
+  }
+  return sides;
+}
+
+export function polygonAreaM2(p: Polygon): number {
+  return turfArea({ type: 'Feature', properties: {}, geometry: p });
+}
+
+export function perimeterM(p: Polygon): number {
+  return ringSides(p.coordinates[0] ?? []).reduce((s, side) => s + side.lengthM, 0);
+}
+
+const M2_PER_HA = 10_000;
+const M2_PER_ACRE = 4046.8564224; // international acre, exact
+
+/** "1.62 ha" or "850 m²"; "4.00 acres" or "9150 ft²". */
+export function formatArea(m2: number, units: UnitSystem): string {
+  if (units === 'metric')
+    return m2 >= M2_PER_HA ? `${(m2 / M2_PER_HA).toFixed(2)} ha` : `${Math.round(m2)} m²`;
+  const ft2 = m2 * mToFeet(1) ** 2;
+  return m2 >= M2_PER_ACRE / 4 ? `${(m2 / M2_PER_ACRE).toFixed(2)} acres` : `${Math.round(ft2)} ft²`;
+}
+
+/** Close an open list of corners into a ring (first position repeated at the end). */
+export function closeRing(corners: readonly LonLat[]): LonLat[] {
+  const first = corners[0];
+  const last = corners[corners.length - 1];
+  if (!first || !last) return [];
+  const same = first[0] === last[0] && first[1] === last[1];
+  return same
+    ? corners.map((c) => [c[0], c[1]])
+    : [...corners.map((c): LonLat => [c[0], c[1]]), [first[0], first[1]]];
+}
+
+/** The clearance band around a keep-out (a power line's fall zone, a building's margin), or null if none. */
+export function clearanceBand(k: KeepOut): Feature<GeoPolygon | MultiPolygon> | null {
+  if (k.clearanceM <= 0) return null;
+  const band = turfBuffer({ type: 'Feature', properties: {}, geometry: k.geometry }, k.clearanceM, {
+    units: 'meters',
+    steps: 16,
+  });
+  return band ?? null;
+}
+
+/**
+ * Maidenhead locator (field, square, subsquare: 6 characters) of a [lon, lat] point.
+ * Fields are 20° × 10°, squares 2° × 1°, subsquares 5′ × 2.5′ (IARU Region 1 convention).
+ */
+export function maidenhead(p: LonLat): string {
+  const x = Math.min(Math.max(p[0] + 180, 0), 360 - 1e-9);
+  const y = Math.min(Math.max(p[1] + 90, 0), 180 - 1e-9);
+  const A = 65;
+  const a = 97;
+  const field = String.fromCharCode(A + Math.floor(x / 20), A + Math.floor(y / 10));
+  const square = `${Math.floor((x % 20) / 2)}${Math.floor(y % 10)}`;
+  const sub = String.fromCharCode(a + Math.floor(((x % 2) * 60) / 5), a + Math.floor(((y % 1) * 60) / 2.5));
+  return field + square + sub;
+}
+
+/** Parse "lat, lon" in decimal degrees or a 4/6-character Maidenhead locator to [lon, lat]. */
+export function parsePlace(text: string): LonLat | null {
+  const t = text.trim();
+  const m = /^(-?\d+(?:\.\d+)?)\s*[, ]\s*(-?\d+(?:\.\d+)?)$/.exec(t);
+  if (m) {
+    const lat = Number(m[1]);
+    const lon = Number(m[2]);
+    if (Math.abs(lat) <= 90 && Math.abs(lon) <= 180) return [lon, lat];
+    return null;
+  }
+  const g = /^([A-R]{2})(\d{2})([A-X]{2})?$/i.exec(t);
+  if (!g) return null;
+  const f = g[1]!.toUpperCase();
+  const s = g[2]!;
+  let lon = (f.charCodeAt(0) - 65) * 20 - 180 + Number(s[0]) * 2;
+  let lat = (f.charCodeAt(1) - 65) * 10 - 90 + Number(s[1]);
+  if (g[3]) {
+    const ss = g[3].toLowerCase();
+    lon += ((ss.charCodeAt(0) - 97) * 5 + 2.5) / 60;
+    lat += ((ss.charCodeAt(1) - 97) * 2.5 + 1.25) / 60;
+  } else {
+    lon += 1;
+    lat += 0.5;
+  }
+  return [lon, lat];
+}
+
+/** A new id for a support or keep-out, unique within a project (letters, digits, "-"). */
+export function newId(prefix: string, taken: Iterable<string>): string {
+  const used = new Set(taken);
+  for (;;) {
+    const id = `${prefix}-${Date.now().toString(36)}${Math.floor(Math.random() * 1296)
+      .toString(36)
+      .padStart(2, '0')}`;
+    if (!used.has(id)) return id;
+  }
+}
+
+/** "Support 3": the first "<base> n" not yet used among the names. */
+export function nextName(base: string, names: readonly string[]): string {
+  for (let n = 1; ; n++) {
+    const name = `${base} ${n}`;
+    if (!names.includes(name)) return name;
+  }
+}
+
+/** Plain-words warnings about a point on the lot: in a keep-out's clearance, outside the lot. */
+export function pointWarnings(at: LonLat, p: Project): string[] {
+  const out: string[] = [];
+  for (const k of p.keepOuts) {
+    const inShape = k.geometry.type === 'Polygon' && booleanPointInPolygon(at, k.geometry);
+    const band = clearanceBand(k);
+    if (inShape) out.push(`Inside “${k.name}”.`);
+    else if (band && booleanPointInPolygon(at, band)) {
+      out.push(
+        k.kind === 'power-line'
+          ? `Inside the clearance of “${k.name}”: anything attached here could reach the line if it falls.`
+          : `Inside the clearance kept around “${k.name}”.`,
+      );
+    }
+  }
+  if (p.boundary && !booleanPointInPolygon(at, p.boundary)) out.push('Outside the lot boundary.');
+  return out;
+}

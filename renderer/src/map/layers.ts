@@ -1,0 +1,182 @@
+/**
+ * Builds the Leaflet layers that show a project: the lot boundary with its side lengths, the
+ * keep-outs with their clearance bands, the supports with name and usable height, and the
+ * station. Pure construction: the caller adds the group to the map and wires the handlers.
+ */
+import type * as GeoJSON from 'geojson';
+import L from './leaflet.ts';
+import type { KeepOut, LonLat, Project, Support } from '../../../core/project/schema.ts';
+import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
+import { clearanceBand, ringSides } from '../lib/geo.ts';
+import type { Selection } from '../state/project.svelte.ts';
+
+export interface LayerHandlers {
+  select(s: Selection): void;
+  moveSupport(id: string, to: LonLat): void;
+  moveStation(to: LonLat): void;
+}
+
+export interface LayerOptions {
+  units: UnitSystem;
+  selection: Selection;
+  /** Supports and the station can be dragged (select tool only). */
+  draggable: boolean;
+  /** Layers react to clicks (off while a drawing tool is active, so clicks reach the map). */
+  interactive: boolean;
+}
+
+export const COLOURS = {
+  boundary: '#2b6f77',
+  boundarySelected: '#0f4c55',
+  building: '#7b5e4b',
+  powerLine: '#c2410c',
+  band: '#e07b39',
+} as const;
+
+export const toLatLng = (p: LonLat): L.LatLngTuple => [p[1], p[0]];
+export const toLonLat = (ll: L.LatLng): LonLat => [ll.lng, ll.lat];
+
+const stop = (e: L.LeafletEvent): void => {
+  L.DomEvent.stopPropagation(e as L.LeafletMouseEvent);
+};
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+}
+
+function label(text: string, className: string): L.DivIcon {
+  return L.divIcon({
+    className: `yw-label ${className}`,
+    html: `<span>${escapeHtml(text)}</span>`,
+    iconSize: undefined,
+  });
+}
+
+/** One L.Polygon / L.Polyline per editable geometry, keyed so the caller can enable vertex editing. */
+export type Shape = L.Polyline<
+  GeoJSON.LineString | GeoJSON.MultiLineString | GeoJSON.Polygon | GeoJSON.MultiPolygon
+>;
+
+export interface BuiltLayers {
+  group: L.LayerGroup;
+  editable: Map<string, Shape>;
+}
+
+export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): BuiltLayers {
+  const group = L.layerGroup();
+  const editable = new Map<string, Shape>();
+  const sel = o.selection;
+
+  for (const k of p.keepOuts) {
+    const selected = sel?.kind === 'keepOut' && sel.id === k.id;
+    const layer = keepOutLayer(k, selected, o, group);
+    if (o.interactive) layer.on('click', (e) => (stop(e), h.select({ kind: 'keepOut', id: k.id })));
+    editable.set(`keepOut:${k.id}`, layer);
+  }
+
+  if (p.boundary) {
+    const selected = sel?.kind === 'boundary';
+    const ring = p.boundary.coordinates[0] ?? [];
+    const poly = L.polygon(ring.slice(0, -1).map(toLatLng), {
+      color: selected ? COLOURS.boundarySelected : COLOURS.boundary,
+      weight: selected ? 4 : 3,
+      fillOpacity: 0.05,
+      interactive: o.interactive,
+      className: 'yw-boundary',
+    }).addTo(group);
+    if (o.interactive) poly.on('click', (e) => (stop(e), h.select({ kind: 'boundary' })));
+    editable.set('boundary', poly);
+    for (const side of ringSides(ring)) {
+      L.marker(toLatLng(side.mid), {
+        icon: label(formatLength(side.lengthM, o.units), 'yw-side-label'),
+        interactive: false,
+        keyboard: false,
+        pmIgnore: true,
+      }).addTo(group);
+    }
+  }
+
+  for (const s of p.supports) supportMarker(s, sel?.kind === 'support' && sel.id === s.id, o, h).addTo(group);
+
+  if (p.station) {
+    const m = L.marker(toLatLng(p.station), {
+      icon: L.divIcon({
+        className: `yw-station${sel?.kind === 'station' ? ' is-selected' : ''}`,
+        html: '<span></span>',
+        iconSize: [22, 22],
+      }),
+      draggable: o.draggable,
+      interactive: o.interactive,
+      pmIgnore: true,
+      title: 'Station (drag to move)',
+    }).addTo(group);
+    m.bindTooltip('Station', { permanent: true, direction: 'bottom', offset: [0, 10], className: 'yw-tip' });
+    m.on('click', (e) => (stop(e), h.select({ kind: 'station' })));
+    m.on('dragend', () => h.moveStation(toLonLat(m.getLatLng())));
+  }
+  return { group, editable };
+}
+
+function supportMarker(s: Support, selected: boolean, o: LayerOptions, h: LayerHandlers): L.Marker {
+  const m = L.marker(toLatLng(s.position), {
+    icon: L.divIcon({
+      className: `yw-support yw-kind-${s.kind}${selected ? ' is-selected' : ''}`,
+      html: '<span></span>',
+      iconSize: [20, 20],
+    }),
+    draggable: o.draggable,
+    interactive: o.interactive,
+    pmIgnore: true,
+    title: `${s.name} (${s.kind}); drag to move`,
+    alt: s.name,
+  });
+  m.bindTooltip(`${escapeHtml(s.name)} · ${formatLength(s.usableHeightM, o.units)}`, {
+    permanent: true,
+    direction: 'right',
+    offset: [10, 0],
+    className: `yw-tip yw-support-tip${selected ? ' is-selected' : ''}`,
+  });
+  m.on('click', (e) => (stop(e), h.select({ kind: 'support', id: s.id })));
+  m.on('dragend', () => h.moveSupport(s.id, toLonLat(m.getLatLng())));
+  return m;
+}
+
+function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.LayerGroup): Shape {
+  const power = k.kind === 'power-line';
+  const colour = power ? COLOURS.powerLine : COLOURS.building;
+  const band = clearanceBand(k);
+  if (band) {
+    L.geoJSON(band, {
+      interactive: false,
+      pmIgnore: true,
+      style: {
+        color: power ? COLOURS.band : colour,
+        weight: 1.5,
+        dashArray: '6 4',
+        fillColor: power ? COLOURS.band : colour,
+        fillOpacity: power ? 0.16 : 0.04,
+      },
+    }).addTo(group);
+  }
+  const style: L.PolylineOptions = {
+    color: colour,
+    weight: selected ? 5 : power ? 3 : 2,
+    interactive: o.interactive,
+    className: `yw-keepout yw-keepout-${k.kind}`,
+  };
+  let layer: Shape;
+  if (k.geometry.type === 'LineString') layer = L.polyline(k.geometry.coordinates.map(toLatLng), style);
+  else {
+    const corners = (k.geometry.coordinates[0] ?? []).slice(0, -1).map(toLatLng);
+    layer = L.polygon(corners, { ...style, fillColor: colour, fillOpacity: 0.35 });
+  }
+  layer.addTo(group);
+  const clear = k.clearanceM > 0 ? ` · keep ${formatLength(k.clearanceM, o.units)} clear` : '';
+  layer.bindTooltip(`${escapeHtml(k.name)}${clear}`, {
+    permanent: power,
+    sticky: !power,
+    direction: 'top',
+    className: `yw-tip${power ? ' yw-tip-danger' : ''}`,
+  });
+  return layer;
+}

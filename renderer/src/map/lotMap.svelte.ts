@@ -1,0 +1,191 @@
+/**
+ * The one attach function for the map: it creates the Leaflet map on its element, keeps the
+ * layers in step with the session through effects, turns the drawing tools on and off, and
+ * removes everything when the element goes away.
+ */
+import { untrack } from 'svelte';
+import type { Attachment } from 'svelte/attachments';
+import './geoman.ts';
+import L from './leaflet.ts';
+import { COLOURS, buildLayers, toLatLng, toLonLat, type Shape } from './layers.ts';
+import type { LonLat, Project } from '../../../core/project/schema.ts';
+import type { Session } from '../state/session.svelte.ts';
+import type { ToolId } from '../state/ui.svelte.ts';
+
+const DRAW_STYLE = { color: COLOURS.boundarySelected, weight: 2 };
+
+function projectBounds(p: Project): L.LatLngBounds | null {
+  const pts: LonLat[] = [
+    ...(p.boundary?.coordinates[0] ?? []),
+    ...p.supports.map((s) => s.position),
+    ...(p.station ? [p.station] : []),
+    ...p.keepOuts.flatMap((k) =>
+      k.geometry.type === 'Polygon' ? (k.geometry.coordinates[0] ?? []) : k.geometry.coordinates,
+    ),
+  ];
+  return pts.length ? L.latLngBounds(pts.map(toLatLng)) : null;
+}
+
+function cornersOf(layer: Shape): LonLat[] {
+  const ll = layer.getLatLngs();
+  const flat = (Array.isArray(ll[0]) ? ll[0] : ll) as L.LatLng[];
+  return flat.map(toLonLat);
+}
+
+export function lotMap(session: Session): Attachment<HTMLElement> {
+  return (el) => {
+    const { doc, ui, overlay } = session;
+    const map = L.map(el, { maxZoom: 22, zoomSnap: 0.25, doubleClickZoom: false, keyboard: true });
+    map.setView([20, 0], 2);
+    map.attributionControl.setPrefix('Leaflet');
+    map.createPane('aerial').style.zIndex = '250';
+    map.pm.setGlobalOptions({ snappable: true, snapDistance: 12 });
+    const resize = new ResizeObserver(() => map.invalidateSize());
+    resize.observe(el);
+
+    map.on('click', (e: L.LeafletMouseEvent) => {
+      const at = toLonLat(e.latlng);
+      const tool = untrack(() => ui.tool);
+      if (tool === 'support') {
+        if (doc.addSupport(at)) ui.setTool('select');
+      } else if (tool === 'station') {
+        if (doc.setStation(at)) {
+          doc.select({ kind: 'station' });
+          ui.setTool('select');
+        }
+      } else if (tool === 'select') doc.select(null);
+    });
+    map.on('mousemove', (e: L.LeafletMouseEvent) => (ui.cursor = toLonLat(e.latlng)));
+    map.on('mouseout', () => (ui.cursor = null));
+    map.on('pm:create', (e) => {
+      const layer = e.layer as L.Polyline;
+      const corners = cornersOf(layer);
+      layer.remove();
+      const tool = untrack(() => ui.tool);
+      if (tool === 'boundary' && doc.setBoundary(corners)) doc.select({ kind: 'boundary' });
+      else if (tool === 'building')
+        doc.addKeepOut('building', { type: 'Polygon', coordinates: [[...corners, corners[0]!]] });
+      else if (tool === 'power-line')
+        doc.addKeepOut('power-line', { type: 'LineString', coordinates: corners });
+      ui.setTool('select');
+    });
+
+    // Project layers, rebuilt on every change (a lot holds tens of items, not thousands).
+    let current: L.LayerGroup | null = null;
+    $effect(() => {
+      const p = doc.project;
+      const selection = doc.selection;
+      const tool = ui.tool;
+      const units = doc.units;
+      current?.remove();
+      current = null;
+      if (!p) return;
+      const selecting = tool === 'select';
+      const built = buildLayers(
+        p,
+        { units, selection, draggable: selecting, interactive: selecting },
+        {
+          select: (s) => doc.select(s),
+          moveSupport: (id, to) => doc.moveSupport(id, to),
+          moveStation: (to) => doc.setStation(to),
+        },
+      );
+      current = built.group.addTo(map);
+      const key =
+        selection?.kind === 'boundary'
+          ? 'boundary'
+          : selection?.kind === 'keepOut'
+            ? `keepOut:${selection.id}`
+            : '';
+      const editable = built.editable.get(key);
+      if (selecting && editable) {
+        editable.pm.enable({ allowSelfIntersection: false, snappable: true, draggable: false });
+        editable.on('pm:edit', () => {
+          const corners = cornersOf(editable);
+          if (key === 'boundary') doc.setBoundary(corners, 'move lot corner');
+          else if (selection?.kind === 'keepOut') {
+            const k = doc.selectedKeepOut;
+            if (!k) return;
+            const geometry =
+              k.geometry.type === 'Polygon'
+                ? { type: 'Polygon' as const, coordinates: [[...corners, corners[0]!]] }
+                : { type: 'LineString' as const, coordinates: corners };
+            doc.updateKeepOut(k.id, { geometry }, `reshape ${k.name}`);
+          }
+        });
+      }
+    });
+
+    // Drawing tools.
+    $effect(() => {
+      const tool: ToolId = ui.tool;
+      map.pm.disableDraw();
+      el.dataset.tool = tool;
+      const opts = {
+        tooltips: false,
+        finishOnEnter: true,
+        allowSelfIntersection: false,
+        templineStyle: DRAW_STYLE,
+        hintlineStyle: { ...DRAW_STYLE, dashArray: '5 5' },
+      };
+      if (tool === 'boundary' || tool === 'building') map.pm.enableDraw('Polygon', opts);
+      else if (tool === 'power-line')
+        map.pm.enableDraw('Line', { ...opts, pathOptions: { color: COLOURS.powerLine } });
+    });
+
+    // Fit the project into view when one is opened (or asked to).
+    $effect(() => {
+      void ui.fitRequest;
+      const b = untrack(() => (doc.project ? projectBounds(doc.project) : null));
+      if (b) map.fitBounds(b, { padding: [40, 40], maxZoom: 20, animate: false });
+    });
+    $effect(() => {
+      const g = ui.goTo;
+      if (g) map.setView(toLatLng(g.at), Math.max(map.getZoom(), 17), { animate: false });
+    });
+
+    // Scale bar in the chosen units.
+    $effect(() => {
+      const metric = doc.units === 'metric';
+      const scale = L.control
+        .scale({ metric, imperial: !metric, position: 'bottomleft', maxWidth: 160 })
+        .addTo(map);
+      return () => scale.remove();
+    });
+
+    // The user's own imagery tiles, only when a template is set (offline otherwise).
+    $effect(() => {
+      const url = doc.project?.settings.tileUrlTemplate ?? '';
+      const attribution = doc.project?.settings.tileAttribution ?? '';
+      if (!url) return;
+      const tiles = L.tileLayer(url, { attribution, maxZoom: 22, maxNativeZoom: 19 }).addTo(map);
+      return () => tiles.remove();
+    });
+
+    // The imported aerial, under the drawing.
+    let image: L.ImageOverlay | null = null;
+    $effect(() => {
+      const o = overlay.overlay;
+      if (!o) return;
+      image = L.imageOverlay(o.pngDataUrl, o.bounds, {
+        pane: 'aerial',
+        opacity: untrack(() => overlay.opacity),
+        interactive: false,
+        className: 'yw-aerial',
+      }).addTo(map);
+      return () => {
+        image?.remove();
+        image = null;
+      };
+    });
+    $effect(() => {
+      image?.setOpacity(overlay.opacity);
+    });
+
+    return () => {
+      resize.disconnect();
+      map.pm.disableDraw();
+      map.remove();
+    };
+  };
+}

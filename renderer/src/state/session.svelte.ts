@@ -1,0 +1,87 @@
+/**
+ * The editing session: the open project, the editor state, the aerial overlay and the list of
+ * recent projects, and the project-level commands (open, new, duplicate, delete, reset demo).
+ */
+import type { ApiResponse, ProjectSummary, YardwireApi } from '../../../core/api/contract.ts';
+import type { Project } from '../../../core/project/schema.ts';
+import { OverlayState } from './overlay.svelte.ts';
+import { ProjectState } from './project.svelte.ts';
+import { UiState } from './ui.svelte.ts';
+
+export class Session {
+  doc: ProjectState;
+  ui = new UiState();
+  overlay: OverlayState;
+  projects = $state.raw<ProjectSummary[]>([]);
+  /** null while starting; an error message if the host could not be reached. */
+  started = $state(false);
+  startError = $state<string | null>(null);
+  #api: () => YardwireApi;
+
+  constructor(client: () => YardwireApi) {
+    this.#api = client;
+    this.doc = new ProjectState((project) => client().saveProject({ project }));
+    this.overlay = new OverlayState(client);
+  }
+
+  async start(): Promise<void> {
+    const r = await this.#api().openInitialProject({});
+    if (!r.ok) {
+      this.startError = r.error.message;
+      return;
+    }
+    await this.#show(r.value);
+    this.started = true;
+  }
+
+  async refreshList(): Promise<void> {
+    const r = await this.#api().listProjects({});
+    if (r.ok) this.projects = r.value;
+    else this.ui.notify('error', `Cannot list projects: ${r.error.message}`);
+  }
+
+  async openProject(id: string): Promise<void> {
+    await this.#swap(() => this.#api().openProject({ id }), 'Opened');
+  }
+
+  async createProject(name: string): Promise<void> {
+    await this.#swap(() => this.#api().createProject({ name }), 'Created');
+  }
+
+  async duplicateProject(): Promise<void> {
+    const id = this.doc.project?.id;
+    if (id) await this.#swap(() => this.#api().duplicateProject({ id }), 'Duplicated as');
+  }
+
+  /** Delete the open project, then open the most recent remaining one (or the demo). */
+  async deleteProject(): Promise<void> {
+    const p = this.doc.project;
+    if (!p) return;
+    await this.doc.flush();
+    const r = await this.#api().deleteProject({ id: p.id });
+    if (!r.ok) return this.ui.notify('error', `Cannot delete: ${r.error.message}`);
+    this.ui.notify('info', `Deleted “${p.name}”.`);
+    const next = await this.#api().openInitialProject({});
+    if (next.ok) await this.#show(next.value);
+    else this.ui.notify('error', next.error.message);
+  }
+
+  async resetDemo(): Promise<void> {
+    await this.#swap(() => this.#api().resetDemoProject({}), 'Reset');
+  }
+
+  async #swap(call: () => Promise<ApiResponse<Project>>, verb: string): Promise<void> {
+    await this.doc.flush();
+    const r = await call();
+    if (!r.ok) return this.ui.notify('error', r.error.message);
+    await this.#show(r.value);
+    this.ui.notify('info', `${verb} “${r.value.name}”.`);
+  }
+
+  async #show(p: Project): Promise<void> {
+    this.doc.open(p);
+    this.ui.setTool('select');
+    this.ui.fitRequest++;
+    await Promise.all([this.overlay.load(p.id), this.refreshList()]);
+  }
+}

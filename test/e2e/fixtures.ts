@@ -1,0 +1,132 @@
+/**
+ * Fixtures for the end-to-end tests: a fresh browser-mode host per test (its own free port and
+ * its own temporary data folder), a page that may reach only the loopback host, and helpers to
+ * restart the host on the same data and to save screenshots as artefacts.
+ */
+import { test as base, expect, type Page } from '@playwright/test';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+export const SERVER_ENTRY = 'dist/server/serve.mjs';
+const READY_LINE = /^Yardwire is running at (http:\/\/127\.0\.0\.1:\d+\/#token=[A-Za-z0-9_-]+)$/m;
+const START_TIMEOUT_MS = 15_000;
+
+export interface Host {
+  /** The address printed by the host, token included. */
+  url: string;
+  dataDir: string;
+  /** Stop the host and start it again on the same data folder (a new port and token). */
+  restart(): Promise<void>;
+}
+
+function startHost(dataDir: string): Promise<{ child: ChildProcess; url: string }> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [SERVER_ENTRY], {
+      env: { ...process.env, YARDWIRE_PORT: '0', YARDWIRE_DATA_DIR: dataDir },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
+    let out = '';
+    let err = '';
+    const timer = setTimeout(() => {
+      child.kill('SIGKILL');
+      reject(new Error(`host did not print its address within ${START_TIMEOUT_MS} ms\n${out}${err}`));
+    }, START_TIMEOUT_MS);
+    child.stdout!.on('data', (d: Buffer) => {
+      out += d.toString();
+      const m = READY_LINE.exec(out);
+      if (m?.[1]) {
+        clearTimeout(timer);
+        resolve({ child, url: m[1] });
+      }
+    });
+    child.stderr!.on('data', (d: Buffer) => (err += d.toString()));
+    child.on('exit', (code) => {
+      clearTimeout(timer);
+      reject(new Error(`host exited (${code}) before it was ready\n${out}${err}`));
+    });
+  });
+}
+
+function stopHost(child: ChildProcess): Promise<void> {
+  return new Promise((resolve) => {
+    if (child.exitCode !== null) return resolve();
+    child.once('exit', () => resolve());
+    child.kill('SIGTERM');
+  });
+}
+
+const isLoopback = (url: string): boolean => {
+  if (url.startsWith('data:') || url.startsWith('blob:')) return true;
+  try {
+    return new URL(url).hostname === '127.0.0.1';
+  } catch {
+    return false;
+  }
+};
+
+export const test = base.extend<{ host: Host; blocked: string[] }>({
+  host: async ({}, use) => {
+    const dataDir = mkdtempSync(join(tmpdir(), 'yardwire-e2e-'));
+    let running = await startHost(dataDir);
+    const host: Host = {
+      url: running.url,
+      dataDir,
+      restart: async () => {
+        await stopHost(running.child);
+        running = await startHost(dataDir);
+        host.url = running.url;
+      },
+    };
+    await use(host);
+    await stopHost(running.child);
+    rmSync(dataDir, { recursive: true, force: true });
+  },
+  blocked: async ({ context }, use) => {
+    const blocked: string[] = [];
+    await context.route('**/*', (route) => {
+      const url = route.request().url();
+      if (isLoopback(url)) return route.continue();
+      blocked.push(url);
+      return route.abort('blockedbyclient');
+    });
+    await use(blocked);
+  },
+  page: async ({ page, blocked }, use) => {
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(String(e)));
+    page.on('console', (m) => {
+      if (m.type() === 'error') errors.push(m.text());
+    });
+    await use(page);
+    expect(blocked, 'the app must not reach beyond the loopback host').toEqual([]);
+    expect(errors, 'no script errors in the page').toEqual([]);
+  },
+});
+
+export { expect };
+
+/** Open the app at the host's address and wait until the project is on screen. */
+export async function openApp(page: Page, host: Host): Promise<void> {
+  await page.goto(host.url);
+  await expect(page.getByRole('tab', { name: 'Lot' })).toBeVisible();
+  await expect(page.locator('.leaflet-container')).toBeVisible();
+  await expect(page.getByText('Opening the project…')).toHaveCount(0);
+}
+
+/** Wait until the last edit has reached the store. */
+export async function waitSaved(page: Page): Promise<void> {
+  await expect(page.getByTestId('save-status')).toHaveText('Saved');
+}
+
+/** Click the map at a fraction of its width and height (0..1 from the top-left corner). */
+export async function clickMap(page: Page, fx: number, fy: number): Promise<void> {
+  const box = (await page.getByTestId('map').boundingBox())!;
+  await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
+}
+
+/** Save a screenshot as a test artefact under test-results/screenshots/. */
+export async function shot(page: Page, name: string): Promise<void> {
+  await page.screenshot({ path: join('test-results', 'screenshots', `${name}.png`) });
+}
