@@ -1,0 +1,162 @@
+// The plan runner over stand-in workers that run the real planning host (core enumerate, trim,
+// rank) with a toy evaluator: the mechanics of progress, sharing work, caching and cancelling.
+import { describe, expect, it } from 'vitest';
+import { buildDemoProject } from '../../../data/demo/demoProject.ts';
+import type { EvalFrequency, Evaluator } from '../../../core/rank/evaluator.ts';
+import { createPlanHost } from '../workers/planHost.ts';
+import type { PlanWorker } from '../workers/pool.ts';
+import type { FromWorker, ToWorker } from '../workers/protocol.ts';
+import { PlanRunner } from './planRun.svelte.ts';
+
+/** A toy evaluator (not physics): reactance grows with total wire length, so trimming converges. */
+const toyEvaluator: Evaluator = (req) =>
+  req.frequenciesHz.map((f): EvalFrequency => {
+    const lambda = 299_792_458 / f;
+    const len = req.model.wires.reduce(
+      (s, w) => s + Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]),
+      0,
+    );
+    const x = 900 * (len / lambda - 0.48);
+    let gain: Float64Array | null = null;
+    if (req.pattern) {
+      const { elevationsDeg: els, azimuthsDeg: azs } = req.pattern;
+      gain = new Float64Array(els.length * azs.length);
+      els.forEach((el, i) =>
+        azs.forEach((az, j) => {
+          gain![i * azs.length + j] = 6 * Math.cos((az * Math.PI) / 180) ** 2 - el / 10;
+        }),
+      );
+    }
+    return {
+      freqHz: f,
+      zOhm: [60, x],
+      inputPowerW: 1,
+      radiatedPowerW: 0.8,
+      conductorLossW: 0.05,
+      groundLossW: 0.15,
+      gainDbi: gain,
+      diagnostics: [],
+    };
+  });
+
+interface Fake extends PlanWorker {
+  evaluated: number;
+}
+
+function fakePool(n: number, counter: { calls: number }): () => Fake[] {
+  return () =>
+    Array.from({ length: n }, () => {
+      const counting: Evaluator = (r) => {
+        counter.calls++;
+        return toyEvaluator(r);
+      };
+      const host = createPlanHost(counting, () => 0);
+      let handler: ((m: FromWorker) => void) | null = null;
+      const w: Fake = {
+        evaluated: 0,
+        post(msg: ToWorker) {
+          setTimeout(() => {
+            if (msg.type === 'evaluate') w.evaluated++;
+            for (const r of host.handle(structuredClone(msg))) handler?.(structuredClone(r));
+          }, 0);
+        },
+        onMessage: (h) => (handler = h),
+        terminate: () => (handler = null),
+      };
+      return w;
+    });
+}
+
+async function until(check: () => boolean, ms = 20_000): Promise<void> {
+  const t0 = Date.now();
+  while (!check()) {
+    if (Date.now() - t0 > ms) throw new Error('timed out');
+    await new Promise((r) => setTimeout(r, 1));
+  }
+}
+
+const project = (() => {
+  const p = buildDemoProject();
+  return { ...p, targets: [{ regionId: 'europe', weight: 1 }], bands: ['80m' as const] };
+})();
+
+describe('PlanRunner', () => {
+  it('spreads jobs over the workers, reports progress and ends with the ranked shortlist', async () => {
+    const counter = { calls: 0 };
+    let pool: Fake[] = [];
+    const runner = new PlanRunner(() => (pool = fakePool(3, counter)()));
+    runner.run(project, ['80m']);
+    expect(runner.status).toBe('enumerating');
+    const seen = new Set<number>();
+    await until(() => {
+      seen.add(runner.done);
+      return !runner.running;
+    });
+    expect(runner.error).toBeNull();
+    expect(runner.status).toBe('done');
+    expect(runner.total).toBeGreaterThan(3);
+    expect(runner.done).toBe(runner.total);
+    expect(seen.size).toBeGreaterThan(2); // progress moved in steps
+    expect(pool.every((w) => w.evaluated > 0)).toBe(true);
+    const s = runner.shortlist!;
+    expect(s.candidates.length).toBeGreaterThan(0);
+    expect(s.candidates[0]!.rank).toBe(1);
+    expect(s.stats.evaluations).toBe(runner.total);
+    expect(s.stats.cacheHits).toBe(0);
+  });
+
+  it('re-runs after a target edit from the cache, with no solver work', async () => {
+    const counter = { calls: 0 };
+    const runner = new PlanRunner(fakePool(2, counter));
+    runner.run(project, ['80m']);
+    await until(() => !runner.running);
+    const calls = counter.calls;
+    const edited = { ...project, targets: [{ regionId: 'japan', weight: 2 }] };
+    runner.run(edited, ['80m']);
+    await until(() => !runner.running);
+    expect(runner.status).toBe('done');
+    expect(runner.total).toBe(0);
+    expect(runner.cached).toBeGreaterThan(0);
+    expect(counter.calls).toBe(calls);
+    expect(runner.shortlist!.paths[0]!.name).toBe('Japan');
+    expect(runner.shortlist!.stats.cacheHits).toBe(runner.cached);
+  });
+
+  it('cancels at once; the next run reuses what was finished', async () => {
+    const counter = { calls: 0 };
+    const runner = new PlanRunner(fakePool(1, counter));
+    runner.run(project, ['80m']);
+    await until(() => runner.done >= 3);
+    runner.cancel();
+    expect(runner.status).toBe('cancelled');
+    expect(runner.running).toBe(false);
+    const finished = runner.done;
+    const total = runner.total;
+    await new Promise((r) => setTimeout(r, 30));
+    expect(runner.status).toBe('cancelled');
+    runner.run(project, ['80m']);
+    await until(() => !runner.running);
+    expect(runner.status).toBe('done');
+    expect(runner.cached).toBeGreaterThanOrEqual(finished);
+    expect(runner.total).toBeLessThanOrEqual(total - finished);
+  });
+
+  it('reports an enumeration error in words (no lot boundary)', async () => {
+    const runner = new PlanRunner(fakePool(1, { calls: 0 }));
+    runner.run({ ...project, boundary: null }, ['80m']);
+    await until(() => !runner.running);
+    expect(runner.status).toBe('error');
+    expect(runner.error).toMatch(/no lot boundary/);
+  });
+
+  it('sweeps the feed impedance of a shortlisted design', async () => {
+    const runner = new PlanRunner(fakePool(2, { calls: 0 }));
+    runner.run(project, ['80m']);
+    await until(() => !runner.running);
+    const c = runner.shortlist!.candidates[0]!;
+    const pts = await runner.sweep(c.evaluationKey, c.trim.valueM, [3.5e6, 3.6e6, 3.7e6]);
+    expect(pts.map((p) => p.freqHz)).toEqual([3.5e6, 3.6e6, 3.7e6]);
+    expect(pts[0]!.zOhm[1]).toBeLessThan(pts[2]!.zOhm[1]);
+    await expect(runner.sweep('no-such-key', 1, [3.5e6])).rejects.toThrow(/older plan/);
+  });
+});

@@ -1,0 +1,209 @@
+/**
+ * Running a plan from the window: the lead worker enumerates the jobs its cache lacks, every
+ * worker evaluates them one at a time (the next job goes to whichever worker is free), the lead
+ * keeps every result and ranks. Cancelling stops handing out jobs at once; the few in flight
+ * finish and stay cached, so the next run starts where this one stopped.
+ */
+import type { Job, Shortlist } from '../../../core/rank/plan.ts';
+import type { Band, Project } from '../../../core/project/schema.ts';
+import type { FromWorker, SweepPoint } from '../workers/protocol.ts';
+import type { PlanWorker } from '../workers/pool.ts';
+
+export type RunStatus = 'idle' | 'enumerating' | 'evaluating' | 'ranking' | 'done' | 'cancelled' | 'error';
+
+interface Run {
+  id: number;
+  project: Project;
+  bands: Band[];
+  queue: Job[];
+  pending: Set<string>;
+  cached: number;
+  evaluations: number;
+  startedAt: number;
+}
+
+export class PlanRunner {
+  status = $state<RunStatus>('idle');
+  /** Jobs finished and jobs to do in this run (cached ones are not counted). */
+  done = $state(0);
+  total = $state(0);
+  /** Evaluations this run took from the cache. */
+  cached = $state(0);
+  shortlist = $state.raw<Shortlist | null>(null);
+  /** The project and bands the shown shortlist was made for. */
+  madeFor = $state.raw<{ project: Project; bands: Band[] } | null>(null);
+  error = $state<string | null>(null);
+  elapsedMs = $state(0);
+  workerCount = $state(0);
+
+  running = $derived(
+    this.status === 'enumerating' || this.status === 'evaluating' || this.status === 'ranking',
+  );
+  fraction = $derived(
+    this.status === 'done' ? 1 : this.total > 0 ? this.done / this.total : this.status === 'ranking' ? 1 : 0,
+  );
+
+  #start: () => PlanWorker[];
+  #now: () => number;
+  #workers: PlanWorker[] = [];
+  // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
+  #busy = new Map<PlanWorker, string | null>();
+  #run: Run | null = null;
+  #runSeq = 0;
+  #sweepSeq = 0;
+  // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
+  #sweeps = new Map<number, { resolve: (p: SweepPoint[]) => void; reject: (e: Error) => void }>();
+
+  constructor(start: () => PlanWorker[], now: () => number = () => performance.now()) {
+    this.#start = start;
+    this.#now = now;
+  }
+
+  #lead(): PlanWorker {
+    if (this.#workers.length === 0) {
+      this.#workers = this.#start();
+      this.workerCount = this.#workers.length;
+      for (const w of this.#workers) {
+        this.#busy.set(w, null);
+        w.onMessage((m) => this.#receive(w, m));
+      }
+    }
+    return this.#workers[0]!;
+  }
+
+  /** Start a plan for these bands; a run in progress is cancelled first. */
+  run(project: Project, bands: Band[]): void {
+    if (this.running) this.cancel();
+    const lead = this.#lead();
+    const id = ++this.#runSeq;
+    this.#run = {
+      id,
+      project,
+      bands,
+      queue: [],
+      // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
+      pending: new Set(),
+      cached: 0,
+      evaluations: 0,
+      startedAt: this.#now(),
+    };
+    this.status = 'enumerating';
+    this.error = null;
+    this.done = 0;
+    this.total = 0;
+    this.cached = 0;
+    this.elapsedMs = 0;
+    lead.post({ type: 'enumerate', runId: id, project, bands });
+  }
+
+  /** Stop handing out work; what is in flight finishes into the cache. */
+  cancel(): void {
+    if (!this.running || !this.#run) return;
+    this.#run = null;
+    this.status = 'cancelled';
+  }
+
+  /** Feed impedance of a shortlisted candidate across frequencies, from the lead worker's solver. */
+  sweep(evaluationKey: string, trimM: number, freqsHz: number[]): Promise<SweepPoint[]> {
+    const lead = this.#lead();
+    const reqId = ++this.#sweepSeq;
+    return new Promise((resolve, reject) => {
+      this.#sweeps.set(reqId, { resolve, reject });
+      lead.post({ type: 'sweep', reqId, evaluationKey, trimM, freqsHz });
+    });
+  }
+
+  dispose(): void {
+    for (const w of this.#workers) w.terminate();
+    this.#workers = [];
+    this.#busy.clear();
+    this.#run = null;
+  }
+
+  #dispatch(): void {
+    const run = this.#run;
+    if (!run) return;
+    for (const w of this.#workers) {
+      if (this.#busy.get(w) !== null) continue;
+      const job = run.queue.shift();
+      if (!job) return;
+      this.#busy.set(w, job.key);
+      w.post({ type: 'evaluate', runId: run.id, job });
+    }
+  }
+
+  #inFlight(key: string): boolean {
+    for (const k of this.#busy.values()) if (k === key) return true;
+    return false;
+  }
+
+  #rank(run: Run): void {
+    this.status = 'ranking';
+    this.#lead().post({
+      type: 'rank',
+      runId: run.id,
+      project: run.project,
+      bands: run.bands,
+      evaluations: run.evaluations,
+      cacheHits: run.cached,
+    });
+  }
+
+  #receive(w: PlanWorker, m: FromWorker): void {
+    const run = this.#run;
+    if (run) this.elapsedMs = this.#now() - run.startedAt;
+    switch (m.type) {
+      case 'enumerated': {
+        if (!run || m.runId !== run.id) return;
+        run.cached = m.cached;
+        // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
+        run.pending = new Set(m.missing.map((j) => j.key));
+        run.queue = m.missing.filter((j) => !this.#inFlight(j.key));
+        this.cached = m.cached;
+        this.total = m.missing.length;
+        if (run.pending.size === 0) return this.#rank(run);
+        this.status = 'evaluating';
+        return this.#dispatch();
+      }
+      case 'evaluated': {
+        this.#busy.set(w, null);
+        // Every result is kept by the lead, whichever run asked for it.
+        if (w !== this.#workers[0]) this.#workers[0]?.post({ type: 'store', key: m.key, record: m.record });
+        if (run && run.pending.delete(m.key)) {
+          run.evaluations++;
+          this.done = run.evaluations;
+          if (run.pending.size === 0) return this.#rank(run);
+        }
+        return this.#dispatch();
+      }
+      case 'ranked': {
+        if (!run || m.runId !== run.id) return;
+        this.shortlist = m.shortlist;
+        this.madeFor = { project: run.project, bands: run.bands };
+        this.status = 'done';
+        this.#run = null;
+        return;
+      }
+      case 'swept': {
+        const s = this.#sweeps.get(m.reqId);
+        this.#sweeps.delete(m.reqId);
+        s?.resolve(m.points);
+        return;
+      }
+      case 'error': {
+        if (m.reqId !== undefined) {
+          const s = this.#sweeps.get(m.reqId);
+          this.#sweeps.delete(m.reqId);
+          s?.reject(new Error(m.message));
+          return;
+        }
+        if (m.key !== undefined) this.#busy.set(w, null);
+        if (!run || (m.runId !== undefined && m.runId !== run.id)) return;
+        this.error = m.message;
+        this.status = 'error';
+        this.#run = null;
+        return;
+      }
+    }
+  }
+}

@@ -1,0 +1,34 @@
+/**
+ * Messages between the renderer and its planning workers. One worker, the lead, keeps the
+ * evaluation cache between runs, enumerates the candidates and ranks them with the core's
+ * planSite; every worker in the pool (the lead included) evaluates single designs, so a run uses
+ * every core the machine offers and the window never waits on the solver.
+ */
+import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
+import type { Job, Shortlist } from '../../../core/rank/plan.ts';
+import type { Band, Project } from '../../../core/project/schema.ts';
+
+export type ToWorker =
+  /** Lead: build the site and the jobs; answer with the jobs missing from the cache. */
+  | { type: 'enumerate'; runId: number; project: Project; bands: Band[] }
+  /** Any worker: trim, sweep and pattern of one design. */
+  | { type: 'evaluate'; runId: number; job: Job }
+  /** Lead: keep an evaluation made by another worker. */
+  | { type: 'store'; key: string; record: EvaluationRecord }
+  /** Lead: rank with every job in the cache (planSite evaluates nothing then). */
+  | { type: 'rank'; runId: number; project: Project; bands: Band[]; evaluations: number; cacheHits: number }
+  /** Lead: feed impedance of a shortlisted design at these frequencies (for the SWR curve). */
+  | { type: 'sweep'; reqId: number; evaluationKey: string; trimM: number; freqsHz: number[] };
+
+export interface SweepPoint {
+  freqHz: number;
+  zOhm: [number, number];
+  swr: number;
+}
+
+export type FromWorker =
+  | { type: 'enumerated'; runId: number; missing: Job[]; cached: number; total: number }
+  | { type: 'evaluated'; runId: number; key: string; record: EvaluationRecord; ms: number }
+  | { type: 'ranked'; runId: number; shortlist: Shortlist; ms: number }
+  | { type: 'swept'; reqId: number; points: SweepPoint[] }
+  | { type: 'error'; runId?: number; reqId?: number; key?: string; message: string };
