@@ -91,6 +91,23 @@ export const dipoleBuilder: Builder = {
           });
           continue;
         }
+        // Longest wire whose hanging ends stay at or above the end height.
+        const e = site.site.settings.minEndHeightM;
+        const lineLen = Math.hypot(s, b.heightM - a.heightM);
+        const maxM = Math.min(0.56 * band.wavelengthM, lineLen + 2 * (Math.min(a.heightM, b.heightM) - e));
+        const minM = 0.4 * band.wavelengthM;
+        if (maxM < 0.9 * nominal) {
+          rejections.push({
+            type: 'dipole',
+            band: band.band,
+            supports: [a.id, b.id],
+            where,
+            reasons: [
+              `span ${s.toFixed(1)} m is too short: a ${nominal.toFixed(1)} m wire's ends would hang below the ${e.toFixed(1)} m end height`,
+            ],
+          });
+          continue;
+        }
         const bearing = bearingOf(a.xy, b.xy);
         proposals.push({
           design: {
@@ -100,9 +117,9 @@ export const dipoleBuilder: Builder = {
             params: { spanM: round(s, 3), heightAM: a.heightM, heightBM: b.heightM },
             trim: {
               name: 'total wire length',
-              nominalM: nominal,
-              minM: 0.4 * band.wavelengthM,
-              maxM: 0.56 * band.wavelengthM,
+              nominalM: Math.min(nominal, maxM),
+              minM: Math.min(minM, maxM),
+              maxM,
             },
           },
           placement: {

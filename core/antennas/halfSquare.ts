@@ -99,7 +99,8 @@ export const halfSquareBuilder: Builder = {
               name: 'length of each drop',
               nominalM: 0.245 * band.wavelengthM,
               minM: 0.15 * band.wavelengthM,
-              maxM: 0.33 * band.wavelengthM,
+              // Bent ends may not reach past the middle of the top wire.
+              maxM: Math.min(0.33 * band.wavelengthM, h - e + T / 2 - 1),
             },
           },
           placement: {

@@ -464,24 +464,27 @@ export function memoryCache(): EvaluationCache {
   return new Map<string, EvaluationRecord>();
 }
 
-/** The whole plan: pure in and out (the cache, when given, is filled with new evaluations). */
-export function planSite(project: Project, options: PlanOptions): Shortlist {
+/** Steps 2 and 3 on a setup from enumeratePlan (callers that evaluate elsewhere pass a filled cache). */
+export function planFromSetup(setup: PlanSetup, project: Project, options: PlanOptions): Shortlist {
   const cache = options.cache ?? memoryCache();
-  const setup = enumeratePlan(project, options);
   const before = setup.jobs.filter((j) => cache.has(j.key)).length;
   const evaluations = evaluateJobs(setup.jobs, options.evaluator, cache, options.onProgress);
   const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10);
+  const feasible = setup.bands.reduce((s, b) => s + b.proposed.length, 0);
   return {
     ...ranked,
     stats: {
-      proposals:
-        setup.bands.reduce((s, b) => s + b.proposed.length, 0) +
-        setup.bands.reduce((s, b) => s + b.rejections.length, 0),
-      feasibleAtNominal: setup.bands.reduce((s, b) => s + b.proposed.length, 0),
+      proposals: feasible + setup.bands.reduce((s, b) => s + b.rejections.length, 0),
+      feasibleAtNominal: feasible,
       evaluations,
       cacheHits: before,
     },
   };
+}
+
+/** The whole plan: pure in and out (the cache, when given, is filled with new evaluations). */
+export function planSite(project: Project, options: PlanOptions): Shortlist {
+  return planFromSetup(enumeratePlan(project, options), project, options);
 }
 
 /** Over how many degrees of azimuth candidate A beats candidate B at `elevationDeg`. */

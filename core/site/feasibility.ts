@@ -270,5 +270,5 @@ export function clipRadial(ps: PreparedSite, base: XY, bearingDeg: number, nomin
     if (blocked) break;
     ok = t;
   }
-  return Math.min(ok, nominalM);
+  return ok + RADIAL_STEP_M > nominalM ? nominalM : ok;
 }
