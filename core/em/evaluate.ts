@@ -1,0 +1,329 @@
+/**
+ * evaluateAntenna: the field solver's public entry. Meshes once (at the highest frequency),
+ * then for each frequency fills, solves, and reads off feed impedances, SWR, the split of the
+ * input power, the pattern and its peak, and the average-gain model check.
+ *
+ * Gain is IEEE gain (IEEE Std 145-2013, 2.1 "gain"): 4πU/P_in, with P_in the power delivered to
+ * the feeds, so conductor, load and ground losses all lower it. Average gain (a model check):
+ * the mean of the gain over the sphere in free space, over the upper hemisphere over ground;
+ * for a lossless antenna it is 1 and 2 respectively (power conservation), so
+ *     averageGain = P_rad/P_in (free space),  2·P_rad/P_in (over ground).
+ * Over lossy ground the ground loss is the input power not radiated into the upper half-space
+ * and not lost in wires or loads: P_in − P_rad − P_cond − P_load; its part in a radial system
+ * (Wait–Pope) is reported separately. In free space and over perfect ground the same difference
+ * should vanish; it is reported as a diagnostic when above 0.5 %.
+ */
+import { brentMinimize } from '../numeric/roots.ts';
+import { ETA0 } from './constants.ts';
+import { ModelError, type Diagnostic } from './errors.ts';
+import { integrateRadiatedPower, radiationIntensity, type FarFieldSource } from './farfield.ts';
+import { DEFAULT_SEGMENTS_PER_WAVELENGTH } from './mesh.ts';
+import {
+  createWorkspace,
+  prepareModel,
+  solveFrequency,
+  type FrequencySolution,
+  type PreparedModel,
+} from './solver.ts';
+import type { AntennaModel, ComplexPair } from './types.ts';
+
+/** Gains below this are reported as this value (a null in the field), never as −∞ or NaN. */
+export const GAIN_FLOOR_DBI = -150;
+/** SWR is capped here (|Γ| → 1). */
+export const SWR_CAP = 1e6;
+/** Default pattern step (degrees) over the upper half-space. */
+export const DEFAULT_PATTERN_STEP_DEG = 2;
+
+export interface PatternGrid {
+  elevationsDeg: readonly number[];
+  azimuthsDeg: readonly number[];
+}
+
+export interface EvaluateOptions {
+  frequenciesHz: readonly number[];
+  /** Pattern rows to report; default the upper half-space at 2° steps. Empty arrays: no rows. */
+  pattern?: PatternGrid;
+  referenceImpedanceOhm?: number;
+  segmentsPerWavelength?: number;
+  /** Include node currents per wire in the result. */
+  includeCurrents?: boolean;
+}
+
+export interface PatternPoint {
+  elevationDeg: number;
+  azimuthDeg: number;
+  gainDbi: number;
+  verticalDbi: number;
+  horizontalDbi: number;
+}
+
+export interface FeedOutput {
+  wire: number;
+  position: number;
+  impedanceOhm: ComplexPair;
+  currentA: ComplexPair;
+  swr: number;
+}
+
+export interface GroundSystemOutput {
+  wire: number;
+  radials: number;
+  lossResistanceOhm: number;
+  lossW: number;
+  integrationLimitM: number;
+  innerLimitM: number;
+}
+
+export interface FrequencyResult {
+  frequencyHz: number;
+  feeds: FeedOutput[];
+  inputPowerW: number;
+  radiatedPowerW: number;
+  conductorLossW: number;
+  loadLossW: number;
+  /** All ground loss (radial system included); 0 in free space and over perfect ground. */
+  groundLossW: number;
+  groundSystems: GroundSystemOutput[];
+  efficiency: number;
+  averageGain: number;
+  averageGainDb: number;
+  peak: { elevationDeg: number; azimuthDeg: number; gainDbi: number };
+  pattern: PatternPoint[];
+  /** P_in − (P_rad + losses), relative to P_in (free space and perfect ground only). */
+  powerBalanceError: number | null;
+  currents?: { wire: number; nodes: ComplexPair[] }[];
+}
+
+export interface EvaluationResult {
+  frequencies: FrequencyResult[];
+  segments: number;
+  unknowns: number;
+  groundModel: 'free-space' | 'perfect' | 'reflection-coefficient';
+  diagnostics: Diagnostic[];
+}
+
+export const toDbi = (g: number): number =>
+  g > 0 ? Math.max(GAIN_FLOOR_DBI, 10 * Math.log10(g)) : GAIN_FLOOR_DBI;
+
+/** SWR of impedance z on reference z0 (real). */
+export function swrOf(r: number, x: number, z0: number): number {
+  const nr = r - z0;
+  const dr = r + z0;
+  const g2 = (nr * nr + x * x) / (dr * dr + x * x);
+  const g = Math.sqrt(g2);
+  if (!(g < 1)) return SWR_CAP;
+  return Math.min(SWR_CAP, (1 + g) / (1 - g));
+}
+
+const degs = (from: number, to: number, step: number): number[] => {
+  const out: number[] = [];
+  for (let v = from; v <= to + 1e-9; v += step) out.push(Math.round(v * 1e9) / 1e9);
+  return out;
+};
+
+export const DEFAULT_PATTERN: PatternGrid = {
+  elevationsDeg: degs(0, 90, DEFAULT_PATTERN_STEP_DEG),
+  azimuthsDeg: degs(0, 360 - DEFAULT_PATTERN_STEP_DEG, DEFAULT_PATTERN_STEP_DEG),
+};
+
+const D2R = Math.PI / 180;
+
+/** Gain (linear, total) for one direction. */
+function gainAt(src: FarFieldSource, pin: number, elDeg: number, azDeg: number, tmp: Float64Array): number {
+  radiationIntensity(src, elDeg * D2R, azDeg * D2R, ETA0, tmp);
+  return (4 * Math.PI * (tmp[0] + tmp[1])) / pin;
+}
+
+/**
+ * Peak over the default 2° grid (or the gains already computed on it), refined by Brent's
+ * minimiser in elevation and azimuth (± one step).
+ */
+function findPeak(
+  src: FarFieldSource,
+  pin: number,
+  hasGround: boolean,
+  gridGains: Float64Array | null,
+): FrequencyResult['peak'] {
+  const tmp = new Float64Array(2);
+  const grid = DEFAULT_PATTERN;
+  let best = -1;
+  let bel = 0;
+  let baz = 0;
+  let idx = 0;
+  for (const el of grid.elevationsDeg)
+    for (const az of grid.azimuthsDeg) {
+      const g = gridGains ? gridGains[idx++] : gainAt(src, pin, el, az, tmp);
+      if (g > best) {
+        best = g;
+        bel = el;
+        baz = az;
+      }
+    }
+  const step = DEFAULT_PATTERN_STEP_DEG;
+  const elLo = hasGround ? 0 : -90;
+  for (let pass = 0; pass < 2; pass++) {
+    const re = brentMinimize(
+      (el) => -gainAt(src, pin, el, baz, tmp),
+      Math.max(elLo, bel - step),
+      Math.min(90, bel + step),
+      1e-4,
+      40,
+    );
+    if (-re.fx > best) {
+      best = -re.fx;
+      bel = re.x;
+    }
+    if (Math.abs(bel) < 90 - 1e-6) {
+      const ra = brentMinimize((az) => -gainAt(src, pin, bel, az, tmp), baz - step, baz + step, 1e-4, 40);
+      if (-ra.fx > best) {
+        best = -ra.fx;
+        baz = ((ra.x % 360) + 360) % 360;
+      }
+    }
+  }
+  return { elevationDeg: bel, azimuthDeg: baz, gainDbi: toDbi(best) };
+}
+
+/** Assemble the result of one solved frequency. */
+export function frequencyResult(
+  pm: PreparedModel,
+  sol: FrequencySolution,
+  opts: EvaluateOptions,
+): FrequencyResult {
+  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const src: FarFieldSource = {
+    mesh: pm.mesh,
+    nodeCurrents: sol.nodeCurrents,
+    k: sol.k,
+    ground: sol.groundAt,
+  };
+  const pin = sol.inputPowerW;
+  if (!(pin > 0))
+    throw new ModelError(
+      'feeds',
+      `the feeds deliver no power (P_in = ${pin.toExponential(3)} W); check the source phases`,
+    );
+  const prad = integrateRadiatedPower(src, ETA0).watts;
+  const hasGround = pm.ground.hasGround;
+  const losses = sol.conductorLossW + sol.loadLossW;
+  const soil = pm.ground.kind === 'reflection-coefficient';
+  const groundLossW = soil ? pin - prad - losses : 0;
+  const balance = soil ? null : (pin - prad - losses) / pin;
+  const grid = opts.pattern ?? DEFAULT_PATTERN;
+  const tmp = new Float64Array(2);
+  const pattern: PatternPoint[] = [];
+  const isDefault = grid === DEFAULT_PATTERN;
+  const gains = isDefault ? new Float64Array(grid.elevationsDeg.length * grid.azimuthsDeg.length) : null;
+  let gi = 0;
+  for (const el of grid.elevationsDeg)
+    for (const az of grid.azimuthsDeg) {
+      radiationIntensity(src, el * D2R, az * D2R, ETA0, tmp);
+      const gv = (4 * Math.PI * tmp[0]) / pin;
+      const gh = (4 * Math.PI * tmp[1]) / pin;
+      if (gains) gains[gi++] = gv + gh;
+      pattern.push({
+        elevationDeg: el,
+        azimuthDeg: az,
+        gainDbi: toDbi(gv + gh),
+        verticalDbi: toDbi(gv),
+        horizontalDbi: toDbi(gh),
+      });
+    }
+  const peak = findPeak(src, pin, hasGround, gains);
+  const averageGain = ((hasGround ? 2 : 1) * prad) / pin;
+  const out: FrequencyResult = {
+    frequencyHz: sol.freqHz,
+    feeds: pm.feeds.map((f, i) => {
+      const fr = sol.feeds[i];
+      return {
+        wire: f.wire,
+        position: f.position,
+        impedanceOhm: [fr.impedance.re, fr.impedance.im],
+        currentA: [fr.current.re, fr.current.im],
+        swr: swrOf(fr.impedance.re, fr.impedance.im, z0),
+      };
+    }),
+    inputPowerW: pin,
+    radiatedPowerW: prad,
+    conductorLossW: sol.conductorLossW,
+    loadLossW: sol.loadLossW,
+    groundLossW,
+    groundSystems: sol.contacts.map((cr, i) => ({
+      wire: pm.contacts[i].contact.ends[0].wire,
+      radials: cr.radials,
+      lossResistanceOhm: cr.lossResistanceOhm,
+      lossW: 0.5 * cr.lossResistanceOhm * (cr.current.re ** 2 + cr.current.im ** 2),
+      integrationLimitM: cr.integrationLimitM,
+      innerLimitM: cr.innerLimitM,
+    })),
+    efficiency: prad / pin,
+    averageGain,
+    averageGainDb: 10 * Math.log10(Math.max(averageGain, 1e-15)),
+    peak,
+    pattern,
+    powerBalanceError: balance,
+  };
+  if (opts.includeCurrents) {
+    out.currents = Array.from({ length: pm.mesh.nWires }, (_, w) => {
+      const nodes: ComplexPair[] = [];
+      for (let nd = pm.mesh.wireNodeStart[w]; nd < pm.mesh.wireNodeStart[w + 1]; nd++)
+        nodes.push([sol.nodeCurrents[2 * nd], sol.nodeCurrents[2 * nd + 1]]);
+      return { wire: w, nodes };
+    });
+  }
+  return out;
+}
+
+function checkFrequencies(fs: readonly number[]): void {
+  if (fs.length === 0) throw new ModelError('frequenciesMHz', 'give at least one frequency');
+  fs.forEach((f, i) => {
+    if (!(f > 0) || !Number.isFinite(f))
+      throw new ModelError(`frequenciesMHz[${i}]`, 'must be a positive number');
+  });
+}
+
+/** Prepare (mesh) a model for a set of frequencies: the segmentation follows the highest. */
+export function prepareFor(
+  model: AntennaModel,
+  frequenciesHz: readonly number[],
+  segmentsPerWavelength?: number,
+): PreparedModel {
+  checkFrequencies(frequenciesHz);
+  return prepareModel(model, {
+    maxFreqHz: Math.max(...frequenciesHz),
+    segmentsPerWavelength: segmentsPerWavelength ?? DEFAULT_SEGMENTS_PER_WAVELENGTH,
+  });
+}
+
+/**
+ * Evaluate an antenna at a list of frequencies. Throws ModelError when the model cannot be
+ * built; otherwise every number in the result is finite.
+ */
+export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): EvaluationResult {
+  const pm = prepareFor(model, opts.frequenciesHz, opts.segmentsPerWavelength);
+  const ws = createWorkspace(pm);
+  const diagnostics = [...pm.diagnostics];
+  const frequencies = opts.frequenciesHz.map((f) => {
+    const r = frequencyResult(pm, solveFrequency(pm, f, ws), opts);
+    if (r.powerBalanceError !== null && Math.abs(r.powerBalanceError) > 0.005)
+      diagnostics.push({
+        level: 'warning',
+        code: 'power-balance',
+        message: `at ${(f / 1e6).toFixed(4)} MHz the radiated power and losses differ from the input power by ${(100 * r.powerBalanceError).toFixed(2)} %: the segmentation is too coarse for this geometry`,
+      });
+    if (r.groundLossW < -0.005 * r.inputPowerW)
+      diagnostics.push({
+        level: 'warning',
+        code: 'negative-ground-loss',
+        message: `at ${(f / 1e6).toFixed(4)} MHz the reflection-coefficient ground returns more power than it receives (${((100 * r.groundLossW) / r.inputPowerW).toFixed(2)} % of the input): the wires are too close to the ground for this model`,
+      });
+    return r;
+  });
+  return {
+    frequencies,
+    segments: pm.mesh.nSeg,
+    unknowns: pm.mesh.nBasis,
+    groundModel: pm.ground.kind,
+    diagnostics,
+  };
+}

@@ -1,0 +1,265 @@
+/**
+ * Far field of the solved currents, with the ground-reflected wave.
+ *
+ * The current on a segment is linear between its node currents, so the radiation vector of a
+ * segment, N = t̂ ∫ I(s) e^{jk r̂·r(s)} ds, is integrated in closed form:
+ *     ∫₀¹ (I_a(1−u) + I_b u) e^{jψu} du = I_a(E0 − E1) + I_b E1,   ψ = kΔ r̂·t̂,
+ *     E0 = (e^{jψ} − 1)/(jψ),  E1 = e^{jψ}/(jψ) − (e^{jψ} − 1)/(jψ)²   (series for small ψ).
+ * Along a straight wire with equal segments the node phases e^{jk r̂·r_n} form a geometric
+ * sequence, so each wire costs two complex exponentials per direction.
+ * Field: E = −jωμ e^{−jkr}/(4πr) (N_θ θ̂ + N_φ φ̂), radiation intensity
+ *     U = η k² (|N_θ|² + |N_φ|²) / (32π²),  gain G = 4πU / P_in
+ * (Balanis, Antenna Theory, 3rd ed., 2005, §6.6 and eq. 2.16 with the vector potential of §3.6).
+ * Over ground the image currents radiate too (perfect-conductor image, ground.ts), their θ part
+ * weighted by Rv and their φ part by −Rh at the elevation angle (REFERENCES §3 rule).
+ *
+ * Directions: elevation el up from the horizon, azimuth az clockwise from north (y), so
+ * r̂ = (cos el sin az, cos el cos az, sin el); θ̂ = (sin el sin az, sin el cos az, −cos el) is the
+ * vertical polarisation and φ̂ = (cos az, −sin az, 0) the horizontal one.
+ */
+import { gaussLegendre01 } from '../numeric/quadrature.ts';
+import type { GroundAtFrequency } from './ground.ts';
+import type { Mesh } from './mesh.ts';
+
+export interface FarFieldSource {
+  mesh: Mesh;
+  /** Node currents along each wire's direction, interleaved (re, im), length 2·nNodes. */
+  nodeCurrents: Float64Array;
+  k: number;
+  ground: GroundAtFrequency | null;
+}
+
+const refl = new Float64Array(4);
+let reflSinPsi = NaN;
+let reflGround: GroundAtFrequency | null = null;
+
+/** Series coefficients of E0 and E1 with the sign of j^m folded in (m = 0 … 11). */
+const C0 = new Float64Array(12);
+const C1 = new Float64Array(12);
+{
+  let fact = 1;
+  for (let m = 0; m < 12; m++) {
+    if (m > 0) fact *= m;
+    const sign = Math.floor(m / 2) % 2 === 0 ? 1 : -1; // Re/Im part of j^m
+    C0[m] = sign / (fact * (m + 1));
+    C1[m] = sign / (fact * (m + 2));
+  }
+}
+
+/** Radiation-vector sums of all wires (and images) for one direction: out = [Nx, Ny, Nz] real/imag for real and image parts. */
+function radiationVectors(
+  src: FarFieldSource,
+  ux: number,
+  uy: number,
+  uz: number,
+  withImage: boolean,
+  out: Float64Array,
+): void {
+  const { mesh, nodeCurrents: I, k } = src;
+  out.fill(0);
+  for (let pass = 0; pass < (withImage ? 2 : 1); pass++) {
+    const zs = pass === 0 ? 1 : -1;
+    const cs = pass === 0 ? 1 : -1; // image current −I along the mirrored direction
+    const o = pass * 6;
+    for (let w = 0; w < mesh.nWires; w++) {
+      const s0 = mesh.wireSegStart[w];
+      const nS = mesh.wireSegStart[w + 1] - s0;
+      const n0 = mesh.wireNodeStart[w];
+      const wtx = mesh.tx[s0];
+      const wty = mesh.ty[s0];
+      const wtz = zs * mesh.tz[s0];
+      const d = mesh.len[s0];
+      const psi = k * d * (ux * wtx + uy * wty + uz * wtz);
+      const ph0 = k * (ux * mesh.sx[s0] + uy * mesh.sy[s0] + uz * zs * mesh.sz[s0]);
+      const cp = Math.cos(psi);
+      const sp = Math.sin(psi);
+      // A = Σ I_n P_n with P_n = e^{j(ph0 + nψ)}
+      let pr = Math.cos(ph0);
+      let pi = Math.sin(ph0);
+      const p0r = pr;
+      const p0i = pi;
+      let ar = 0;
+      let ai = 0;
+      for (let n = 0; n <= nS; n++) {
+        const ir = I[2 * (n0 + n)];
+        const ii = I[2 * (n0 + n) + 1];
+        ar += ir * pr - ii * pi;
+        ai += ir * pi + ii * pr;
+        if (n < nS) {
+          const t = pr * cp - pi * sp;
+          pi = pr * sp + pi * cp;
+          pr = t;
+        }
+      }
+      // pr, pi now P_N
+      let e0r: number, e0i: number, e1r: number, e1i: number;
+      if (Math.abs(psi) < 0.5) {
+        // E0 = Σ (jψ)^m/(m+1)!, E1 = Σ (jψ)^m/((m+2)·m!): even powers real, odd imaginary (Horner in ψ²)
+        const p2 = psi * psi;
+        e0r = C0[0] + p2 * (C0[2] + p2 * (C0[4] + p2 * (C0[6] + p2 * (C0[8] + p2 * C0[10]))));
+        e0i = psi * (C0[1] + p2 * (C0[3] + p2 * (C0[5] + p2 * (C0[7] + p2 * (C0[9] + p2 * C0[11])))));
+        e1r = C1[0] + p2 * (C1[2] + p2 * (C1[4] + p2 * (C1[6] + p2 * (C1[8] + p2 * C1[10]))));
+        e1i = psi * (C1[1] + p2 * (C1[3] + p2 * (C1[5] + p2 * (C1[7] + p2 * (C1[9] + p2 * C1[11])))));
+      } else {
+        // jψ = (0, ψ); (e^{jψ} − 1)/(jψ) = (sin ψ, 1 − cos ψ)/ψ
+        e0r = sp / psi;
+        e0i = (1 - cp) / psi;
+        // e^{jψ}/(jψ) = (cos ψ + j sin ψ)(−j/ψ) = (sin ψ, −cos ψ)/ψ ; E0/(jψ) = E0·(−j/ψ)
+        e1r = sp / psi - e0i / psi;
+        e1i = -cp / psi + e0r / psi;
+      }
+      // S = Δ[(E0 − E1)(A − I_N P_N) + E1 e^{−jψ}(A − I_0 P_0)]
+      const iNr = I[2 * (n0 + nS)];
+      const iNi = I[2 * (n0 + nS) + 1];
+      const i0r = I[2 * n0];
+      const i0i = I[2 * n0 + 1];
+      const xr = ar - (iNr * pr - iNi * pi);
+      const xi = ai - (iNr * pi + iNi * pr);
+      const yr0 = ar - (i0r * p0r - i0i * p0i);
+      const yi0 = ai - (i0r * p0i + i0i * p0r);
+      // e^{−jψ}(…)
+      const yr = yr0 * cp + yi0 * sp;
+      const yi = yi0 * cp - yr0 * sp;
+      const fr = e0r - e1r;
+      const fi = e0i - e1i;
+      const sr = d * cs * (fr * xr - fi * xi + e1r * yr - e1i * yi);
+      const si = d * cs * (fr * xi + fi * xr + e1r * yi + e1i * yr);
+      out[o] += sr * wtx;
+      out[o + 1] += si * wtx;
+      out[o + 2] += sr * wty;
+      out[o + 3] += si * wty;
+      out[o + 4] += sr * wtz;
+      out[o + 5] += si * wtz;
+    }
+  }
+}
+
+const nv = new Float64Array(12);
+
+/**
+ * Radiation intensity of the θ (vertical) and φ (horizontal) parts in one direction, in W/sr
+ * for the solved currents: writes U_θ, U_φ into out[0], out[1].
+ * Below the horizon over ground the field is zero.
+ */
+export function radiationIntensity(
+  src: FarFieldSource,
+  elRad: number,
+  azRad: number,
+  eta: number,
+  out: Float64Array,
+): void {
+  const ce = Math.cos(elRad);
+  const se = Math.sin(elRad);
+  const sa = Math.sin(azRad);
+  const ca = Math.cos(azRad);
+  const ground = src.ground;
+  if (ground && se < 0) {
+    out[0] = 0;
+    out[1] = 0;
+    return;
+  }
+  const ux = ce * sa;
+  const uy = ce * ca;
+  const uz = se;
+  radiationVectors(src, ux, uy, uz, ground !== null, nv);
+  const thx = se * sa;
+  const thy = se * ca;
+  const thz = -ce;
+  const phx = ca;
+  const phy = -sa;
+  let ntr = nv[0] * thx + nv[2] * thy + nv[4] * thz;
+  let nti = nv[1] * thx + nv[3] * thy + nv[5] * thz;
+  let npr = nv[0] * phx + nv[2] * phy;
+  let npi = nv[1] * phx + nv[3] * phy;
+  if (ground) {
+    if (se !== reflSinPsi || ground !== reflGround) {
+      ground.farFieldReflection(se, refl);
+      reflSinPsi = se;
+      reflGround = ground;
+    }
+    const itr = nv[6] * thx + nv[8] * thy + nv[10] * thz;
+    const iti = nv[7] * thx + nv[9] * thy + nv[11] * thz;
+    const ipr = nv[6] * phx + nv[8] * phy;
+    const ipi = nv[7] * phx + nv[9] * phy;
+    ntr += refl[0] * itr - refl[1] * iti;
+    nti += refl[0] * iti + refl[1] * itr;
+    npr += -(refl[2] * ipr - refl[3] * ipi);
+    npi += -(refl[2] * ipi + refl[3] * ipr);
+  }
+  const f = (eta * src.k * src.k) / (32 * Math.PI * Math.PI);
+  out[0] = f * (ntr * ntr + nti * nti);
+  out[1] = f * (npr * npr + npi * npi);
+}
+
+/** Radius of the sphere around the phase centre that holds all nodes (and images). */
+function electricalRadius(src: FarFieldSource): number {
+  const m = src.mesh;
+  let cx = 0;
+  let cy = 0;
+  let cz = 0;
+  for (let s = 0; s < m.nSeg; s++) {
+    cx += m.sx[s];
+    cy += m.sy[s];
+    cz += m.sz[s];
+  }
+  cx /= m.nSeg;
+  cy /= m.nSeg;
+  cz = src.ground ? 0 : cz / m.nSeg;
+  let r = 0;
+  for (let s = 0; s < m.nSeg; s++) {
+    for (const u of [0, 1]) {
+      const x = m.sx[s] + u * m.len[s] * m.tx[s] - cx;
+      const y = m.sy[s] + u * m.len[s] * m.ty[s] - cy;
+      const z = m.sz[s] + u * m.len[s] * m.tz[s] - cz;
+      r = Math.max(r, Math.hypot(x, y, z));
+    }
+  }
+  return r;
+}
+
+export interface RadiatedPower {
+  watts: number;
+  /** Directions used by the integration. */
+  directions: number;
+}
+
+/**
+ * Radiated power P = ∫ U dΩ over the upper half-space (or the whole sphere in free space):
+ * Gauss–Legendre in sin(el) and the trapezoidal rule in azimuth, which is exact for the
+ * trigonometric polynomial |N|² once the number of azimuths exceeds 2k·r_max; the orders follow
+ * the antenna's electrical radius (|N|² is band-limited by it). Over lossy ground the
+ * elevation range near the horizon, where the Fresnel coefficients change quickly, gets its own
+ * panel.
+ */
+export function integrateRadiatedPower(src: FarFieldSource, eta: number): RadiatedPower {
+  const kr = src.k * electricalRadius(src);
+  const nAz = 2 * Math.ceil(kr) + 16;
+  const nMu = Math.min(160, Math.ceil(kr) + 16);
+  const panels: [number, number, number][] = src.ground
+    ? src.ground.epsC
+      ? [
+          [0, 0.02, 12],
+          [0.02, 0.25, Math.ceil(nMu / 2) + 4],
+          [0.25, 1, nMu],
+        ]
+      : [[0, 1, nMu]]
+    : [[-1, 1, 2 * nMu]];
+  const out = new Float64Array(2);
+  let sum = 0;
+  let count = 0;
+  for (const [mu0, mu1, n] of panels) {
+    const g = gaussLegendre01(n);
+    for (let i = 0; i < n; i++) {
+      const mu = mu0 + (mu1 - mu0) * g.x[i];
+      const el = Math.asin(mu);
+      let ring = 0;
+      for (let j = 0; j < nAz; j++) {
+        radiationIntensity(src, el, (2 * Math.PI * j) / nAz, eta, out);
+        ring += out[0] + out[1];
+        count++;
+      }
+      sum += g.w[i] * (mu1 - mu0) * ring * ((2 * Math.PI) / nAz);
+    }
+  }
+  return { watts: sum, directions: count };
+}

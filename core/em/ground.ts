@@ -1,0 +1,213 @@
+/**
+ * Ground models behind one interface.
+ *
+ * The matrix fill asks the ground for the reflected interaction of each pair of segments, and
+ * the far field asks it for the reflection of a plane wave. Everything about the ground lives
+ * behind `GroundModel` / `GroundAtFrequency`, so that an exact half-space (Sommerfeld) model can
+ * later replace the approximation pair by pair: `reflectedPair` receives both segments and may
+ * compute the reflected moments any way it likes.
+ *
+ * Models:
+ *  - free space: no ground;
+ *  - perfect ground: images (Balanis, Antenna Theory, 3rd ed., 2005, §4.7): a segment's image
+ *    is its mirror in z = 0 carrying the current −I along the mirrored direction, i.e. vertical
+ *    current in phase and horizontal current reversed, and charge −q;
+ *  - lossy ground, reflection-coefficient approximation: the same images weighted by the
+ *    Fresnel coefficients (fresnel.ts) at the specular angle between the two segment centres.
+ *    The image current is split into its part perpendicular to the plane of incidence (TE,
+ *    weighted by −Rh) and the rest (TM, weighted by Rv); the image charge is weighted by Rv.
+ *    Over a perfect conductor both weights are 1 and the model is the image model. The weights
+ *    are symmetric in the pair, so the impedance matrix stays symmetric.
+ *    Known limit: for wires lower than about 0.1 λ the approximation misjudges the near-field
+ *    ground loss (the mesh says so in its diagnostics).
+ *  - ground-system zones: around a wire that is connected to lossy ground, out to the radial
+ *    integration limit, the radial system (or the surface-impedance loss of bare soil) is
+ *    accounted for by the Wait–Pope loss resistance (radials.ts), and pairs whose specular point
+ *    falls inside that disc see the perfect image, as the Wait–Pope method assumes.
+ *
+ * References:
+ *  - C. A. Balanis, Antenna Theory: Analysis and Design, 3rd ed. (2005), §4.7 (image theory).
+ *  - P. Beckmann and A. Spizzichino (1963); ITU-R P.527 (Fresnel coefficients; fresnel.ts).
+ *  - J. R. Wait and W. A. Pope, Appl. Sci. Res. B4 (1954) 177–195 (radials.ts).
+ */
+import { c, type Complex } from '../numeric/complex.ts';
+import { ETA0 } from './constants.ts';
+import {
+  complexPermittivity,
+  fresnelCoefficients,
+  soilSurfaceImpedanceOhm,
+  type SoilElectrical,
+} from './fresnel.ts';
+import { pairMoments } from './kernel.ts';
+import type { Mesh } from './mesh.ts';
+import type { GroundSpec } from './types.ts';
+
+/** A disc around a ground connection where the perfect image applies (radius per frequency). */
+export interface GroundZone {
+  x: number;
+  y: number;
+  radiusM: (freqHz: number) => number;
+}
+
+export interface GroundAtFrequency {
+  /**
+   * Add the reflected interaction of source segment q on observation segment p (squared kernel
+   * radius a2, wave number k) into out[0…9]: the four vector-potential moments (M00, M10, M01,
+   * M11, each complex) already multiplied by the direction factor of the pair, then the complex
+   * scalar-potential moment. The fill adds these to the free-space terms (t̂p·t̂q)M and M00.
+   */
+  reflectedPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void;
+  /**
+   * Plane-wave reflection at grazing angle ψ (sin ψ given): writes Rv (re, im) and Rh (re, im)
+   * into out[0…3]. Perfect ground: Rv = 1, Rh = −1.
+   */
+  farFieldReflection(sinPsi: number, out: Float64Array): void;
+  /** εc of the soil (null over perfect ground). */
+  readonly epsC: Complex | null;
+  /** Soil surface impedance Zg (null over perfect ground). */
+  readonly zg: Complex | null;
+}
+
+export interface GroundModel {
+  readonly kind: 'free-space' | 'perfect' | 'reflection-coefficient';
+  readonly hasGround: boolean;
+  readonly soil: SoilElectrical | null;
+  at(freqHz: number): GroundAtFrequency | null;
+}
+
+const scratch = new Float64Array(8);
+
+function imageMoments(mesh: Mesh, p: number, q: number, a2: number, k: number): void {
+  scratch.fill(0);
+  pairMoments(
+    mesh.sx[p],
+    mesh.sy[p],
+    mesh.sz[p],
+    mesh.tx[p],
+    mesh.ty[p],
+    mesh.tz[p],
+    mesh.len[p],
+    mesh.sx[q],
+    mesh.sy[q],
+    -mesh.sz[q],
+    mesh.tx[q],
+    mesh.ty[q],
+    -mesh.tz[q],
+    mesh.len[q],
+    a2,
+    k,
+    false,
+    scratch,
+    0,
+  );
+}
+
+class PerfectAt implements GroundAtFrequency {
+  readonly epsC = null;
+  readonly zg = null;
+  reflectedPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void {
+    imageMoments(mesh, p, q, a2, k);
+    const w = -(mesh.tx[p] * mesh.tx[q] + mesh.ty[p] * mesh.ty[q] - mesh.tz[p] * mesh.tz[q]);
+    for (let i = 0; i < 8; i++) out[i] = w * scratch[i];
+    out[8] = -scratch[0];
+    out[9] = -scratch[1];
+  }
+  farFieldReflection(_sinPsi: number, out: Float64Array): void {
+    out[0] = 1;
+    out[1] = 0;
+    out[2] = -1;
+    out[3] = 0;
+  }
+}
+
+class ReflectionCoefficientAt implements GroundAtFrequency {
+  readonly epsC: Complex;
+  readonly zg: Complex;
+  private readonly zones: { x: number; y: number; r2: number }[];
+  constructor(soil: SoilElectrical, freqHz: number, zones: readonly GroundZone[]) {
+    this.epsC = complexPermittivity(soil, freqHz);
+    this.zg = soilSurfaceImpedanceOhm(this.epsC, ETA0);
+    this.zones = zones.map((z) => ({ x: z.x, y: z.y, r2: z.radiusM(freqHz) ** 2 }));
+  }
+  reflectedPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void {
+    imageMoments(mesh, p, q, a2, k);
+    const cpx = mesh.sx[p] + 0.5 * mesh.len[p] * mesh.tx[p];
+    const cpy = mesh.sy[p] + 0.5 * mesh.len[p] * mesh.ty[p];
+    const cpz = mesh.sz[p] + 0.5 * mesh.len[p] * mesh.tz[p];
+    const cqx = mesh.sx[q] + 0.5 * mesh.len[q] * mesh.tx[q];
+    const cqy = mesh.sy[q] + 0.5 * mesh.len[q] * mesh.ty[q];
+    const cqz = mesh.sz[q] + 0.5 * mesh.len[q] * mesh.tz[q];
+    const dx = cpx - cqx;
+    const dy = cpy - cqy;
+    const zs = cpz + cqz;
+    const rho = Math.hypot(dx, dy);
+    // TE/TM weights: perfect image inside a ground-system zone.
+    let rvr = 1,
+      rvi = 0,
+      mrhr = 1,
+      mrhi = 0;
+    const f = zs > 0 ? cqz / zs : 0.5;
+    const spx = cqx + dx * f;
+    const spy = cqy + dy * f;
+    let inZone = false;
+    for (const z of this.zones) if ((spx - z.x) ** 2 + (spy - z.y) ** 2 <= z.r2) inZone = true;
+    if (!inZone) {
+      const sinPsi = zs > 0 ? zs / Math.hypot(rho, zs) : 0;
+      const fr = fresnelCoefficients(this.epsC, sinPsi);
+      rvr = fr.rv.re;
+      rvi = fr.rv.im;
+      mrhr = -fr.rh.re;
+      mrhi = -fr.rh.im;
+    }
+    // direction factor −[Rv (t̂p·t̂q' − (t̂p·ĥ)(t̂q'·ĥ)) − Rh (t̂p·ĥ)(t̂q'·ĥ)], t̂q' mirrored
+    const tqx = mesh.tx[q];
+    const tqy = mesh.ty[q];
+    const tqz = -mesh.tz[q];
+    const dot = mesh.tx[p] * tqx + mesh.ty[p] * tqy + mesh.tz[p] * tqz;
+    let te = 0;
+    if (rho > 1e-9) {
+      const hx = -dy / rho;
+      const hy = dx / rho;
+      te = (mesh.tx[p] * hx + mesh.ty[p] * hy) * (tqx * hx + tqy * hy);
+    }
+    const wr = -(rvr * (dot - te) + mrhr * te);
+    const wi = -(rvi * (dot - te) + mrhi * te);
+    for (let i = 0; i < 8; i += 2) {
+      out[i] = wr * scratch[i] - wi * scratch[i + 1];
+      out[i + 1] = wr * scratch[i + 1] + wi * scratch[i];
+    }
+    out[8] = -(rvr * scratch[0] - rvi * scratch[1]);
+    out[9] = -(rvr * scratch[1] + rvi * scratch[0]);
+  }
+  farFieldReflection(sinPsi: number, out: Float64Array): void {
+    const fr = fresnelCoefficients(this.epsC, sinPsi);
+    out[0] = fr.rv.re;
+    out[1] = fr.rv.im;
+    out[2] = fr.rh.re;
+    out[3] = fr.rh.im;
+  }
+}
+
+/** The ground model for a ground description; `zones` are the ground-system discs (soil only). */
+export function createGroundModel(spec: GroundSpec, zones: readonly GroundZone[] = []): GroundModel {
+  switch (spec.kind) {
+    case 'free-space':
+      return { kind: 'free-space', hasGround: false, soil: null, at: () => null };
+    case 'perfect': {
+      const at = new PerfectAt();
+      return { kind: 'perfect', hasGround: true, soil: null, at: () => at };
+    }
+    case 'soil': {
+      const soil = { permittivity: spec.permittivity, conductivitySPerM: spec.conductivitySPerM };
+      return {
+        kind: 'reflection-coefficient',
+        hasGround: true,
+        soil,
+        at: (freqHz) => new ReflectionCoefficientAt(soil, freqHz, zones),
+      };
+    }
+  }
+}
+
+/** Perfect-ground reflection as a constant, for callers that need it outside a model. */
+export const PERFECT_REFLECTION = { rv: c(1), rh: c(-1) };

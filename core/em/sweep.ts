@@ -1,0 +1,294 @@
+/**
+ * Frequency sweeps, SWR bandwidth and trimming.
+ *
+ * A sweep meshes once (at the highest frequency) and reuses the mesh, the pair classification
+ * and the work arrays for every frequency; only the frequency-dependent kernel, the ground
+ * coefficients and the factorisation are redone. It reports feed impedances only (no pattern).
+ *
+ * Interpolated sweeps: with `anchorEvery = m`, only every m-th frequency (and the last) is
+ * solved and the impedance between is interpolated by a cubic through the four nearest anchors
+ * in the admittance, which is smoother than the impedance near a parallel resonance. The sweep
+ * then solves the one frequency that lies farthest from any anchor and reports the relative
+ * difference as `interpolationError`: the interpolation is used only where that number says it
+ * is good enough for the purpose.
+ *
+ * SWR bandwidth: the N:1 crossings are bracketed between samples and located by Brent's method
+ * (Brent 1973, ch. 4) with real solves. Trimming: a dimension set by a callback is adjusted by
+ * Brent's root finder until the feed reactance is zero, or by Brent's minimiser until the SWR is
+ * lowest, at one frequency; the segmentation is frozen at the start so that the function of the
+ * dimension is smooth.
+ */
+import { brentMinimize, brentRoot } from '../numeric/roots.ts';
+import { c, cDiv, type Complex } from '../numeric/complex.ts';
+import { ModelError } from './errors.ts';
+import { prepareFor, swrOf } from './evaluate.ts';
+import { createWorkspace, solveFrequency, type PreparedModel, type SolveWorkspace } from './solver.ts';
+import type { AntennaModel, WireSpec } from './types.ts';
+
+export interface SweepOptions {
+  referenceImpedanceOhm?: number;
+  segmentsPerWavelength?: number;
+  /** Solve every m-th frequency only and interpolate between (m ≥ 2); default 1 (solve all). */
+  anchorEvery?: number;
+  /** Which feed (index) to report; default 0. */
+  feed?: number;
+}
+
+export interface SweepPoint {
+  frequencyHz: number;
+  impedanceOhm: Complex;
+  swr: number;
+  interpolated: boolean;
+}
+
+export interface SweepResult {
+  points: SweepPoint[];
+  solves: number;
+  /** Max |Z_interp − Z_solved|/|Z_solved| at the check frequency; null when nothing is interpolated. */
+  interpolationError: number | null;
+}
+
+function feedImpedance(pm: PreparedModel, f: number, ws: SolveWorkspace, feed: number): Complex {
+  const sol = solveFrequency(pm, f, ws);
+  const fr = sol.feeds[feed];
+  if (!fr) throw new ModelError('feed', `there is no feed ${feed}`);
+  return fr.impedance;
+}
+
+/** Cubic (Lagrange) interpolation of complex values y at nodes x. */
+function lagrange(x: number[], y: Complex[], t: number): Complex {
+  let re = 0;
+  let im = 0;
+  for (let i = 0; i < x.length; i++) {
+    let w = 1;
+    for (let j = 0; j < x.length; j++) if (j !== i) w *= (t - x[j]) / (x[i] - x[j]);
+    re += w * y[i].re;
+    im += w * y[i].im;
+  }
+  return c(re, im);
+}
+
+/** Feed impedance over a list of frequencies (ascending), meshing once. */
+export function sweepImpedance(
+  model: AntennaModel,
+  frequenciesHz: readonly number[],
+  opts: SweepOptions = {},
+): SweepResult {
+  const pm = prepareFor(model, frequenciesHz, opts.segmentsPerWavelength);
+  return sweepPrepared(pm, frequenciesHz, opts);
+}
+
+export function sweepPrepared(
+  pm: PreparedModel,
+  frequenciesHz: readonly number[],
+  opts: SweepOptions = {},
+): SweepResult {
+  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const feed = opts.feed ?? 0;
+  const ws = createWorkspace(pm);
+  const m = Math.max(1, Math.floor(opts.anchorEvery ?? 1));
+  const nF = frequenciesHz.length;
+  const isAnchor = (i: number) => m === 1 || i % m === 0 || i === nF - 1;
+  const anchors: number[] = [];
+  const anchorY: Complex[] = [];
+  const z: (Complex | null)[] = frequenciesHz.map(() => null);
+  let solves = 0;
+  frequenciesHz.forEach((f, i) => {
+    if (!isAnchor(i)) return;
+    const zi = feedImpedance(pm, f, ws, feed);
+    solves++;
+    z[i] = zi;
+    anchors.push(f);
+    anchorY.push(cDiv(c(1), zi));
+  });
+  const interp = (f: number): Complex => {
+    // four nearest anchors
+    let j = anchors.findIndex((a) => a >= f);
+    if (j < 0) j = anchors.length - 1;
+    const lo = Math.max(0, Math.min(anchors.length - 4, j - 2));
+    const idx = anchors.slice(lo, lo + 4).map((_, q) => lo + q);
+    const y = lagrange(
+      idx.map((q) => anchors[q]),
+      idx.map((q) => anchorY[q]),
+      f,
+    );
+    return cDiv(c(1), y);
+  };
+  let interpolationError: number | null = null;
+  if (m > 1 && anchors.length >= 2) {
+    let worst = -1;
+    let worstD = -1;
+    frequenciesHz.forEach((f, i) => {
+      if (isAnchor(i)) return;
+      const d = Math.min(...anchors.map((a) => Math.abs(a - f)));
+      if (d > worstD) {
+        worstD = d;
+        worst = i;
+      }
+    });
+    frequenciesHz.forEach((f, i) => {
+      if (z[i] === null) z[i] = interp(f);
+    });
+    if (worst >= 0) {
+      const exact = feedImpedance(pm, frequenciesHz[worst], ws, feed);
+      solves++;
+      const est = z[worst]!;
+      interpolationError = Math.hypot(est.re - exact.re, est.im - exact.im) / Math.hypot(exact.re, exact.im);
+      z[worst] = exact;
+    }
+  }
+  const points = frequenciesHz.map((f, i) => {
+    const zi = z[i]!;
+    return { frequencyHz: f, impedanceOhm: zi, swr: swrOf(zi.re, zi.im, z0), interpolated: !isAnchor(i) };
+  });
+  return { points, solves, interpolationError };
+}
+
+export interface BandwidthOptions {
+  /** SWR limit N of the N:1 bandwidth; default 2. */
+  ratio?: number;
+  referenceImpedanceOhm?: number;
+  segmentsPerWavelength?: number;
+  feed?: number;
+  /** Relative frequency tolerance of the crossings; default 1e-5. */
+  relTol?: number;
+}
+
+export interface BandwidthResult {
+  /** Sample with the lowest SWR. */
+  bestHz: number;
+  bestSwr: number;
+  lowerHz: number | null;
+  upperHz: number | null;
+  /** upper − lower when both crossings lie inside the samples. */
+  bandwidthHz: number | null;
+  solves: number;
+}
+
+/** N:1 SWR bandwidth around the best sample, crossings found by Brent's method between samples. */
+export function swrBandwidth(
+  model: AntennaModel,
+  frequenciesHz: readonly number[],
+  opts: BandwidthOptions = {},
+): BandwidthResult {
+  const N = opts.ratio ?? 2;
+  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const feed = opts.feed ?? 0;
+  const pm = prepareFor(model, frequenciesHz, opts.segmentsPerWavelength);
+  const ws = createWorkspace(pm);
+  const fs = [...frequenciesHz].sort((a, b) => a - b);
+  let solves = 0;
+  const swrAt = (f: number): number => {
+    solves++;
+    const zz = feedImpedance(pm, f, ws, feed);
+    return swrOf(zz.re, zz.im, z0);
+  };
+  const s = fs.map(swrAt);
+  let ib = 0;
+  s.forEach((v, i) => {
+    if (v < s[ib]) ib = i;
+  });
+  const tol = (opts.relTol ?? 1e-5) * fs[ib];
+  let lowerHz: number | null = null;
+  let upperHz: number | null = null;
+  if (s[ib] < N) {
+    for (let i = ib; i > 0; i--)
+      if (s[i - 1] >= N) {
+        lowerHz = brentRoot((f) => swrAt(f) - N, fs[i - 1], fs[i], tol, 60, s[i - 1] - N, s[i] - N).x;
+        break;
+      }
+    for (let i = ib; i + 1 < fs.length; i++)
+      if (s[i + 1] >= N) {
+        upperHz = brentRoot((f) => swrAt(f) - N, fs[i], fs[i + 1], tol, 60, s[i] - N, s[i + 1] - N).x;
+        break;
+      }
+  }
+  return {
+    bestHz: fs[ib],
+    bestSwr: s[ib],
+    lowerHz,
+    upperHz,
+    bandwidthHz: lowerHz !== null && upperHz !== null ? upperHz - lowerHz : null,
+    solves,
+  };
+}
+
+export interface TrimOptions {
+  /** Builds the antenna for a value of the dimension being trimmed (e.g. a wire's length). */
+  build: (value: number) => AntennaModel;
+  /** Search range of the value. */
+  range: readonly [number, number];
+  frequencyHz: number;
+  target: 'zero-reactance' | 'min-swr';
+  referenceImpedanceOhm?: number;
+  segmentsPerWavelength?: number;
+  feed?: number;
+  /** Absolute tolerance on the value; default 1e-6 of the range's larger end. */
+  tolerance?: number;
+}
+
+export interface TrimResult {
+  value: number;
+  impedanceOhm: Complex;
+  swr: number;
+  solves: number;
+}
+
+/** Freeze the segment counts of a model at those of its mesh. */
+function frozen(model: AntennaModel, counts: number[]): AntennaModel {
+  return {
+    ...model,
+    wires: model.wires.map((w: WireSpec, i): WireSpec =>
+      w.segments === undefined && counts[i] ? { ...w, segments: counts[i] } : w,
+    ),
+  };
+}
+
+/** Trim a dimension until the reactance is zero or the SWR lowest at one frequency. */
+export function trimDimension(opts: TrimOptions): TrimResult {
+  const [lo, hi] = opts.range;
+  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const feed = opts.feed ?? 0;
+  const mid = prepareFor(opts.build(0.5 * (lo + hi)), [opts.frequencyHz], opts.segmentsPerWavelength);
+  const counts = Array.from(
+    { length: mid.mesh.nWires },
+    (_, w) => mid.mesh.wireSegStart[w + 1] - mid.mesh.wireSegStart[w],
+  );
+  let solves = 0;
+  const zAt = (v: number): Complex => {
+    solves++;
+    const model = opts.build(v);
+    const m = model.wires.length === counts.length ? frozen(model, counts) : model;
+    const pm = prepareFor(m, [opts.frequencyHz], opts.segmentsPerWavelength);
+    return feedImpedance(pm, opts.frequencyHz, createWorkspace(pm), feed);
+  };
+  const tol = opts.tolerance ?? 1e-6 * Math.max(Math.abs(lo), Math.abs(hi));
+  let value: number;
+  if (opts.target === 'zero-reactance') {
+    // bracket by scanning 9 points, then Brent
+    const xs = Array.from({ length: 9 }, (_, i) => lo + ((hi - lo) * i) / 8);
+    const fx = xs.map((x) => zAt(x).im);
+    let found = -1;
+    for (let i = 0; i + 1 < xs.length; i++)
+      if (fx[i] <= 0 !== fx[i + 1] <= 0 && Math.abs(fx[i] - fx[i + 1]) < 5000) {
+        found = i;
+        break;
+      }
+    if (found < 0)
+      throw new ModelError('range', 'the reactance does not change sign over the range: widen it');
+    value = brentRoot((x) => zAt(x).im, xs[found], xs[found + 1], tol, 80, fx[found], fx[found + 1]).x;
+  } else {
+    value = brentMinimize(
+      (x) => {
+        const zz = zAt(x);
+        return swrOf(zz.re, zz.im, z0);
+      },
+      lo,
+      hi,
+      tol,
+      80,
+    ).x;
+  }
+  const zf = zAt(value);
+  return { value, impedanceOhm: zf, swr: swrOf(zf.re, zf.im, z0), solves };
+}
