@@ -181,7 +181,8 @@ function findPeak(
       }
     }
   }
-  return { elevationDeg: bel, azimuthDeg: baz, gainDbi: toDbi(best) };
+  const r4 = (v: number) => Math.round(v * 1e4) / 1e4;
+  return { elevationDeg: r4(bel), azimuthDeg: r4(baz) % 360, gainDbi: toDbi(best) };
 }
 
 /** Assemble the result of one solved frequency. */

@@ -46,7 +46,7 @@ export function besselJ1OverJ0(z: Complex): Complex {
     const bi = 2 * m * inv.im;
     // D = 1/(b + a·D), a = −1
     let dr = br - Dr;
-    let di = bi - Di;
+    const di = bi - Di;
     if (dr === 0 && di === 0) dr = tiny;
     const dd = dr * dr + di * di;
     Dr = dr / dd;

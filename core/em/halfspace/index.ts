@@ -44,7 +44,13 @@ const cyl = new Float64Array(CYL_LEN);
  * The reflected-field dyadic D(r, r′) (18 doubles, row-major complex 3×3, m⁻³) for observer
  * `obs` and source `src`, both at z ≥ 0; returns how the remainder was obtained.
  */
-export function reflectedDyadic(hs: HalfSpace, obs: Point3, src: Point3, out: Float64Array, opts: DyadicOptions = {}): 'table' | 'direct' {
+export function reflectedDyadic(
+  hs: HalfSpace,
+  obs: Point3,
+  src: Point3,
+  out: Float64Array,
+  opts: DyadicOptions = {},
+): 'table' | 'direct' {
   const dx = obs[0] - src[0];
   const dy = obs[1] - src[1];
   const zeta = obs[2] + src[2];
@@ -59,12 +65,21 @@ export function reflectedDyadic(hs: HalfSpace, obs: Point3, src: Point3, out: Fl
 }
 
 /** Remainder components (Gρρ, Gφφ, Gρz, Gzz) at (ρ, ζ): from the table when it covers the point. */
-export function remainderCylindrical(hs: HalfSpace, rho: number, zeta: number, out: Float64Array, opts: DyadicOptions = {}): 'table' | 'direct' {
+export function remainderCylindrical(
+  hs: HalfSpace,
+  rho: number,
+  zeta: number,
+  out: Float64Array,
+  opts: DyadicOptions = {},
+): 'table' | 'direct' {
   const t = opts.table;
   if (!opts.direct && t && t.covers(rho, zeta)) {
     t.interpolate(rho, zeta, out);
     return 'table';
   }
-  sommerfeldComponents(hs, rho, zeta, out, { ...DEFAULT_SOMMERFELD, relTol: opts.relTol ?? DEFAULT_SOMMERFELD.relTol });
+  sommerfeldComponents(hs, rho, zeta, out, {
+    ...DEFAULT_SOMMERFELD,
+    relTol: opts.relTol ?? DEFAULT_SOMMERFELD.relTol,
+  });
   return 'direct';
 }
