@@ -30,7 +30,10 @@ describe('Sommerfeld integrals', () => {
       const t = Math.sqrt(0.5 * (m + Math.abs(r)));
       return r >= 0 ? [t, i / (2 * t)] : [Math.abs(i) / (2 * t), i >= 0 ? t : -t];
     };
-    const mul = (a: [number, number], b: [number, number]): [number, number] => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];
+    const mul = (a: [number, number], b: [number, number]): [number, number] => [
+      a[0] * b[0] - a[1] * b[1],
+      a[0] * b[1] + a[1] * b[0],
+    ];
     const div = (a: [number, number], b: [number, number]): [number, number] => {
       const d = b[0] * b[0] + b[1] * b[1];
       return [(a[0] * b[0] + a[1] * b[1]) / d, (a[1] * b[0] - a[0] * b[1]) / d];
@@ -50,9 +53,14 @@ describe('Sommerfeld integrals', () => {
       const rtm = div([eu0[0] - u[0], eu0[1] - u[1]], [eu0[0] + u[0], eu0[1] + u[1]]);
       const rte = div([u0[0] - u[0], u0[1] - u[1]], [u0[0] + u[0], u0[1] + u[1]]);
       const den = mul(k2sq, u0);
-      const P = div([2 * (u0[0] - u[0]), 2 * (u0[1] - u[1])], [den[0] + k0 * k0 * u[0], den[1] + k0 * k0 * u[1]]);
+      const P = div(
+        [2 * (u0[0] - u[0]), 2 * (u0[1] - u[1])],
+        [den[0] + k0 * k0 * u[0], den[1] + k0 * k0 * u[1]],
+      );
       const lhs = mul(l2, P);
-      expect(Math.hypot(lhs[0] - rte[0] - rtm[0], lhs[1] - rte[1] - rtm[1])).toBeLessThan(1e-12 * Math.hypot(rtm[0], rtm[1]));
+      expect(Math.hypot(lhs[0] - rte[0] - rtm[0], lhs[1] - rte[1] - rtm[1])).toBeLessThan(
+        1e-12 * Math.hypot(rtm[0], rtm[1]),
+      );
     }
   });
 
@@ -103,7 +111,7 @@ describe('Sommerfeld integrals', () => {
     }
   });
 
-  it('converges: tolerance 1e-6 and 1e-8 land within 10× of a 1e-12 reference', () => {
+  it('converges: tolerance 1e-6 and 1e-8 land within 10× of a 1e-11 reference', () => {
     const hs = halfSpace({ freqHz: 7.1e6, permittivity: 13, conductivitySPerM: 0.005 });
     for (const [rho, zeta] of [
       [85, 22],
@@ -111,7 +119,13 @@ describe('Sommerfeld integrals', () => {
       [12, 0],
     ]) {
       const ref = new Float64Array(CYL_LEN);
-      expect(sommerfeldComponents(hs, rho, zeta, ref, { relTol: 1e-12, subtractStatic: true, maxTailIntervals: 400 }).converged).toBe(true);
+      expect(
+        sommerfeldComponents(hs, rho, zeta, ref, {
+          relTol: 1e-11,
+          subtractStatic: true,
+          maxTailIntervals: 400,
+        }).converged,
+      ).toBe(true);
       for (const tol of [1e-6, 1e-8]) {
         const a = new Float64Array(CYL_LEN);
         sommerfeldComponents(hs, rho, zeta, a, { relTol: tol, subtractStatic: true, maxTailIntervals: 400 });
