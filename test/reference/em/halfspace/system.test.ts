@@ -76,7 +76,7 @@ describe('exact ground in the solver', () => {
       g.reflectedPair(pm.mesh, q, p, 1e-6, k, b);
       const swap = [0, 1, 4, 5, 2, 3, 6, 7, 8, 9];
       const m = Math.max(...a.map(Math.abs));
-      for (let i = 0; i < 10; i++) expect(Math.abs(a[i] - b[swap[i]])).toBeLessThan(2e-3 * m);
+      for (let i = 0; i < 10; i++) expect(Math.abs(a[i] - b[swap[i]])).toBeLessThan(1e-12 * m);
     }
   });
 });
