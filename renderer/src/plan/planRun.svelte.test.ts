@@ -160,3 +160,26 @@ describe('PlanRunner', () => {
     await expect(runner.sweep('no-such-key', 1, [3.5e6])).rejects.toThrow(/older plan/);
   });
 });
+
+describe('candidate drawings from the builders', () => {
+  it('places every shortlisted candidate with its wires and a feed point on a wire', async () => {
+    const runner = new PlanRunner(fakePool(2, { calls: 0 }));
+    runner.run(project, ['80m']);
+    await until(() => !runner.running);
+    const s = runner.shortlist!;
+    for (const c of s.candidates) {
+      const d = runner.drawings[c.id];
+      expect(d, c.id).toBeDefined();
+      expect(d!.elements.some((e) => e.kind === 'wire')).toBe(true);
+      // The feed lies on one of the candidate's placed wires (to a millimetre).
+      const f = d!.feedXYZ!;
+      const onWire = c.wires.some((w) => {
+        const ab = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
+        const af = Math.hypot(f[0] - w.from[0], f[1] - w.from[1], f[2] - w.from[2]);
+        const fb = Math.hypot(w.to[0] - f[0], w.to[1] - f[1], w.to[2] - f[2]);
+        return Math.abs(af + fb - ab) < 1e-3;
+      });
+      expect(onWire, c.id).toBe(true);
+    }
+  });
+});

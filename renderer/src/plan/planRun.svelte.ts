@@ -6,7 +6,7 @@
  */
 import type { Job, Shortlist } from '../../../core/rank/plan.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
-import type { FromWorker, SweepPoint } from '../workers/protocol.ts';
+import type { CandidateDrawing, FromWorker, SweepPoint } from '../workers/protocol.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 
 export type RunStatus = 'idle' | 'enumerating' | 'evaluating' | 'ranking' | 'done' | 'cancelled' | 'error';
@@ -30,6 +30,8 @@ export class PlanRunner {
   /** Evaluations this run took from the cache. */
   cached = $state(0);
   shortlist = $state.raw<Shortlist | null>(null);
+  /** How each shortlisted candidate is drawn on the lot, by candidate id. */
+  drawings = $state.raw<Record<string, CandidateDrawing>>({});
   /** The project and bands the shown shortlist was made for. */
   madeFor = $state.raw<{ project: Project; bands: Band[] } | null>(null);
   error = $state<string | null>(null);
@@ -179,6 +181,7 @@ export class PlanRunner {
       case 'ranked': {
         if (!run || m.runId !== run.id) return;
         this.shortlist = m.shortlist;
+        this.drawings = m.drawings;
         this.madeFor = { project: run.project, bands: run.bands };
         this.status = 'done';
         this.#run = null;

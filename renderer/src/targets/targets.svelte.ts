@@ -92,10 +92,10 @@ export class TargetsState {
     this.#doc = doc;
   }
 
-  targets: Target[] = $derived(this.#doc.project?.targets ?? []);
-  station: LonLat | null = $derived(stationOf(this.#doc.project));
+  targets: Target[] = $derived.by(() => this.#doc.project?.targets ?? []);
+  station: LonLat | null = $derived.by(() => stationOf(this.#doc.project));
   /** True when the station is the lot's centre because none was placed. */
-  stationIsLotCentre = $derived(!!this.#doc.project && !this.#doc.project.station && !!this.station);
+  stationIsLotCentre = $derived.by(() => !!this.#doc.project && !this.#doc.project.station && !!this.station);
   locator: string = $derived(this.station ? toLocator(this.station, 6) : '');
   rows: TargetRow[] = $derived(
     this.targets.map((t, i) => ({

@@ -8,8 +8,42 @@ import type { Design } from '../../../core/antennas/types.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { swrOf, type EvalGround, type Evaluator } from '../../../core/rank/evaluator.ts';
 import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
-import { enumeratePlan, planSite } from '../../../core/rank/plan.ts';
-import type { FromWorker, ToWorker } from './protocol.ts';
+import { placeElements } from '../../../core/antennas/common.ts';
+import { enumeratePlan, planFromSetup, type PlanSetup, type Shortlist } from '../../../core/rank/plan.ts';
+import { placeXYZ, type XYZ } from '../../../core/site/geometry.ts';
+import type { CandidateDrawing, FromWorker, ToWorker } from './protocol.ts';
+
+/** What each shortlisted candidate looks like on the lot: its builder's elements, placed, and its feed point. */
+export function drawingsOf(setup: PlanSetup, shortlist: Shortlist): Record<string, CandidateDrawing> {
+  const out: Record<string, CandidateDrawing> = {};
+  for (const c of shortlist.candidates) {
+    const band = setup.bands.find((b) => b.band === c.band);
+    const hit = band?.proposed.find(
+      (q) =>
+        q.key === c.evaluationKey &&
+        Math.abs(q.proposal.placement.rotationDeg - c.rotationDeg) < 1e-9 &&
+        `${c.band}-${q.proposal.groupKey.replace(/:/g, '-')}` === c.id,
+    );
+    if (!hit) continue;
+    const { design, placement } = hit.proposal;
+    const builder = builderFor(design.type);
+    const model = builder.model(design, c.trim.valueM);
+    const feed = model.feeds[0];
+    const w = feed ? model.wires[feed.wire] : undefined;
+    let feedXYZ: XYZ | null = null;
+    if (feed && w) {
+      const t = feed.position;
+      const local: XYZ = [
+        w.from[0] + t * (w.to[0] - w.from[0]),
+        w.from[1] + t * (w.to[1] - w.from[1]),
+        w.from[2] + t * (w.to[2] - w.from[2]),
+      ];
+      feedXYZ = placeXYZ(local, placement.rotationDeg, placement.originXY);
+    }
+    out[c.id] = { elements: placeElements(builder.elements(design, c.trim.valueM), placement), feedXYZ };
+  }
+  return out;
+}
 
 export interface PlanHost {
   handle(msg: ToWorker): FromWorker[];
@@ -23,12 +57,15 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
   const cache = new Map<string, EvaluationRecord>();
   /** Designs seen by enumeration, by evaluation key, for later sweeps. */
   const designs = new Map<string, { design: Design; ground: EvalGround }>();
+  /** The last enumeration, reused by the rank of the same run. */
+  let last: { runId: number; setup: PlanSetup } | null = null;
 
   function handle(msg: ToWorker): FromWorker[] {
     switch (msg.type) {
       case 'enumerate': {
         try {
           const setup = enumeratePlan(msg.project, { bands: msg.bands });
+          last = { runId: msg.runId, setup };
           for (const j of setup.jobs) designs.set(j.key, { design: j.design, ground: j.ground });
           const missing = setup.jobs.filter((j) => !cache.has(j.key));
           return [
@@ -67,10 +104,14 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
       case 'rank': {
         const t0 = now();
         try {
-          const shortlist = planSite(msg.project, { evaluator, cache, bands: msg.bands });
+          const setup =
+            last?.runId === msg.runId ? last.setup : enumeratePlan(msg.project, { bands: msg.bands });
+          // planSite is planFromSetup(enumeratePlan(...)); the setup of this run's enumeration is reused.
+          const shortlist = planFromSetup(setup, msg.project, { evaluator, cache, bands: msg.bands });
           shortlist.stats.evaluations = msg.evaluations;
           shortlist.stats.cacheHits = msg.cacheHits;
-          return [{ type: 'ranked', runId: msg.runId, shortlist, ms: now() - t0 }];
+          const drawings = drawingsOf(setup, shortlist);
+          return [{ type: 'ranked', runId: msg.runId, shortlist, drawings, ms: now() - t0 }];
         } catch (e) {
           return [{ type: 'error', runId: msg.runId, message: message(e) }];
         }

@@ -7,6 +7,16 @@
 import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import type { Job, Shortlist } from '../../../core/rank/plan.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
+import type { Element } from '../../../core/site/feasibility.ts';
+import type { XYZ } from '../../../core/site/geometry.ts';
+
+/** Everything of a shortlisted placement that is drawn on the lot, in the site frame (metres), from the builder. */
+export interface CandidateDrawing {
+  /** Wires, ropes, radials, ends, anchors, supports and masts, placed and at the trimmed dimensions. */
+  elements: Element[];
+  /** The feed point. */
+  feedXYZ: XYZ | null;
+}
 
 export type ToWorker =
   /** Lead: build the site and the jobs; answer with the jobs missing from the cache. */
@@ -29,6 +39,13 @@ export interface SweepPoint {
 export type FromWorker =
   | { type: 'enumerated'; runId: number; missing: Job[]; cached: number; total: number }
   | { type: 'evaluated'; runId: number; key: string; record: EvaluationRecord; ms: number }
-  | { type: 'ranked'; runId: number; shortlist: Shortlist; ms: number }
+  | {
+      type: 'ranked';
+      runId: number;
+      shortlist: Shortlist;
+      /** By candidate id. */
+      drawings: Record<string, CandidateDrawing>;
+      ms: number;
+    }
   | { type: 'swept'; reqId: number; points: SweepPoint[] }
   | { type: 'error'; runId?: number; reqId?: number; key?: string; message: string };
