@@ -11,11 +11,14 @@ class MapRef {
 
 export const lotMapRef = new MapRef();
 
-L.Map.addInitHook(function (this: L.Map) {
-  const map = this;
+function register(map: L.Map): void {
   // The bearing map is SVG; the only Leaflet map in the window is the lot map.
   lotMapRef.map = map;
   map.on('unload', () => {
     if (lotMapRef.map === map) lotMapRef.map = null;
   });
+}
+
+L.Map.addInitHook(function (this: L.Map) {
+  register(this);
 });
