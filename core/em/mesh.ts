@@ -43,7 +43,7 @@ export const MAX_SEGMENT_WAVELENGTHS = 0.1;
 /** Warn when a segment is shorter than this many wire radii (thin-wire kernel breaks down). */
 export const MIN_SEGMENT_RADII = 2;
 /** The default segmentation keeps segments at least this many radii long. */
-export const DEFAULT_MIN_SEGMENT_RADII = 4;
+export const DEFAULT_MIN_SEGMENT_RADII = 2;
 /** Warn when a horizontal wire over lossy ground is lower than this many wavelengths. */
 export const LOW_WIRE_WAVELENGTHS = 0.1;
 
