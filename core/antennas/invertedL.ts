@@ -23,10 +23,13 @@ import {
   wire,
 } from './common.ts';
 import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
-import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 
 /** Nominal total length as a fraction of the wavelength (common practice, no source). */
 export const INVERTED_L_NOMINAL_FRACTION = 0.26;
+/** Tallest vertical part for which an inverted-L is proposed, as a fraction of the wavelength. */
+export const INVERTED_L_MAX_VERTICAL_FRACTION = 0.2;
+/** How many far supports (nearest usable first) an inverted-L tries from each base support: the top part is short, so its direction changes the pattern little. */
+export const INVERTED_L_FAR_SUPPORTS = 1;
 
 function shape(d: Design, L: number): { top: XYZ; end: XYZ; far: XYZ } {
   const hA = num(d, 'heightAM');
@@ -50,7 +53,8 @@ export const invertedLBuilder: Builder = {
     const nominal = INVERTED_L_NOMINAL_FRACTION * lambda;
     const sup = site.site.supports;
     for (const a of sup) {
-      if (a.heightM >= VERTICAL_NOMINAL_FRACTION * lambda) continue; // tall enough for a plain vertical
+      // Tall enough for a plain vertical (or nearly: the top part would be a stub).
+      if (a.heightM >= INVERTED_L_MAX_VERTICAL_FRACTION * lambda) continue;
       if (a.heightM < 0.08 * lambda) {
         rejections.push({
           type: 'inverted-l',
@@ -63,8 +67,9 @@ export const invertedLBuilder: Builder = {
         });
         continue;
       }
-      for (const b of sup) {
-        if (b === a) continue;
+      let tried = 0;
+      const byDistance = sup.filter((b) => b !== a).sort((p, q) => dist2(a.xy, p.xy) - dist2(a.xy, q.xy));
+      for (const b of byDistance) {
         const s = dist2(a.xy, b.xy);
         const run = Math.hypot(s, b.heightM - a.heightM);
         const horiz = nominal - a.heightM;
@@ -83,6 +88,19 @@ export const invertedLBuilder: Builder = {
           });
           continue;
         }
+        if (tried >= INVERTED_L_FAR_SUPPORTS) {
+          rejections.push({
+            type: 'inverted-l',
+            band: band.band,
+            supports: [a.id, b.id],
+            where,
+            reasons: [
+              `only the ${INVERTED_L_FAR_SUPPORTS} nearest usable far supports are tried for an inverted-L up ${a.name}`,
+            ],
+          });
+          continue;
+        }
+        tried++;
         const bearing = bearingOf(a.xy, b.xy);
         // Radials are listed from canonical north; the placement rotates by bearing − 90, so re-clip in that frame.
         const rot = bearing - 90;
@@ -101,7 +119,7 @@ export const invertedLBuilder: Builder = {
             trim: {
               name: 'total wire length',
               nominalM: nominal,
-              minM: a.heightM + 0.02 * lambda,
+              minM: a.heightM + 1,
               maxM: Math.min(0.4 * lambda, a.heightM + run),
             },
           },

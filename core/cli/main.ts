@@ -4,6 +4,7 @@
  */
 import { readFile } from 'node:fs/promises';
 import { runSite } from './site.ts';
+import { runPlan } from './plan.ts';
 
 export interface CliIo {
   stdout: (s: string) => void;
@@ -14,6 +15,7 @@ export interface CliIo {
 type Command = (argv: string[], io: CliIo) => Promise<number>;
 
 const COMMANDS: Record<string, { run: Command; summary: string }> = {
+  plan: { run: runPlan, summary: 'plan --demo | plan FILE.json [--json] [--band B] [--top N]   rank antennas for the lot' },
   site: {
     run: runSite,
     summary: 'site --demo --json | site FILE.json   print the demo project, or validate a project file',

@@ -15,6 +15,13 @@
 /** Mean earth radius used by ITU-R P.533, metres. */
 export const EARTH_RADIUS_M = 6_371_000;
 
+/**
+ * Lowest take-off angle a planned hop may have, degrees. Value from memory: ITU-R P.533 uses a
+ * minimum elevation angle of 3° when it counts hops; below that, ground screening and the
+ * antenna's own null make a hop useless in practice. Set 0 for pure geometry.
+ */
+export const DEFAULT_MIN_HOP_ELEVATION_DEG = 3;
+
 /** Default range of reflection heights, metres (night F2, value from memory: typically 300–400 km). */
 export const DEFAULT_LAYER_HEIGHTS_M: readonly number[] = [250_000, 300_000, 350_000, 400_000];
 

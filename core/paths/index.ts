@@ -6,11 +6,17 @@
  */
 import type { LonLat, Polygon, Target } from '../project/schema.ts';
 import { azimuthSpan, bearingDistance, destination, type AzimuthSpan } from './geodesy.ts';
-import { DEFAULT_LAYER_HEIGHTS_M, fewestHops } from './hops.ts';
+import { DEFAULT_LAYER_HEIGHTS_M, DEFAULT_MIN_HOP_ELEVATION_DEG, fewestHops } from './hops.ts';
 import { regionById } from './regions.ts';
 
 export { bearingDistance, destination, azimuthSpan, normalizeDeg } from './geodesy.ts';
-export { singleHopElevationDeg, maxSingleHopM, fewestHops, DEFAULT_LAYER_HEIGHTS_M } from './hops.ts';
+export {
+  singleHopElevationDeg,
+  maxSingleHopM,
+  fewestHops,
+  DEFAULT_LAYER_HEIGHTS_M,
+  DEFAULT_MIN_HOP_ELEVATION_DEG,
+} from './hops.ts';
 export { REGIONS, regionById } from './regions.ts';
 export { toLocator, fromLocator } from './maidenhead.ts';
 
@@ -29,7 +35,7 @@ export interface ResolvedTarget {
 export interface PathOptions {
   /** Reflection heights, metres (default 250, 300, 350, 400 km). */
   layerHeightsM?: readonly number[];
-  /** Lowest take-off angle a hop may have, degrees (default 0). */
+  /** Lowest take-off angle a hop may have, degrees (default DEFAULT_MIN_HOP_ELEVATION_DEG = 3°). */
   minHopElevationDeg?: number;
 }
 
@@ -120,7 +126,7 @@ export function resolveTargets(targets: readonly Target[]): ResolvedTarget[] {
 /** Bearings, distances and elevation window from `station` to one resolved target. */
 export function regionPath(station: LonLat, target: ResolvedTarget, options: PathOptions = {}): RegionPath {
   const heights = options.layerHeightsM ?? DEFAULT_LAYER_HEIGHTS_M;
-  const minEl = options.minHopElevationDeg ?? 0;
+  const minEl = options.minHopElevationDeg ?? DEFAULT_MIN_HOP_ELEVATION_DEG;
   const samples: PathSample[] = target.points.map((point) => {
     const { azimuthDeg, distanceM } = bearingDistance(station, point);
     return {

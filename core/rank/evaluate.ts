@@ -117,6 +117,15 @@ export function evaluateDesign(design: Design, ground: EvalGround, evaluator: Ev
   const fh = f0 * (1 + SWEEP_FRACTION);
   const sweep = one(evaluator, design, trimM, ground, [fl, fh], false);
   const main = one(evaluator, design, trimM, ground, [f0], true)[0];
+  const { inputPowerW, radiatedPowerW, conductorLossW, groundLossW } = main;
+  if (
+    inputPowerW === undefined ||
+    radiatedPowerW === undefined ||
+    conductorLossW === undefined ||
+    groundLossW === undefined
+  ) {
+    throw new Error('the evaluator left out the power split of a full (pattern) request');
+  }
   for (const r of [...sweep, main]) diagnostics.push(...r.diagnostics);
   const fs = [fl, f0, fh];
   const R = fitQuadratic(fs, [sweep[0].zOhm[0], main.zOhm[0], sweep[1].zOhm[0]]);
@@ -162,11 +171,11 @@ export function evaluateDesign(design: Design, ground: EvalGround, evaluator: Ev
     zOhm: main.zOhm,
     swr: swr0,
     power: {
-      inputW: main.inputPowerW,
-      radiatedW: main.radiatedPowerW,
-      conductorLossW: main.conductorLossW,
-      groundLossW: main.groundLossW,
-      efficiency: main.inputPowerW > 0 ? main.radiatedPowerW / main.inputPowerW : 0,
+      inputW: inputPowerW,
+      radiatedW: radiatedPowerW,
+      conductorLossW,
+      groundLossW,
+      efficiency: inputPowerW > 0 ? radiatedPowerW / inputPowerW : 0,
     },
     bandwidth: { lowHz, highHz, widthHz, extrapolated: swr0 <= 2 && extrapolated },
     gainDbi: g,

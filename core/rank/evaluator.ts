@@ -22,14 +22,18 @@ export interface EvalRequest {
   pattern: PatternRequest | null;
 }
 
+/**
+ * One frequency of an evaluation. A feed-only request (pattern: null) needs only `zOhm`; the
+ * evaluator may then leave out the power split (it costs a far-field integration).
+ */
 export interface EvalFrequency {
   freqHz: number;
   /** Feed-point impedance [R, X], ohms. */
   zOhm: [number, number];
-  inputPowerW: number;
-  radiatedPowerW: number;
-  conductorLossW: number;
-  groundLossW: number;
+  inputPowerW?: number;
+  radiatedPowerW?: number;
+  conductorLossW?: number;
+  groundLossW?: number;
   /** Total gain, dBi, on the requested grid: elevation-major (index = iEl·nAz + iAz). */
   gainDbi: Float64Array | null;
   diagnostics: string[];

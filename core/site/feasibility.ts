@@ -16,7 +16,8 @@
  * Wires and ropes are checked at points at most SAMPLE_STEP_M apart (the result is exact to
  * within half a step of the worst approach).
  */
-import { booleanPointInPolygon, polygon as turfPolygon } from '@turf/turf';
+import { booleanPointInPolygon } from '@turf/boolean-point-in-polygon';
+import { polygon as turfPolygon } from '@turf/helpers';
 import type { XY } from './frame.ts';
 import { distanceToRingEdges, pointPolylineDistance, sampleSegment, type XYZ } from './geometry.ts';
 import type { Site, SiteKeepOut } from './site.ts';

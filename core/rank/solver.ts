@@ -1,0 +1,76 @@
+/**
+ * The Evaluator backed by the project's method-of-moments field solver (core/em). The only
+ * place where the planner meets the solver's types.
+ */
+import { evaluateAntenna } from '../em/evaluate.ts';
+import { sweepImpedance } from '../em/sweep.ts';
+import { soilById } from '../em/soils.ts';
+import type { AntennaModel, GroundSpec } from '../em/types.ts';
+import type { EvalGround, Evaluator } from './evaluator.ts';
+
+export class UnknownSoilError extends Error {
+  override name = 'UnknownSoilError';
+}
+
+export function groundSpec(g: EvalGround): GroundSpec {
+  if (g === 'perfect') return { kind: 'perfect' };
+  if (g === 'free-space') return { kind: 'free-space' };
+  if ('classId' in g) {
+    const s = soilById(g.classId);
+    if (!s) throw new UnknownSoilError(`unknown soil class "${g.classId}"`);
+    return {
+      kind: 'soil',
+      permittivity: s.permittivity,
+      conductivitySPerM: s.conductivitySPerM,
+      label: s.label,
+    };
+  }
+  return { kind: 'soil', permittivity: g.permittivity, conductivitySPerM: g.conductivitySPerM };
+}
+
+export const solverEvaluator: Evaluator = (req) => {
+  const model: AntennaModel = {
+    wires: req.model.wires.map((w) => ({
+      from: w.from,
+      to: w.to,
+      radiusM: w.radiusM,
+      ...(w.segments !== undefined ? { segments: w.segments } : {}),
+      ...(w.material !== undefined ? { material: w.material } : {}),
+    })),
+    feeds: req.model.feeds.map((f) => ({ wire: f.wire, position: f.position })),
+    radials: req.model.radials.map((r) => ({
+      wire: r.wire,
+      count: r.count,
+      lengthsM: r.lengthsM,
+      radiusM: r.radiusM,
+    })),
+    ground: groundSpec(req.ground),
+  };
+  if (req.pattern === null) {
+    // Feed only: the solver's sweep meshes once and skips the far field.
+    const sw = sweepImpedance(model, req.frequenciesHz);
+    return sw.points.map((p) => ({
+      freqHz: p.frequencyHz,
+      zOhm: [p.impedanceOhm.re, p.impedanceOhm.im],
+      gainDbi: null,
+      diagnostics: [],
+    }));
+  }
+  const res = evaluateAntenna(model, { frequenciesHz: req.frequenciesHz, pattern: req.pattern });
+  const diagnostics = res.diagnostics.filter((d) => d.level === 'warning').map((d) => d.message);
+  return res.frequencies.map((f) => {
+    const feed = f.feeds[0];
+    const gain = new Float64Array(f.pattern.length);
+    for (let i = 0; i < f.pattern.length; i++) gain[i] = f.pattern[i].gainDbi;
+    return {
+      freqHz: f.frequencyHz,
+      zOhm: [feed.impedanceOhm[0], feed.impedanceOhm[1]],
+      inputPowerW: f.inputPowerW,
+      radiatedPowerW: f.radiatedPowerW,
+      conductorLossW: f.conductorLossW,
+      groundLossW: f.groundLossW,
+      gainDbi: gain,
+      diagnostics,
+    };
+  });
+};
