@@ -26,7 +26,7 @@ describe('sweeps', () => {
   it('an interpolated sweep solves fewer points and reports its error honestly', () => {
     const direct = sweepImpedance(dipole(20.1), freqs);
     const inter = sweepImpedance(dipole(20.1), freqs, { anchorEvery: 3 });
-    expect(inter.solves).toBeLessThan(direct.solves / 3);
+    expect(inter.solves).toBeLessThan(direct.solves / 2); // 11 anchors + 1 check for 31 points
     expect(inter.interpolationError).not.toBeNull();
     let worst = 0;
     inter.points.forEach((p, i) => {
