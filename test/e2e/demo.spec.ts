@@ -1,5 +1,5 @@
 // First start: the demo lot opens with its supports, keep-outs and measures.
-import { expect, openApp, shot, test } from './fixtures.ts';
+import { expect, openApp, phrase, shot, test } from './fixtures.ts';
 
 const DEMO_SUPPORTS = [
   'West oak',
@@ -32,8 +32,8 @@ test('shows the demo lot with its supports, keep-outs and lot size', async ({ pa
 test('a power line shows its caution when selected', async ({ page, host }) => {
   await openApp(page, host);
   await page.getByRole('button', { name: /Distribution line along the road/ }).click();
-  await expect(page.getByText(/farther from a power line than it could fall/)).toBeVisible();
-  await expect(page.getByText(/Defer to local\s+codes/)).toBeVisible();
+  await expect(page.getByText(phrase('farther from a power line than it could fall'))).toBeVisible();
+  await expect(page.getByText(phrase('Defer to local codes'))).toBeVisible();
   await expect(page.getByTestId('keepout-clearance')).toHaveValue('25');
   await shot(page, 'power-line-selected');
 });

@@ -130,3 +130,12 @@ export async function clickMap(page: Page, fx: number, fy: number): Promise<void
 export async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: join('test-results', 'screenshots', `${name}.png`) });
 }
+
+/** A pattern for a phrase that matches whatever whitespace (line breaks included) sits between its words. */
+export function phrase(text: string): RegExp {
+  const escaped = text
+    .trim()
+    .split(/\s+/)
+    .map((w) => w.replace(/[.*+?^${}()|[\]\\]/g, '\\$&'));
+  return new RegExp(escaped.join('\\s+'));
+}

@@ -35,6 +35,14 @@ describe('lot measures', () => {
     expect(formatArea(500, 'imperial')).toBe('5382 ft²');
   });
 
+  it('knows which way each side faces, whichever way the ring runs', () => {
+    const ring = demo.boundary!.coordinates[0]!;
+    expect(ringSides(ring).map((s) => s.facing)).toEqual(['S', 'E', 'N', 'W']);
+    expect(ringSides([...ring].reverse()).map((s) => s.facing)).toEqual(['W', 'N', 'E', 'S']);
+    const south = ringSides(ring)[0]!;
+    expect(south.outward[1]).toBeCloseTo(-1, 6);
+  });
+
   it('closes a ring once', () => {
     expect(
       closeRing([

@@ -23,19 +23,47 @@ export interface Side {
   to: LonLat;
   mid: LonLat;
   lengthM: number;
+  /** Unit vector (east, north) pointing out of the polygon, square to the side. */
+  outward: [number, number];
+  /** Compass direction the side faces (out of the polygon): N, NE, E, … */
+  facing: string;
 }
 
-/** The sides of a closed ring (first position repeated at the end), with their lengths. */
+const COMPASS = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
+
+/** Compass point of a direction given as (east, north). */
+export function compassPoint(east: number, north: number): string {
+  const bearingDeg = ((Math.atan2(east, north) * 180) / Math.PI + 360) % 360;
+  return COMPASS[Math.round(bearingDeg / 45) % 8]!;
+}
+
+/**
+ * The sides of a closed ring (first position repeated at the end), with their lengths and the
+ * direction each faces. Directions use a local plane (longitude scaled by cos latitude), ample
+ * over a lot.
+ */
 export function ringSides(ring: readonly LonLat[]): Side[] {
+  const k = Math.cos(((ring[0]?.[1] ?? 0) * Math.PI) / 180);
+  let twiceArea = 0;
+  for (let i = 0; i + 1 < ring.length; i++) {
+    twiceArea += ring[i]![0] * k * ring[i + 1]![1] - ring[i + 1]![0] * k * ring[i]![1];
+  }
+  const ccw = twiceArea > 0; // interior on the left of each side
   const sides: Side[] = [];
   for (let i = 0; i + 1 < ring.length; i++) {
     const from = ring[i]!;
     const to = ring[i + 1]!;
+    const de = (to[0] - from[0]) * k;
+    const dn = to[1] - from[1];
+    const len = Math.hypot(de, dn) || 1;
+    const outward: [number, number] = ccw ? [dn / len, -de / len] : [-dn / len, de / len];
     sides.push({
       from,
       to,
       mid: [(from[0] + to[0]) / 2, (from[1] + to[1]) / 2],
       lengthM: distanceM(from, to),
+      outward,
+      facing: compassPoint(outward[0], outward[1]),
     });
   }
   return sides;

@@ -44,10 +44,15 @@ function escapeHtml(s: string): string {
   return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 
-function label(text: string, className: string): L.DivIcon {
+/** Pixels between a side and its length label. */
+const SIDE_LABEL_OFFSET_PX = 15;
+
+/** A text label centred on its point, shifted by (dx, dy) screen pixels. */
+function label(text: string, className: string, dx = 0, dy = 0): L.DivIcon {
+  const style = `transform: translate(calc(-50% + ${dx.toFixed(1)}px), calc(-50% + ${dy.toFixed(1)}px))`;
   return L.divIcon({
     className: `yw-label ${className}`,
-    html: `<span>${escapeHtml(text)}</span>`,
+    html: `<span style="${style}">${escapeHtml(text)}</span>`,
     iconSize: undefined,
   });
 }
@@ -88,10 +93,17 @@ export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): Buil
     editable.set('boundary', poly);
     for (const side of ringSides(ring)) {
       L.marker(toLatLng(side.mid), {
-        icon: label(formatLength(side.lengthM, o.units), 'yw-side-label'),
+        // Outside the lot, clear of the corner handles and of what is drawn inside.
+        icon: label(
+          formatLength(side.lengthM, o.units),
+          'yw-side-label',
+          side.outward[0] * SIDE_LABEL_OFFSET_PX,
+          -side.outward[1] * SIDE_LABEL_OFFSET_PX,
+        ),
         interactive: false,
         keyboard: false,
         pmIgnore: true,
+        snapIgnore: true,
       }).addTo(group);
     }
   }
@@ -108,6 +120,7 @@ export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): Buil
       draggable: o.draggable,
       interactive: o.interactive,
       pmIgnore: true,
+      snapIgnore: true,
       title: 'Station (drag to move)',
     }).addTo(group);
     m.bindTooltip('Station', { permanent: true, direction: 'bottom', offset: [0, 10], className: 'yw-tip' });
@@ -127,6 +140,7 @@ function supportMarker(s: Support, selected: boolean, o: LayerOptions, h: LayerH
     draggable: o.draggable,
     interactive: o.interactive,
     pmIgnore: true,
+    snapIgnore: true,
     title: `${s.name} (${s.kind}); drag to move`,
     alt: s.name,
   });
@@ -149,6 +163,7 @@ function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.L
     L.geoJSON(band, {
       interactive: false,
       pmIgnore: true,
+      snapIgnore: true,
       style: {
         color: power ? COLOURS.band : colour,
         weight: 1.5,
@@ -175,7 +190,7 @@ function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.L
   layer.bindTooltip(`${escapeHtml(k.name)}${clear}`, {
     permanent: power,
     sticky: !power,
-    direction: 'top',
+    direction: power ? 'bottom' : 'top',
     className: `yw-tip${power ? ' yw-tip-danger' : ''}`,
   });
   return layer;

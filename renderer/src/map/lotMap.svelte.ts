@@ -39,7 +39,7 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
     map.setView([20, 0], 2);
     map.attributionControl.setPrefix('Leaflet');
     map.createPane('aerial').style.zIndex = '250';
-    map.pm.setGlobalOptions({ snappable: true, snapDistance: 12 });
+    map.pm.setGlobalOptions({ snappable: true, snapDistance: 12, finishOnEnter: true });
     const resize = new ResizeObserver(() => map.invalidateSize());
     resize.observe(el);
 
@@ -179,7 +179,8 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       };
     });
     $effect(() => {
-      image?.setOpacity(overlay.opacity);
+      const opacity = overlay.opacity; // read first, so the effect tracks it even before an image exists
+      image?.setOpacity(opacity);
     });
 
     return () => {

@@ -61,7 +61,8 @@ export class OverlayState {
         maxSide /= 2;
       }
     } catch (e) {
-      this.error = e instanceof AerialImportError ? e.message : `Import failed: ${String(e)}`;
+      const why = e instanceof AerialImportError ? e.message : `Import failed: ${String(e)}`;
+      this.error = `${name}: ${why}`;
       return false;
     } finally {
       this.busy = false;

@@ -61,6 +61,9 @@ export interface Notice {
   text: string;
 }
 
+/** How long an information notice stays on screen. */
+export const INFO_NOTICE_MS = 5000;
+
 export class UiState {
   tool = $state<ToolId>('select');
   tab = $state<TabId>('lot');
@@ -78,8 +81,15 @@ export class UiState {
     if (id !== 'select') this.tab = 'lot';
   }
 
+  /** Show a notice; information fades after a few seconds, errors stay until dismissed. */
   notify(kind: Notice['kind'], text: string): void {
-    this.notice = { kind, text };
+    const notice = { kind, text };
+    this.notice = notice;
+    if (kind === 'info') {
+      setTimeout(() => {
+        if (this.notice === notice) this.notice = null;
+      }, INFO_NOTICE_MS);
+    }
   }
 
   requestGoTo(at: LonLat): void {
