@@ -1,0 +1,125 @@
+/**
+ * Planning benchmark: `npx tsx test/bench/plan.ts [--quick]`.
+ *
+ *  1. Cold start: `plan --demo --json` in a fresh Node process (worker threads on every core),
+ *     wall time, median of 3.
+ *  2. Re-plan: with warm workers and the evaluation cache of a first plan, move one support by a
+ *     few metres and plan again; median of 5 different moves.
+ *  3. Growth: designs to evaluate and plan time against the number of supports on an invented
+ *     300 m × 200 m lot (seeded positions), up to 40 supports, with the peak memory.
+ */
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { createWorkerPool } from '../../core/cli/plan.ts';
+import { enumeratePlan, memoryCache, planFromSetup } from '../../core/rank/plan.ts';
+import { solverEvaluator } from '../../core/rank/solver.ts';
+import { makeSiteFrame } from '../../core/site/frame.ts';
+import { ProjectSchema, PROJECT_SCHEMA_VERSION, type Project } from '../../core/project/schema.ts';
+import { buildDemoProject, demoLonLat } from '../../data/demo/demoProject.ts';
+
+const quick = process.argv.includes('--quick');
+const root = fileURLToPath(new URL('../..', import.meta.url));
+const median = (xs: number[]): number => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+};
+const log = (s: string): void => void process.stdout.write(s + '\n');
+
+// 1. Cold start
+const cold: number[] = [];
+for (let i = 0; i < (quick ? 1 : 3); i++) {
+  const t = performance.now();
+  const r = spawnSync(process.execPath, ['--import', 'tsx', 'core/cli/main.ts', 'plan', '--demo', '--json'], {
+    cwd: root,
+    encoding: 'utf8',
+    maxBuffer: 64 * 1024 * 1024,
+  });
+  const s = (performance.now() - t) / 1000;
+  if (r.status !== 0) throw new Error(`plan --demo failed: ${r.stderr}`);
+  const n = (JSON.parse(r.stdout) as { candidates: unknown[] }).candidates.length;
+  cold.push(s);
+  log(`cold start ${i + 1}: ${s.toFixed(2)} s (${n} candidates)`);
+}
+log(`COLD START median: ${median(cold).toFixed(2)} s (target ≤ 5 s)`);
+
+// 2. Re-plan after moving one support
+const pool = createWorkerPool(2);
+const cache = memoryCache();
+const demo = buildDemoProject();
+{
+  const setup = enumeratePlan(demo);
+  await pool.evaluate(setup.jobs, cache);
+  planFromSetup(setup, demo, { evaluator: solverEvaluator, cache });
+}
+const moves: [string, number, number][] = [
+  ['oak-west', 40, 70],
+  ['pine-ridge', 123, 74],
+  ['maple-yard', 60, 44],
+  ['spruce-ne', 150, 89],
+  ['oak-north', 83, 85],
+];
+const replan: number[] = [];
+for (const [id, e, n] of moves.slice(0, quick ? 2 : 5)) {
+  const p: Project = structuredClone(demo);
+  const s = p.supports.find((x) => x.id === id);
+  if (!s) throw new Error(id);
+  s.position = demoLonLat(e, n);
+  const t = performance.now();
+  const setup = enumeratePlan(p);
+  const fresh = await pool.evaluate(setup.jobs, cache);
+  const out = planFromSetup(setup, p, { evaluator: solverEvaluator, cache });
+  const sec = (performance.now() - t) / 1000;
+  replan.push(sec);
+  log(
+    `re-plan after moving ${id}: ${sec.toFixed(2)} s (${fresh} new evaluations of ${setup.jobs.length}, ${out.candidates.length} candidates)`,
+  );
+}
+log(`RE-PLAN median: ${median(replan).toFixed(2)} s (target ≤ 1 s)`);
+
+// 3. Growth with the number of supports
+function lotWith(n: number): Project {
+  const frame = makeSiteFrame([-93.75, 44.9]);
+  const ll = (x: number, y: number): [number, number] => frame.toLonLat([x, y]);
+  let seed = 20240601;
+  const rnd = (): number => {
+    seed = (seed * 16807) % 2147483647;
+    return seed / 2147483647;
+  };
+  const boundary = [ll(-150, -100), ll(150, -100), ll(150, 100), ll(-150, 100), ll(-150, -100)];
+  return ProjectSchema.parse({
+    schemaVersion: PROJECT_SCHEMA_VERSION,
+    id: `bench-${n}`,
+    name: `Invented ${n}-support lot`,
+    boundary: { type: 'Polygon', coordinates: [boundary] },
+    supports: Array.from({ length: n }, (_, i) => ({
+      id: `s${i}`,
+      name: `Support ${i}`,
+      kind: 'tree',
+      position: ll(-140 + 280 * rnd(), -90 + 180 * rnd()),
+      usableHeightM: Math.round(10 + 14 * rnd()),
+    })),
+    station: ll(0, -90),
+    targets: [
+      { regionId: 'europe', weight: 3 },
+      { regionId: 'japan', weight: 1 },
+    ],
+    bands: ['80m'],
+  });
+}
+for (const n of quick ? [4, 8] : [4, 8, 16, 40]) {
+  const p = lotWith(n);
+  const t0 = performance.now();
+  const setup = enumeratePlan(p);
+  const tEnum = (performance.now() - t0) / 1000;
+  const c = memoryCache();
+  await pool.evaluate(setup.jobs, c);
+  const out = planFromSetup(setup, p, { evaluator: solverEvaluator, cache: c });
+  const sec = (performance.now() - t0) / 1000;
+  const mem = process.memoryUsage();
+  log(
+    `${String(n).padStart(2)} supports: ${setup.jobs.length} designs, ${setup.bands[0].proposed.length} feasible placements, ` +
+      `enumerate ${tEnum.toFixed(2)} s, plan ${sec.toFixed(1)} s, ${out.candidates.length} candidates, ` +
+      `heap ${(mem.heapUsed / 2 ** 20).toFixed(0)} MiB, rss ${(mem.rss / 2 ** 20).toFixed(0)} MiB`,
+  );
+}
+await pool.close();
