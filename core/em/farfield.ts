@@ -57,12 +57,14 @@ function radiationVectors(
 ): void {
   const { mesh, nodeCurrents: I, k } = src;
   out.fill(0);
-  for (let pass = 0; pass < (withImage ? 2 : 1); pass++) {
-    const zs = pass === 0 ? 1 : -1;
-    const cs = pass === 0 ? 1 : -1; // image current −I along the mirrored direction
-    const o = pass * 6;
-    for (let w = 0; w < mesh.nWires; w++) {
-      const s0 = mesh.wireSegStart[w];
+  for (let w = 0; w < mesh.nWires; w++) {
+    const s0 = mesh.wireSegStart[w];
+    const horizontal = mesh.tz[s0] === 0;
+    const passes = withImage && !horizontal ? 2 : 1;
+    for (let pass = 0; pass < passes; pass++) {
+      const zs = pass === 0 ? 1 : -1;
+      const cs = pass === 0 ? 1 : -1; // image current −I along the mirrored direction
+      const o = pass * 6;
       const nS = mesh.wireSegStart[w + 1] - s0;
       const n0 = mesh.wireNodeStart[w];
       const wtx = mesh.tx[s0];
@@ -130,6 +132,20 @@ function radiationVectors(
       out[o + 3] += si * wty;
       out[o + 4] += sr * wtz;
       out[o + 5] += si * wtz;
+
+      if (withImage && horizontal) {
+        // image of a horizontal wire: same nodes lowered to −z, so its sum is this one times
+        // e^{−2jk uz z} with the current reversed (the mirrored direction equals t̂)
+        const ph = -2 * k * uz * mesh.sz[s0];
+        const c2 = Math.cos(ph);
+        const s2 = Math.sin(ph);
+        const jr = -(sr * c2 - si * s2);
+        const ji = -(sr * s2 + si * c2);
+        out[6] += jr * wtx;
+        out[7] += ji * wtx;
+        out[8] += jr * wty;
+        out[9] += ji * wty;
+      }
     }
   }
 }

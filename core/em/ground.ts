@@ -58,6 +58,12 @@ export interface GroundAtFrequency {
    */
   reflectedPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void;
   /**
+   * Optional fast path for image-based models: the same as `reflectedPair`, given the moments of
+   * p with the mirror image of q (8 doubles, as kernel.ts writes them), which the fill may take
+   * from its cache. Models that do not work with images (an exact half-space) leave it out.
+   */
+  weightImage?(mesh: Mesh, p: number, q: number, img: Float64Array, out: Float64Array): void;
+  /**
    * Plane-wave reflection at grazing angle ψ (sin ψ given): writes Rv (re, im) and Rh (re, im)
    * into out[0…3]. Perfect ground: Rv = 1, Rh = −1.
    */
@@ -107,10 +113,13 @@ class PerfectAt implements GroundAtFrequency {
   readonly zg = null;
   reflectedPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void {
     imageMoments(mesh, p, q, a2, k);
+    this.weightImage(mesh, p, q, scratch, out);
+  }
+  weightImage(mesh: Mesh, p: number, q: number, img: Float64Array, out: Float64Array): void {
     const w = -(mesh.tx[p] * mesh.tx[q] + mesh.ty[p] * mesh.ty[q] - mesh.tz[p] * mesh.tz[q]);
-    for (let i = 0; i < 8; i++) out[i] = w * scratch[i];
-    out[8] = -scratch[0];
-    out[9] = -scratch[1];
+    for (let i = 0; i < 8; i++) out[i] = w * img[i];
+    out[8] = -img[0];
+    out[9] = -img[1];
   }
   farFieldReflection(_sinPsi: number, out: Float64Array): void {
     out[0] = 1;
@@ -131,6 +140,9 @@ class ReflectionCoefficientAt implements GroundAtFrequency {
   }
   reflectedPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void {
     imageMoments(mesh, p, q, a2, k);
+    this.weightImage(mesh, p, q, scratch, out);
+  }
+  weightImage(mesh: Mesh, p: number, q: number, img: Float64Array, out: Float64Array): void {
     const cpx = mesh.sx[p] + 0.5 * mesh.len[p] * mesh.tx[p];
     const cpy = mesh.sy[p] + 0.5 * mesh.len[p] * mesh.ty[p];
     const cpz = mesh.sz[p] + 0.5 * mesh.len[p] * mesh.tz[p];
@@ -152,12 +164,41 @@ class ReflectionCoefficientAt implements GroundAtFrequency {
     let inZone = false;
     for (const z of this.zones) if ((spx - z.x) ** 2 + (spy - z.y) ** 2 <= z.r2) inZone = true;
     if (!inZone) {
+      // Fresnel coefficients (fresnel.ts), inlined with scalars: this runs once per segment pair.
       const sinPsi = zs > 0 ? zs / Math.hypot(rho, zs) : 0;
-      const fr = fresnelCoefficients(this.epsC, sinPsi);
-      rvr = fr.rv.re;
-      rvi = fr.rv.im;
-      mrhr = -fr.rh.re;
-      mrhi = -fr.rh.im;
+      const er = this.epsC.re;
+      const ei = this.epsC.im;
+      // √S, S = εc − cos²ψ (principal root)
+      const sr0 = er - (1 - sinPsi * sinPsi);
+      const m = Math.hypot(sr0, ei);
+      let qr: number;
+      let qi: number;
+      if (sr0 >= 0) {
+        qr = Math.sqrt(0.5 * (m + sr0));
+        qi = qr > 0 ? ei / (2 * qr) : 0;
+      } else {
+        qi = Math.sqrt(0.5 * (m - sr0));
+        qr = Math.abs(ei) / (2 * qi);
+        if (ei < 0) qi = -qi;
+      }
+      // Rv = (εc sinψ − √S)/(εc sinψ + √S)
+      const ar = er * sinPsi;
+      const ai = ei * sinPsi;
+      let nr = ar - qr;
+      let ni = ai - qi;
+      let dr = ar + qr;
+      let di = ai + qi;
+      let dd = dr * dr + di * di;
+      rvr = (nr * dr + ni * di) / dd;
+      rvi = (ni * dr - nr * di) / dd;
+      // −Rh = −(sinψ − √S)/(sinψ + √S)
+      nr = sinPsi - qr;
+      ni = -qi;
+      dr = sinPsi + qr;
+      di = qi;
+      dd = dr * dr + di * di;
+      mrhr = -(nr * dr + ni * di) / dd;
+      mrhi = -(ni * dr - nr * di) / dd;
     }
     // direction factor −[Rv (t̂p·t̂q' − (t̂p·ĥ)(t̂q'·ĥ)) − Rh (t̂p·ĥ)(t̂q'·ĥ)], t̂q' mirrored
     const tqx = mesh.tx[q];
@@ -173,11 +214,11 @@ class ReflectionCoefficientAt implements GroundAtFrequency {
     const wr = -(rvr * (dot - te) + mrhr * te);
     const wi = -(rvi * (dot - te) + mrhi * te);
     for (let i = 0; i < 8; i += 2) {
-      out[i] = wr * scratch[i] - wi * scratch[i + 1];
-      out[i + 1] = wr * scratch[i + 1] + wi * scratch[i];
+      out[i] = wr * img[i] - wi * img[i + 1];
+      out[i + 1] = wr * img[i + 1] + wi * img[i];
     }
-    out[8] = -(rvr * scratch[0] - rvi * scratch[1]);
-    out[9] = -(rvr * scratch[1] + rvi * scratch[0]);
+    out[8] = -(rvr * img[0] - rvi * img[1]);
+    out[9] = -(rvr * img[1] + rvi * img[0]);
   }
   farFieldReflection(sinPsi: number, out: Float64Array): void {
     const fr = fresnelCoefficients(this.epsC, sinPsi);

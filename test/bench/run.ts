@@ -1,0 +1,173 @@
+/**
+ * Field-solver benchmark (not a timed test): `npx tsx test/bench/run.ts`.
+ *
+ *  1. one full evaluation of a 200-unknown antenna over lossy ground: fill, solve, the upper
+ *     half-space pattern at 2° steps (8280 directions), the radiated-power integration and the
+ *     peak search (target ≤ 60 ms);
+ *  2. a 31-point feed-impedance sweep of a 100-unknown antenna (target ≤ 300 ms), direct and
+ *     interpolated (an anchor every third point);
+ *  3. LU factorisation against LAPACK through numpy/scipy, one thread, at n = 100, 200, 400;
+ *  4. memory of the solve: one complex matrix, factored in place, plus the pivot rows.
+ * Medians of several runs after warm-up. Prints plain text; `--json` prints JSON.
+ */
+import { spawnSync } from 'node:child_process';
+import { evaluateAntenna } from '../../core/em/evaluate.ts';
+import { sweepImpedance } from '../../core/em/sweep.ts';
+import { luFactor } from '../../core/numeric/lu.ts';
+import type { AntennaModel } from '../../core/em/types.ts';
+
+const AVERAGE = { kind: 'soil' as const, permittivity: 13, conductivitySPerM: 0.005 };
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+function time(fn: () => void, warm: number, runs: number): number[] {
+  for (let i = 0; i < warm; i++) fn();
+  const out: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    out.push(performance.now() - t0);
+  }
+  return out;
+}
+
+/** Four 40 m dipoles, 10 m apart, 15 m up, fed in phase: 4 × 50 = 200 unknowns. */
+const array200: AntennaModel = {
+  wires: [0, 1, 2, 3].map((i) => ({ from: [-10.1, 10 * i, 15] as const, to: [10.1, 10 * i, 15] as const, radiusM: 0.001, segments: 51 })),
+  feeds: [0, 1, 2, 3].map((i) => ({ wire: i, position: 0.5, voltage: [Math.cos(i * 0.6), Math.sin(i * 0.6)] as const })),
+  ground: AVERAGE,
+};
+
+/** 80 m half-square, 25 + 51 + 25 segments: 100 unknowns. */
+const halfSquare100: AntennaModel = {
+  wires: [
+    { from: [0, 0, 2.5], to: [0, 0, 23], radiusM: 0.001, segments: 25 },
+    { from: [0, 0, 23], to: [41, 0, 23], radiusM: 0.001, segments: 51 },
+    { from: [41, 0, 23], to: [41, 0, 2.5], radiusM: 0.001, segments: 25 },
+  ],
+  feeds: [{ wire: 1, position: 0 }],
+  ground: AVERAGE,
+};
+
+const lines: string[] = [];
+const json: Record<string, unknown> = {};
+const say = (s: string) => lines.push(s);
+
+// 1. full evaluation
+{
+  let unknowns = 0;
+  const t = time(
+    () => {
+      unknowns = evaluateAntenna(array200, { frequenciesHz: [7.1e6] }).unknowns;
+    },
+    3,
+    11,
+  );
+  json.fullEvaluation200 = { unknowns, medianMs: median(t), runsMs: t };
+  say(`full evaluation, ${unknowns} unknowns over lossy ground, 2° upper half-space pattern: median ${median(t).toFixed(1)} ms (target 60 ms)`);
+}
+// 2. sweep
+{
+  const freqs = Array.from({ length: 31 }, (_, i) => 3.5e6 + i * 0.01e6);
+  let unknowns = 0;
+  const t = time(
+    () => {
+      sweepImpedance(halfSquare100, freqs);
+    },
+    2,
+    7,
+  );
+  unknowns = evaluateAntenna(halfSquare100, { frequenciesHz: [3.6e6], pattern: { elevationsDeg: [], azimuthsDeg: [] } }).unknowns;
+  let err = 0;
+  const ti = time(
+    () => {
+      err = sweepImpedance(halfSquare100, freqs, { anchorEvery: 3 }).interpolationError ?? 0;
+    },
+    2,
+    7,
+  );
+  json.sweep31x100 = { unknowns, medianMs: median(t), interpolatedMedianMs: median(ti), interpolationError: err };
+  say(`31-point sweep, ${unknowns} unknowns: median ${median(t).toFixed(1)} ms (target 300 ms); interpolated (anchor every 3rd point): ${median(ti).toFixed(1)} ms, checked error ${(100 * err).toFixed(3)} %`);
+}
+// 3. LU against LAPACK
+{
+  const sizes = [100, 200, 400];
+  const ours: Record<number, number> = {};
+  for (const n of sizes) {
+    let s = 12345;
+    const a0 = new Float64Array(2 * n * n).map(() => {
+      s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+      return s / 4294967296 - 0.5;
+    });
+    const a = new Float64Array(a0.length);
+    const piv = new Int32Array(n);
+    const t = time(
+      () => {
+        a.set(a0);
+        luFactor(n, a, piv);
+      },
+      3,
+      n >= 400 ? 9 : 15,
+    );
+    ours[n] = median(t);
+  }
+  const py = `
+import time, sys
+import numpy as np
+try:
+    from scipy.linalg import lu_factor as f
+    how = 'scipy.linalg.lu_factor (LAPACK zgetrf)'
+    run = lambda a: f(a, overwrite_a=True, check_finite=False)
+except Exception:
+    how = 'numpy.linalg.solve (LAPACK zgesv)'
+    run = lambda a: np.linalg.solve(a, np.ones(a.shape[0]))
+rng = np.random.default_rng(1)
+out = {}
+for n in (100, 200, 400):
+    a0 = (rng.random((n, n)) - 0.5) + 1j * (rng.random((n, n)) - 0.5)
+    ts = []
+    for i in range(3 + 15):
+        a = np.array(a0, order='F')
+        t0 = time.perf_counter(); run(a); t1 = time.perf_counter()
+        if i >= 3: ts.append((t1 - t0) * 1000)
+    ts.sort(); out[n] = ts[len(ts) // 2]
+print(how)
+print(' '.join(f'{n}:{out[n]}' for n in out))
+`;
+  const env = { ...process.env, OPENBLAS_NUM_THREADS: '1', OMP_NUM_THREADS: '1', MKL_NUM_THREADS: '1', VECLIB_MAXIMUM_THREADS: '1' };
+  let lapack: Record<number, number> | null = null;
+  let how = '';
+  for (const exe of ['python3', '/usr/bin/python3']) {
+    const r = spawnSync(exe, ['-c', py], { env, encoding: 'utf8', timeout: 120_000 });
+    if (r.status === 0) {
+      const [h, nums] = r.stdout.trim().split('\n');
+      how = `${h} via ${exe}`;
+      lapack = Object.fromEntries(nums.split(' ').map((kv) => kv.split(':').map(Number)));
+      break;
+    }
+  }
+  json.lu = { oursMs: ours, lapackMs: lapack, lapack: how || null };
+  for (const n of sizes) {
+    const flops = (8 / 3) * n ** 3; // complex LU, real flops
+    const gf = flops / (ours[n] * 1e6);
+    if (lapack)
+      say(
+        `LU n = ${n}: ours ${ours[n].toFixed(2)} ms (${gf.toFixed(1)} GFlop/s), LAPACK ${lapack[n].toFixed(2)} ms, ratio ${(ours[n] / lapack[n]).toFixed(1)}×`,
+      );
+    else say(`LU n = ${n}: ours ${ours[n].toFixed(2)} ms (${gf.toFixed(1)} GFlop/s)`);
+  }
+  say(lapack ? `LAPACK reference: ${how}, one thread` : 'LAPACK comparison skipped: no python3 with numpy found (install python3-numpy to measure)');
+}
+// 4. memory
+{
+  const n = 200;
+  const bytes = 2 * n * n * 8 + 4 * n;
+  json.memory = { unknowns: n, matrixAndFactorsBytes: bytes };
+  say(`memory, ${n} unknowns: one complex matrix factored in place + pivots = ${(bytes / 1024).toFixed(0)} KiB; no object per element`);
+}
+
+if (process.argv.includes('--json')) process.stdout.write(JSON.stringify(json, null, 2) + '\n');
+else process.stdout.write(lines.join('\n') + '\n');
