@@ -73,14 +73,21 @@ export function drawCandidate(map: L.Map, candidate: DrawnCandidate, project: Pr
 
   // Lines toward the targets, then the broadside bearings, under the antenna itself.
   candidate.regions.forEach((r, i) => {
-    const line = L.polyline(ray(frame, centre, r.bearingDeg.center, span * 0.9), {
+    const pts = ray(frame, centre, r.bearingDeg.center, span * 0.9);
+    L.polyline(pts, {
       color: targetColour(i),
       weight: 2,
       opacity: 0.85,
       dashArray: '1 6',
       lineCap: 'round',
+      interactive: false,
     }).addTo(g);
-    tip(line, `${r.name} ${Math.round(r.bearingDeg.center)}°`, true);
+    // The label sits near the antenna, where it stays in view.
+    const at = ray(frame, centre, r.bearingDeg.center, Math.min(45, span * 0.3))[1]!;
+    L.tooltip({ permanent: true, direction: 'center', className: 'yw-tip' })
+      .setLatLng(at)
+      .setContent(`${r.name} ${Math.round(r.bearingDeg.center)}°`)
+      .addTo(g);
   });
   candidate.broadsideDeg.forEach((b) => {
     const line = L.polyline(ray(frame, centre, b, span * 0.6), {

@@ -96,3 +96,13 @@ export const fmtSwr = (s: number): string => (Number.isFinite(s) ? `${s.toFixed(
 export const fmtBearings = (b: readonly number[]): string =>
   b.length === 0 ? 'all round' : b.map((x) => `${Math.round(x)}°`).join(' / ');
 export const fmtLen = (m: number, units: UnitSystem): string => formatLength(m, units);
+
+/** Short names of the antenna types for table cells (the core's full label is in the detail). */
+const SHORT_TYPE: Record<string, string> = {
+  dipole: 'Dipole',
+  'inverted-v': 'Inverted-V',
+  'half-square': 'Half-square',
+  vertical: 'Vertical, radials',
+  'inverted-l': 'Inverted-L',
+};
+export const shortType = (c: Candidate): string => SHORT_TYPE[c.type] ?? c.typeLabel;

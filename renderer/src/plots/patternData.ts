@@ -104,5 +104,7 @@ export interface SwrSeries {
   /** The 2:1 edges the planning core found, MHz (null where no edge lies inside its sweep). */
   lowMHz: number | null;
   highMHz: number | null;
+  /** The core's 2:1 width, kHz (0 when the SWR at the design frequency is over 2). */
+  widthKHz: number;
   designMHz: number;
 }

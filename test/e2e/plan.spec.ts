@@ -1,0 +1,89 @@
+// The planning workflow end to end: open the demo, pick targets, run a plan for 80 m in the
+// workers, watch the progress, read the ranked shortlist, select the first candidate, see it on
+// the lot and its plots, compare two, browse the rejected placements.
+import { expect, openApp, shot, test } from './fixtures.ts';
+
+test('plans the demo lot for 80 m and shows the first candidate drawn with its plots', async ({
+  page,
+  host,
+}) => {
+  test.setTimeout(180_000);
+  await openApp(page, host);
+  const dock = page.getByTestId('plan-dock');
+  await dock.getByRole('tab', { name: /Targets/ }).click();
+
+  // The station's locator is shown; the bearing map is drawn around it.
+  await expect(page.getByTestId('station-locator')).toHaveValue(/^[A-R]{2}\d\d[a-x]{2}$/);
+  await expect(page.getByTestId('bearing-map')).toBeVisible();
+
+  // Pick two regions from the list and give one more weight.
+  const list = page.getByTestId('region-list');
+  for (const name of ['Europe', 'Japan']) {
+    const box = list.getByRole('checkbox', { name });
+    if (!(await box.isChecked())) await box.check();
+  }
+  await page.getByRole('spinbutton', { name: 'Weight of Europe' }).fill('2');
+  await page.getByRole('spinbutton', { name: 'Weight of Europe' }).press('Tab');
+  await expect(list.getByTestId('path-figures').first()).toContainText(/km/);
+  await shot(page, 'plan-targets');
+
+  // 80 m only, then run.
+  const bar = page.getByTestId('run-bar');
+  for (const b of ['160 m', '40 m']) {
+    const box = bar.getByRole('checkbox', { name: b });
+    if (await box.isChecked()) await box.uncheck();
+  }
+  const b80 = bar.getByRole('checkbox', { name: '80 m' });
+  if (!(await b80.isChecked())) await b80.check();
+  await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
+  await expect(page.getByRole('progressbar', { name: 'Plan progress' })).toBeVisible();
+  await expect(page.getByTestId('run-status')).toContainText(/Solving \d+ of \d+ designs|Placing|Ranking/);
+  await shot(page, 'plan-progress');
+
+  // The window keeps answering while the workers solve: the Targets tab opens at once.
+  await dock.getByRole('tab', { name: /Targets/ }).click();
+  await expect(page.getByTestId('bearing-map')).toBeVisible({ timeout: 2_000 });
+  await dock.getByRole('tab', { name: /Shortlist/ }).click();
+
+  await expect(page.getByTestId('run-status')).toContainText(/candidates in/, { timeout: 150_000 });
+  const rows = page.getByTestId('candidate-row');
+  expect(await rows.count()).toBeGreaterThan(3);
+  await expect(
+    page
+      .getByTestId('shortlist')
+      .getByText(/^best /)
+      .first(),
+  ).toBeVisible();
+
+  // Select the first: drawn on the lot, its figures, plots and cautions.
+  await rows.first().click();
+  const detail = page.getByTestId('candidate-detail');
+  await expect(detail).toBeVisible();
+  await expect(page.locator('.leaflet-overlay-pane path')).not.toHaveCount(0);
+  await expect(page.locator('.leaflet-tooltip', { hasText: /Europe \d+°/ })).toBeVisible();
+  await expect(detail.getByTestId('feed-impedance')).toContainText(/Ω/);
+  await expect(detail.getByTestId('elevation-plot').locator('svg path')).not.toHaveCount(0);
+  await expect(detail.getByTestId('azimuth-plot').locator('svg')).toBeVisible();
+  await expect(detail.getByTestId('swr-plot').locator('svg')).toBeVisible({ timeout: 30_000 });
+  await expect(detail.getByTestId('cut-list')).toBeVisible();
+  await expect(detail.getByTestId('cautions')).toContainText('Lightning');
+  await expect(detail.getByTestId('cautions')).toContainText('Power lines');
+  await shot(page, 'plan-shortlist-selected');
+  await detail.getByTestId('swr-plot').scrollIntoViewIfNeeded();
+  await shot(page, 'plan-detail-plots');
+
+  // Compare with the second candidate.
+  await detail.getByRole('combobox').filter({ hasText: '—' }).selectOption({ index: 1 });
+  await expect(page.getByTestId('azimuth-wins')).toContainText(/stronger over \d+° of azimuth/);
+  await shot(page, 'plan-compare');
+
+  // Rejected placements with their reasons.
+  await dock.getByRole('tab', { name: /Rejected/ }).click();
+  await expect(page.getByTestId('rejected').locator('li').first()).toBeVisible();
+  await shot(page, 'plan-rejected');
+
+  // The selected candidate's pattern over the bearing map.
+  await dock.getByRole('tab', { name: /Targets/ }).click();
+  await expect(page.getByTestId('bearing-overlay')).toBeVisible();
+  await shot(page, 'plan-bearing-overlay');
+});
