@@ -25,76 +25,46 @@ const img = new Float64Array(8);
 const refl = new Float64Array(10);
 
 /**
- * Moment cache for pairs of wires whose segment pairs differ only by a translation along the
- * wire: the same wire (equal segments), or two wires (or a wire and the mirror image of
- * another) with the same direction and segment length. The moments of segment i of wire A with
- * segment j of wire B then depend on j − i alone, so a wire pair needs N_A + N_B − 1 moment
- * integrals instead of N_A·N_B. Keyed per (wire A, wire B, image).
+ * Translation invariance: segment i of wire A and segment j of wire B differ only by a
+ * translation along the wire when A and B (or A and the mirror image of B) have the same
+ * direction, segment length and radius — in particular a straight wire with itself. Their
+ * moments then depend on j − i alone, so a wire pair needs N_A + N_B − 1 moment integrals
+ * instead of N_A·N_B; the ground's weighted image terms likewise when the ground says its
+ * weights depend on relative position only.
  */
-class TranslationCache {
-  private readonly tables = new Map<number, { data: Float64Array; done: Uint8Array; offset: number }>();
-  constructor(private readonly mesh: Mesh) {}
-  private compatible(wa: number, wb: number, image: boolean): boolean {
-    const m = this.mesh;
-    const sa = m.wireSegStart[wa];
-    const sb = m.wireSegStart[wb];
-    const zs = image ? -1 : 1;
-    const tol = 1e-12;
-    return (
-      Math.abs(m.tx[sa] - m.tx[sb]) < tol &&
-      Math.abs(m.ty[sa] - m.ty[sb]) < tol &&
-      Math.abs(m.tz[sa] - zs * m.tz[sb]) < tol &&
-      Math.abs(m.len[sa] - m.len[sb]) < tol * m.len[sa] &&
-      m.radius[sa] === m.radius[sb]
-    );
+function parallelWires(mesh: Mesh, wa: number, wb: number, mirror: boolean): boolean {
+  const sa = mesh.wireSegStart[wa];
+  const sb = mesh.wireSegStart[wb];
+  const zs = mirror ? -1 : 1;
+  const tol = 1e-12;
+  return (
+    Math.abs(mesh.tx[sa] - mesh.tx[sb]) < tol &&
+    Math.abs(mesh.ty[sa] - mesh.ty[sb]) < tol &&
+    Math.abs(mesh.tz[sa] - zs * mesh.tz[sb]) < tol &&
+    Math.abs(mesh.len[sa] - mesh.len[sb]) < tol * mesh.len[sa] &&
+    mesh.radius[sa] === mesh.radius[sb]
+  );
+}
+
+let freeTable = new Float64Array(0);
+let imageTable = new Float64Array(0);
+let reflTable = new Float64Array(0);
+let freeDone = new Uint8Array(0);
+let imageDone = new Uint8Array(0);
+let reflDone = new Uint8Array(0);
+
+function ensureTables(size: number): void {
+  if (freeDone.length < size) {
+    freeTable = new Float64Array(8 * size);
+    imageTable = new Float64Array(8 * size);
+    reflTable = new Float64Array(10 * size);
+    freeDone = new Uint8Array(size);
+    imageDone = new Uint8Array(size);
+    reflDone = new Uint8Array(size);
   }
-  /** Cached moments of (p, q) (q mirrored when image), or null when the wires are not compatible. */
-  lookup(p: number, q: number, image: boolean, a2: number, k: number): Float64Array | null {
-    const m = this.mesh;
-    const wa = m.segWire[p];
-    const wb = m.segWire[q];
-    const key = (wa * m.nWires + wb) * 2 + (image ? 1 : 0);
-    let t = this.tables.get(key);
-    if (t === undefined) {
-      if (!this.compatible(wa, wb, image)) {
-        this.tables.set(key, { data: new Float64Array(0), done: new Uint8Array(0), offset: -1 });
-        return null;
-      }
-      const na = m.wireSegStart[wa + 1] - m.wireSegStart[wa];
-      const nb = m.wireSegStart[wb + 1] - m.wireSegStart[wb];
-      t = { data: new Float64Array(8 * (na + nb - 1)), done: new Uint8Array(na + nb - 1), offset: na - 1 };
-      this.tables.set(key, t);
-    }
-    if (t.offset < 0) return null;
-    const d = q - m.wireSegStart[wb] - (p - m.wireSegStart[wa]) + t.offset;
-    const o = 8 * d;
-    if (!t.done[d]) {
-      const zs = image ? -1 : 1;
-      pairMoments(
-        m.sx[p],
-        m.sy[p],
-        m.sz[p],
-        m.tx[p],
-        m.ty[p],
-        m.tz[p],
-        m.len[p],
-        m.sx[q],
-        m.sy[q],
-        zs * m.sz[q],
-        m.tx[q],
-        m.ty[q],
-        zs * m.tz[q],
-        m.len[q],
-        a2,
-        k,
-        p === q && !image,
-        t.data,
-        o,
-      );
-      t.done[d] = 1;
-    }
-    return t.data.subarray(o, o + 8);
-  }
+  freeDone.fill(0, 0, size);
+  imageDone.fill(0, 0, size);
+  reflDone.fill(0, 0, size);
 }
 
 /** Fill z (2n² doubles, row-major interleaved, zeroed here) for wave number k. */
@@ -108,62 +78,63 @@ export function fillImpedanceMatrix(
   const n = mesh.nBasis;
   z.fill(0);
   const { sx, sy, sz, tx, ty, tz, len, radius, segPieceStart, pieceBasis, pieceA, pieceB } = mesh;
-  const fr = 0; // factor jkη/4π = (0, kη/4π)
-  const fi = (k * eta) / (4 * Math.PI);
+  const fi = (k * eta) / (4 * Math.PI); // factor jkη/4π = j·fi
   const ik2 = 1 / (k * k);
   const n2 = 2 * n;
-  const cache = new TranslationCache(mesh);
-  for (let p = 0; p < mesh.nSeg; p++) {
-    const pa = segPieceStart[p];
-    const pb = segPieceStart[p + 1];
-    if (pa === pb) continue;
-    for (let q = p; q < mesh.nSeg; q++) {
-      const qa = segPieceStart[q];
-      const qb = segPieceStart[q + 1];
-      if (qa === qb) continue;
-      const a2 = 0.5 * (radius[p] * radius[p] + radius[q] * radius[q]);
-      let mm = cache.lookup(p, q, false, a2, k);
-      if (mm === null) {
-        mom.fill(0);
-        pairMoments(
-          sx[p],
-          sy[p],
-          sz[p],
-          tx[p],
-          ty[p],
-          tz[p],
-          len[p],
-          sx[q],
-          sy[q],
-          sz[q],
-          tx[q],
-          ty[q],
-          tz[q],
-          len[q],
-          a2,
-          k,
-          p === q,
-          mom,
-          0,
-        );
-        mm = mom;
-      }
-      const tt = tx[p] * tx[q] + ty[p] * ty[q] + tz[p] * tz[q];
-      let v00r = tt * mm[0],
-        v00i = tt * mm[1],
-        v10r = tt * mm[2],
-        v10i = tt * mm[3],
-        v01r = tt * mm[4],
-        v01i = tt * mm[5],
-        v11r = tt * mm[6],
-        v11i = tt * mm[7],
-        s00r = mm[0],
-        s00i = mm[1];
-      if (ground) {
-        if (ground.weightImage) {
-          let im = cache.lookup(p, q, true, a2, k);
-          if (im === null) {
-            img.fill(0);
+  for (let wa = 0; wa < mesh.nWires; wa++) {
+    const a0 = mesh.wireSegStart[wa];
+    const a1 = mesh.wireSegStart[wa + 1];
+    for (let wb = wa; wb < mesh.nWires; wb++) {
+      const b0 = mesh.wireSegStart[wb];
+      const b1 = mesh.wireSegStart[wb + 1];
+      const freeCached = parallelWires(mesh, wa, wb, false);
+      const imageCached =
+        ground !== null && ground.weightImage !== undefined && parallelWires(mesh, wa, wb, true);
+      const reflCached = imageCached && ground!.translationInvariantWeights === true;
+      const offset = a1 - a0 - 1;
+      ensureTables(a1 - a0 + b1 - b0 - 1);
+      for (let p = a0; p < a1; p++) {
+        const pa = segPieceStart[p];
+        const pb = segPieceStart[p + 1];
+        if (pa === pb) continue;
+        for (let q = wa === wb ? p : b0; q < b1; q++) {
+          const qa = segPieceStart[q];
+          const qb = segPieceStart[q + 1];
+          if (qa === qb) continue;
+          const a2 = 0.5 * (radius[p] * radius[p] + radius[q] * radius[q]);
+          const d = q - b0 - (p - a0) + offset;
+          let mm: Float64Array;
+          let mo = 0;
+          if (freeCached) {
+            mm = freeTable;
+            mo = 8 * d;
+            if (!freeDone[d]) {
+              for (let i = 0; i < 8; i++) freeTable[mo + i] = 0;
+              pairMoments(
+                sx[p],
+                sy[p],
+                sz[p],
+                tx[p],
+                ty[p],
+                tz[p],
+                len[p],
+                sx[q],
+                sy[q],
+                sz[q],
+                tx[q],
+                ty[q],
+                tz[q],
+                len[q],
+                a2,
+                k,
+                p === q,
+                freeTable,
+                mo,
+              );
+              freeDone[d] = 1;
+            }
+          } else {
+            mom.fill(0);
             pairMoments(
               sx[p],
               sy[p],
@@ -174,58 +145,136 @@ export function fillImpedanceMatrix(
               len[p],
               sx[q],
               sy[q],
-              -sz[q],
+              sz[q],
               tx[q],
               ty[q],
-              -tz[q],
+              tz[q],
               len[q],
               a2,
               k,
-              false,
-              img,
+              p === q,
+              mom,
               0,
             );
-            im = img;
+            mm = mom;
           }
-          ground.weightImage(mesh, p, q, im, refl);
-        } else ground.reflectedPair(mesh, p, q, a2, k, refl);
-        v00r += refl[0];
-        v00i += refl[1];
-        v10r += refl[2];
-        v10i += refl[3];
-        v01r += refl[4];
-        v01i += refl[5];
-        v11r += refl[6];
-        v11i += refl[7];
-        s00r += refl[8];
-        s00i += refl[9];
-      }
-      const ll = len[p] * len[q];
-      for (let i = pa; i < pb; i++) {
-        const m = pieceBasis[i];
-        const ai = pieceA[i];
-        const bi = pieceB[i];
-        for (let j = qa; j < qb; j++) {
-          const nn = pieceBasis[j];
-          const aj = pieceA[j];
-          const bj = pieceB[j];
-          const c00 = ai * aj * ll;
-          const c01 = ai * bj * ll;
-          const c10 = bi * aj * ll;
-          const c11 = bi * bj * ll;
-          const cs = bi * bj * ik2;
-          const tr = c00 * v00r + c01 * v01r + c10 * v10r + c11 * v11r - cs * s00r;
-          const ti = c00 * v00i + c01 * v01i + c10 * v10i + c11 * v11i - cs * s00i;
-          // multiply by (fr + j fi)
-          const er = fr * tr - fi * ti;
-          const ei = fr * ti + fi * tr;
-          const idx = m * n2 + 2 * nn;
-          z[idx] += er;
-          z[idx + 1] += ei;
-          if (p !== q) {
-            const jdx = nn * n2 + 2 * m;
-            z[jdx] += er;
-            z[jdx + 1] += ei;
+          const tt = tx[p] * tx[q] + ty[p] * ty[q] + tz[p] * tz[q];
+          let v00r = tt * mm[mo],
+            v00i = tt * mm[mo + 1],
+            v10r = tt * mm[mo + 2],
+            v10i = tt * mm[mo + 3],
+            v01r = tt * mm[mo + 4],
+            v01i = tt * mm[mo + 5],
+            v11r = tt * mm[mo + 6],
+            v11i = tt * mm[mo + 7],
+            s00r = mm[mo],
+            s00i = mm[mo + 1];
+          if (ground) {
+            let rf: Float64Array = refl;
+            let ro = 0;
+            if (reflCached && reflDone[d]) {
+              rf = reflTable;
+              ro = 10 * d;
+            } else {
+              let im: Float64Array = img;
+              if (imageCached) {
+                if (!imageDone[d]) {
+                  const io = 8 * d;
+                  for (let i = 0; i < 8; i++) imageTable[io + i] = 0;
+                  pairMoments(
+                    sx[p],
+                    sy[p],
+                    sz[p],
+                    tx[p],
+                    ty[p],
+                    tz[p],
+                    len[p],
+                    sx[q],
+                    sy[q],
+                    -sz[q],
+                    tx[q],
+                    ty[q],
+                    -tz[q],
+                    len[q],
+                    a2,
+                    k,
+                    false,
+                    imageTable,
+                    io,
+                  );
+                  imageDone[d] = 1;
+                }
+                im = imageTable.subarray(8 * d, 8 * d + 8);
+              } else if (ground.weightImage) {
+                img.fill(0);
+                pairMoments(
+                  sx[p],
+                  sy[p],
+                  sz[p],
+                  tx[p],
+                  ty[p],
+                  tz[p],
+                  len[p],
+                  sx[q],
+                  sy[q],
+                  -sz[q],
+                  tx[q],
+                  ty[q],
+                  -tz[q],
+                  len[q],
+                  a2,
+                  k,
+                  false,
+                  img,
+                  0,
+                );
+              }
+              if (ground.weightImage) ground.weightImage(mesh, p, q, im, refl);
+              else ground.reflectedPair(mesh, p, q, a2, k, refl);
+              if (reflCached) {
+                for (let i = 0; i < 10; i++) reflTable[10 * d + i] = refl[i];
+                reflDone[d] = 1;
+              }
+            }
+            v00r += rf[ro];
+            v00i += rf[ro + 1];
+            v10r += rf[ro + 2];
+            v10i += rf[ro + 3];
+            v01r += rf[ro + 4];
+            v01i += rf[ro + 5];
+            v11r += rf[ro + 6];
+            v11i += rf[ro + 7];
+            s00r += rf[ro + 8];
+            s00i += rf[ro + 9];
+          }
+          const ll = len[p] * len[q];
+          for (let i = pa; i < pb; i++) {
+            const m = pieceBasis[i];
+            const ai = pieceA[i];
+            const bi = pieceB[i];
+            for (let j = qa; j < qb; j++) {
+              const nn = pieceBasis[j];
+              const aj = pieceA[j];
+              const bj = pieceB[j];
+              const c00 = ai * aj * ll;
+              const c01 = ai * bj * ll;
+              const c10 = bi * aj * ll;
+              const c11 = bi * bj * ll;
+              const cs = bi * bj * ik2;
+              const tr = c00 * v00r + c01 * v01r + c10 * v10r + c11 * v11r - cs * s00r;
+              const ti = c00 * v00i + c01 * v01i + c10 * v10i + c11 * v11i - cs * s00i;
+              // times j·fi
+              const er = -fi * ti;
+              const ei = fi * tr;
+              const idx = m * n2 + 2 * nn;
+              z[idx] += er;
+              z[idx + 1] += ei;
+              if (p !== q) {
+                const jdx = nn * n2 + 2 * m;
+                z[jdx] += er;
+                z[jdx + 1] += ei;
+              }
+            }
           }
         }
       }

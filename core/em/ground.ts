@@ -64,6 +64,12 @@ export interface GroundAtFrequency {
    */
   weightImage?(mesh: Mesh, p: number, q: number, img: Float64Array, out: Float64Array): void;
   /**
+   * True when `weightImage` depends on the two segments only through their relative position and
+   * directions (no position-dependent zones), so the fill may reuse its result for pairs that
+   * differ by a translation.
+   */
+  readonly translationInvariantWeights?: boolean;
+  /**
    * Plane-wave reflection at grazing angle ψ (sin ψ given): writes Rv (re, im) and Rh (re, im)
    * into out[0…3]. Perfect ground: Rv = 1, Rh = −1.
    */
@@ -109,6 +115,7 @@ function imageMoments(mesh: Mesh, p: number, q: number, a2: number, k: number): 
 }
 
 class PerfectAt implements GroundAtFrequency {
+  readonly translationInvariantWeights = true;
   readonly epsC = null;
   readonly zg = null;
   reflectedPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void {
@@ -133,7 +140,9 @@ class ReflectionCoefficientAt implements GroundAtFrequency {
   readonly epsC: Complex;
   readonly zg: Complex;
   private readonly zones: { x: number; y: number; r2: number }[];
+  readonly translationInvariantWeights: boolean;
   constructor(soil: SoilElectrical, freqHz: number, zones: readonly GroundZone[]) {
+    this.translationInvariantWeights = zones.length === 0;
     this.epsC = complexPermittivity(soil, freqHz);
     this.zg = soilSurfaceImpedanceOhm(this.epsC, ETA0);
     this.zones = zones.map((z) => ({ x: z.x, y: z.y, r2: z.radiusM(freqHz) ** 2 }));
