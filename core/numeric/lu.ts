@@ -9,8 +9,9 @@
  * Algorithm: right-looking blocked LU (the LAPACK getrf/getf2 partition): factor a panel of
  * `LU_BLOCK` columns with rank-1 updates confined to the panel, solve the block row of U with
  * the panel's unit lower triangle, then update the trailing matrix with the panel as a rank-nb
- * product. The trailing update walks each row once per panel, four pivot rows at a time, so a
- * trailing row stays in the first-level cache while it receives the whole panel's contribution.
+ * product. The trailing update takes two trailing rows against two panel rows at a time
+ * (register blocking), and a trailing row stays in the first-level cache while it receives the
+ * whole panel's contribution.
  * Growth and stability as for Gaussian elimination with partial pivoting (Golub & Van Loan).
  *
  * References:
@@ -20,7 +21,7 @@
  */
 
 /** Panel width of the blocked factorisation (columns). */
-export const LU_BLOCK = 32;
+export const LU_BLOCK = 16;
 
 export class SingularMatrixError extends Error {
   constructor(readonly column: number) {
@@ -109,47 +110,55 @@ export function luFactor(n: number, a: Float64Array, pivots: Int32Array = new In
         }
       }
     }
-    // 3. Trailing update A22 −= L21·U12, four panel rows per sweep of a trailing row.
-    for (let i = jEnd; i < n; i++) {
+    // 3. Trailing update A22 −= L21·U12, register-blocked: two trailing rows against two panel
+    //    rows per sweep, so each loaded element of U12 serves two rows and each trailing element
+    //    receives two updates per load/store.
+    let i = jEnd;
+    for (; i + 1 < n; i += 2) {
       const ri = i * n2;
+      const rj = ri + n2;
       let q = j0;
-      for (; q + 3 < jEnd; q += 4) {
-        const l0r = a[ri + 2 * q];
-        const l0i = a[ri + 2 * q + 1];
-        const l1r = a[ri + 2 * q + 2];
-        const l1i = a[ri + 2 * q + 3];
-        const l2r = a[ri + 2 * q + 4];
-        const l2i = a[ri + 2 * q + 5];
-        const l3r = a[ri + 2 * q + 6];
-        const l3i = a[ri + 2 * q + 7];
+      for (; q + 1 < jEnd; q += 2) {
+        const a0r = a[ri + 2 * q];
+        const a0i = a[ri + 2 * q + 1];
+        const a1r = a[ri + 2 * q + 2];
+        const a1i = a[ri + 2 * q + 3];
+        const b0r = a[rj + 2 * q];
+        const b0i = a[rj + 2 * q + 1];
+        const b1r = a[rj + 2 * q + 2];
+        const b1i = a[rj + 2 * q + 3];
         const r0 = q * n2;
         const r1 = r0 + n2;
-        const r2 = r1 + n2;
-        const r3 = r2 + n2;
         for (let j = c0; j < n2; j += 2) {
           const u0r = a[r0 + j];
           const u0i = a[r0 + j + 1];
           const u1r = a[r1 + j];
           const u1i = a[r1 + j + 1];
-          const u2r = a[r2 + j];
-          const u2i = a[r2 + j + 1];
-          const u3r = a[r3 + j];
-          const u3i = a[r3 + j + 1];
-          a[ri + j] -=
-            l0r * u0r -
-            l0i * u0i +
-            (l1r * u1r - l1i * u1i) +
-            (l2r * u2r - l2i * u2i) +
-            (l3r * u3r - l3i * u3i);
-          a[ri + j + 1] -=
-            l0r * u0i +
-            l0i * u0r +
-            (l1r * u1i + l1i * u1r) +
-            (l2r * u2i + l2i * u2r) +
-            (l3r * u3i + l3i * u3r);
+          a[ri + j] -= a0r * u0r - a0i * u0i + (a1r * u1r - a1i * u1i);
+          a[ri + j + 1] -= a0r * u0i + a0i * u0r + (a1r * u1i + a1i * u1r);
+          a[rj + j] -= b0r * u0r - b0i * u0i + (b1r * u1r - b1i * u1i);
+          a[rj + j + 1] -= b0r * u0i + b0i * u0r + (b1r * u1i + b1i * u1r);
         }
       }
       for (; q < jEnd; q++) {
+        const lr = a[ri + 2 * q];
+        const li = a[ri + 2 * q + 1];
+        const mr = a[rj + 2 * q];
+        const mi = a[rj + 2 * q + 1];
+        const rq = q * n2;
+        for (let j = c0; j < n2; j += 2) {
+          const ur = a[rq + j];
+          const ui = a[rq + j + 1];
+          a[ri + j] -= lr * ur - li * ui;
+          a[ri + j + 1] -= lr * ui + li * ur;
+          a[rj + j] -= mr * ur - mi * ui;
+          a[rj + j + 1] -= mr * ui + mi * ur;
+        }
+      }
+    }
+    for (; i < n; i++) {
+      const ri = i * n2;
+      for (let q = j0; q < jEnd; q++) {
         const lr = a[ri + 2 * q];
         const li = a[ri + 2 * q + 1];
         const rq = q * n2;

@@ -36,8 +36,17 @@ function time(fn: () => void, warm: number, runs: number): number[] {
 
 /** Four 40 m dipoles, 10 m apart, 15 m up, fed in phase: 4 × 50 = 200 unknowns. */
 const array200: AntennaModel = {
-  wires: [0, 1, 2, 3].map((i) => ({ from: [-10.1, 10 * i, 15] as const, to: [10.1, 10 * i, 15] as const, radiusM: 0.001, segments: 51 })),
-  feeds: [0, 1, 2, 3].map((i) => ({ wire: i, position: 0.5, voltage: [Math.cos(i * 0.6), Math.sin(i * 0.6)] as const })),
+  wires: [0, 1, 2, 3].map((i) => ({
+    from: [-10.1, 10 * i, 15] as const,
+    to: [10.1, 10 * i, 15] as const,
+    radiusM: 0.001,
+    segments: 51,
+  })),
+  feeds: [0, 1, 2, 3].map((i) => ({
+    wire: i,
+    position: 0.5,
+    voltage: [Math.cos(i * 0.6), Math.sin(i * 0.6)] as const,
+  })),
   ground: AVERAGE,
 };
 
@@ -67,7 +76,9 @@ const say = (s: string) => lines.push(s);
     11,
   );
   json.fullEvaluation200 = { unknowns, medianMs: median(t), runsMs: t };
-  say(`full evaluation, ${unknowns} unknowns over lossy ground, 2° upper half-space pattern: median ${median(t).toFixed(1)} ms (target 60 ms)`);
+  say(
+    `full evaluation, ${unknowns} unknowns over lossy ground, 2° upper half-space pattern: median ${median(t).toFixed(1)} ms (target 60 ms)`,
+  );
 }
 // 2. sweep
 {
@@ -80,7 +91,10 @@ const say = (s: string) => lines.push(s);
     2,
     7,
   );
-  unknowns = evaluateAntenna(halfSquare100, { frequenciesHz: [3.6e6], pattern: { elevationsDeg: [], azimuthsDeg: [] } }).unknowns;
+  unknowns = evaluateAntenna(halfSquare100, {
+    frequenciesHz: [3.6e6],
+    pattern: { elevationsDeg: [], azimuthsDeg: [] },
+  }).unknowns;
   let err = 0;
   const ti = time(
     () => {
@@ -89,8 +103,15 @@ const say = (s: string) => lines.push(s);
     2,
     7,
   );
-  json.sweep31x100 = { unknowns, medianMs: median(t), interpolatedMedianMs: median(ti), interpolationError: err };
-  say(`31-point sweep, ${unknowns} unknowns: median ${median(t).toFixed(1)} ms (target 300 ms); interpolated (anchor every 3rd point): ${median(ti).toFixed(1)} ms, checked error ${(100 * err).toFixed(3)} %`);
+  json.sweep31x100 = {
+    unknowns,
+    medianMs: median(t),
+    interpolatedMedianMs: median(ti),
+    interpolationError: err,
+  };
+  say(
+    `31-point sweep, ${unknowns} unknowns: median ${median(t).toFixed(1)} ms (target 300 ms); interpolated (anchor every 3rd point): ${median(ti).toFixed(1)} ms, checked error ${(100 * err).toFixed(3)} %`,
+  );
 }
 // 3. LU against LAPACK
 {
@@ -137,7 +158,13 @@ for n in (100, 200, 400):
 print(how)
 print(' '.join(f'{n}:{out[n]}' for n in out))
 `;
-  const env = { ...process.env, OPENBLAS_NUM_THREADS: '1', OMP_NUM_THREADS: '1', MKL_NUM_THREADS: '1', VECLIB_MAXIMUM_THREADS: '1' };
+  const env = {
+    ...process.env,
+    OPENBLAS_NUM_THREADS: '1',
+    OMP_NUM_THREADS: '1',
+    MKL_NUM_THREADS: '1',
+    VECLIB_MAXIMUM_THREADS: '1',
+  };
   let lapack: Record<number, number> | null = null;
   let how = '';
   for (const exe of ['python3', '/usr/bin/python3']) {
@@ -159,14 +186,20 @@ print(' '.join(f'{n}:{out[n]}' for n in out))
       );
     else say(`LU n = ${n}: ours ${ours[n].toFixed(2)} ms (${gf.toFixed(1)} GFlop/s)`);
   }
-  say(lapack ? `LAPACK reference: ${how}, one thread` : 'LAPACK comparison skipped: no python3 with numpy found (install python3-numpy to measure)');
+  say(
+    lapack
+      ? `LAPACK reference: ${how}, one thread`
+      : 'LAPACK comparison skipped: no python3 with numpy found (install python3-numpy to measure)',
+  );
 }
 // 4. memory
 {
   const n = 200;
   const bytes = 2 * n * n * 8 + 4 * n;
   json.memory = { unknowns: n, matrixAndFactorsBytes: bytes };
-  say(`memory, ${n} unknowns: one complex matrix factored in place + pivots = ${(bytes / 1024).toFixed(0)} KiB; no object per element`);
+  say(
+    `memory, ${n} unknowns: one complex matrix factored in place + pivots = ${(bytes / 1024).toFixed(0)} KiB; no object per element`,
+  );
 }
 
 if (process.argv.includes('--json')) process.stdout.write(JSON.stringify(json, null, 2) + '\n');
