@@ -5,6 +5,7 @@
 import { readFile } from 'node:fs/promises';
 import { runSite } from './site.ts';
 import { runPlan } from './plan.ts';
+import { runEvaluate } from './evaluate.ts';
 
 export interface CliIo {
   stdout: (s: string) => void;
@@ -15,7 +16,14 @@ export interface CliIo {
 type Command = (argv: string[], io: CliIo) => Promise<number>;
 
 const COMMANDS: Record<string, { run: Command; summary: string }> = {
-  plan: { run: runPlan, summary: 'plan --demo | plan FILE.json [--json] [--band B] [--top N]   rank antennas for the lot' },
+  evaluate: {
+    run: runEvaluate,
+    summary: 'evaluate FILE.json   field-solver result for one antenna (core/em/README.md)',
+  },
+  plan: {
+    run: runPlan,
+    summary: 'plan --demo | plan FILE.json [--json] [--band B] [--top N]   rank antennas for the lot',
+  },
   site: {
     run: runSite,
     summary: 'site --demo --json | site FILE.json   print the demo project, or validate a project file',
