@@ -130,7 +130,7 @@ test('places the station and shows its locator', async ({ page, host }) => {
   await page.keyboard.press('t');
   await clickMap(page, 0.5, 0.5);
   await expect(page.getByRole('heading', { name: 'Station' })).toBeVisible();
-  await expect(page.getByTestId('station-locator')).toHaveText(/^EN34[a-x]{2}$/);
+  await expect(page.getByLabel('Inspector').getByTestId('station-locator')).toHaveText(/^EN34[a-x]{2}$/);
   await expect(page.getByText(phrase('check the RF exposure limits'))).toBeVisible();
 });
 

@@ -130,11 +130,24 @@ export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): Buil
   return { group, editable };
 }
 
+/** Marker shapes, one per support kind (20 × 20 px), drawn with a white edge to read on any ground. */
+const SHAPES: Record<Support['kind'], string> = {
+  tree: '<circle cx="10" cy="10" r="7" />',
+  mast: '<path d="M10 2.5 L17.5 16.5 H2.5 Z" />',
+  tower: '<path d="M10 2 L18 10 L10 18 L2 10 Z" />',
+  building: '<rect x="3.5" y="3.5" width="13" height="13" rx="1.5" />',
+};
+
+export function supportIconHtml(kind: Support['kind']): string {
+  const shape = SHAPES[kind];
+  return `<svg viewBox="0 0 20 20" width="20" height="20" aria-hidden="true"><g class="halo">${shape}</g><g class="body">${shape}</g></svg>`;
+}
+
 function supportMarker(s: Support, selected: boolean, o: LayerOptions, h: LayerHandlers): L.Marker {
   const m = L.marker(toLatLng(s.position), {
     icon: L.divIcon({
       className: `yw-support yw-kind-${s.kind}${selected ? ' is-selected' : ''}`,
-      html: '<span></span>',
+      html: supportIconHtml(s.kind),
       iconSize: [20, 20],
     }),
     draggable: o.draggable,
@@ -144,7 +157,9 @@ function supportMarker(s: Support, selected: boolean, o: LayerOptions, h: LayerH
     title: `${s.name} (${s.kind}); drag to move`,
     alt: s.name,
   });
-  m.bindTooltip(`${escapeHtml(s.name)} · ${formatLength(s.usableHeightM, o.units)}`, {
+  // Name and height; where labels crowd, the map shows the height alone (see declutterLabels).
+  const html = `<span class="n">${escapeHtml(s.name)} · </span><span class="h">${formatLength(s.usableHeightM, o.units)}</span>`;
+  m.bindTooltip(html, {
     permanent: true,
     direction: 'right',
     offset: [10, 0],
@@ -153,6 +168,37 @@ function supportMarker(s: Support, selected: boolean, o: LayerOptions, h: LayerH
   m.on('click', (e) => (stop(e), h.select({ kind: 'support', id: s.id })));
   m.on('dragend', () => h.moveSupport(s.id, toLonLat(m.getLatLng())));
   return m;
+}
+
+const overlaps = (a: DOMRect, b: DOMRect): boolean =>
+  a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
+
+/**
+ * Keep support labels readable when they crowd: a label that would overlap a marker or a label
+ * already placed shows the height alone (the full name stays in the marker's title and the list).
+ * The selected support's label is placed first and always in full.
+ */
+export function declutterLabels(container: HTMLElement): void {
+  // Tooltips of a replaced layer fade out for a moment (opacity 0): they no longer count.
+  const tips = [...container.querySelectorAll<HTMLElement>('.yw-support-tip')].filter(
+    (t) => t.style.opacity !== '0',
+  );
+  tips.sort(
+    (a, b) => Number(b.classList.contains('is-selected')) - Number(a.classList.contains('is-selected')),
+  );
+  for (const t of tips) t.classList.remove('is-compact');
+  const markers = [...container.querySelectorAll<HTMLElement>('.yw-support, .yw-station')].map((m) => ({
+    rect: m.getBoundingClientRect(),
+    tip: m.getAttribute('aria-describedby'),
+  }));
+  const placed: DOMRect[] = [];
+  for (const t of tips) {
+    const full = t.getBoundingClientRect();
+    const others = markers.filter((m) => m.tip !== t.id).map((m) => m.rect);
+    const crowded = [...placed, ...others].some((r) => overlaps(full, r));
+    if (crowded && !t.classList.contains('is-selected')) t.classList.add('is-compact');
+    placed.push(t.getBoundingClientRect());
+  }
 }
 
 function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.LayerGroup): Shape {

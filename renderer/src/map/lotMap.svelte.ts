@@ -7,7 +7,7 @@ import { untrack } from 'svelte';
 import type { Attachment } from 'svelte/attachments';
 import './geoman.ts';
 import L from './leaflet.ts';
-import { COLOURS, buildLayers, toLatLng, toLonLat, type Shape } from './layers.ts';
+import { COLOURS, buildLayers, declutterLabels, toLatLng, toLonLat, type Shape } from './layers.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
 import type { Session } from '../state/session.svelte.ts';
 import type { ToolId } from '../state/ui.svelte.ts';
@@ -57,6 +57,7 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
     });
     map.on('mousemove', (e: L.LeafletMouseEvent) => (ui.cursor = toLonLat(e.latlng)));
     map.on('mouseout', () => (ui.cursor = null));
+    map.on('zoomend resize', () => declutterLabels(el));
     map.on('pm:create', (e) => {
       const layer = e.layer as L.Polyline;
       const corners = cornersOf(layer);
@@ -91,6 +92,7 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
         },
       );
       current = built.group.addTo(map);
+      declutterLabels(el);
       const key =
         selection?.kind === 'boundary'
           ? 'boundary'

@@ -168,6 +168,16 @@ describe('ProjectState saving', () => {
     await state.flush();
     expect(state.save).toEqual({ status: 'error', message: 'disk full' });
   });
+
+  it('retries with the current snapshot', async () => {
+    const { state, rec } = opened();
+    state.rename('Kept');
+    await state.flush();
+    state.retrySave();
+    await state.flush();
+    expect(rec.saved.map((p) => p.name)).toEqual(['Kept', 'Kept']);
+    expect(state.save).toEqual({ status: 'saved', at: 't2' });
+  });
 });
 
 describe('ProjectState units', () => {

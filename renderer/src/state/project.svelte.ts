@@ -131,6 +131,11 @@ export class ProjectState {
     this.selection = s;
   }
 
+  /** Send the current snapshot again (after a failed save). */
+  retrySave(): void {
+    if (this.project) this.#queueSave();
+  }
+
   /** Resolves once every queued save has finished. */
   async flush(): Promise<void> {
     while (this.#running) await this.#running;
