@@ -45,7 +45,7 @@ test('plans the demo lot for 80 m and shows the first candidate drawn with its p
   await expect(page.getByTestId('bearing-map')).toBeVisible({ timeout: 2_000 });
   await dock.getByRole('tab', { name: /Shortlist/ }).click();
 
-  await expect(page.getByTestId('run-status')).toContainText(/candidates in/, { timeout: 150_000 });
+  await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 150_000 });
   const rows = page.getByTestId('candidate-row');
   expect(await rows.count()).toBeGreaterThan(3);
   await expect(
@@ -74,7 +74,7 @@ test('plans the demo lot for 80 m and shows the first candidate drawn with its p
 
   // Compare with the second candidate.
   await detail.getByRole('combobox').filter({ hasText: '—' }).selectOption({ index: 1 });
-  await expect(page.getByTestId('azimuth-wins')).toContainText(/stronger over \d+° of azimuth/);
+  await expect(page.getByTestId('azimuth-wins')).toContainText(/stronger over \d+°\s+of\s+azimuth/);
   await shot(page, 'plan-compare');
 
   // Rejected placements with their reasons.
@@ -86,4 +86,18 @@ test('plans the demo lot for 80 m and shows the first candidate drawn with its p
   await dock.getByRole('tab', { name: /Targets/ }).click();
   await expect(page.getByTestId('bearing-overlay')).toBeVisible();
   await shot(page, 'plan-bearing-overlay');
+
+  // A small edit (a weight) re-runs from the evaluation cache kept in the worker: no solver work.
+  await page.getByRole('spinbutton', { name: 'Weight of Japan' }).fill('3');
+  await page.getByRole('spinbutton', { name: 'Weight of Japan' }).press('Tab');
+  await expect(page.getByTestId('run-status')).toContainText(/changed since this plan/);
+  await bar.getByRole('button', { name: 'Run again' }).click();
+  await expect(page.getByTestId('run-status')).toContainText(/ 0 solved, \d+ reused/, { timeout: 20_000 });
+
+  // Adding 40 m starts new solver work, which can be cancelled at once.
+  await bar.getByRole('checkbox', { name: '40 m' }).check();
+  await bar.getByRole('button', { name: 'Run again' }).click();
+  await bar.getByRole('button', { name: 'Cancel' }).click();
+  await expect(page.getByTestId('run-status')).toContainText(/Cancelled after \d+ of \d+/);
+  await expect(bar.getByRole('button', { name: 'Run again' })).toBeEnabled();
 });
