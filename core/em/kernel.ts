@@ -27,8 +27,8 @@
  * and the same with √(w²+α²) for the R term.
  * Far pairs use a plain Gauss–Legendre product rule whose order falls with distance.
  *
- * Accuracy: self and touching terms to about 1e-6 relative, far terms to about 1e-5 of the
- * element (checked against adaptive quadrature in test/unit/em/kernel.test.ts).
+ * Accuracy: self, touching and near terms within 2e-5 of |M00|, far terms within 2e-4 of the
+ * element (checked against an independent brute-force quadrature in test/unit/em/kernel.test.ts).
  *
  * References:
  *  - D. R. Wilton, S. M. Rao, A. W. Glisson, D. H. Schaubert, O. M. Al-Bundak, C. M. Butler,
