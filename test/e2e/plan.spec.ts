@@ -101,3 +101,61 @@ test('plans the demo lot for 80 m and shows the first candidate drawn with its p
   await expect(page.getByTestId('run-status')).toContainText(/Cancelled after \d+ of \d+/);
   await expect(bar.getByRole('button', { name: 'Run again' })).toBeEnabled();
 });
+
+test('imports a lot boundary from GeoJSON and exports the lot and the shortlist', async ({ page, host }) => {
+  test.setTimeout(120_000);
+  await openApp(page, host);
+  // A bad file names what is wrong, and changes nothing.
+  await page.getByTestId('boundary-file').setInputFiles({
+    name: 'parcel.geojson',
+    mimeType: 'application/geo+json',
+    buffer: Buffer.from('{"type":"Point","coordinates":[1,2]}'),
+  });
+  await expect(page.getByRole('alert').filter({ hasText: /Polygon/ })).toBeVisible();
+  await expect(page.getByTestId('lot-summary')).toContainText('Lot 1.68 ha');
+
+  // A good one replaces the boundary (a 100 m × 100 m square near the demo lot).
+  const [lon, lat] = [-93.7505, 44.9025];
+  const dLon = 100 / (111_320 * Math.cos((lat * Math.PI) / 180));
+  const dLat = 100 / 110_950;
+  const ring = [
+    [lon, lat],
+    [lon + dLon, lat],
+    [lon + dLon, lat + dLat],
+    [lon, lat + dLat],
+    [lon, lat],
+  ];
+  await page.getByTestId('boundary-file').setInputFiles({
+    name: 'parcel.geojson',
+    mimeType: 'application/geo+json',
+    buffer: Buffer.from(
+      JSON.stringify({ type: 'Feature', properties: {}, geometry: { type: 'Polygon', coordinates: [ring] } }),
+    ),
+  });
+  await expect(
+    page.getByText(/Lot boundary imported from parcel\.geojson \(GeoJSON, 4 corners\)/),
+  ).toBeVisible();
+  await expect(page.getByTestId('lot-summary')).toContainText(/Lot 1\.0\d ha|Lot 0\.99 ha/);
+
+  const lot = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Lot GeoJSON' }).click();
+  const file = await lot;
+  expect(file.suggestedFilename()).toMatch(/-lot\.geojson$/);
+  const text = await (await file.createReadStream()).toArray();
+  const fc = JSON.parse(Buffer.concat(text).toString('utf8'));
+  expect(fc.features[0].geometry.coordinates[0]).toEqual(ring);
+
+  // Run the plan on the new lot and export the shortlist.
+  await page
+    .getByTestId('run-bar')
+    .getByRole('button', { name: /Run plan/ })
+    .click();
+  await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 100_000 });
+  const csv = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Shortlist CSV' }).click();
+  const c = await csv;
+  expect(c.suggestedFilename()).toMatch(/-shortlist\.csv$/);
+  const body = Buffer.concat(await (await c.createReadStream()).toArray()).toString('utf8');
+  expect(body.split('\r\n')[0]).toMatch(/^band,rank,type/);
+  expect(body.split('\r\n').filter((l) => l.startsWith('80m,')).length).toBeGreaterThan(0);
+});
