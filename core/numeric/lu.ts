@@ -9,8 +9,8 @@
  * Algorithm: right-looking blocked LU (the LAPACK getrf/getf2 partition): factor a panel of
  * `LU_BLOCK` columns with rank-1 updates confined to the panel, solve the block row of U with
  * the panel's unit lower triangle, then update the trailing matrix with the panel as a rank-nb
- * product. The trailing update takes two trailing rows against two panel rows at a time
- * (register blocking), and a trailing row stays in the first-level cache while it receives the
+ * product. The trailing update takes four trailing rows against two panel rows at a time
+ * (register blocking), and the trailing rows stay in the first-level cache while they receive the
  * whole panel's contribution.
  * Growth and stability as for Gaussian elimination with partial pivoting (Golub & Van Loan).
  *
@@ -110,10 +110,76 @@ export function luFactor(n: number, a: Float64Array, pivots: Int32Array = new In
         }
       }
     }
-    // 3. Trailing update A22 −= L21·U12, register-blocked: two trailing rows against two panel
-    //    rows per sweep, so each loaded element of U12 serves two rows and each trailing element
-    //    receives two updates per load/store.
+    // 3. Trailing update A22 −= L21·U12, register-blocked: four trailing rows against two panel
+    //    rows per sweep (then two rows, then one), so each loaded element of U12 serves four rows
+    //    and each trailing element receives two updates per load and store.
     let i = jEnd;
+    for (; i + 3 < n; i += 4) {
+      const ri = i * n2;
+      const rj = ri + n2;
+      const rk = rj + n2;
+      const rl = rk + n2;
+      let q = j0;
+      for (; q + 1 < jEnd; q += 2) {
+        const q2 = 2 * q;
+        const a0r = a[ri + q2];
+        const a0i = a[ri + q2 + 1];
+        const a1r = a[ri + q2 + 2];
+        const a1i = a[ri + q2 + 3];
+        const b0r = a[rj + q2];
+        const b0i = a[rj + q2 + 1];
+        const b1r = a[rj + q2 + 2];
+        const b1i = a[rj + q2 + 3];
+        const c0r = a[rk + q2];
+        const c0i = a[rk + q2 + 1];
+        const c1r = a[rk + q2 + 2];
+        const c1i = a[rk + q2 + 3];
+        const d0r = a[rl + q2];
+        const d0i = a[rl + q2 + 1];
+        const d1r = a[rl + q2 + 2];
+        const d1i = a[rl + q2 + 3];
+        const r0 = q * n2;
+        const r1 = r0 + n2;
+        for (let j = c0; j < n2; j += 2) {
+          const u0r = a[r0 + j];
+          const u0i = a[r0 + j + 1];
+          const u1r = a[r1 + j];
+          const u1i = a[r1 + j + 1];
+          a[ri + j] -= a0r * u0r - a0i * u0i + (a1r * u1r - a1i * u1i);
+          a[ri + j + 1] -= a0r * u0i + a0i * u0r + (a1r * u1i + a1i * u1r);
+          a[rj + j] -= b0r * u0r - b0i * u0i + (b1r * u1r - b1i * u1i);
+          a[rj + j + 1] -= b0r * u0i + b0i * u0r + (b1r * u1i + b1i * u1r);
+          a[rk + j] -= c0r * u0r - c0i * u0i + (c1r * u1r - c1i * u1i);
+          a[rk + j + 1] -= c0r * u0i + c0i * u0r + (c1r * u1i + c1i * u1r);
+          a[rl + j] -= d0r * u0r - d0i * u0i + (d1r * u1r - d1i * u1i);
+          a[rl + j + 1] -= d0r * u0i + d0i * u0r + (d1r * u1i + d1i * u1r);
+        }
+      }
+      for (; q < jEnd; q++) {
+        const q2 = 2 * q;
+        const rq = q * n2;
+        const ar = a[ri + q2];
+        const ai = a[ri + q2 + 1];
+        const br = a[rj + q2];
+        const bi = a[rj + q2 + 1];
+        const cr = a[rk + q2];
+        const ci = a[rk + q2 + 1];
+        const dr = a[rl + q2];
+        const di = a[rl + q2 + 1];
+        for (let j = c0; j < n2; j += 2) {
+          const ur = a[rq + j];
+          const ui = a[rq + j + 1];
+          a[ri + j] -= ar * ur - ai * ui;
+          a[ri + j + 1] -= ar * ui + ai * ur;
+          a[rj + j] -= br * ur - bi * ui;
+          a[rj + j + 1] -= br * ui + bi * ur;
+          a[rk + j] -= cr * ur - ci * ui;
+          a[rk + j + 1] -= cr * ui + ci * ur;
+          a[rl + j] -= dr * ur - di * ui;
+          a[rl + j + 1] -= dr * ui + di * ur;
+        }
+      }
+    }
     for (; i + 1 < n; i += 2) {
       const ri = i * n2;
       const rj = ri + n2;
