@@ -214,8 +214,13 @@ export function swrBandwidth(
 }
 
 export interface TrimOptions {
-  /** Builds the antenna for a value of the dimension being trimmed (e.g. a wire's length). */
-  build: (value: number) => AntennaModel;
+  /**
+   * Builds the antenna, or only its wires, for a value of the dimension being trimmed (a wire's
+   * length, the top length of a shape, …). When it returns wires, `base` gives the rest.
+   */
+  build: (value: number) => AntennaModel | readonly WireSpec[];
+  /** Feeds, loads, radials and ground for a `build` that returns wires only. */
+  base?: Omit<AntennaModel, 'wires'>;
   /** Search range of the value. */
   range: readonly [number, number];
   frequencyHz: number;
@@ -247,9 +252,17 @@ function frozen(model: AntennaModel, counts: number[]): AntennaModel {
 /** Trim a dimension until the reactance is zero or the SWR lowest at one frequency. */
 export function trimDimension(opts: TrimOptions): TrimResult {
   const [lo, hi] = opts.range;
+  if (!(hi > lo)) throw new ModelError('range', 'the range must run from a lower to a higher value');
+  const buildModel = (v: number): AntennaModel => {
+    const r = opts.build(v);
+    if (!Array.isArray(r)) return r as AntennaModel;
+    if (!opts.base)
+      throw new ModelError('base', 'a build callback that returns wires needs `base` (feeds and ground)');
+    return { ...opts.base, wires: r };
+  };
   const z0 = opts.referenceImpedanceOhm ?? 50;
   const feed = opts.feed ?? 0;
-  const mid = prepareFor(opts.build(0.5 * (lo + hi)), [opts.frequencyHz], opts.segmentsPerWavelength);
+  const mid = prepareFor(buildModel(0.5 * (lo + hi)), [opts.frequencyHz], opts.segmentsPerWavelength);
   const counts = Array.from(
     { length: mid.mesh.nWires },
     (_, w) => mid.mesh.wireSegStart[w + 1] - mid.mesh.wireSegStart[w],
@@ -257,7 +270,7 @@ export function trimDimension(opts: TrimOptions): TrimResult {
   let solves = 0;
   const zAt = (v: number): Complex => {
     solves++;
-    const model = opts.build(v);
+    const model = buildModel(v);
     const m = model.wires.length === counts.length ? frozen(model, counts) : model;
     const pm = prepareFor(m, [opts.frequencyHz], opts.segmentsPerWavelength);
     return feedImpedance(pm, opts.frequencyHz, createWorkspace(pm), feed);

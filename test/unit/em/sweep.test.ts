@@ -66,4 +66,24 @@ describe('trimming', () => {
       expect(z.swr).toBeGreaterThanOrEqual(m.swr - 1e-6);
     }
   });
+  it('trims the top length of a half-square given as a wires callback', () => {
+    const wires = (top: number) => [
+      { from: [0, 0, 2.5] as const, to: [0, 0, 23.5] as const, radiusM: 0.001 },
+      { from: [0, 0, 23.5] as const, to: [top, 0, 23.5] as const, radiusM: 0.001 },
+      { from: [top, 0, 23.5] as const, to: [top, 0, 2.5] as const, radiusM: 0.001 },
+    ];
+    const t = trimDimension({
+      build: wires,
+      base: {
+        feeds: [{ wire: 1, position: 0 }],
+        ground: { kind: 'soil', permittivity: 13, conductivitySPerM: 0.005 },
+      },
+      range: [38, 46],
+      frequencyHz: 3.6e6,
+      target: 'zero-reactance',
+    });
+    expect(Math.abs(t.impedanceOhm.im)).toBeLessThan(0.05);
+    expect(t.value).toBeGreaterThan(40);
+    expect(t.value).toBeLessThan(44);
+  });
 });
