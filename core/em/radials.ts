@@ -21,8 +21,8 @@
  *  - inner ρmin = the vertical's wire radius with radials (the integrand vanishes there), and
  *    `BARE_CONTACT_RADIUS_M` (a 12.7 mm ground stake) for a bare-soil connection (N = 0), where
  *    the integrand falls as 1/ρ and the loss depends on that radius logarithmically.
- * Quadrature: 8-point Gauss–Legendre on panels uniform in ln ρ (200 per decade range) split at
- * every radial end. Accuracy: 0.1 % of Rg.
+ * Quadrature: 8-point Gauss–Legendre on 60 panels uniform in ln ρ between the limits, split at
+ * every radial end; the result agrees with 200 panels to 1e-5 relative.
  *
  * References:
  *  - J. R. Wait and W. A. Pope, "The characteristics of a vertical antenna with a radial
@@ -40,7 +40,7 @@ import { MU0 } from './constants.ts';
 
 export const RADIAL_LIMIT_WAVELENGTHS = 0.5;
 export const BARE_CONTACT_RADIUS_M = 0.0127;
-const PANELS = 200;
+const PANELS = 60;
 
 export interface RadialScreen {
   /** Length of each radial (metres); an empty list means bare soil. */
