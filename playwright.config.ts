@@ -1,6 +1,7 @@
 // End-to-end tests: the built app in browser mode, driven in Debian's Chromium (never a downloaded
 // browser), offline: every non-loopback request is aborted and reported by the fixture.
 import { defineConfig } from '@playwright/test';
+import { cpus } from 'node:os';
 
 export const CHROMIUM_PATH = '/usr/bin/chromium';
 
@@ -8,10 +9,10 @@ export default defineConfig({
   testDir: 'test/e2e',
   testMatch: '*.spec.ts',
   outputDir: 'test-results/e2e-output',
-  timeout: 45_000,
-  expect: { timeout: 8_000 },
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
   fullyParallel: true,
-  workers: 4,
+  workers: Math.max(2, Math.min(4, cpus().length)),
   retries: 0,
   forbidOnly: !!process.env.CI,
   reporter: [['list']],

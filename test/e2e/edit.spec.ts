@@ -10,8 +10,11 @@ test('adds a support by clicking the map; its height survives a reload and a res
   await expect(page.getByRole('status').filter({ hasText: 'Add support' })).toBeVisible();
   await clickMap(page, 0.62, 0.3);
   await expect(page.getByTestId('support-name')).toHaveValue('Support 1');
-  await page.getByTestId('support-height').fill('17.5');
-  await page.getByTestId('support-height').press('Enter');
+  // The height field has the focus: type the height straight away.
+  await expect(page.getByTestId('support-height')).toBeFocused();
+  await page.keyboard.type('17.5');
+  await page.keyboard.press('Enter');
+  await expect(page.getByTestId('support-height')).not.toBeFocused();
   await page.getByTestId('support-name').fill('Back-fence walnut');
   await page.getByTestId('support-name').press('Enter');
   await waitSaved(page);

@@ -142,6 +142,10 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       if (b) map.fitBounds(b, { padding: [40, 40], maxZoom: 20, animate: false });
     });
     $effect(() => {
+      const r = ui.reveal;
+      if (r && !map.getBounds().pad(-0.05).contains(toLatLng(r.at))) map.panTo(toLatLng(r.at));
+    });
+    $effect(() => {
       const g = ui.goTo;
       if (g) map.setView(toLatLng(g.at), Math.max(map.getZoom(), 17), { animate: false });
     });

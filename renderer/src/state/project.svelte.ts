@@ -1,22 +1,14 @@
 /**
- * The open project: the document itself (an immutable snapshot per edit), the selection, the
- * undo and redo stacks over snapshots, and the save status. Every edit is validated against the
- * project schema and saved at once through the injected save function; saves run one at a time
- * and always send the newest snapshot.
+ * The open project as the editor sees it: the snapshot history (see history.svelte.ts) plus the
+ * selection and the edits the lot editor offers (supports, boundary, keep-outs, station,
+ * settings), each one validated, undoable step.
  */
-import type { ApiResponse } from '../../../core/api/contract.ts';
-import {
-  ProjectSchema,
-  formatPath,
-  type KeepOut,
-  type LonLat,
-  type Polygon,
-  type Project,
-  type Settings,
-  type Support,
-} from '../../../core/project/schema.ts';
+import type { KeepOut, LonLat, Polygon, Project, Settings, Support } from '../../../core/project/schema.ts';
 import type { UnitSystem } from '../../../core/units/index.ts';
 import { closeRing, newId, nextName } from '../lib/geo.ts';
+import { ProjectHistory } from './history.svelte.ts';
+
+export { UNDO_DEPTH, type SaveFn, type SaveState, type Snapshot } from './history.svelte.ts';
 
 export type Selection =
   | { kind: 'support'; id: string }
@@ -25,37 +17,13 @@ export type Selection =
   | { kind: 'station' }
   | null;
 
-export type SaveState =
-  | { status: 'idle' }
-  | { status: 'saving' }
-  | { status: 'saved'; at: string }
-  | { status: 'error'; message: string };
-
-export type SaveFn = (project: Project) => Promise<ApiResponse<{ updatedAt: string }>>;
-
-interface Snapshot {
-  project: Project;
-  label: string;
-}
-
-/** How many snapshots undo keeps. */
-export const UNDO_DEPTH = 200;
 export const DEFAULT_SUPPORT_HEIGHT_M = 10;
 
-export class ProjectState {
-  project = $state.raw<Project | null>(null);
+export class ProjectState extends ProjectHistory {
   selection = $state.raw<Selection>(null);
-  past = $state.raw<Snapshot[]>([]);
-  future = $state.raw<Snapshot[]>([]);
-  save = $state.raw<SaveState>({ status: 'idle' });
-  /** The last edit refused by validation (shown near the status bar). */
-  editError = $state<string | null>(null);
-  /** What the last edit, undo or redo did, in words. */
-  lastAction = $state<string>('');
+  /** The support placed by the last click (its height field takes the focus once). */
+  justAdded = $state<string | null>(null);
 
-  units: UnitSystem = $derived(this.project?.settings.units ?? 'metric');
-  canUndo = $derived(this.past.length > 0);
-  canRedo = $derived(this.future.length > 0);
   selectedSupport: Support | null = $derived.by(() => {
     const s = this.selection;
     return s?.kind === 'support' ? (this.project?.supports.find((x) => x.id === s.id) ?? null) : null;
@@ -65,83 +33,14 @@ export class ProjectState {
     return s?.kind === 'keepOut' ? (this.project?.keepOuts.find((x) => x.id === s.id) ?? null) : null;
   });
 
-  #saver: SaveFn;
-  #dirty = false;
-  #running: Promise<void> | null = null;
-
-  constructor(saver: SaveFn) {
-    this.#saver = saver;
-  }
-
-  /** Show a project freshly opened from the store: no history, nothing to save. */
-  open(project: Project): void {
-    this.project = project;
+  override open(project: Project): void {
+    super.open(project);
     this.selection = null;
-    this.past = [];
-    this.future = [];
-    this.editError = null;
-    this.lastAction = '';
-    this.save = { status: 'idle' };
-  }
-
-  /** Apply a change as one undoable step; refused (and reported) if the result fails the schema. */
-  edit(label: string, change: (p: Project) => Project): boolean {
-    const current = this.project;
-    if (!current) return false;
-    const next = change(current);
-    if (next === current) return false;
-    const parsed = ProjectSchema.safeParse(next);
-    if (!parsed.success) {
-      const issue = parsed.error.issues[0];
-      this.editError = issue ? `${formatPath(issue.path)}: ${issue.message}` : 'invalid edit';
-      return false;
-    }
-    this.editError = null;
-    this.past = [...this.past, { project: current, label }].slice(-UNDO_DEPTH);
-    this.future = [];
-    this.project = parsed.data;
-    this.lastAction = label;
-    this.#queueSave();
-    return true;
-  }
-
-  undo(): void {
-    const prev = this.past.at(-1);
-    if (!prev || !this.project) return;
-    this.past = this.past.slice(0, -1);
-    this.future = [...this.future, { project: this.project, label: prev.label }];
-    this.project = prev.project;
-    this.lastAction = `Undid: ${prev.label}`;
-    this.#keepSelectionValid();
-    this.#queueSave();
-  }
-
-  redo(): void {
-    const next = this.future.at(-1);
-    if (!next || !this.project) return;
-    this.future = this.future.slice(0, -1);
-    this.past = [...this.past, { project: this.project, label: next.label }];
-    this.project = next.project;
-    this.lastAction = `Redid: ${next.label}`;
-    this.#keepSelectionValid();
-    this.#queueSave();
   }
 
   select(s: Selection): void {
     this.selection = s;
   }
-
-  /** Send the current snapshot again (after a failed save). */
-  retrySave(): void {
-    if (this.project) this.#queueSave();
-  }
-
-  /** Resolves once every queued save has finished. */
-  async flush(): Promise<void> {
-    while (this.#running) await this.#running;
-  }
-
-  // ---- edits ---------------------------------------------------------------------------------
 
   addSupport(position: LonLat): string | null {
     const p = this.project;
@@ -160,6 +59,7 @@ export class ProjectState {
     };
     if (!this.edit(`add ${support.name}`, (q) => ({ ...q, supports: [...q.supports, support] }))) return null;
     this.selection = { kind: 'support', id };
+    this.justAdded = id;
     return id;
   }
 
@@ -290,9 +190,8 @@ export class ProjectState {
     );
   }
 
-  // ---- internals -----------------------------------------------------------------------------
-
-  #keepSelectionValid(): void {
+  /** Drop a selection that undo or redo made vanish. */
+  protected override restored(): void {
     const s = this.selection;
     const p = this.project;
     if (!s || !p) return;
@@ -302,30 +201,5 @@ export class ProjectState {
       (s.kind === 'boundary' && !p.boundary) ||
       (s.kind === 'station' && !p.station);
     if (gone) this.selection = null;
-  }
-
-  #queueSave(): void {
-    this.#dirty = true;
-    this.save = { status: 'saving' };
-    if (!this.#running) this.#running = this.#drain();
-  }
-
-  async #drain(): Promise<void> {
-    while (this.#dirty) {
-      this.#dirty = false;
-      const snapshot = this.project;
-      if (!snapshot) break;
-      let result: ApiResponse<{ updatedAt: string }>;
-      try {
-        result = await this.#saver(snapshot);
-      } catch (e) {
-        result = { ok: false, error: { code: 'internal', message: String(e) } };
-      }
-      if (this.#dirty) continue; // a newer snapshot is waiting; its result is the one to show
-      this.save = result.ok
-        ? { status: 'saved', at: result.value.updatedAt }
-        : { status: 'error', message: result.error.message };
-    }
-    this.#running = null;
   }
 }

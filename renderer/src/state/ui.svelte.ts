@@ -92,6 +92,13 @@ export class UiState {
     }
   }
 
+  /** A point the map should bring into view if it is off screen (an item picked in a list). */
+  reveal = $state.raw<{ at: LonLat; seq: number } | null>(null);
+
+  requestReveal(at: LonLat): void {
+    this.reveal = { at, seq: (this.reveal?.seq ?? 0) + 1 };
+  }
+
   requestGoTo(at: LonLat): void {
     this.goTo = { at, seq: (this.goTo?.seq ?? 0) + 1 };
   }
