@@ -3,6 +3,9 @@
 // the lot and its plots, compare two, browse the rejected placements.
 import { expect, openApp, shot, test } from './fixtures.ts';
 
+// Both tests run the field solver in every core the page is given: one after the other, not side by side.
+test.describe.configure({ mode: 'serial' });
+
 test('plans the demo lot for 80 m and shows the first candidate drawn with its plots', async ({
   page,
   host,
