@@ -11,8 +11,21 @@ const impureModules = {
     { group: ['leaflet', 'leaflet/*', '@geoman-io/*'], message: 'core/ is pure: no leaflet.' },
     { group: ['better-sqlite3'], message: 'core/ is pure: no sqlite.' },
     { group: ['node:*'], message: 'core/ is pure: node:* only in core/cli/.' },
-    { group: ['fs', 'path', 'os', 'child_process', 'worker_threads', 'http', 'https', 'net', 'url'], message: 'core/ is pure: no Node built-ins.' },
-    { group: ['../data/*', '../../data/*', '../electron/*', '../../electron/*', '../renderer/*', '../../renderer/*'], message: 'core/ imports no other room.' },
+    {
+      group: ['fs', 'path', 'os', 'child_process', 'worker_threads', 'http', 'https', 'net', 'url'],
+      message: 'core/ is pure: no Node built-ins.',
+    },
+    {
+      group: [
+        '../data/*',
+        '../../data/*',
+        '../electron/*',
+        '../../electron/*',
+        '../renderer/*',
+        '../../renderer/*',
+      ],
+      message: 'core/ imports no other room.',
+    },
   ],
 };
 
