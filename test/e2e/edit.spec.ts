@@ -191,3 +191,16 @@ test('draws a building keep-out', async ({ page, host }) => {
   await page.getByRole('button', { name: 'Back to list' }).click();
   await expect(page.getByRole('heading', { name: 'Keep-outs (3)' })).toBeVisible();
 });
+
+test('Esc cancels a drawing half way and leaves the lot as it was', async ({ page, host }) => {
+  await openApp(page, host);
+  await page.getByRole('button', { name: 'Draw lot boundary' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'replaces the current one' })).toBeVisible();
+  await clickMap(page, 0.3, 0.3);
+  await clickMap(page, 0.7, 0.3);
+  await page.keyboard.press('Escape');
+  await expect(page.getByRole('status').filter({ hasText: 'Draw lot boundary' })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'Undo' })).toBeDisabled();
+  await expect(page.getByTestId('lot-summary')).toContainText('1.68 ha');
+  await expect(page.locator('.yw-side-label')).toHaveCount(4);
+});

@@ -70,6 +70,7 @@ describe('Maidenhead locator', () => {
     // -93.75, 44.90: x = 86.25 → E, 3, d; y = 134.90 → N, 4, v.
     expect(maidenhead([-93.75, 44.9])).toBe('EN34dv');
     expect(maidenhead([180, 90])).toBe('RR99xx');
+    expect(maidenhead([-93.75 + 360, 44.9])).toBe('EN34dv'); // a map panned across the seam
   });
 
   it('parses a locator or "lat, lon" back to a point', () => {

@@ -11,6 +11,7 @@ import {
 } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon as GeoPolygon } from 'geojson';
 import type { KeepOut, LonLat, Polygon, Project } from '../../../core/project/schema.ts';
+import { fromLocator, toLocator } from '../../../core/paths/maidenhead.ts';
 import { mToFeet, type UnitSystem } from '../../../core/units/index.ts';
 
 /** Great-circle distance in metres (turf's haversine on the mean Earth radius; < 0.5 % off geodesic). */
@@ -110,45 +111,29 @@ export function clearanceBand(k: KeepOut): Feature<GeoPolygon | MultiPolygon> | 
 }
 
 /**
- * Maidenhead locator (field, square, subsquare: 6 characters) of a [lon, lat] point.
- * Fields are 20° × 10°, squares 2° × 1°, subsquares 5′ × 2.5′ (IARU Region 1 convention).
+ * Maidenhead locator (6 characters: field, square, subsquare) of a [lon, lat] point, by the
+ * planning core's converter. Longitudes off the ±180° seam (a panned map) are wrapped first.
  */
 export function maidenhead(p: LonLat): string {
-  const x = Math.min(Math.max(p[0] + 180, 0), 360 - 1e-9);
-  const y = Math.min(Math.max(p[1] + 90, 0), 180 - 1e-9);
-  const A = 65;
-  const a = 97;
-  const field = String.fromCharCode(A + Math.floor(x / 20), A + Math.floor(y / 10));
-  const square = `${Math.floor((x % 20) / 2)}${Math.floor(y % 10)}`;
-  const sub = String.fromCharCode(a + Math.floor(((x % 2) * 60) / 5), a + Math.floor(((y % 1) * 60) / 2.5));
-  return field + square + sub;
+  const lon = Math.abs(p[0]) <= 180 ? p[0] : ((((p[0] + 180) % 360) + 360) % 360) - 180;
+  const lat = Math.min(90, Math.max(-90, p[1]));
+  return toLocator([lon, lat], 6);
 }
 
-/** Parse "lat, lon" in decimal degrees or a 4/6-character Maidenhead locator to [lon, lat]. */
+/** Parse "lat, lon" in decimal degrees or a Maidenhead locator (2–8 characters) to [lon, lat]. */
 export function parsePlace(text: string): LonLat | null {
   const t = text.trim();
   const m = /^(-?\d+(?:\.\d+)?)\s*[, ]\s*(-?\d+(?:\.\d+)?)$/.exec(t);
   if (m) {
     const lat = Number(m[1]);
     const lon = Number(m[2]);
-    if (Math.abs(lat) <= 90 && Math.abs(lon) <= 180) return [lon, lat];
+    return Math.abs(lat) <= 90 && Math.abs(lon) <= 180 ? [lon, lat] : null;
+  }
+  try {
+    return fromLocator(t).center;
+  } catch {
     return null;
   }
-  const g = /^([A-R]{2})(\d{2})([A-X]{2})?$/i.exec(t);
-  if (!g) return null;
-  const f = g[1]!.toUpperCase();
-  const s = g[2]!;
-  let lon = (f.charCodeAt(0) - 65) * 20 - 180 + Number(s[0]) * 2;
-  let lat = (f.charCodeAt(1) - 65) * 10 - 90 + Number(s[1]);
-  if (g[3]) {
-    const ss = g[3].toLowerCase();
-    lon += ((ss.charCodeAt(0) - 97) * 5 + 2.5) / 60;
-    lat += ((ss.charCodeAt(1) - 97) * 2.5 + 1.25) / 60;
-  } else {
-    lon += 1;
-    lat += 0.5;
-  }
-  return [lon, lat];
 }
 
 /** A new id for a support or keep-out, unique within a project (letters, digits, "-"). */
