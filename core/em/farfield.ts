@@ -75,16 +75,64 @@ function radiationVectors(
       const ph0 = k * (ux * mesh.sx[s0] + uy * mesh.sy[s0] + uz * zs * mesh.sz[s0]);
       const cp = Math.cos(psi);
       const sp = Math.sin(psi);
-      // A = Σ I_n P_n with P_n = e^{j(ph0 + nψ)}
-      let pr = Math.cos(ph0);
-      let pi = Math.sin(ph0);
-      const p0r = pr;
-      const p0i = pi;
-      let ar = 0;
-      let ai = 0;
-      for (let n = 0; n <= nS; n++) {
-        const ir = I[2 * (n0 + n)];
-        const ii = I[2 * (n0 + n) + 1];
+      // A = Σ I_n P_n with P_n = e^{j(ph0 + nψ)}, summed in four interleaved chains (P_n,
+      // P_{n+1}, P_{n+2}, P_{n+3} each rotated by e^{4jψ}) so that the recurrence does not
+      // serialise the loop.
+      const p0r = Math.cos(ph0);
+      const p0i = Math.sin(ph0);
+      const c2 = cp * cp - sp * sp;
+      const s2 = 2 * cp * sp;
+      const c4 = c2 * c2 - s2 * s2;
+      const s4 = 2 * c2 * s2;
+      let qr0 = p0r;
+      let qi0 = p0i;
+      let qr1 = p0r * cp - p0i * sp;
+      let qi1 = p0r * sp + p0i * cp;
+      let qr2 = p0r * c2 - p0i * s2;
+      let qi2 = p0r * s2 + p0i * c2;
+      let qr3 = qr1 * c2 - qi1 * s2;
+      let qi3 = qr1 * s2 + qi1 * c2;
+      let ar0 = 0,
+        ai0 = 0,
+        ar1 = 0,
+        ai1 = 0;
+      let n = 0;
+      const base = 2 * n0;
+      for (; n + 4 <= nS; n += 4) {
+        const o2 = base + 2 * n;
+        const i0r = I[o2];
+        const i0i = I[o2 + 1];
+        const i1r = I[o2 + 2];
+        const i1i = I[o2 + 3];
+        const i2r = I[o2 + 4];
+        const i2i = I[o2 + 5];
+        const i3r = I[o2 + 6];
+        const i3i = I[o2 + 7];
+        ar0 += i0r * qr0 - i0i * qi0 + (i2r * qr2 - i2i * qi2);
+        ai0 += i0r * qi0 + i0i * qr0 + (i2r * qi2 + i2i * qr2);
+        ar1 += i1r * qr1 - i1i * qi1 + (i3r * qr3 - i3i * qi3);
+        ai1 += i1r * qi1 + i1i * qr1 + (i3r * qi3 + i3i * qr3);
+        let t = qr0 * c4 - qi0 * s4;
+        qi0 = qr0 * s4 + qi0 * c4;
+        qr0 = t;
+        t = qr1 * c4 - qi1 * s4;
+        qi1 = qr1 * s4 + qi1 * c4;
+        qr1 = t;
+        t = qr2 * c4 - qi2 * s4;
+        qi2 = qr2 * s4 + qi2 * c4;
+        qr2 = t;
+        t = qr3 * c4 - qi3 * s4;
+        qi3 = qr3 * s4 + qi3 * c4;
+        qr3 = t;
+      }
+      // remaining nodes n … nS (one to four), continuing from chain 0, so P ends at P_N
+      let pr = qr0;
+      let pi = qi0;
+      let ar = ar0 + ar1;
+      let ai = ai0 + ai1;
+      for (; n <= nS; n++) {
+        const ir = I[base + 2 * n];
+        const ii = I[base + 2 * n + 1];
         ar += ir * pr - ii * pi;
         ai += ir * pi + ii * pr;
         if (n < nS) {

@@ -11,6 +11,7 @@
  * Medians of several runs after warm-up. Prints plain text; `--json` prints JSON.
  */
 import { spawnSync } from 'node:child_process';
+import { loadavg } from 'node:os';
 import { evaluateAntenna } from '../../core/em/evaluate.ts';
 import { sweepImpedance } from '../../core/em/sweep.ts';
 import { luFactor } from '../../core/numeric/lu.ts';
@@ -62,6 +63,7 @@ const halfSquare100: AntennaModel = {
 };
 
 const lines: string[] = [];
+const minOf = (xs: number[]): number => Math.min(...xs);
 const json: Record<string, unknown> = {};
 const say = (s: string) => lines.push(s);
 
@@ -178,7 +180,7 @@ print(' '.join(f'{n}:{out[n]}' for n in out))
   }
   json.lu = { oursMs: ours, lapackMs: lapack, lapack: how || null };
   for (const n of sizes) {
-    const flops = (8 / 3) * n ** 3; // complex LU, real flops
+    const flops = (8 / 3) * n ** 3; // complex LU flop count of LAPACK Working Note 41 (zgetrf)
     const gf = flops / (ours[n] * 1e6);
     if (lapack)
       say(
@@ -201,6 +203,13 @@ print(' '.join(f'{n}:{out[n]}' for n in out))
     `memory, ${n} unknowns: one complex matrix factored in place + pivots = ${(bytes / 1024).toFixed(0)} KiB; no object per element`,
   );
 }
+
+say(
+  `load average during the run (1, 5, 15 min): ${loadavg()
+    .map((l) => l.toFixed(2))
+    .join(', ')} on this machine's cores`,
+);
+json.loadAverage = loadavg();
 
 if (process.argv.includes('--json')) process.stdout.write(JSON.stringify(json, null, 2) + '\n');
 else process.stdout.write(lines.join('\n') + '\n');
