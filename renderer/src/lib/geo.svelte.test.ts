@@ -2,6 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildDemoProject, demoLonLat } from '../../../data/demo/demoProject.ts';
 import {
+  fallReachWarnings,
   closeRing,
   formatArea,
   maidenhead,
@@ -80,6 +81,21 @@ describe('Maidenhead locator', () => {
     expect(parsePlace('jj00')).toEqual([1, 0.5]);
     expect(parsePlace('95, 10')).toBeNull();
     expect(parsePlace('somewhere')).toBeNull();
+  });
+});
+
+describe('fallReachWarnings', () => {
+  const demo = buildDemoProject();
+  it('flags a support nearer to a power line than its height, and only then', () => {
+    // The demo line runs east-west 7 m south of the lot's south edge.
+    const near = { ...demo.supports[0]!, position: demoLonLat(80, 5), usableHeightM: 15 };
+    const w = fallReachWarnings(near, demo, 'metric');
+    expect(w).toHaveLength(1);
+    expect(w[0]).toMatch(
+      /^“Distribution line along the road” is 12\.0 m away, less than this support's 15\.0 m/,
+    );
+    expect(fallReachWarnings({ ...near, usableHeightM: 11 }, demo, 'metric')).toEqual([]);
+    expect(demo.supports.flatMap((s) => fallReachWarnings(s, demo, 'metric'))).toEqual([]);
   });
 });
 

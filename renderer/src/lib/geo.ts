@@ -8,11 +8,12 @@ import {
   booleanPointInPolygon,
   buffer as turfBuffer,
   distance as turfDistance,
+  pointToLineDistance,
 } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon as GeoPolygon } from 'geojson';
-import type { KeepOut, LonLat, Polygon, Project } from '../../../core/project/schema.ts';
+import type { KeepOut, LonLat, Polygon, Project, Support } from '../../../core/project/schema.ts';
 import { fromLocator, toLocator } from '../../../core/paths/maidenhead.ts';
-import { mToFeet, type UnitSystem } from '../../../core/units/index.ts';
+import { formatLength, mToFeet, type UnitSystem } from '../../../core/units/index.ts';
 
 /** Great-circle distance in metres (turf's haversine on the mean Earth radius; < 0.5 % off geodesic). */
 export function distanceM(a: LonLat, b: LonLat): number {
@@ -171,5 +172,24 @@ export function pointWarnings(at: LonLat, p: Project): string[] {
     }
   }
   if (p.boundary && !booleanPointInPolygon(at, p.boundary)) out.push('Outside the lot boundary.');
+  return out;
+}
+
+/**
+ * Power lines a support could reach if it fell: the line is nearer than the support's usable
+ * height (the top of a tree or mast is higher still, so this errs on the kind side).
+ */
+export function fallReachWarnings(s: Support, p: Project, units: UnitSystem): string[] {
+  const out: string[] = [];
+  for (const k of p.keepOuts) {
+    if (k.kind !== 'power-line' || k.geometry.type !== 'LineString') continue;
+    const d = pointToLineDistance(s.position, k.geometry, { units: 'meters' });
+    if (d < s.usableHeightM) {
+      out.push(
+        `“${k.name}” is ${formatLength(d, units)} away, less than this support's ${formatLength(s.usableHeightM, units)}: ` +
+          'if it fell it could reach the line.',
+      );
+    }
+  }
   return out;
 }

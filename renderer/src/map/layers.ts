@@ -7,7 +7,7 @@ import type * as GeoJSON from 'geojson';
 import L from './leaflet.ts';
 import type { KeepOut, LonLat, Project, Support } from '../../../core/project/schema.ts';
 import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
-import { clearanceBand, ringSides } from '../lib/geo.ts';
+import { clearanceBand, fallReachWarnings, pointWarnings, ringSides } from '../lib/geo.ts';
 import type { Selection } from '../state/project.svelte.ts';
 
 export interface LayerHandlers {
@@ -108,7 +108,10 @@ export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): Buil
     }
   }
 
-  for (const s of p.supports) supportMarker(s, sel?.kind === 'support' && sel.id === s.id, o, h).addTo(group);
+  for (const s of p.supports) {
+    const hazard = pointWarnings(s.position, p).length > 0 || fallReachWarnings(s, p, o.units).length > 0;
+    supportMarker(s, sel?.kind === 'support' && sel.id === s.id, hazard, o, h).addTo(group);
+  }
 
   if (p.station) {
     const m = L.marker(toLatLng(p.station), {
@@ -143,10 +146,16 @@ export function supportIconHtml(kind: Support['kind']): string {
   return `<svg viewBox="0 0 20 20" width="20" height="20" aria-hidden="true"><g class="halo">${shape}</g><g class="body">${shape}</g></svg>`;
 }
 
-function supportMarker(s: Support, selected: boolean, o: LayerOptions, h: LayerHandlers): L.Marker {
+function supportMarker(
+  s: Support,
+  selected: boolean,
+  hazard: boolean,
+  o: LayerOptions,
+  h: LayerHandlers,
+): L.Marker {
   const m = L.marker(toLatLng(s.position), {
     icon: L.divIcon({
-      className: `yw-support yw-kind-${s.kind}${selected ? ' is-selected' : ''}`,
+      className: `yw-support yw-kind-${s.kind}${selected ? ' is-selected' : ''}${hazard ? ' is-hazard' : ''}`,
       html: supportIconHtml(s.kind),
       iconSize: [20, 20],
     }),
@@ -154,7 +163,7 @@ function supportMarker(s: Support, selected: boolean, o: LayerOptions, h: LayerH
     interactive: o.interactive,
     pmIgnore: true,
     snapIgnore: true,
-    title: `${s.name} (${s.kind}); drag to move`,
+    title: `${s.name} (${s.kind})${hazard ? ', see the warning' : ''}; drag to move`,
     alt: s.name,
   });
   // Name and height; where labels crowd, the map shows the height alone (see declutterLabels).
