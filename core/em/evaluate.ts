@@ -135,8 +135,8 @@ function gainAt(src: FarFieldSource, pin: number, elDeg: number, azDeg: number, 
 }
 
 /**
- * Peak over the default 2° grid (or the gains already computed on it), refined by Brent's
- * minimiser in elevation and azimuth (± one step).
+ * Peak over the default 2° grid (or the gains already computed on it; in free space also the
+ * lower hemisphere), refined by Brent's minimiser in elevation and azimuth (± one step).
  */
 function findPeak(
   src: FarFieldSource,
@@ -161,6 +161,17 @@ function findPeak(
     }
   const step = DEFAULT_PATTERN_STEP_DEG;
   const elLo = hasGround ? 0 : -90;
+  if (!hasGround)
+    // free space: the lower hemisphere too
+    for (let el = -90; el < 0; el += step)
+      for (const az of grid.azimuthsDeg) {
+        const g = gainAt(src, pin, el, az, tmp);
+        if (g > best) {
+          best = g;
+          bel = el;
+          baz = az;
+        }
+      }
   for (let pass = 0; pass < 2; pass++) {
     const re = brentMinimize(
       (el) => -gainAt(src, pin, el, baz, tmp),

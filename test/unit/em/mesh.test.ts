@@ -133,3 +133,30 @@ describe('loads', () => {
     );
   });
 });
+
+describe('peak search', () => {
+  it('finds a free-space peak below the horizon', () => {
+    // two horizontal dipoles a quarter wave apart, the lower one fed 90° behind: end-fire downwards
+    const lam = 299_792_458 / 14e6;
+    const d = lam / 4;
+    const w = (z: number) => ({
+      from: [-lam / 4, 0, z] as const,
+      to: [lam / 4, 0, z] as const,
+      radiusM: 0.001,
+      material: 'perfect' as const,
+    });
+    const r = tryEvaluateAntenna(
+      {
+        wires: [w(30), w(30 - d)],
+        feeds: [
+          { wire: 0, position: 0.5, voltage: [1, 0] },
+          { wire: 1, position: 0.5, voltage: [0, -1] },
+        ],
+        ground: { kind: 'free-space' },
+      },
+      { frequenciesHz: [14e6], pattern: { elevationsDeg: [], azimuthsDeg: [] } },
+    );
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.frequencies[0].peak.elevationDeg).toBeLessThan(-60);
+  });
+});
