@@ -125,6 +125,7 @@ test('draws a power line and shows its clearance band and caution', async ({ pag
   await expect(
     page.getByRole('alert').filter({ hasText: /Inside the clearance of “Power line 1”/ }),
   ).toBeVisible();
+  await expect(page.locator('.yw-support.is-hazard[title^="North oak"]')).toBeVisible();
   await shot(page, 'power-line-drawn');
 });
 

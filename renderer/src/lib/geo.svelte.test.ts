@@ -9,6 +9,8 @@ import {
   parsePlace,
   perimeterM,
   pointWarnings,
+  supportInDanger,
+  supportWarnings,
   polygonAreaM2,
   ringSides,
 } from './geo.ts';
@@ -91,7 +93,8 @@ describe('fallReachWarnings', () => {
     const near = { ...demo.supports[0]!, position: demoLonLat(80, 5), usableHeightM: 15 };
     const w = fallReachWarnings(near, demo, 'metric');
     expect(w).toHaveLength(1);
-    expect(w[0]).toMatch(
+    expect(w[0]!.level).toBe('danger');
+    expect(w[0]!.text).toMatch(
       /^“Distribution line along the road” is 12\.0 m away, less than this support's 15\.0 m/,
     );
     expect(fallReachWarnings({ ...near, usableHeightM: 11 }, demo, 'metric')).toEqual([]);
@@ -103,9 +106,25 @@ describe('pointWarnings', () => {
   const demo = buildDemoProject();
   it('warns inside the power-line band and outside the lot', () => {
     const nearLine = demoLonLat(80, 5);
-    expect(pointWarnings(nearLine, demo).join(' ')).toMatch(/clearance of “Distribution line/);
+    expect(pointWarnings(nearLine, demo)).toEqual([
+      {
+        level: 'danger',
+        text: 'Inside the clearance of “Distribution line along the road”: anything attached here could reach the line if it falls.',
+      },
+    ]);
     expect(pointWarnings(demoLonLat(100, 60), demo)).toEqual([]);
-    expect(pointWarnings(demoLonLat(100, 140), demo)).toEqual(['Outside the lot boundary.']);
-    expect(pointWarnings(demoLonLat(25, 20), demo)[0]).toBe('Inside “House”.');
+    expect(pointWarnings(demoLonLat(100, 140), demo)).toEqual([
+      { level: 'notice', text: 'Outside the lot boundary: is it yours to use?' },
+    ]);
+    expect(pointWarnings(demoLonLat(25, 20), demo)[0]).toEqual({ level: 'notice', text: 'Inside “House”.' });
+  });
+
+  it('puts dangers first and tells a support in danger from one merely outside the lot', () => {
+    const outside = { ...demo.supports[0]!, position: demoLonLat(100, 140) };
+    expect(supportInDanger(outside, demo, 'metric')).toBe(false);
+    const byRoad = { ...demo.supports[0]!, position: demoLonLat(200, -2), usableHeightM: 12 };
+    const w = supportWarnings(byRoad, demo, 'metric');
+    expect(w.map((x) => x.level)).toEqual(['danger', 'danger', 'notice']);
+    expect(supportInDanger(byRoad, demo, 'metric')).toBe(true);
   });
 });

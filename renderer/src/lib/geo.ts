@@ -156,39 +156,60 @@ export function nextName(base: string, names: readonly string[]): string {
   }
 }
 
-/** Plain-words warnings about a point on the lot: in a keep-out's clearance, outside the lot. */
-export function pointWarnings(at: LonLat, p: Project): string[] {
-  const out: string[] = [];
+/** A warning about a place on the lot: "danger" for power lines, "notice" for the rest. */
+export interface PlaceWarning {
+  level: 'danger' | 'notice';
+  text: string;
+}
+
+/** Plain-words warnings about a point on the lot: in a keep-out or its clearance, outside the lot. */
+export function pointWarnings(at: LonLat, p: Project): PlaceWarning[] {
+  const out: PlaceWarning[] = [];
   for (const k of p.keepOuts) {
     const inShape = k.geometry.type === 'Polygon' && booleanPointInPolygon(at, k.geometry);
     const band = clearanceBand(k);
-    if (inShape) out.push(`Inside “${k.name}”.`);
+    if (inShape) out.push({ level: 'notice', text: `Inside “${k.name}”.` });
     else if (band && booleanPointInPolygon(at, band)) {
       out.push(
         k.kind === 'power-line'
-          ? `Inside the clearance of “${k.name}”: anything attached here could reach the line if it falls.`
-          : `Inside the clearance kept around “${k.name}”.`,
+          ? {
+              level: 'danger',
+              text: `Inside the clearance of “${k.name}”: anything attached here could reach the line if it falls.`,
+            }
+          : { level: 'notice', text: `Inside the clearance kept around “${k.name}”.` },
       );
     }
   }
-  if (p.boundary && !booleanPointInPolygon(at, p.boundary)) out.push('Outside the lot boundary.');
+  if (p.boundary && !booleanPointInPolygon(at, p.boundary)) {
+    out.push({ level: 'notice', text: 'Outside the lot boundary: is it yours to use?' });
+  }
   return out;
 }
+
+/** Every warning about a support, dangers first. */
+export function supportWarnings(s: Support, p: Project, units: UnitSystem): PlaceWarning[] {
+  const all = [...pointWarnings(s.position, p), ...fallReachWarnings(s, p, units)];
+  return [...all.filter((w) => w.level === 'danger'), ...all.filter((w) => w.level !== 'danger')];
+}
+
+/** True when a support stands where a fall could reach a power line. */
+export const supportInDanger = (s: Support, p: Project, units: UnitSystem): boolean =>
+  supportWarnings(s, p, units).some((w) => w.level === 'danger');
 
 /**
  * Power lines a support could reach if it fell: the line is nearer than the support's usable
  * height (the top of a tree or mast is higher still, so this errs on the kind side).
  */
-export function fallReachWarnings(s: Support, p: Project, units: UnitSystem): string[] {
-  const out: string[] = [];
+export function fallReachWarnings(s: Support, p: Project, units: UnitSystem): PlaceWarning[] {
+  const out: PlaceWarning[] = [];
   for (const k of p.keepOuts) {
     if (k.kind !== 'power-line' || k.geometry.type !== 'LineString') continue;
     const d = pointToLineDistance(s.position, k.geometry, { units: 'meters' });
     if (d < s.usableHeightM) {
-      out.push(
-        `“${k.name}” is ${formatLength(d, units)} away, less than this support's ${formatLength(s.usableHeightM, units)}: ` +
-          'if it fell it could reach the line.',
-      );
+      const text =
+        `“${k.name}” is ${formatLength(d, units)} away, less than this support's ` +
+        `${formatLength(s.usableHeightM, units)}: if it fell it could reach the line.`;
+      out.push({ level: 'danger', text });
     }
   }
   return out;

@@ -7,7 +7,7 @@ import type * as GeoJSON from 'geojson';
 import L from './leaflet.ts';
 import type { KeepOut, LonLat, Project, Support } from '../../../core/project/schema.ts';
 import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
-import { clearanceBand, fallReachWarnings, pointWarnings, ringSides } from '../lib/geo.ts';
+import { clearanceBand, ringSides, supportInDanger } from '../lib/geo.ts';
 import type { Selection } from '../state/project.svelte.ts';
 
 export interface LayerHandlers {
@@ -46,6 +46,8 @@ function escapeHtml(s: string): string {
 
 /** Pixels between a side and its length label. */
 const SIDE_LABEL_OFFSET_PX = 15;
+/** About half the width of a length label, added for sides that face east or west. */
+const SIDE_LABEL_HALF_WIDTH_PX = 22;
 
 /** A text label centred on its point, shifted by (dx, dy) screen pixels. */
 function label(text: string, className: string, dx = 0, dy = 0): L.DivIcon {
@@ -97,7 +99,7 @@ export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): Buil
         icon: label(
           formatLength(side.lengthM, o.units),
           'yw-side-label',
-          side.outward[0] * SIDE_LABEL_OFFSET_PX,
+          side.outward[0] * (SIDE_LABEL_OFFSET_PX + SIDE_LABEL_HALF_WIDTH_PX * Math.abs(side.outward[0])),
           -side.outward[1] * SIDE_LABEL_OFFSET_PX,
         ),
         interactive: false,
@@ -109,7 +111,7 @@ export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): Buil
   }
 
   for (const s of p.supports) {
-    const hazard = pointWarnings(s.position, p).length > 0 || fallReachWarnings(s, p, o.units).length > 0;
+    const hazard = supportInDanger(s, p, o.units);
     supportMarker(s, sel?.kind === 'support' && sel.id === s.id, hazard, o, h).addTo(group);
   }
 
@@ -163,7 +165,7 @@ function supportMarker(
     interactive: o.interactive,
     pmIgnore: true,
     snapIgnore: true,
-    title: `${s.name} (${s.kind})${hazard ? ', see the warning' : ''}; drag to move`,
+    title: `${s.name} (${s.kind})${hazard ? ', near a power line' : ''}; drag to move`,
     alt: s.name,
   });
   // Name and height; where labels crowd, the map shows the height alone (see declutterLabels).
