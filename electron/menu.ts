@@ -1,4 +1,8 @@
-/** The native menu, with the usual keyboard shortcuts (role items bring the platform's own). */
+/**
+ * The native menu, with the usual keyboard shortcuts (role items bring the platform's own).
+ * Undo and redo show their shortcuts but do not register them, so that Ctrl+Z reaches the page,
+ * where the project's own undo history handles it (and text fields their native undo).
+ */
 import type { MenuItemConstructorOptions } from 'electron';
 
 export function buildMenuTemplate(platform: NodeJS.Platform): MenuItemConstructorOptions[] {
@@ -9,8 +13,8 @@ export function buildMenuTemplate(platform: NodeJS.Platform): MenuItemConstructo
     {
       label: 'Edit',
       submenu: [
-        { role: 'undo' },
-        { role: 'redo' },
+        { role: 'undo', registerAccelerator: false },
+        { role: 'redo', registerAccelerator: false },
         { type: 'separator' },
         { role: 'cut' },
         { role: 'copy' },

@@ -1,7 +1,7 @@
 /**
  * The built-in demo project: an invented rural lot for trying Yardwire out. Nothing here is a
  * real place or a real station; the numbers are chosen to make a believable low-band puzzle:
- * about 1.6 ha, eight supports of 12–22 m, a house near the road, and a power line along the
+ * about 1.7 ha, eight supports of 12–22 m, a house near the road, and a power line along the
  * road on the south side.
  *
  * The layout is written in metres east/north of the lot's south-west corner and converted to
@@ -42,7 +42,7 @@ export function buildDemoProject(): Project {
     id: DEMO_PROJECT_ID,
     name: 'Larkspur Ridge (demo lot)',
     notes:
-      'An invented 1.6 ha rural lot for trying Yardwire: eight usable supports, the house by the road, ' +
+      'An invented 1.7 ha rural lot for trying Yardwire: eight usable supports, the house by the road, ' +
       'and a distribution line along the road to the south.',
     boundary: {
       type: 'Polygon',
