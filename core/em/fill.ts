@@ -26,24 +26,38 @@ const refl = new Float64Array(10);
 
 /**
  * Translation invariance: segment i of wire A and segment j of wire B differ only by a
- * translation along the wire when A and B (or A and the mirror image of B) have the same
- * direction, segment length and radius — in particular a straight wire with itself. Their
- * moments then depend on j − i alone, so a wire pair needs N_A + N_B − 1 moment integrals
- * instead of N_A·N_B; the ground's weighted image terms likewise when the ground says its
- * weights depend on relative position only.
+ * translation when A and B (or A and the mirror image of B) have the same direction, segment
+ * length and radius — in particular a straight wire with itself. Their moments then depend on
+ * j − i alone. When B runs the opposite way (anti-parallel: two legs of a half-square, or a
+ * vertical wire and its own image) they depend on i + j alone. Either way a wire pair needs
+ * N_A + N_B − 1 moment integrals instead of N_A·N_B; the ground's weighted image terms likewise
+ * when the ground says its weights depend on relative position only (the centre offsets and the
+ * sum of the heights follow the same index combination).
+ * Returns +1 (parallel, key j − i), −1 (anti-parallel, key i + j) or 0.
  */
-function parallelWires(mesh: Mesh, wa: number, wb: number, mirror: boolean): boolean {
+function wireRelation(mesh: Mesh, wa: number, wb: number, mirror: boolean): number {
   const sa = mesh.wireSegStart[wa];
   const sb = mesh.wireSegStart[wb];
   const zs = mirror ? -1 : 1;
   const tol = 1e-12;
-  return (
-    Math.abs(mesh.tx[sa] - mesh.tx[sb]) < tol &&
-    Math.abs(mesh.ty[sa] - mesh.ty[sb]) < tol &&
-    Math.abs(mesh.tz[sa] - zs * mesh.tz[sb]) < tol &&
-    Math.abs(mesh.len[sa] - mesh.len[sb]) < tol * mesh.len[sa] &&
-    mesh.radius[sa] === mesh.radius[sb]
-  );
+  if (!(Math.abs(mesh.len[sa] - mesh.len[sb]) < tol * mesh.len[sa] && mesh.radius[sa] === mesh.radius[sb]))
+    return 0;
+  const bx = mesh.tx[sb];
+  const by = mesh.ty[sb];
+  const bz = zs * mesh.tz[sb];
+  if (
+    Math.abs(mesh.tx[sa] - bx) < tol &&
+    Math.abs(mesh.ty[sa] - by) < tol &&
+    Math.abs(mesh.tz[sa] - bz) < tol
+  )
+    return 1;
+  if (
+    Math.abs(mesh.tx[sa] + bx) < tol &&
+    Math.abs(mesh.ty[sa] + by) < tol &&
+    Math.abs(mesh.tz[sa] + bz) < tol
+  )
+    return -1;
+  return 0;
 }
 
 let freeTable = new Float64Array(0);
@@ -74,6 +88,7 @@ export function fillImpedanceMatrix(
   eta: number,
   ground: GroundAtFrequency | null,
   z: Float64Array,
+  useCache = true,
 ): void {
   const n = mesh.nBasis;
   z.fill(0);
@@ -87,9 +102,13 @@ export function fillImpedanceMatrix(
     for (let wb = wa; wb < mesh.nWires; wb++) {
       const b0 = mesh.wireSegStart[wb];
       const b1 = mesh.wireSegStart[wb + 1];
-      const freeCached = parallelWires(mesh, wa, wb, false);
-      const imageCached =
-        ground !== null && ground.weightImage !== undefined && parallelWires(mesh, wa, wb, true);
+      const freeRel = useCache ? wireRelation(mesh, wa, wb, false) : 0;
+      const imageRel =
+        useCache && ground !== null && ground.weightImage !== undefined
+          ? wireRelation(mesh, wa, wb, true)
+          : 0;
+      const freeCached = freeRel !== 0;
+      const imageCached = imageRel !== 0;
       const reflCached = imageCached && ground!.translationInvariantWeights === true;
       const offset = a1 - a0 - 1;
       ensureTables(a1 - a0 + b1 - b0 - 1);
@@ -102,7 +121,10 @@ export function fillImpedanceMatrix(
           const qb = segPieceStart[q + 1];
           if (qa === qb) continue;
           const a2 = 0.5 * (radius[p] * radius[p] + radius[q] * radius[q]);
-          const d = q - b0 - (p - a0) + offset;
+          const dDiff = q - b0 - (p - a0) + offset;
+          const dSum = q - b0 + (p - a0);
+          const d = freeRel < 0 ? dSum : dDiff;
+          const di = imageRel < 0 ? dSum : dDiff;
           let mm: Float64Array;
           let mo = 0;
           if (freeCached) {
@@ -172,14 +194,14 @@ export function fillImpedanceMatrix(
           if (ground) {
             let rf: Float64Array = refl;
             let ro = 0;
-            if (reflCached && reflDone[d]) {
+            if (reflCached && reflDone[di]) {
               rf = reflTable;
-              ro = 10 * d;
+              ro = 10 * di;
             } else {
               let im: Float64Array = img;
               if (imageCached) {
-                if (!imageDone[d]) {
-                  const io = 8 * d;
+                if (!imageDone[di]) {
+                  const io = 8 * di;
                   for (let i = 0; i < 8; i++) imageTable[io + i] = 0;
                   pairMoments(
                     sx[p],
@@ -202,9 +224,9 @@ export function fillImpedanceMatrix(
                     imageTable,
                     io,
                   );
-                  imageDone[d] = 1;
+                  imageDone[di] = 1;
                 }
-                im = imageTable.subarray(8 * d, 8 * d + 8);
+                im = imageTable.subarray(8 * di, 8 * di + 8);
               } else if (ground.weightImage) {
                 img.fill(0);
                 pairMoments(
@@ -232,8 +254,8 @@ export function fillImpedanceMatrix(
               if (ground.weightImage) ground.weightImage(mesh, p, q, im, refl);
               else ground.reflectedPair(mesh, p, q, a2, k, refl);
               if (reflCached) {
-                for (let i = 0; i < 10; i++) reflTable[10 * d + i] = refl[i];
-                reflDone[d] = 1;
+                for (let i = 0; i < 10; i++) reflTable[10 * di + i] = refl[i];
+                reflDone[di] = 1;
               }
             }
             v00r += rf[ro];

@@ -42,8 +42,12 @@
  */
 import { gaussLegendre01 } from '../numeric/quadrature.ts';
 
-/** Centre distance over the longer segment below which a pair is treated as near. */
-export const NEAR_RATIO = 2;
+/**
+ * Centre distance over the longer segment below which a pair is treated as near. The far-rule
+ * thresholds (4.5, 8.5) and this one sit at half-integers: equal segments on a line lie at whole
+ * multiples of the segment length, where rounding would otherwise pick the rule at random.
+ */
+export const NEAR_RATIO = 2.5;
 /** Outer Gauss points per sub-interval of a near pair. */
 export const NEAR_OUTER_POINTS = 5;
 /** Gauss points for the smooth remainder over the source segment. */
@@ -134,7 +138,7 @@ export function pairMoments(
     nearMoments(px, py, pz, ptx, pty, ptz, pl, qx, qy, qz, qtx, qty, qtz, ql, a2, k, out, o);
     return;
   }
-  const rule = D < 4 * L ? G4 : D < 8 * L ? G3 : G2;
+  const rule = D < 4.5 * L ? G4 : D < 8.5 * L ? G3 : G2;
   const n = rule.x.length;
   let m00r = 0,
     m00i = 0,
@@ -144,12 +148,15 @@ export function pairMoments(
     m01i = 0,
     m11r = 0,
     m11i = 0;
+  const ox = px - qx;
+  const oy = py - qy;
+  const oz = pz - qz;
   for (let i = 0; i < n; i++) {
     const u = rule.x[i];
     const wu = rule.w[i];
-    const rx = px + u * pl * ptx - qx;
-    const ry = py + u * pl * pty - qy;
-    const rz = pz + u * pl * ptz - qz;
+    const rx = ox + u * pl * ptx;
+    const ry = oy + u * pl * pty;
+    const rz = oz + u * pl * ptz;
     let ir = 0,
       ii = 0,
       jr = 0,
@@ -286,6 +293,10 @@ function nearMoments(
     }
   }
   const k2h = 0.5 * k * k;
+  // offsets relative to the source start, formed once (coordinates may be large)
+  const ox = px - qx;
+  const oy = py - qy;
+  const oz = pz - qz;
   let m00r = 0,
     m00i = 0,
     m10r = 0,
@@ -302,12 +313,15 @@ function nearMoments(
     for (let i = 0; i < no; i++) {
       const u = ua + span * GO.x[i];
       const wu = GO.w[i] * span;
-      const rx = px + u * pl * ptx - qx;
-      const ry = py + u * pl * pty - qy;
-      const rz = pz + u * pl * ptz - qz;
+      const rx = ox + u * pl * ptx;
+      const ry = oy + u * pl * pty;
+      const rz = oz + u * pl * ptz;
       const s0 = rx * qtx + ry * qty + rz * qtz;
-      let d2 = rx * rx + ry * ry + rz * rz - s0 * s0;
-      if (d2 < 0) d2 = 0;
+      // distance from the source line by the cross product: no cancellation for collinear pairs
+      const cx = ry * qtz - rz * qty;
+      const cy = rz * qtx - rx * qtz;
+      const cz = rx * qty - ry * qtx;
+      const d2 = cx * cx + cy * cy + cz * cz;
       const rho2 = d2 + a2;
       const rho = Math.sqrt(rho2);
       const R0 = Math.sqrt(s0 * s0 + rho2);
