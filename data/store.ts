@@ -5,6 +5,7 @@
  * before writing it, and never overwrites a file it cannot read or that was written by a newer
  * schema version: it throws a StoreError that tells the caller what to offer the user.
  */
+import { copyFileSync, existsSync, renameSync } from 'node:fs';
 import Database from 'better-sqlite3';
 import { parseProject, type FieldError, type Project } from '../core/project/schema.ts';
 import type { ImageOverlay, ProjectSummary } from '../core/api/contract.ts';
@@ -223,5 +224,42 @@ export class ProjectStore {
         'INSERT INTO app_state (key, value) VALUES (?, ?) ON CONFLICT (key) DO UPDATE SET value = excluded.value',
       )
       .run(key, value);
+  }
+}
+
+/**
+ * Copies a database the store refused (damaged, or from a newer version) to a dated file beside
+ * it, with its WAL and shared-memory files, so that the user keeps it and can start afresh.
+ * The original is left where it was; the caller decides whether to move it aside.
+ */
+export function copyOutDatabase(file: string, now = new Date()): string {
+  const stamp = now.toISOString().replace(/[:.]/g, '-');
+  const target = `${file}.kept-${stamp}`;
+  copyFileSync(file, target);
+  for (const suffix of ['-wal', '-shm']) {
+    if (existsSync(file + suffix)) copyFileSync(file + suffix, target + suffix);
+  }
+  return target;
+}
+
+/**
+ * Opens the store; when the file is damaged or from a newer version and `recover` is set, first
+ * copies it out, moves the original aside (renamed, never deleted) and starts a fresh database.
+ * Returns the store and, when recovery happened, where the old file was kept.
+ */
+export function openStoreWithRecovery(
+  file: string,
+  options: StoreOptions & { recover: boolean },
+): { store: ProjectStore; keptCopy: string | null } {
+  try {
+    return { store: new ProjectStore(file, options), keptCopy: null };
+  } catch (e) {
+    if (!(e instanceof StoreError) || !options.recover || (e.code !== 'corrupt' && e.code !== 'newer-schema'))
+      throw e;
+    const kept = copyOutDatabase(file);
+    renameSync(file, `${file}.set-aside-${Date.now()}`);
+    for (const suffix of ['-wal', '-shm'])
+      if (existsSync(file + suffix)) renameSync(file + suffix, `${file}${suffix}.set-aside-${Date.now()}`);
+    return { store: new ProjectStore(file, options), keptCopy: kept };
   }
 }

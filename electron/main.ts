@@ -10,7 +10,7 @@ import { createHandlers } from './api/handlers.ts';
 import { setupIpc } from './ipc.ts';
 import { buildMenuTemplate } from './menu.ts';
 import { createMainWindow, setupContentSecurityPolicy } from './window.ts';
-import { ProjectStore, StoreError } from '../data/store.ts';
+import { openStoreWithRecovery, type ProjectStore, StoreError } from '../data/store.ts';
 import { databasePath } from './server/dataDir.ts';
 
 let mainWindow: BrowserWindow | null = null;
@@ -20,7 +20,29 @@ function openStore(): ProjectStore | null {
   try {
     // The Electron-ABI build of better-sqlite3, kept apart from Node's (see electron/build/electron-sqlite.mjs).
     const nativeBinding = process.env.YARDWIRE_SQLITE_BINDING;
-    return new ProjectStore(file, nativeBinding ? { nativeBinding } : {});
+    const binding = nativeBinding ? { nativeBinding } : {};
+    try {
+      return openStoreWithRecovery(file, { ...binding, recover: false }).store;
+    } catch (e) {
+      if (!(e instanceof StoreError) || (e.code !== 'corrupt' && e.code !== 'newer-schema')) throw e;
+      // Never overwrite it: offer to keep a copy and start afresh, or quit.
+      const choice = dialog.showMessageBoxSync({
+        type: 'warning',
+        title: 'Yardwire cannot open its project database',
+        message: e.message,
+        buttons: ['Keep a copy and start a fresh database', 'Quit'],
+        defaultId: 1,
+        cancelId: 1,
+      });
+      if (choice !== 0) return null;
+      const opened = openStoreWithRecovery(file, { ...binding, recover: true });
+      if (opened.keptCopy)
+        dialog.showMessageBoxSync({
+          type: 'info',
+          message: `The old database was kept as ${opened.keptCopy}`,
+        });
+      return opened.store;
+    }
   } catch (e) {
     dialog.showErrorBox(
       'Yardwire cannot open its project database',

@@ -6,7 +6,7 @@
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createHandlers } from '../api/handlers.ts';
-import { ProjectStore, StoreError } from '../../data/store.ts';
+import { openStoreWithRecovery, type ProjectStore, StoreError } from '../../data/store.ts';
 import { databasePath, defaultDataDir } from './dataDir.ts';
 import { startBrowserServer } from './server.ts';
 
@@ -16,9 +16,18 @@ async function main(): Promise<void> {
   const file = databasePath(defaultDataDir());
   let store: ProjectStore;
   try {
-    store = new ProjectStore(file);
+    // YARDWIRE_RECOVER=copy-out: keep a copy of a damaged or newer database and start a fresh one.
+    const opened = openStoreWithRecovery(file, { recover: process.env.YARDWIRE_RECOVER === 'copy-out' });
+    store = opened.store;
+    if (opened.keptCopy) process.stderr.write(`The old project database was kept as ${opened.keptCopy}\n`);
   } catch (e) {
     process.stderr.write(`Yardwire cannot start: ${e instanceof StoreError ? e.message : String(e)}\n`);
+    if (e instanceof StoreError && (e.code === 'corrupt' || e.code === 'newer-schema')) {
+      process.stderr.write(
+        'To keep a copy of it and start with a fresh database, run again with YARDWIRE_RECOVER=copy-out,\n' +
+          'or point YARDWIRE_DATA_DIR at another folder.\n',
+      );
+    }
     process.exit(2);
   }
   const version = process.env.npm_package_version ?? '0.1.0';

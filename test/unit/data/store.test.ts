@@ -121,3 +121,21 @@ describe('project store on a real SQLite file', () => {
     b.close();
   });
 });
+
+describe('copy-out of a refused database', () => {
+  it('keeps a byte-identical copy, sets the original aside and starts afresh', async () => {
+    const { openStoreWithRecovery } = await import('../../../data/store.ts');
+    const { readdirSync } = await import('node:fs');
+    const file = join(dir, 'broken.sqlite');
+    const junk = Buffer.from('not a database\n'.repeat(500));
+    writeFileSync(file, junk);
+    expect(() => openStoreWithRecovery(file, { recover: false })).toThrow(/damaged/);
+    expect(readFileSync(file).equals(junk)).toBe(true);
+    const { store, keptCopy } = openStoreWithRecovery(file, { recover: true });
+    expect(keptCopy).not.toBeNull();
+    expect(readFileSync(keptCopy!).equals(junk)).toBe(true);
+    expect(store.listProjects()).toEqual([]);
+    store.close();
+    expect(readdirSync(dir).some((f) => f.startsWith('broken.sqlite.set-aside-'))).toBe(true);
+  });
+});
