@@ -51,4 +51,26 @@ describe('drawCandidate', () => {
     expect(drawn()).toBe(before);
     map.remove();
   });
+
+  it('shows names as text, never as markup (a region or wire name with HTML in it)', () => {
+    const project = demoPlanProject();
+    const shortlist = demoShortlist();
+    const el = document.createElement('div');
+    Object.defineProperty(el, 'clientWidth', { value: 800 });
+    Object.defineProperty(el, 'clientHeight', { value: 600 });
+    document.body.append(el);
+    const map = L.map(el, { renderer: L.svg() }).setView([project.station![1], project.station![0]], 18);
+    const c = shortlist.candidates[0]!;
+    const hostile = '<img src=x onerror="window.__pwned=1">';
+    const evil = {
+      ...c,
+      regions: c.regions.map((r) => ({ ...r, name: hostile })),
+      wires: c.wires.map((w) => ({ ...w, label: hostile })),
+    };
+    const teardown = drawCandidate(map, evil, project);
+    expect(el.querySelector('img[src="x"]')).toBeNull();
+    expect(el.textContent).toContain('<img src=x');
+    teardown();
+    map.remove();
+  });
 });

@@ -49,8 +49,20 @@ function ray(frame: SiteFrame, from: XY, bearingDeg: number, lengthM: number): L
   return [ll(frame, from), ll(frame, [from[0] + lengthM * Math.sin(r), from[1] + lengthM * Math.cos(r)])];
 }
 
+/** Tooltip content as a text node: names typed by the user or imported are data, never markup. */
+function textContent(text: string): HTMLElement {
+  const el = document.createElement('span');
+  el.textContent = text;
+  return el;
+}
+
 function tip(layer: L.Layer, text: string, permanent = false): void {
-  layer.bindTooltip(text, { className: 'yw-tip', permanent, direction: 'top', sticky: !permanent });
+  layer.bindTooltip(textContent(text), {
+    className: 'yw-tip',
+    permanent,
+    direction: 'top',
+    sticky: !permanent,
+  });
 }
 
 /** Draw the candidate; returns the function that removes the drawing. */
@@ -86,7 +98,7 @@ export function drawCandidate(map: L.Map, candidate: DrawnCandidate, project: Pr
     const at = ray(frame, centre, r.bearingDeg.center, Math.min(45, span * 0.3))[1]!;
     L.tooltip({ permanent: true, direction: 'center', className: 'yw-tip' })
       .setLatLng(at)
-      .setContent(`${r.name} ${Math.round(r.bearingDeg.center)}°`)
+      .setContent(textContent(`${r.name} ${Math.round(r.bearingDeg.center)}°`))
       .addTo(g);
   });
   candidate.broadsideDeg.forEach((b) => {
