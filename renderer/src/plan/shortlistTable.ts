@@ -38,6 +38,14 @@ export function footprintAreaM2(c: Candidate): number {
   return Math.abs(a) / 2;
 }
 
+/** Longest distance across the footprint, m: the length of a footprint that is a line from above. */
+export function footprintSpanM(c: Candidate): number {
+  const r = c.footprint.ringXY;
+  let d = 0;
+  for (const p of r) for (const q of r) d = Math.max(d, Math.hypot(p[0] - q[0], p[1] - q[1]));
+  return d;
+}
+
 export function regionGain(c: Candidate, regionId: string): number {
   return c.regions.find((r) => r.id === regionId)?.gainDbi ?? -Infinity;
 }
