@@ -6,7 +6,11 @@
  * the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON).
  * A progress line goes to stderr while designs are evaluated.
  */
+import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { availableParallelism } from 'node:os';
+import { join, resolve as resolvePath } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { buildDemoProject } from '../../data/demo/demoProject.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
@@ -94,14 +98,98 @@ async function loadProject(args: Args, io: PlanIo): Promise<Project | null> {
   return parsed.value;
 }
 
+/** Where the worker bundle is kept between runs (git-ignored). */
+const BUNDLE_DIR = fileURLToPath(new URL('../../.cache/plan-worker/', import.meta.url));
+const WORKER_SOURCE = fileURLToPath(new URL('./plan-worker.ts', import.meta.url));
+
+interface BundleManifest {
+  /** Each input of the bundle with its size and modification time when it was built. */
+  inputs: Record<string, [number, number]>;
+}
+
+function stamp(path: string): [number, number] | null {
+  try {
+    const st = statSync(path);
+    return [st.size, st.mtimeMs];
+  } catch {
+    return null;
+  }
+}
+
+function bundleIsFresh(dir: string): boolean {
+  try {
+    const m = JSON.parse(readFileSync(join(dir, 'manifest.json'), 'utf8')) as BundleManifest;
+    if (!existsSync(join(dir, 'plan-worker.mjs'))) return false;
+    for (const [path, want] of Object.entries(m.inputs)) {
+      const got = stamp(path);
+      if (!got || got[0] !== want[0] || got[1] !== want[1]) return false;
+    }
+    return Object.keys(m.inputs).length > 0;
+  } catch {
+    return false;
+  }
+}
+
+interface EsbuildLike {
+  buildSync(o: Record<string, unknown>): { metafile?: { inputs: Record<string, unknown> } };
+}
+
+let bundlePath: string | null | undefined;
+
 /**
- * Start one planning worker. Node 20 workers cannot load .ts files, and a loader given in a
- * worker's execArgv is not applied there, so the worker registers tsx's loader itself before it
- * imports the worker module.
+ * The worker as one plain ES module, bundled with esbuild at first use and rebuilt when any of
+ * its inputs changes (size or modification time), so that a worker starts without a TypeScript
+ * loader. Null when esbuild is not available; the caller then falls back to the loader.
+ */
+export function workerBundle(dir = BUNDLE_DIR): string | null {
+  if (bundlePath !== undefined && dir === BUNDLE_DIR) return bundlePath;
+  let out: string | null = join(dir, 'plan-worker.mjs');
+  if (!bundleIsFresh(dir)) {
+    try {
+      const esbuild = createRequire(import.meta.url)('esbuild') as EsbuildLike;
+      mkdirSync(dir, { recursive: true });
+      // Build next to the final file, then rename: concurrent plans never read a partial bundle.
+      const tmp = join(dir, `plan-worker.${process.pid}.${Date.now()}.mjs`);
+      const res = esbuild.buildSync({
+        entryPoints: [WORKER_SOURCE],
+        bundle: true,
+        platform: 'node',
+        format: 'esm',
+        target: 'node20',
+        outfile: tmp,
+        metafile: true,
+        absWorkingDir: fileURLToPath(new URL('../../', import.meta.url)),
+        logLevel: 'silent',
+      });
+      const base = fileURLToPath(new URL('../../', import.meta.url));
+      const inputs: BundleManifest['inputs'] = {};
+      for (const rel of Object.keys(res.metafile?.inputs ?? {})) {
+        const abs = resolvePath(base, rel);
+        const st = stamp(abs);
+        if (st) inputs[abs] = st;
+      }
+      renameSync(tmp, out);
+      const mtmp = join(dir, `manifest.${process.pid}.json`);
+      writeFileSync(mtmp, JSON.stringify({ inputs } satisfies BundleManifest));
+      renameSync(mtmp, join(dir, 'manifest.json'));
+    } catch {
+      out = null;
+    }
+  }
+  if (dir === BUNDLE_DIR) bundlePath = out;
+  return out;
+}
+
+/**
+ * Start one planning worker: from the bundle when there is one; otherwise through tsx's loader
+ * (Node 20 workers cannot load .ts files, and a loader given in a worker's execArgv is not
+ * applied there, so the worker registers it itself before it imports the worker module).
  */
 function startWorker(): Worker {
+  const bundle = workerBundle();
+  if (bundle) return new Worker(bundle);
   const api = import.meta.resolve('tsx/esm/api');
-  const entry = new URL('./plan-worker.ts', import.meta.url).href;
+  const entry = pathToFileURL(WORKER_SOURCE).href;
   const boot = `import(${JSON.stringify(api)}).then((m) => { m.register(); return import(${JSON.stringify(entry)}); });`;
   return new Worker(boot, { eval: true });
 }
@@ -243,7 +331,15 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   if (!project) return 1;
   const t0 = performance.now();
   const bands = args.bands.length ? args.bands : project.bands;
-  const setup = enumeratePlan(project, { bands });
+  // Workers start (load the solver) while this thread enumerates the proposals.
+  const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
+  let setup: ReturnType<typeof enumeratePlan>;
+  try {
+    setup = enumeratePlan(project, { bands });
+  } catch (e) {
+    await pool?.close();
+    throw e;
+  }
   const cache = memoryCache();
   let lastPct = -1;
   const progress = (done: number, total: number): void => {
@@ -256,10 +352,9 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
     }
   };
   io.stderr(
-    `plan: ${setup.jobs.length} designs to evaluate${args.workers > 0 ? ` on ${Math.min(args.workers, setup.jobs.length)} worker threads` : ''}\n`,
+    `plan: ${setup.jobs.length} designs to evaluate${pool ? ` on ${Math.min(pool.size, setup.jobs.length)} worker threads` : ''}\n`,
   );
-  if (args.workers > 0) {
-    const pool = createWorkerPool(Math.min(args.workers, setup.jobs.length));
+  if (pool) {
     try {
       await pool.evaluate(setup.jobs, cache, progress);
     } finally {
