@@ -6,6 +6,7 @@ import { ETA0 } from '../../../core/em/constants.ts';
 import { complexPermittivity, soilSurfaceImpedanceOhm } from '../../../core/em/fresnel.ts';
 import {
   BARE_CONTACT_RADIUS_M,
+  RADIAL_PANELS,
   groundLossResistance,
   sinusoidalMonopoleSurfaceField,
 } from '../../../core/em/radials.ts';
@@ -131,4 +132,32 @@ describe('solver ground system against the sinusoidal-current model', () => {
       .groundSystems[0].lossResistanceOhm;
     expect(clipped).toBeGreaterThan(full);
   });
+});
+
+describe('quadrature of the loss integral', () => {
+  // The default panel count is chosen for speed; it must keep the 200-panel value.
+  const f = 3.6e6;
+  const lam = 299_792_458 / f;
+  const zg = soilSurfaceImpedanceOhm(complexPermittivity(AVERAGE, f), ETA0);
+  const cases: [string, number[], number][] = [
+    ['bare soil', [], 0.25],
+    ['4 radials', new Array<number>(4).fill(0.25 * lam), 0.25],
+    ['120 radials', new Array<number>(120).fill(0.25 * lam), 0.25],
+    ['32 radials, half clipped', Array.from({ length: 32 }, (_, i) => (i % 2 ? 0.3 : 0.08) * lam), 0.2],
+    ['60 long radials, short vertical', new Array<number>(60).fill(0.6 * lam), 0.1],
+  ];
+  for (const [label, lengthsM, hWl] of cases) {
+    it(`${label}: default panels (${RADIAL_PANELS}) agree with 200 panels to 1e-7`, () => {
+      const inp = {
+        freqHz: f,
+        screen: { lengthsM, radiusM: 1e-3 },
+        zg,
+        hAbs2PerI0: sinusoidalMonopoleSurfaceField(f, hWl * lam),
+        rhoMinM: lengthsM.length === 0 ? BARE_CONTACT_RADIUS_M : 1e-3,
+        rhoMaxM: Math.max(0.5 * lam, ...lengthsM),
+      };
+      const ref = groundLossResistance({ ...inp, panels: 200 });
+      expectClose(groundLossResistance(inp) / ref, 1, 1e-7, 'converged quadrature');
+    });
+  }
 });
