@@ -51,6 +51,9 @@ export function formatEvaluation(r: EvaluationResult): unknown {
       conductorLossW: f.conductorLossW,
       loadLossW: f.loadLossW,
       groundLossW: f.groundLossW,
+      ...(f.groundAbsorbedW !== null
+        ? { groundAbsorbedW: f.groundAbsorbedW, powerBalanceError: f.powerBalanceError }
+        : {}),
       groundSystems: f.groundSystems,
       efficiency: f.efficiency,
       averageGain: f.averageGain,

@@ -11,12 +11,17 @@
  * Over lossy ground the ground loss is the input power not radiated into the upper half-space
  * and not lost in wires or loads: P_in − P_rad − P_cond − P_load; its part in a radial system
  * (Wait–Pope) is reported separately. In free space and over perfect ground the same difference
- * should vanish; it is reported as a diagnostic when above 0.5 %.
+ * should vanish; it is reported as a diagnostic when above 0.5 %. Over the exact ground, with
+ * `groundPowerCheck`, the power into the ground is also computed on its own from the plane-wave
+ * spectrum of the currents (halfspace/absorption.ts), and the balance is checked against it.
  */
 import { brentMinimize } from '../numeric/roots.ts';
 import { ETA0 } from './constants.ts';
 import { ModelError, type Diagnostic } from './errors.ts';
 import { integrateRadiatedPower, radiationIntensity, type FarFieldSource } from './farfield.ts';
+import type { GroundModel, GroundModelChoice } from './ground.ts';
+import { groundAbsorption } from './halfspace/absorption.ts';
+import { ExactGroundAt, type ExactGroundModel } from './halfspace/ground.ts';
 import { DEFAULT_SEGMENTS_PER_WAVELENGTH } from './mesh.ts';
 import {
   createWorkspace,
@@ -47,6 +52,17 @@ export interface EvaluateOptions {
   segmentsPerWavelength?: number;
   /** Include node currents per wire in the result. */
   includeCurrents?: boolean;
+  /**
+   * Lossy soil: 'exact' (default) uses the Sommerfeld half-space for segment pairs near the
+   * ground (core/em/halfspace); 'approximate' the reflection-coefficient model everywhere.
+   */
+  groundModel?: GroundModelChoice;
+  /**
+   * Exact ground, no wire touching it: also compute the power into the ground on its own (the
+   * plane-wave spectrum of the currents, halfspace/absorption.ts; tens of ms to seconds for very
+   * low wires) and report the power balance against it.
+   */
+  groundPowerCheck?: boolean;
 }
 
 export interface PatternPoint {
@@ -89,7 +105,15 @@ export interface FrequencyResult {
   averageGainDb: number;
   peak: { elevationDeg: number; azimuthDeg: number; gainDbi: number };
   pattern: PatternPoint[];
-  /** P_in − (P_rad + losses), relative to P_in (free space and perfect ground only). */
+  /**
+   * Power into the ground computed independently of the input power (exact ground with
+   * `groundPowerCheck`, no wire touching the ground); null otherwise.
+   */
+  groundAbsorbedW: number | null;
+  /**
+   * P_in − (P_rad + losses), relative to P_in: free space and perfect ground, and lossy ground
+   * when `groundAbsorbedW` is known (then the ground loss in the sum is that); null otherwise.
+   */
   powerBalanceError: number | null;
   currents?: { wire: number; nodes: ComplexPair[] }[];
 }
@@ -98,7 +122,7 @@ export interface EvaluationResult {
   frequencies: FrequencyResult[];
   segments: number;
   unknowns: number;
-  groundModel: 'free-space' | 'perfect' | 'reflection-coefficient';
+  groundModel: GroundModel['kind'];
   diagnostics: Diagnostic[];
 }
 
@@ -218,9 +242,16 @@ export function frequencyResult(
   const prad = integrateRadiatedPower(src, ETA0).watts;
   const hasGround = pm.ground.hasGround;
   const losses = sol.conductorLossW + sol.loadLossW;
-  const soil = pm.ground.kind === 'reflection-coefficient';
+  const soil = pm.ground.soil !== null;
   const groundLossW = soil ? pin - prad - losses : 0;
-  const balance = soil ? null : (pin - prad - losses) / pin;
+  let groundAbsorbedW: number | null = null;
+  if (opts.groundPowerCheck && pm.ground.kind === 'exact' && sol.groundAt instanceof ExactGroundAt)
+    groundAbsorbedW = groundAbsorption(pm.mesh, sol.nodeCurrents, sol.groundAt.hs)?.watts ?? null;
+  const balance = soil
+    ? groundAbsorbedW === null
+      ? null
+      : (pin - prad - losses - groundAbsorbedW) / pin
+    : (pin - prad - losses) / pin;
   const grid = opts.pattern ?? DEFAULT_PATTERN;
   const tmp = new Float64Array(2);
   const pattern: PatternPoint[] = [];
@@ -260,6 +291,7 @@ export function frequencyResult(
     conductorLossW: sol.conductorLossW,
     loadLossW: sol.loadLossW,
     groundLossW,
+    groundAbsorbedW,
     groundSystems: sol.contacts.map((cr, i) => ({
       wire: pm.contacts[i].contact.ends[0].wire,
       radials: cr.radials,
@@ -299,12 +331,44 @@ export function prepareFor(
   model: AntennaModel,
   frequenciesHz: readonly number[],
   segmentsPerWavelength?: number,
+  groundModel: GroundModelChoice = 'exact',
 ): PreparedModel {
   checkFrequencies(frequenciesHz);
-  return prepareModel(model, {
-    maxFreqHz: Math.max(...frequenciesHz),
-    segmentsPerWavelength: segmentsPerWavelength ?? DEFAULT_SEGMENTS_PER_WAVELENGTH,
-  });
+  return prepareModel(
+    model,
+    {
+      maxFreqHz: Math.max(...frequenciesHz),
+      segmentsPerWavelength: segmentsPerWavelength ?? DEFAULT_SEGMENTS_PER_WAVELENGTH,
+    },
+    groundModel,
+  );
+}
+
+/**
+ * The diagnostic that says where the exact ground was used: segment pairs computed with the
+ * half-space model and with the approximation (summed over the frequencies solved), and the time
+ * spent building remainder tables (0 when every table came from the cache).
+ */
+export function exactGroundDiagnostic(ground: GroundModel): Diagnostic | null {
+  if (ground.kind !== 'exact') return null;
+  const states = (ground as ExactGroundModel).frequencies();
+  let exactPairs = 0;
+  let approximatePairs = 0;
+  let tableMs = 0;
+  for (const g of states) {
+    exactPairs += g.stats.exactPairs;
+    approximatePairs += g.stats.approximatePairs;
+    tableMs += g.stats.tableBuildMs;
+  }
+  const tables = states.filter((g) => g.lastTable !== null).length;
+  return {
+    level: 'info',
+    code: 'ground-model',
+    message:
+      `exact half-space ground (Sommerfeld integrals) for ${exactPairs} segment pairs near the ground, ` +
+      `reflection-coefficient approximation for ${approximatePairs} (higher than 1 λ, touching the ground, or seeing a radial system), ` +
+      `over ${states.length} frequencies; remainder tables: ${tables}, ${tableMs.toFixed(0)} ms to build or fetch; far field: space wave with Fresnel coefficients`,
+  };
 }
 
 /**
@@ -312,7 +376,7 @@ export function prepareFor(
  * built; otherwise every number in the result is finite.
  */
 export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): EvaluationResult {
-  const pm = prepareFor(model, opts.frequenciesHz, opts.segmentsPerWavelength);
+  const pm = prepareFor(model, opts.frequenciesHz, opts.segmentsPerWavelength, opts.groundModel);
   const ws = createWorkspace(pm);
   const diagnostics = [...pm.diagnostics];
   const frequencies = opts.frequenciesHz.map((f) => {
@@ -327,10 +391,12 @@ export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): Eva
       diagnostics.push({
         level: 'warning',
         code: 'negative-ground-loss',
-        message: `at ${(f / 1e6).toFixed(4)} MHz the reflection-coefficient ground returns more power than it receives (${((100 * r.groundLossW) / r.inputPowerW).toFixed(2)} % of the input): the wires are too close to the ground for this model`,
+        message: `at ${(f / 1e6).toFixed(4)} MHz the ${pm.ground.kind === 'exact' ? 'exact' : 'reflection-coefficient'} ground returns more power than it receives (${((100 * r.groundLossW) / r.inputPowerW).toFixed(2)} % of the input): the wires are too close to the ground for this model`,
       });
     return r;
   });
+  const gd = exactGroundDiagnostic(pm.ground);
+  if (gd) diagnostics.push(gd);
   return {
     frequencies,
     segments: pm.mesh.nSeg,

@@ -19,7 +19,11 @@
  *    Over a perfect conductor both weights are 1 and the model is the image model. The weights
  *    are symmetric in the pair, so the impedance matrix stays symmetric.
  *    Known limit: for wires lower than about 0.1 λ the approximation misjudges the near-field
- *    ground loss (the mesh says so in its diagnostics).
+ *    ground loss (the mesh says so in its diagnostics);
+ *  - lossy ground, exact (the default for soil; core/em/halfspace/ground.ts): the reflected
+ *    interaction of pairs near the ground from the Sommerfeld integrals, wrapping the
+ *    reflection-coefficient model, which keeps the pairs high above the ground, the ground-system
+ *    zones and the far field (space wave with Fresnel coefficients);
  *  - ground-system zones: around a wire that is connected to lossy ground, out to the radial
  *    integration limit, the radial system (or the surface-impedance loss of bare soil) is
  *    accounted for by the Wait–Pope loss resistance (radials.ts), and pairs whose specular point
@@ -70,6 +74,11 @@ export interface GroundAtFrequency {
    */
   readonly translationInvariantWeights?: boolean;
   /**
+   * True when the pair's specular point lies in a ground-system zone (where the perfect image
+   * stands for the radial screen); the exact model leaves such pairs to the approximation.
+   */
+  inGroundSystemZone?(mesh: Mesh, p: number, q: number): boolean;
+  /**
    * Plane-wave reflection at grazing angle ψ (sin ψ given): writes Rv (re, im) and Rh (re, im)
    * into out[0…3]. Perfect ground: Rv = 1, Rh = −1.
    */
@@ -80,8 +89,12 @@ export interface GroundAtFrequency {
   readonly zg: Complex | null;
 }
 
+/** Which lossy-ground model an input asks for: the exact half-space (default) or the approximation. */
+export type GroundModelChoice = 'exact' | 'approximate';
+
 export interface GroundModel {
-  readonly kind: 'free-space' | 'perfect' | 'reflection-coefficient';
+  /** 'exact': the Sommerfeld half-space near the ground (core/em/halfspace), see its module note. */
+  readonly kind: 'free-space' | 'perfect' | 'reflection-coefficient' | 'exact';
   readonly hasGround: boolean;
   readonly soil: SoilElectrical | null;
   at(freqHz: number): GroundAtFrequency | null;
@@ -151,6 +164,24 @@ class ReflectionCoefficientAt implements GroundAtFrequency {
     imageMoments(mesh, p, q, a2, k);
     this.weightImage(mesh, p, q, scratch, out);
   }
+  /** Specular point of the pair (from the centres) inside a ground-system zone. */
+  private zoneAt(cqx: number, cqy: number, cqz: number, dx: number, dy: number, zs: number): boolean {
+    const f = zs > 0 ? cqz / zs : 0.5;
+    const spx = cqx + dx * f;
+    const spy = cqy + dy * f;
+    for (const z of this.zones) if ((spx - z.x) ** 2 + (spy - z.y) ** 2 <= z.r2) return true;
+    return false;
+  }
+  inGroundSystemZone(mesh: Mesh, p: number, q: number): boolean {
+    if (this.zones.length === 0) return false;
+    const cqx = mesh.sx[q] + 0.5 * mesh.len[q] * mesh.tx[q];
+    const cqy = mesh.sy[q] + 0.5 * mesh.len[q] * mesh.ty[q];
+    const cqz = mesh.sz[q] + 0.5 * mesh.len[q] * mesh.tz[q];
+    const dx = mesh.sx[p] + 0.5 * mesh.len[p] * mesh.tx[p] - cqx;
+    const dy = mesh.sy[p] + 0.5 * mesh.len[p] * mesh.ty[p] - cqy;
+    const zs = mesh.sz[p] + 0.5 * mesh.len[p] * mesh.tz[p] + cqz;
+    return this.zoneAt(cqx, cqy, cqz, dx, dy, zs);
+  }
   weightImage(mesh: Mesh, p: number, q: number, img: Float64Array, out: Float64Array): void {
     const cpx = mesh.sx[p] + 0.5 * mesh.len[p] * mesh.tx[p];
     const cpy = mesh.sy[p] + 0.5 * mesh.len[p] * mesh.ty[p];
@@ -167,11 +198,7 @@ class ReflectionCoefficientAt implements GroundAtFrequency {
       rvi = 0,
       mrhr = 1,
       mrhi = 0;
-    const f = zs > 0 ? cqz / zs : 0.5;
-    const spx = cqx + dx * f;
-    const spy = cqy + dy * f;
-    let inZone = false;
-    for (const z of this.zones) if ((spx - z.x) ** 2 + (spy - z.y) ** 2 <= z.r2) inZone = true;
+    const inZone = this.zoneAt(cqx, cqy, cqz, dx, dy, zs);
     if (!inZone) {
       // Fresnel coefficients (fresnel.ts), inlined with scalars: this runs once per segment pair.
       const sinPsi = zs > 0 ? zs / Math.hypot(rho, zs) : 0;

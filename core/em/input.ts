@@ -102,6 +102,8 @@ export const antennaInputSchema = z
       .strict()
       .optional(),
     referenceImpedanceOhm: positive.optional(),
+    groundModel: z.enum(['exact', 'approximate']).optional(),
+    groundPowerCheck: z.boolean().optional(),
     segmentsPerWavelength: finite
       .refine((v) => v >= 10 && v <= 400, 'must lie between 10 and 400')
       .optional(),
@@ -200,6 +202,8 @@ export function parseAntennaInput(doc: unknown): ParsedInput {
     pattern: d.pattern ?? { elevationsDeg: [], azimuthsDeg: [] },
     referenceImpedanceOhm: d.referenceImpedanceOhm,
     segmentsPerWavelength: d.segmentsPerWavelength,
+    groundModel: d.groundModel ?? 'exact',
+    groundPowerCheck: d.groundPowerCheck ?? false,
   };
   return { ok: true, model, options };
 }

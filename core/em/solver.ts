@@ -19,7 +19,14 @@ import { ETA0, waveNumber } from './constants.ts';
 import { internalImpedancePerM } from './conductor.ts';
 import { ModelError, type Diagnostic } from './errors.ts';
 import { addSegmentImpedance, fillImpedanceMatrix } from './fill.ts';
-import { createGroundModel, type GroundAtFrequency, type GroundModel, type GroundZone } from './ground.ts';
+import {
+  createGroundModel,
+  type GroundAtFrequency,
+  type GroundModel,
+  type GroundModelChoice,
+  type GroundZone,
+} from './ground.ts';
+import { createExactGroundModel } from './halfspace/ground.ts';
 import { buildMesh, nodeAt, type GroundContact, type Mesh, type MeshOptions } from './mesh.ts';
 import {
   BARE_CONTACT_RADIUS_M,
@@ -90,8 +97,19 @@ function resolvePort(mesh: Mesh, wire: number, position: number, field: string, 
   };
 }
 
-/** Mesh the model and resolve feeds, loads and ground connections. Throws ModelError. */
-export function prepareModel(model: AntennaModel, meshOptions: MeshOptions): PreparedModel {
+/** Mesh diagnostics about the reflection-coefficient approximation near the ground. */
+const APPROXIMATION_ONLY = new Set(['low-horizontal-wire', 'segment-near-lossy-ground']);
+
+/**
+ * Mesh the model and resolve feeds, loads and ground connections. Throws ModelError. Over lossy
+ * soil the ground is the exact half-space model (halfspace/ground.ts) wrapping the
+ * reflection-coefficient one, unless `groundModel` is 'approximate'.
+ */
+export function prepareModel(
+  model: AntennaModel,
+  meshOptions: MeshOptions,
+  groundModel: GroundModelChoice = 'exact',
+): PreparedModel {
   if (model.feeds.length === 0) throw new ModelError('feeds', 'the antenna has no feed');
   const mesh = buildMesh(model, meshOptions);
   const diagnostics = [...mesh.diagnostics];
@@ -162,8 +180,20 @@ export function prepareModel(model: AntennaModel, meshOptions: MeshOptions): Pre
     y: pc.contact.y,
     radiusM: (f: number) => zoneRadius(pc, f),
   }));
-  const ground = createGroundModel(model.ground, zones);
-  return { model, mesh, ground, feeds, loads, contacts, diagnostics };
+  const approximate = createGroundModel(model.ground, zones);
+  // Lossy soil: the exact half-space near the ground unless the input asks for the approximation.
+  const exact = approximate.kind === 'reflection-coefficient' && groundModel === 'exact';
+  const ground = exact ? createExactGroundModel(approximate) : approximate;
+  return {
+    model,
+    mesh,
+    ground,
+    feeds,
+    loads,
+    contacts,
+    // the approximation's warning about low wires does not apply to the exact model
+    diagnostics: exact ? diagnostics.filter((d) => !APPROXIMATION_ONLY.has(d.code)) : diagnostics,
+  };
 }
 
 /** Outer limit of the radial-system integration: max(0.5 λ, longest radial). */

@@ -21,6 +21,7 @@
 import { brentMinimize, brentRoot } from '../numeric/roots.ts';
 import { c, cDiv, type Complex } from '../numeric/complex.ts';
 import { ModelError } from './errors.ts';
+import type { GroundModelChoice } from './ground.ts';
 import { prepareFor, swrOf } from './evaluate.ts';
 import { createWorkspace, solveFrequency, type PreparedModel, type SolveWorkspace } from './solver.ts';
 import type { AntennaModel, WireSpec } from './types.ts';
@@ -28,6 +29,8 @@ import type { AntennaModel, WireSpec } from './types.ts';
 export interface SweepOptions {
   referenceImpedanceOhm?: number;
   segmentsPerWavelength?: number;
+  /** Lossy soil: exact half-space (default) or the reflection-coefficient approximation. */
+  groundModel?: GroundModelChoice;
   /** Solve every m-th frequency only and interpolate between (m ≥ 2); default 1 (solve all). */
   anchorEvery?: number;
   /** Which feed (index) to report; default 0. */
@@ -74,7 +77,7 @@ export function sweepImpedance(
   frequenciesHz: readonly number[],
   opts: SweepOptions = {},
 ): SweepResult {
-  const pm = prepareFor(model, frequenciesHz, opts.segmentsPerWavelength);
+  const pm = prepareFor(model, frequenciesHz, opts.segmentsPerWavelength, opts.groundModel);
   return sweepPrepared(pm, frequenciesHz, opts);
 }
 
@@ -149,6 +152,8 @@ export interface BandwidthOptions {
   ratio?: number;
   referenceImpedanceOhm?: number;
   segmentsPerWavelength?: number;
+  /** Lossy soil: exact half-space (default) or the reflection-coefficient approximation. */
+  groundModel?: GroundModelChoice;
   feed?: number;
   /** Relative frequency tolerance of the crossings; default 1e-5. */
   relTol?: number;
@@ -174,7 +179,7 @@ export function swrBandwidth(
   const N = opts.ratio ?? 2;
   const z0 = opts.referenceImpedanceOhm ?? 50;
   const feed = opts.feed ?? 0;
-  const pm = prepareFor(model, frequenciesHz, opts.segmentsPerWavelength);
+  const pm = prepareFor(model, frequenciesHz, opts.segmentsPerWavelength, opts.groundModel);
   const ws = createWorkspace(pm);
   const fs = [...frequenciesHz].sort((a, b) => a - b);
   let solves = 0;
@@ -227,6 +232,8 @@ export interface TrimOptions {
   target: 'zero-reactance' | 'min-swr';
   referenceImpedanceOhm?: number;
   segmentsPerWavelength?: number;
+  /** Lossy soil: exact half-space (default) or the reflection-coefficient approximation. */
+  groundModel?: GroundModelChoice;
   feed?: number;
   /** Absolute tolerance on the value; default 1e-6 of the range's larger end. */
   tolerance?: number;
@@ -262,7 +269,12 @@ export function trimDimension(opts: TrimOptions): TrimResult {
   };
   const z0 = opts.referenceImpedanceOhm ?? 50;
   const feed = opts.feed ?? 0;
-  const mid = prepareFor(buildModel(0.5 * (lo + hi)), [opts.frequencyHz], opts.segmentsPerWavelength);
+  const mid = prepareFor(
+    buildModel(0.5 * (lo + hi)),
+    [opts.frequencyHz],
+    opts.segmentsPerWavelength,
+    opts.groundModel,
+  );
   const counts = Array.from(
     { length: mid.mesh.nWires },
     (_, w) => mid.mesh.wireSegStart[w + 1] - mid.mesh.wireSegStart[w],
@@ -272,7 +284,7 @@ export function trimDimension(opts: TrimOptions): TrimResult {
     solves++;
     const model = buildModel(v);
     const m = model.wires.length === counts.length ? frozen(model, counts) : model;
-    const pm = prepareFor(m, [opts.frequencyHz], opts.segmentsPerWavelength);
+    const pm = prepareFor(m, [opts.frequencyHz], opts.segmentsPerWavelength, opts.groundModel);
     return feedImpedance(pm, opts.frequencyHz, createWorkspace(pm), feed);
   };
   const tol = opts.tolerance ?? 1e-6 * Math.max(Math.abs(lo), Math.abs(hi));

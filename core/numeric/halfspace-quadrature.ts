@@ -127,6 +127,31 @@ export function gaussKronrod15(
   return err;
 }
 
+/** Panel storage, reused between calls (the integrand never calls integrateAdaptive itself). */
+interface Panels {
+  lo: Float64Array;
+  hi: Float64Array;
+  err: Float64Array;
+  val: Float64Array;
+  tmp: Float64Array;
+  total: Float64Array;
+}
+let shared: Panels | null = null;
+function panels(cap: number, n: number): Panels {
+  if (!shared || shared.lo.length < cap || shared.tmp.length !== n || shared.val.length < cap * n) {
+    const c = Math.max(cap, shared?.lo.length ?? 0);
+    shared = {
+      lo: new Float64Array(c),
+      hi: new Float64Array(c),
+      err: new Float64Array(c),
+      val: new Float64Array(c * n),
+      tmp: new Float64Array(n),
+      total: new Float64Array(n),
+    };
+  }
+  return shared;
+}
+
 /**
  * Adaptive Gauss–Kronrod (7/15) integration of a vector integrand over [a, b], bisecting the
  * panel with the largest error until the summed error is below max(absTol, relTol·‖I‖∞).
@@ -142,11 +167,7 @@ export function integrateAdaptive(
 ): AdaptiveResult {
   const pieces = Math.max(1, opts.initialPieces ?? 1);
   const cap = Math.max(opts.maxIntervals, pieces);
-  const lo = new Float64Array(cap);
-  const hi = new Float64Array(cap);
-  const err = new Float64Array(cap);
-  const val = new Float64Array(cap * n);
-  const tmp = new Float64Array(n);
+  const { lo, hi, err, val, tmp, total } = panels(cap, n);
   let count = 0;
   let evaluations = 0;
   const h = (b - a) / pieces;
@@ -160,7 +181,6 @@ export function integrateAdaptive(
     hi[count] = x1;
     count++;
   }
-  const total = new Float64Array(n);
   let converged = false;
   for (;;) {
     total.fill(0);

@@ -13,9 +13,11 @@
  * same coefficients as its free-space moments; the scalar slot gets only K times the image
  * charge moment.
  *
- * Where the exact interaction is used: both segments entirely within `exactHeightM` of the
- * ground and neither touching it (a wire connected to the ground keeps the solver's
- * ground-system treatment); elsewhere the pair is delegated to the approximate model. The far
+ * Where the exact interaction is used: both segments entirely within `exactHeightWavelengths`
+ * of the ground, neither touching it, and the pair's specular point outside every ground-system
+ * zone (a wire connected to the ground, and the pairs that see its radial screen, keep the
+ * solver's ground-system treatment: perfect image inside the zone, Wait–Pope loss); elsewhere
+ * the pair is delegated to the approximate model. The far
  * field stays the space wave with Fresnel coefficients (delegated).
  */
 import { gaussLegendre01 } from '../../numeric/quadrature.ts';
@@ -86,7 +88,16 @@ export class ExactGroundAt implements GroundAtFrequency {
     const zp1 = zp0 + mesh.len[p] * mesh.tz[p];
     const zq0 = mesh.sz[q];
     const zq1 = zq0 + mesh.len[q] * mesh.tz[q];
-    return Math.min(zp0, zp1, zq0, zq1) > lo && Math.max(zp0, zp1, zq0, zq1) <= this.hExact;
+    return (
+      Math.min(zp0, zp1, zq0, zq1) > lo &&
+      Math.max(zp0, zp1, zq0, zq1) <= this.hExact &&
+      !(this.approx.inGroundSystemZone?.(mesh, p, q) ?? false)
+    );
+  }
+
+  /** The table used for the last fill (null before the first exact pair or without a table). */
+  get lastTable(): RemainderTable | null {
+    return this.table;
   }
 
   private tableFor(mesh: Mesh): RemainderTable | null {
@@ -233,6 +244,12 @@ export class ExactGroundAt implements GroundAtFrequency {
   }
 }
 
+export interface ExactGroundModel extends GroundModel {
+  readonly kind: 'exact';
+  lastAt: ExactGroundAt | null;
+  frequencies(): ExactGroundAt[];
+}
+
 /**
  * Wraps an approximate (reflection-coefficient) GroundModel of a soil into the exact one: same
  * soil, same ground-system zones (through the wrapped model), exact pairs near the ground.
@@ -240,17 +257,19 @@ export class ExactGroundAt implements GroundAtFrequency {
 export function createExactGroundModel(
   approximate: GroundModel,
   opts: Partial<ExactGroundOptions> = {},
-): GroundModel & { lastAt: ExactGroundAt | null } {
+): ExactGroundModel {
   const soil = approximate.soil;
   if (!soil || approximate.kind !== 'reflection-coefficient')
     throw new RangeError('the exact ground needs a lossy-soil ground model to wrap');
   const o = { ...DEFAULT_EXACT_GROUND, ...opts };
   const byFreq = new Map<number, ExactGroundAt>();
   const model = {
-    kind: approximate.kind,
+    kind: 'exact' as const,
     hasGround: true,
     soil,
     lastAt: null as ExactGroundAt | null,
+    /** The per-frequency states built so far (for the diagnostics). */
+    frequencies: (): ExactGroundAt[] => [...byFreq.values()],
     at(freqHz: number): GroundAtFrequency | null {
       let g = byFreq.get(freqHz);
       if (!g) {
