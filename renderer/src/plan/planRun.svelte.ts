@@ -3,11 +3,30 @@
  * worker evaluates them one at a time (the next job goes to whichever worker is free), the lead
  * keeps every result and ranks. Cancelling stops handing out jobs at once; the few in flight
  * finish and stay cached, so the next run starts where this one stopped.
+ *
+ * A worker that fails (an uncaught error, an unreadable message, or silence: no answer to work
+ * handed out for `stallMs`) ends the run with an error in words, and every worker of the pool is
+ * stopped; the next run starts a fresh pool. The project is never touched by a run.
  */
 import type { Job, Shortlist } from '../../../core/rank/plan.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
-import type { CandidateDrawing, FromWorker, SweepPoint } from '../workers/protocol.ts';
+import type { CandidateDrawing, FromWorker, SweepPoint, TestFault } from '../workers/protocol.ts';
 import type { PlanWorker } from '../workers/pool.ts';
+import { takeTestFault } from '../workers/testFault.ts';
+
+/** How long the runner waits on workers that hold work and say nothing, by default (ms). */
+export const DEFAULT_STALL_MS = 180_000;
+
+export interface RunnerOptions {
+  /** How long work handed out may go unanswered before the pool counts as failed, ms. */
+  stallMs?: number;
+  /** Where a test fault comes from (tests only; see testFault.ts). */
+  testFault?: () => TestFault | null;
+}
+
+/** The words of a worker failure, as shown in the run bar. */
+export const workerFailure = (why: string): string =>
+  `a planning worker failed: ${why}; the project is unchanged; run again`;
 
 export type RunStatus = 'idle' | 'enumerating' | 'evaluating' | 'ranking' | 'done' | 'cancelled' | 'error';
 
@@ -20,6 +39,7 @@ interface Run {
   cached: number;
   evaluations: number;
   startedAt: number;
+  testFault: TestFault | null;
 }
 
 export class PlanRunner {
@@ -56,9 +76,19 @@ export class PlanRunner {
   // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
   #sweeps = new Map<number, { resolve: (p: SweepPoint[]) => void; reject: (e: Error) => void }>();
 
-  constructor(start: () => PlanWorker[], now: () => number = () => performance.now()) {
+  #stallMs: number;
+  #takeFault: () => TestFault | null;
+  #watchdog: ReturnType<typeof setTimeout> | null = null;
+
+  constructor(
+    start: () => PlanWorker[],
+    now: () => number = () => performance.now(),
+    options: RunnerOptions = {},
+  ) {
     this.#start = start;
     this.#now = now;
+    this.#stallMs = options.stallMs ?? DEFAULT_STALL_MS;
+    this.#takeFault = options.testFault ?? (() => takeTestFault());
   }
 
   #lead(): PlanWorker {
@@ -67,7 +97,10 @@ export class PlanRunner {
       this.workerCount = this.#workers.length;
       for (const w of this.#workers) {
         this.#busy.set(w, null);
-        w.onMessage((m) => this.#receive(w, m));
+        w.onMessage((m) => {
+          // A worker of a pool already stopped says nothing more that counts.
+          if (this.#busy.has(w)) this.#receive(w, m);
+        });
       }
     }
     return this.#workers[0]!;
@@ -78,6 +111,7 @@ export class PlanRunner {
     if (this.running) this.cancel();
     const lead = this.#lead();
     const id = ++this.#runSeq;
+    const testFault = this.#takeFault();
     this.#run = {
       id,
       project,
@@ -88,6 +122,7 @@ export class PlanRunner {
       cached: 0,
       evaluations: 0,
       startedAt: this.#now(),
+      testFault,
     };
     this.status = 'enumerating';
     this.error = null;
@@ -96,6 +131,7 @@ export class PlanRunner {
     this.cached = 0;
     this.elapsedMs = 0;
     lead.post({ type: 'enumerate', runId: id, project, bands });
+    this.#arm();
   }
 
   /** Stop handing out work; what is in flight finishes into the cache. */
@@ -103,6 +139,8 @@ export class PlanRunner {
     if (!this.running || !this.#run) return;
     this.#run = null;
     this.status = 'cancelled';
+    // Jobs in flight may finish into the cache; the watchdog still waits on them.
+    this.#arm();
   }
 
   /** Feed impedance of a shortlisted candidate across frequencies, from the lead worker's solver. */
@@ -112,14 +150,65 @@ export class PlanRunner {
     return new Promise((resolve, reject) => {
       this.#sweeps.set(reqId, { resolve, reject });
       lead.post({ type: 'sweep', reqId, evaluationKey, trimM, freqsHz });
+      this.#arm();
     });
   }
 
   dispose(): void {
+    this.#stopPool();
+    this.#run = null;
+    if (this.running) this.status = 'cancelled';
+    this.#rejectSweeps('the plan was closed');
+  }
+
+  #stopPool(): void {
     for (const w of this.#workers) w.terminate();
     this.#workers = [];
     this.#busy.clear();
+    this.workerCount = 0;
+    if (this.#watchdog !== null) clearTimeout(this.#watchdog);
+    this.#watchdog = null;
+  }
+
+  #rejectSweeps(message: string): void {
+    const sweeps = [...this.#sweeps.values()];
+    this.#sweeps.clear();
+    for (const s of sweeps) s.reject(new Error(message));
+  }
+
+  /** True while some worker owes an answer: a run, a job of a cancelled run, or a sweep. */
+  #owed(): boolean {
+    if (this.#run || this.#sweeps.size > 0) return true;
+    for (const k of this.#busy.values()) if (k !== null) return true;
+    return false;
+  }
+
+  /** (Re)start the wait for the next answer, or stop waiting when nothing is owed. */
+  #arm(): void {
+    if (this.#watchdog !== null) clearTimeout(this.#watchdog);
+    this.#watchdog = null;
+    if (!this.#owed()) return;
+    const ms = this.#run?.testFault?.stallMs ?? this.#stallMs;
+    this.#watchdog = setTimeout(() => {
+      this.#watchdog = null;
+      this.#fail(`no answer for ${Math.round(ms / 100) / 10} s`);
+    }, ms);
+  }
+
+  /**
+   * A worker failed: stop every worker (what they held is lost; the project is not touched), end
+   * the run with the reason in words, and fail the sweeps waiting on the lead.
+   */
+  #fail(why: string): void {
+    const message = workerFailure(why);
+    const hadRun = this.#run !== null;
+    this.#stopPool();
     this.#run = null;
+    if (hadRun) {
+      this.error = message;
+      this.status = 'error';
+    }
+    this.#rejectSweeps(message);
   }
 
   #dispatch(): void {
@@ -130,7 +219,11 @@ export class PlanRunner {
       const job = run.queue.shift();
       if (!job) return;
       this.#busy.set(w, job.key);
-      w.post({ type: 'evaluate', runId: run.id, job });
+      w.post(
+        run.testFault
+          ? { type: 'evaluate', runId: run.id, job, testFault: run.testFault }
+          : { type: 'evaluate', runId: run.id, job },
+      );
     }
   }
 
@@ -152,6 +245,11 @@ export class PlanRunner {
   }
 
   #receive(w: PlanWorker, m: FromWorker): void {
+    this.#handle(w, m);
+    if (this.#workers.length > 0) this.#arm();
+  }
+
+  #handle(w: PlanWorker, m: FromWorker): void {
     const run = this.#run;
     if (run) this.elapsedMs = this.#now() - run.startedAt;
     switch (m.type) {
@@ -207,6 +305,15 @@ export class PlanRunner {
         this.#run = null;
         return;
       }
+      case 'crashed':
+        return this.#fail(m.message);
+      default:
+        return this.#fail(`it sent a message the window does not know (${describe(m)})`);
     }
   }
+}
+
+function describe(m: unknown): string {
+  const t = typeof m === 'object' && m !== null ? (m as { type?: unknown }).type : undefined;
+  return typeof t === 'string' ? `"${t.slice(0, 40)}"` : typeof m;
 }

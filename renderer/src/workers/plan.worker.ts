@@ -4,12 +4,13 @@
  */
 /// <reference lib="webworker" />
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { createPlanHost } from './planHost.ts';
-import type { ToWorker } from './protocol.ts';
+import { createPlanHost, workerLoop } from './planHost.ts';
+import type { FromWorker, ToWorker } from './protocol.ts';
 
-const host = createPlanHost(solverEvaluator);
 const scope = self as unknown as DedicatedWorkerGlobalScope;
+const loop = workerLoop(createPlanHost(solverEvaluator), {
+  close: () => scope.close(),
+  postMessage: (m: FromWorker) => scope.postMessage(m),
+});
 
-scope.onmessage = (e: MessageEvent<ToWorker>) => {
-  for (const reply of host.handle(e.data)) scope.postMessage(reply);
-};
+scope.onmessage = (e: MessageEvent<ToWorker>) => loop(e.data);

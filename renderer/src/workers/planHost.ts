@@ -12,6 +12,7 @@ import { placeElements } from '../../../core/antennas/common.ts';
 import { enumeratePlan, planFromSetup, type PlanSetup, type Shortlist } from '../../../core/rank/plan.ts';
 import { placeXYZ, type XYZ } from '../../../core/site/geometry.ts';
 import type { CandidateDrawing, FromWorker, ToWorker } from './protocol.ts';
+import { commitFault } from './testFault.ts';
 
 /** What each shortlisted candidate looks like on the lot: its builder's elements, placed, and its feed point. */
 export function drawingsOf(setup: PlanSetup, shortlist: Shortlist): Record<string, CandidateDrawing> {
@@ -135,4 +136,21 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
   }
 
   return { handle, cacheSize: () => cache.size };
+}
+
+/**
+ * A worker's message loop over its host: each message answered in turn, except an evaluation
+ * that carries a test fault (only tests send one), which the worker commits instead once due.
+ */
+export function workerLoop(
+  host: PlanHost,
+  scope: { close(): void; postMessage(msg: FromWorker): void },
+): (msg: ToWorker) => void {
+  let faulted = 0;
+  return (msg) => {
+    if (msg.type === 'evaluate' && msg.testFault) {
+      if (commitFault(msg.testFault, faulted++, scope) === 'silent') return;
+    }
+    for (const reply of host.handle(msg)) scope.postMessage(reply);
+  };
 }

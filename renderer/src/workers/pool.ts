@@ -23,14 +23,20 @@ export function startWorker(): PlanWorker {
   });
   let handler: ((msg: FromWorker) => void) | null = null;
   w.onmessage = (e: MessageEvent<FromWorker>) => handler?.(e.data);
+  // An uncaught error in the worker (or a worker that could not start): the runner ends the run
+  // and stops the pool. Handled here, so the window does not report it a second time.
   w.onerror = (e: ErrorEvent) => {
     e.preventDefault();
-    handler?.({ type: 'error', message: `a planning worker stopped: ${e.message || 'unknown error'}` });
+    handler?.({ type: 'crashed', message: e.message || 'it stopped with an unknown error' });
   };
+  w.onmessageerror = () => handler?.({ type: 'crashed', message: 'one of its messages could not be read' });
   return {
     post: (msg) => w.postMessage(msg),
     onMessage: (h) => (handler = h),
-    terminate: () => w.terminate(),
+    terminate: () => {
+      handler = null;
+      w.terminate();
+    },
   };
 }
 

@@ -21,14 +21,29 @@ export interface CandidateDrawing {
 export type ToWorker =
   /** Lead: build the site and the jobs; answer with the jobs missing from the cache. */
   | { type: 'enumerate'; runId: number; project: Project; bands: Band[] }
-  /** Any worker: trim, sweep and pattern of one design. */
-  | { type: 'evaluate'; runId: number; job: Job }
+  /**
+   * Any worker: trim, sweep and pattern of one design. `testFault` is set only by tests (see
+   * testFault.ts); the worker then fails on purpose instead of answering.
+   */
+  | { type: 'evaluate'; runId: number; job: Job; testFault?: TestFault }
   /** Lead: keep an evaluation made by another worker. */
   | { type: 'store'; key: string; record: EvaluationRecord }
   /** Lead: rank with every job in the cache (planSite evaluates nothing then). */
   | { type: 'rank'; runId: number; project: Project; bands: Band[]; evaluations: number; cacheHits: number }
   /** Lead: feed impedance of a shortlisted design at these frequencies (for the SWR curve). */
   | { type: 'sweep'; reqId: number; evaluationKey: string; trimM: number; freqsHz: number[] };
+
+/**
+ * A fault a test asks a worker to commit on purpose, after it has evaluated `afterEvaluations`
+ * designs of runs that carry the fault: throw out of its message handler (an error event), close
+ * itself (no answer ever comes), or keep quiet while staying alive (no answer ever comes).
+ */
+export interface TestFault {
+  kind: 'throw' | 'close' | 'hang';
+  afterEvaluations: number;
+  /** How long the runner waits on a silent worker in this run, ms (tests shorten it). */
+  stallMs?: number;
+}
 
 export interface SweepPoint {
   freqHz: number;
@@ -48,4 +63,9 @@ export type FromWorker =
       ms: number;
     }
   | { type: 'swept'; reqId: number; points: SweepPoint[] }
-  | { type: 'error'; runId?: number; reqId?: number; key?: string; message: string };
+  | { type: 'error'; runId?: number; reqId?: number; key?: string; message: string }
+  /**
+   * Not sent by a worker: what the pool reports when a worker itself failed (an uncaught error,
+   * a message that could not be read). The runner ends the run and stops the pool.
+   */
+  | { type: 'crashed'; message: string };
