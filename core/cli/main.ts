@@ -6,6 +6,7 @@ import { readFile } from 'node:fs/promises';
 import { runSite } from './site.ts';
 import { runPlan } from './plan.ts';
 import { runEvaluate } from './evaluate.ts';
+import { runReport } from './report.ts';
 
 export interface CliIo {
   stdout: (s: string) => void;
@@ -23,6 +24,10 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   plan: {
     run: runPlan,
     summary: 'plan --demo | plan FILE.json [--json] [--band B] [--top N]   rank antennas for the lot',
+  },
+  report: {
+    run: runReport,
+    summary: 'report --demo | report FILE.json [--candidate ID] --out FILE.html   build sheet',
   },
   site: {
     run: runSite,

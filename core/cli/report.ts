@@ -1,0 +1,174 @@
+/**
+ * `report FILE.json --candidate ID --out report.html | report --demo [--candidate ID] --out FILE`:
+ * the station report (build sheet) of one shortlisted candidate as a standalone printable HTML
+ * file. Options: --power W (PEP, default 100), --mode ssb|cw|ft8 (default ssb), --on-time 0…1
+ * (default 0.5), --coax RG-58|RG-8X|RG-213|"low-loss 10 mm foam" (default RG-213), --workers N.
+ * The plan is computed for the candidate's band (default candidate: the first of the first band).
+ */
+import { writeFile as fsWriteFile } from 'node:fs/promises';
+import { availableParallelism } from 'node:os';
+import { buildDemoProject } from '../../data/demo/demoProject.ts';
+import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
+import { candidateGainAt, enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
+import { solverEvaluator } from '../rank/solver.ts';
+import {
+  COAX_TYPES,
+  DEFAULT_STATION,
+  buildSheet,
+  isCoaxType,
+  measureTuning,
+  resolveProposal,
+  type StationOptions,
+} from '../report/buildSheet.ts';
+import { renderBuildSheetHtml } from '../report/html.ts';
+import type { Mode } from '../report/exposure.ts';
+import { createWorkerPool } from './plan.ts';
+
+export interface ReportIo {
+  stdout: (s: string) => void;
+  stderr: (s: string) => void;
+  readFile: (path: string) => Promise<string>;
+  /** Defaults to node:fs. */
+  writeFile?: (path: string, data: string) => Promise<void>;
+}
+
+const MODES = ['ssb', 'cw', 'ft8'] as const;
+const USAGE = `usage: report (FILE.json | --demo) [--candidate ID] --out FILE.html [--power W] [--mode ${MODES.join('|')}] [--on-time 0..1] [--coax ${COAX_TYPES.join('|')}] [--workers N]\n`;
+
+interface Args {
+  file: string | null;
+  demo: boolean;
+  candidate: string | null;
+  out: string | null;
+  station: StationOptions;
+  workers: number;
+}
+
+function parseArgs(argv: string[]): Args | string {
+  const a: Args = {
+    file: null,
+    demo: false,
+    candidate: null,
+    out: null,
+    station: { ...DEFAULT_STATION },
+    workers: availableParallelism(),
+  };
+  for (let i = 0; i < argv.length; i++) {
+    const v = argv[i];
+    const next = (): string | undefined => argv[++i];
+    if (v === '--demo') a.demo = true;
+    else if (v === '--candidate' || v === '--out') {
+      const s = next();
+      if (!s) return `${v} needs a value`;
+      if (v === '--candidate') a.candidate = s;
+      else a.out = s;
+    } else if (v === '--power') {
+      const n = Number(next());
+      if (!(n > 0 && n <= 100_000)) return '--power needs watts between 0 and 100000';
+      a.station.powerW = n;
+    } else if (v === '--mode') {
+      const m = next();
+      if (!m || !(MODES as readonly string[]).includes(m)) return `--mode needs one of ${MODES.join(', ')}`;
+      a.station.mode = m as Mode;
+    } else if (v === '--on-time') {
+      const n = Number(next());
+      if (!(n >= 0 && n <= 1)) return '--on-time needs a fraction from 0 to 1';
+      a.station.onTimeFraction = n;
+    } else if (v === '--coax') {
+      const c = next();
+      if (!c || !isCoaxType(c)) return `--coax needs one of ${COAX_TYPES.join(', ')}`;
+      a.station.coax = c;
+    } else if (v === '--workers') {
+      const n = Number(next());
+      if (!Number.isInteger(n) || n < 0) return '--workers needs a whole number';
+      a.workers = n;
+    } else if (v.startsWith('--')) return `unknown option ${v}`;
+    else if (a.file === null) a.file = v;
+    else return 'give one project file';
+  }
+  if (a.demo === (a.file !== null)) return 'give a project file or --demo';
+  if (!a.out) return '--out FILE.html is required';
+  return a;
+}
+
+async function loadProject(args: Args, io: ReportIo): Promise<Project | null> {
+  if (args.demo) return buildDemoProject();
+  const file = args.file as string;
+  let doc: unknown;
+  try {
+    doc = JSON.parse(await io.readFile(file));
+  } catch (e) {
+    io.stderr(`${file}: cannot read a JSON project (${e instanceof Error ? e.message : String(e)})\n`);
+    return null;
+  }
+  const parsed = parseProject(doc);
+  if (!parsed.ok) {
+    for (const err of parsed.errors) io.stderr(`${file}: ${err.path}: ${err.message}\n`);
+    return null;
+  }
+  return parsed.value;
+}
+
+export async function runReport(argv: string[], io: ReportIo): Promise<number> {
+  const args = parseArgs(argv);
+  if (typeof args === 'string') {
+    io.stderr(`${args}\n${USAGE}`);
+    return 2;
+  }
+  const project = await loadProject(args, io);
+  if (!project) return 1;
+  const wanted = args.candidate;
+  const bandOf = wanted ? (BANDS as readonly string[]).find((b) => wanted.startsWith(`${b}-`)) : undefined;
+  if (wanted && !bandOf) {
+    io.stderr(`no candidate "${wanted}": ids start with the band (${BANDS.join(', ')})\n`);
+    return 1;
+  }
+  const band = (bandOf ?? project.bands[0]) as Band | undefined;
+  if (!band) {
+    io.stderr('the project has no bands to plan\n');
+    return 1;
+  }
+  const setup = enumeratePlan(project, { bands: [band] });
+  const cache = memoryCache();
+  io.stderr(`report: planning ${band} (${setup.jobs.length} designs)\n`);
+  if (args.workers > 0) {
+    const pool = createWorkerPool(Math.min(args.workers, Math.max(1, setup.jobs.length)));
+    try {
+      await pool.evaluate(setup.jobs, cache);
+    } finally {
+      await pool.close();
+    }
+  }
+  const shortlist = planFromSetup(setup, project, { evaluator: solverEvaluator, cache });
+  const candidate = wanted ? shortlist.candidates.find((c) => c.id === wanted) : shortlist.candidates[0];
+  if (!candidate) {
+    io.stderr(
+      wanted
+        ? `no candidate "${wanted}" in the shortlist; candidates: ${shortlist.candidates.map((c) => c.id).join(', ')}\n`
+        : 'the shortlist is empty: nothing fits the lot\n',
+    );
+    return 1;
+  }
+  const proposal = resolveProposal(project, candidate);
+  let tuning = null;
+  if (proposal) {
+    io.stderr(`report: measuring the tuning rate of ${candidate.id}\n`);
+    tuning = measureTuning(proposal.design, candidate.trim.valueM, project.soil, solverEvaluator);
+  }
+  const sheet = buildSheet({
+    project,
+    shortlist,
+    candidate,
+    station: args.station,
+    proposal,
+    tuning,
+    gainAt: shortlist.patterns[candidate.evaluationKey]
+      ? (az, el) => candidateGainAt(shortlist, candidate.id, az, el)
+      : undefined,
+  });
+  const html = renderBuildSheetHtml(sheet, new Date().toISOString().slice(0, 10));
+  const write = io.writeFile ?? ((p: string, d: string) => fsWriteFile(p, d, 'utf8'));
+  await write(args.out as string, html);
+  io.stdout(`report: ${candidate.id} → ${args.out}\n`);
+  return 0;
+}

@@ -1,0 +1,64 @@
+/**
+ * The station report: the demo build sheet generated through the command (`report --demo`) into
+ * a temporary file, opened in Chromium from file://, offline (every request that is not the
+ * report file itself or a data:/blob: URL is aborted and fails the test), every section heading
+ * on the page, and a screenshot as an artefact.
+ */
+import { test, expect } from '@playwright/test';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { runReport } from '../../core/cli/report.ts';
+import { REPORT_SECTIONS } from '../../core/report/html.ts';
+
+test('the demo build sheet opens standalone with every section', async ({ page, context }) => {
+  test.setTimeout(180_000);
+  const dir = mkdtempSync(join(tmpdir(), 'yardwire-report-'));
+  try {
+    const out = join(dir, 'report.html');
+    const err: string[] = [];
+    const code = await runReport(
+      ['--demo', '--out', out, '--power', '400', '--mode', 'cw', '--workers', '2'],
+      {
+        stdout: () => {},
+        stderr: (s) => err.push(s),
+        readFile: () => Promise.reject(new Error('no files in this test')),
+      },
+    );
+    expect(code, err.join('')).toBe(0);
+
+    const fileUrl = pathToFileURL(out).href;
+    const blocked: string[] = [];
+    await context.route('**/*', (route) => {
+      const url = route.request().url();
+      if (url === fileUrl || url.startsWith('data:') || url.startsWith('blob:')) return route.continue();
+      blocked.push(url);
+      return route.abort('blockedbyclient');
+    });
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(String(e)));
+    page.on('console', (m) => {
+      if (m.type() === 'error') errors.push(m.text());
+    });
+
+    await page.goto(fileUrl);
+    await expect(page.getByRole('heading', { level: 1 })).toContainText('Build sheet');
+    for (const h of REPORT_SECTIONS)
+      await expect(page.getByRole('heading', { level: 2, name: h, exact: true })).toBeVisible();
+    await expect(page.locator('svg.lot')).toBeVisible();
+    await expect(page.locator('svg.lot .wire').first()).toBeVisible();
+    await expect(page.getByText(/fall in the antenna’s near field/)).toBeVisible();
+    await expect(page.getByText(/kHz per cm/)).toBeVisible();
+    await page.setViewportSize({ width: 900, height: 860 });
+    await page.screenshot({ path: join('test-results', 'screenshots', 'report.png'), fullPage: true });
+    // Print layout renders without errors too.
+    await page.emulateMedia({ media: 'print' });
+    await expect(page.getByRole('heading', { level: 2, name: 'Cautions' })).toBeVisible();
+
+    expect(blocked, 'the report must load nothing from elsewhere').toEqual([]);
+    expect(errors, 'no errors in the page').toEqual([]);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+});

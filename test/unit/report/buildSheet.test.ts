@@ -1,0 +1,164 @@
+import { describe, expect, it } from 'vitest';
+import { buildDemoProject } from '../../../data/demo/demoProject.ts';
+import { candidateGainAt, planSite, type Candidate, type Shortlist } from '../../../core/rank/plan.ts';
+import { wavelengthM } from '../../../core/units/index.ts';
+import {
+  COAX_LOSS_DB_PER_100M,
+  COAX_TYPES,
+  awgDiameterMm,
+  buildSheet,
+  coaxLossDbPer100m,
+  measureTuning,
+  nearestAwg,
+  resolveProposal,
+  type BuildSheet,
+} from '../../../core/report/buildSheet.ts';
+import { REPORT_SECTIONS, escapeHtml, renderBuildSheetHtml } from '../../../core/report/html.ts';
+import type { Project } from '../../../core/project/schema.ts';
+import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
+
+// Planning mechanics only: the fake evaluator is not physics (see its header). Verticals resonate
+// near a quarter wave, wire antennas near a half wave.
+const ev = fakeEvaluator({
+  resonantM: (req) => (req.model.radials.length ? 0.24 : 0.47) * wavelengthM(req.frequenciesHz[0]),
+});
+
+const len = (w: Candidate['wires'][number]): number =>
+  Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
+
+function sheetFor(project: Project, s: Shortlist, c: Candidate): BuildSheet {
+  return buildSheet({
+    project,
+    shortlist: s,
+    candidate: c,
+    proposal: resolveProposal(project, c),
+    gainAt: (az, el) => candidateGainAt(s, c.id, az, el),
+  });
+}
+
+describe('build sheet', () => {
+  const project = buildDemoProject();
+  const shortlist = planSite(project, {
+    evaluator: ev,
+    bands: ['80m'],
+    types: ['dipole', 'inverted-v', 'vertical', 'half-square'],
+  });
+  const byType = (t: string): Candidate => {
+    const c = shortlist.candidates.find((x) => x.type === t);
+    if (!c) throw new Error(`no ${t} in the shortlist`);
+    return c;
+  };
+
+  it('bill of materials follows the candidate geometry', () => {
+    for (const t of ['dipole', 'inverted-v', 'vertical', 'half-square']) {
+      const c = byType(t);
+      const s = sheetFor(project, shortlist, c);
+      const wires = c.wires.reduce((a, w) => a + len(w), 0);
+      const allowance = c.cutList
+        .filter((i) => !/rope|radial/i.test(i.label))
+        .reduce((a, i) => a + i.count * (i.cutLengthM - i.lengthM), 0);
+      expect(allowance).toBeGreaterThan(0);
+      expect(s.wire.totalM).toBeCloseTo(wires + allowance, 9);
+      const bomWire = s.bom.find((b) => b.item === 'Antenna wire');
+      expect(bomWire?.quantity).toBeCloseTo(wires + allowance, 9);
+      // Feed line at least the plan distance from the station to the feed point, plus its height.
+      const fl = s.feedLine;
+      const plan = Math.hypot(fl.feedXYZ[0] - fl.stationXY[0], fl.feedXYZ[1] - fl.stationXY[1]);
+      expect(fl.planDistanceM).toBeCloseTo(plan, 9);
+      expect(fl.lengthM).toBeGreaterThanOrEqual(plan + fl.feedXYZ[2]);
+      expect(fl.lengthM).toBeCloseTo((plan + fl.feedXYZ[2]) * 1.1, 9);
+      // One pulley and one halyard of 2 × height + margin per support used.
+      expect(s.ropes.length).toBe(c.supports.length);
+      for (const r of s.ropes) expect(r.lengthM).toBeCloseTo(2 * r.heightM + 5, 9);
+      // Choke balun for centre-fed designs only.
+      expect(s.choke !== null).toBe(t === 'dipole' || t === 'inverted-v');
+    }
+  });
+
+  it('radial total is the sum of the modelled radials and matches the cut list', () => {
+    const c = byType('vertical');
+    const s = sheetFor(project, shortlist, c);
+    expect(s.radials).not.toBeNull();
+    const fromCuts = c.cutList.filter((i) => /radial/i.test(i.label));
+    const count = fromCuts.reduce((a, i) => a + i.count, 0);
+    const total = fromCuts.reduce((a, i) => a + i.count * i.lengthM, 0);
+    expect(s.radials!.count).toBe(count);
+    expect(s.radials!.totalM).toBeCloseTo(total, 1);
+    expect(s.lot.radialLengthsM.length).toBe(count);
+  });
+
+  it('counts insulators at free ends and at supports that hold a joint', () => {
+    // Inverted-V: two leg ends plus the apex at its support. Dipole: its two ends.
+    expect(sheetFor(project, shortlist, byType('inverted-v')).insulators.count).toBe(3);
+    expect(sheetFor(project, shortlist, byType('dipole')).insulators.count).toBe(2);
+    // Half-square: two lower ends plus the two top corners at the supports.
+    expect(sheetFor(project, shortlist, byType('half-square')).insulators.count).toBe(4);
+  });
+
+  it('rebuilds the feed point of a centre-fed dipole at the middle of its wire', () => {
+    const c = byType('dipole');
+    const s = sheetFor(project, shortlist, c);
+    const w = c.wires[0];
+    for (let k = 0; k < 3; k++) expect(s.feedLine.feedXYZ[k]).toBeCloseTo((w.from[k] + w.to[k]) / 2, 6);
+  });
+
+  it('measures a tuning rate through the evaluator', () => {
+    const c = byType('dipole');
+    const p = resolveProposal(project, c)!;
+    const t = measureTuning(p.design, c.trim.valueM, project.soil, ev);
+    // The fake's reactance is linear in length: longer wire, lower resonance, f_res ∝ 1/L.
+    expect(t.kHzPerCm).toBeLessThan(0);
+    expect(t.resonanceMHz.shorter).toBeGreaterThan(t.resonanceMHz.longer);
+    expect(t.cmPer10kHzUp).toBeGreaterThan(0);
+  });
+
+  it('states the wire gauge from the model radius', () => {
+    expect(nearestAwg(2.0)).toBe(12);
+    expect(awgDiameterMm(12)).toBeCloseTo(2.05, 2);
+    expect(nearestAwg(1.6)).toBe(14);
+    const s = sheetFor(project, shortlist, byType('dipole'));
+    expect(s.wire.gauge).toMatch(/2\.0 mm diameter copper \(≈ 12 AWG/);
+  });
+
+  it('renders every section and escapes a hostile project name and support name', () => {
+    const hostile = '<img src=x onerror=alert(1)>&"\'';
+    const p2: Project = {
+      ...project,
+      name: hostile,
+      supports: project.supports.map((s, i) => (i === 0 ? { ...s, name: `<script>x</script>${s.name}` } : s)),
+    };
+    const s2 = planSite(p2, { evaluator: ev, bands: ['80m'], types: ['dipole'] });
+    const c = s2.candidates[0];
+    const html = renderBuildSheetHtml(sheetFor(p2, s2, c));
+    expect(html).not.toContain('<img src=x');
+    expect(html).not.toContain('<script>');
+    expect(html).toContain(escapeHtml(hostile));
+    expect(html).toContain('&lt;script&gt;x&lt;/script&gt;');
+    for (const h of REPORT_SECTIONS) expect(html).toContain(`<h2>${escapeHtml(h)}</h2>`);
+    expect(html).toContain('@media print');
+    expect(html).toMatch(/near field/);
+    // Standalone: no scripts and nothing loaded from elsewhere.
+    expect(html).not.toMatch(/<script|<link|\ssrc="|\shref="/i);
+  });
+});
+
+describe('coax loss', () => {
+  it('is the table value at the tabulated frequencies', () => {
+    for (const t of COAX_TYPES) {
+      expect(coaxLossDbPer100m(t, 1.8)).toBeCloseTo(COAX_LOSS_DB_PER_100M[t][0], 12);
+      expect(coaxLossDbPer100m(t, 7)).toBeCloseTo(COAX_LOSS_DB_PER_100M[t][2], 12);
+    }
+  });
+  it('scales as √f near a tabulated frequency', () => {
+    const a = coaxLossDbPer100m('RG-213', 3.5);
+    const b = coaxLossDbPer100m('RG-213', 3.8);
+    expect(b / a).toBeCloseTo(Math.sqrt(3.8 / 3.5), 12);
+    expect(coaxLossDbPer100m('RG-58', 14) / coaxLossDbPer100m('RG-58', 7)).toBeCloseTo(Math.SQRT2, 12);
+  });
+  it('orders the cables from lossiest to lowest loss at every band', () => {
+    for (const f of [1.83, 3.55, 7.05]) {
+      const l = COAX_TYPES.map((t) => coaxLossDbPer100m(t, f));
+      for (let i = 1; i < l.length; i++) expect(l[i]).toBeLessThan(l[i - 1]);
+    }
+  });
+});
