@@ -28,6 +28,14 @@ export function groundSpec(g: EvalGround): GroundSpec {
   return { kind: 'soil', permittivity: g.permittivity, conductivitySPerM: g.conductivitySPerM };
 }
 
+/**
+ * Ground model of every planning evaluation over soil: the exact half-space, for the trim and
+ * pattern at f0 and for the f0 ± 2 % bandwidth points alike (all designs of a band share these
+ * three frequencies, so each process builds three remainder tables per band and soil and then
+ * reuses them from the module-level cache in core/em/halfspace/table.ts).
+ */
+export const PLAN_GROUND_MODEL = 'exact' as const;
+
 export const solverEvaluator: Evaluator = (req) => {
   const model: AntennaModel = {
     wires: req.model.wires.map((w) => ({
@@ -48,7 +56,7 @@ export const solverEvaluator: Evaluator = (req) => {
   };
   if (req.pattern === null) {
     // Feed only: the solver's sweep meshes once and skips the far field.
-    const sw = sweepImpedance(model, req.frequenciesHz);
+    const sw = sweepImpedance(model, req.frequenciesHz, { groundModel: PLAN_GROUND_MODEL });
     return sw.points.map((p) => ({
       freqHz: p.frequencyHz,
       zOhm: [p.impedanceOhm.re, p.impedanceOhm.im],
@@ -56,7 +64,11 @@ export const solverEvaluator: Evaluator = (req) => {
       diagnostics: [],
     }));
   }
-  const res = evaluateAntenna(model, { frequenciesHz: req.frequenciesHz, pattern: req.pattern });
+  const res = evaluateAntenna(model, {
+    frequenciesHz: req.frequenciesHz,
+    pattern: req.pattern,
+    groundModel: PLAN_GROUND_MODEL,
+  });
   const diagnostics = res.diagnostics.filter((d) => d.level === 'warning').map((d) => d.message);
   return res.frequencies.map((f) => {
     const feed = f.feeds[0];

@@ -182,15 +182,16 @@ function lagrange4(x: number, w: Float64Array): void {
 
 // ---- cache ---------------------------------------------------------------------------------
 
-const CACHE_LIMIT = 24;
+/** A table is a few tens of kB; a 31-point sweep keeps all its frequencies. */
+const CACHE_LIMIT = 64;
 const cache = new Map<string, RemainderTable>();
 
 const keyOf = (hs: HalfSpace): string => `${hs.freqHz}|${hs.permittivity}|${hs.conductivitySPerM}`;
 
 /**
  * A table covering [rMinM, rMaxM] for this half-space: reused from the cache when one covers
- * the range at the same spacing and tolerance, else built (its range rounded outward to powers
- * of 2 so that neighbouring requests share it) and cached (least recently used dropped).
+ * the range at the same spacing and tolerance, else built (its range widened as noted below and
+ * rounded outward to powers of 2) and cached (least recently used dropped).
  */
 export function remainderTable(
   hs: HalfSpace,
@@ -207,8 +208,18 @@ export function remainderTable(
       return t;
     }
   }
-  const lo = 2 ** Math.floor(Math.log2(rMinM));
-  const hi = 2 ** Math.ceil(Math.log2(rMaxM));
+  // One table per (frequency, soil) serves a whole plan: the range is widened to at least
+  // [0.02 λ, 1.5 λ] (a few hundred ms at the default spacing) and to the union with the tables
+  // it replaces, so that candidates of other sizes find it instead of building their own.
+  const lambda = (2 * Math.PI) / hs.k0;
+  let lo = 2 ** Math.floor(Math.log2(Math.min(rMinM, 0.02 * lambda)));
+  let hi = 2 ** Math.ceil(Math.log2(Math.max(rMaxM, 1.5 * lambda)));
+  for (const [k, t] of [...cache]) {
+    if (!k.startsWith(key + '|')) continue;
+    lo = Math.min(lo, t.rMinM);
+    hi = Math.max(hi, t.rMaxM);
+    cache.delete(k);
+  }
   const table = new RemainderTable(hs, { ...o, rMinM: lo, rMaxM: hi });
   cache.set(`${key}|${lo}|${hi}`, table);
   while (cache.size > CACHE_LIMIT) {
