@@ -107,6 +107,35 @@ export interface MeshOptions {
 const sub = (a: Vec3, b: Vec3): [number, number, number] => [a[0] - b[0], a[1] - b[1], a[2] - b[2]];
 const dist = (a: Vec3, b: Vec3): number => Math.hypot(a[0] - b[0], a[1] - b[1], a[2] - b[2]);
 
+/**
+ * Length over which two straight wires lie on top of each other (collinear within `tolM` and with
+ * overlapping extents), or 0. Wires that merely meet end to end overlap by 0.
+ */
+export function collinearOverlapM(a: readonly Vec3[], b: readonly Vec3[], tolM: number): number {
+  if (a.length < 2 || b.length < 2) return 0;
+  const da = sub(a[1], a[0]);
+  const La = Math.hypot(da[0], da[1], da[2]);
+  if (La === 0) return 0;
+  const u: Vec3 = [da[0] / La, da[1] / La, da[2] / La];
+  // Distance of each end of b from the line of a.
+  for (const p of b) {
+    const r = sub(p, a[0]);
+    const t = r[0] * u[0] + r[1] * u[1] + r[2] * u[2];
+    const off = Math.hypot(r[0] - t * u[0], r[1] - t * u[1], r[2] - t * u[2]);
+    if (off > tolM) return 0;
+  }
+  const t0 = dotSub(b[0], a[0], u);
+  const t1 = dotSub(b[1], a[0], u);
+  const lo = Math.max(0, Math.min(t0, t1));
+  const hi = Math.min(La, Math.max(t0, t1));
+  const overlap = hi - lo;
+  return overlap > Math.max(tolM, 1e-6) ? overlap : 0;
+}
+
+function dotSub(p: Vec3, o: Vec3, u: Vec3): number {
+  return (p[0] - o[0]) * u[0] + (p[1] - o[1]) * u[1] + (p[2] - o[2]) * u[2];
+}
+
 /** Closest distance between segments p0–p1 and q0–q1 (Ericson 2005, §5.1.9). */
 export function segmentDistance(p0: Vec3, p1: Vec3, q0: Vec3, q1: Vec3): { d: number; s: number; t: number } {
   const d1 = sub(p1, p0);
@@ -284,6 +313,12 @@ export function buildMesh(model: AntennaModel, opts: MeshOptions): Mesh {
         message: `wire ${i}: segments are ${(dl / lambda).toFixed(3)} λ long (more than ${MAX_SEGMENT_WAVELENGTHS} λ); results are coarse`,
         field: `wires[${i}].segments`,
       });
+    if (dl < model.wires[i].radiusM)
+      throw new ModelError(
+        `wires[${i}].radiusM`,
+        `the radius ${model.wires[i].radiusM} m is larger than the segment length ${dl.toPrecision(3)} m; ` +
+          'use fewer segments or a thinner wire (the thin-wire model needs segments longer than the radius)',
+      );
     if (dl < MIN_SEGMENT_RADII * model.wires[i].radiusM)
       diagnostics.push({
         level: 'warning',
@@ -481,6 +516,12 @@ function geometryDiagnostics(
   // Crossing, touching, overlapping and closely spaced wires.
   for (let i = 0; i < nWires; i++) {
     for (let j = i + 1; j < nWires; j++) {
+      const overlapM = collinearOverlapM(ends[i], ends[j], model.wires[i].radiusM + model.wires[j].radiusM);
+      if (overlapM > 0)
+        throw new ModelError(
+          `wires[${j}]`,
+          `wire ${j} lies along wire ${i} for ${overlapM.toPrecision(3)} m; two conductors cannot occupy the same place (remove one, or join them end to end)`,
+        );
       if (joined(i, j)) continue;
       const sd = segmentDistance(ends[i][0], ends[i][1], ends[j][0], ends[j][1]);
       const r = model.wires[i].radiusM + model.wires[j].radiusM;
