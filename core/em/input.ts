@@ -71,15 +71,20 @@ const radialSchema = z
   })
   .strict();
 
-const groundSchema = z.union([
-  z.enum(['free-space', 'perfect', ...(SOIL_CLASS_IDS as [string, ...string[]])]),
-  z
-    .object({
-      permittivity: finite.refine((v) => v >= 1, 'must be at least 1'),
-      conductivitySPerM: nonNegative,
-    })
-    .strict(),
-]);
+const groundSchema = z.union(
+  [
+    z.enum(['free-space', 'perfect', ...(SOIL_CLASS_IDS as [string, ...string[]])]),
+    z
+      .object({
+        permittivity: finite.refine((v) => v >= 1, 'must be at least 1'),
+        conductivitySPerM: nonNegative,
+      })
+      .strict(),
+  ],
+  {
+    message: `must be "free-space", "perfect", a soil-class id (${SOIL_CLASS_IDS.join(', ')}) or { "permittivity": …, "conductivitySPerM": … }`,
+  },
+);
 
 const angleList = z.array(finite).max(20000);
 

@@ -8,6 +8,21 @@ import { runEvaluate } from '../../../core/cli/evaluate.ts';
 
 const RUNS = Number(process.env.YARDWIRE_PROPERTY_RUNS ?? 300);
 
+/**
+ * No NaN or Infinity outside JSON strings (a key or message may quote the word; a number may not),
+ * and on success every number in the parsed output is finite.
+ */
+function expectNoNonFinite(out: string, code: number): void {
+  expect(out.replace(/"(?:[^"\\]|\\.)*"/g, '""')).not.toMatch(/NaN|Infinity/);
+  if (code !== 0) return;
+  const walk = (v: unknown): void => {
+    if (typeof v === 'number') expect(Number.isFinite(v)).toBe(true);
+    else if (Array.isArray(v)) v.forEach(walk);
+    else if (v && typeof v === 'object') Object.values(v).forEach(walk);
+  };
+  walk(JSON.parse(out));
+}
+
 async function evaluateDoc(doc: unknown): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
@@ -90,7 +105,7 @@ describe('evaluate under random input (property)', () => {
       fc.asyncProperty(fc.json({ maxDepth: 4 }), async (text) => {
         const r = await evaluateDoc(text);
         expect([0, 1]).toContain(r.code);
-        expect(r.out).not.toMatch(/NaN|Infinity/);
+        expectNoNonFinite(r.out, r.code);
       }),
       { seed: 31, numRuns: RUNS },
     );
@@ -122,7 +137,7 @@ describe('evaluate under random input (property)', () => {
       fc.asyncProperty(doc, async (d) => {
         const r = await evaluateDoc(d);
         expect([0, 1]).toContain(r.code);
-        expect(r.out).not.toMatch(/NaN|Infinity/);
+        expectNoNonFinite(r.out, r.code);
         if (r.code === 1) expect(JSON.parse(r.out).error.message.length).toBeGreaterThan(3);
       }),
       { seed: 32, numRuns: Math.max(20, Math.round(RUNS / 5)) },
