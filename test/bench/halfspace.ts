@@ -16,33 +16,8 @@ import { evaluateAntenna } from '../../core/em/evaluate.ts';
 import { halfSpace } from '../../core/em/halfspace/medium.ts';
 import { clearRemainderTables, remainderTable } from '../../core/em/halfspace/table.ts';
 import { sweepImpedance } from '../../core/em/sweep.ts';
-import type { AntennaModel } from '../../core/em/types.ts';
 
-const AVERAGE = { kind: 'soil' as const, permittivity: 13, conductivitySPerM: 0.005 };
-
-const array200: AntennaModel = {
-  wires: [0, 1, 2, 3].map((i) => ({
-    from: [-10.1, 10 * i, 15] as const,
-    to: [10.1, 10 * i, 15] as const,
-    radiusM: 0.001,
-    segments: 51,
-  })),
-  feeds: [0, 1, 2, 3].map((i) => ({
-    wire: i,
-    position: 0.5,
-    voltage: [Math.cos(i * 0.6), Math.sin(i * 0.6)] as const,
-  })),
-  ground: AVERAGE,
-};
-const halfSquare100: AntennaModel = {
-  wires: [
-    { from: [0, 0, 2.5], to: [0, 0, 23], radiusM: 0.001, segments: 25 },
-    { from: [0, 0, 23], to: [41, 0, 23], radiusM: 0.001, segments: 51 },
-    { from: [41, 0, 23], to: [41, 0, 2.5], radiusM: 0.001, segments: 25 },
-  ],
-  feeds: [{ wire: 1, position: 0 }],
-  ground: AVERAGE,
-};
+import { array200, halfSquare100 } from './models.ts';
 
 function timed(fn: () => void): { ms: number; cpuMs: number } {
   const c0 = process.cpuUsage();

@@ -20,9 +20,7 @@ import { loadavg } from 'node:os';
 import { evaluateAntenna } from '../../core/em/evaluate.ts';
 import { sweepImpedance } from '../../core/em/sweep.ts';
 import { luFactor } from '../../core/numeric/lu.ts';
-import type { AntennaModel } from '../../core/em/types.ts';
-
-const AVERAGE = { kind: 'soil' as const, permittivity: 13, conductivitySPerM: 0.005 };
+import { array200, halfSquare100 } from './models.ts';
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -43,33 +41,6 @@ function time(fn: () => void, warm: number, runs: number, cpu: number[] = []): n
   }
   return out;
 }
-
-/** Four 40 m dipoles, 10 m apart, 15 m up, fed in phase: 4 × 50 = 200 unknowns. */
-const array200: AntennaModel = {
-  wires: [0, 1, 2, 3].map((i) => ({
-    from: [-10.1, 10 * i, 15] as const,
-    to: [10.1, 10 * i, 15] as const,
-    radiusM: 0.001,
-    segments: 51,
-  })),
-  feeds: [0, 1, 2, 3].map((i) => ({
-    wire: i,
-    position: 0.5,
-    voltage: [Math.cos(i * 0.6), Math.sin(i * 0.6)] as const,
-  })),
-  ground: AVERAGE,
-};
-
-/** 80 m half-square, 25 + 51 + 25 segments: 100 unknowns. */
-const halfSquare100: AntennaModel = {
-  wires: [
-    { from: [0, 0, 2.5], to: [0, 0, 23], radiusM: 0.001, segments: 25 },
-    { from: [0, 0, 23], to: [41, 0, 23], radiusM: 0.001, segments: 51 },
-    { from: [41, 0, 23], to: [41, 0, 2.5], radiusM: 0.001, segments: 25 },
-  ],
-  feeds: [{ wire: 1, position: 0 }],
-  ground: AVERAGE,
-};
 
 const lines: string[] = [];
 const minOf = (xs: number[]): number => Math.min(...xs);
