@@ -30,7 +30,16 @@ const impureModules = {
 };
 
 export default tseslint.config(
-  { ignores: ['node_modules/**', 'dist/**', 'test-results/**', 'playwright-report/**', '.svelte-kit/**'] },
+  {
+    ignores: [
+      'node_modules/**',
+      'dist/**',
+      '.cache/**',
+      'test-results/**',
+      'playwright-report/**',
+      '.svelte-kit/**',
+    ],
+  },
   ...tseslint.configs.recommended,
   ...svelte.configs['flat/recommended'],
   {
