@@ -4,10 +4,12 @@
  * window) that unit tests call with `electron` mocked.
  */
 import { app, BrowserWindow, ipcMain, Menu, session, shell, dialog } from 'electron';
+import { writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { createHandlers } from './api/handlers.ts';
 import { setupIpc } from './ipc.ts';
+import { setupPdfIpc } from './pdf.ts';
 import { buildMenuTemplate } from './menu.ts';
 import { createMainWindow, setupContentSecurityPolicy } from './window.ts';
 import { openStoreWithRecovery, type ProjectStore, StoreError } from '../data/store.ts';
@@ -62,12 +64,18 @@ async function start(): Promise<void> {
   }
   const indexHtml = join(__dirname, '..', 'renderer', 'index.html');
   setupContentSecurityPolicy(session.defaultSession);
-  setupIpc(
-    ipcMain,
-    createHandlers(store, { shell: 'electron', version: app.getVersion() }),
-    () => mainWindow?.webContents ?? null,
-    pathToFileURL(indexHtml).href,
-  );
+  const trusted = () => mainWindow?.webContents ?? null;
+  const appUrl = pathToFileURL(indexHtml).href;
+  setupIpc(ipcMain, createHandlers(store, { shell: 'electron', version: app.getVersion() }), trusted, appUrl);
+  setupPdfIpc(ipcMain, {
+    dialog,
+    trusted,
+    window: () => mainWindow,
+    appUrlPrefix: appUrl,
+    documentsDir: () => app.getPath('documents'),
+    countryCode: () => app.getLocaleCountryCode(),
+    writeFile: (path, data) => writeFile(path, data),
+  });
   Menu.setApplicationMenu(Menu.buildFromTemplate(buildMenuTemplate(process.platform)));
   mainWindow = createMainWindow({ BrowserWindow, shell }, join(__dirname, 'preload.cjs'), indexHtml);
   app.on('web-contents-created', (_e, contents) => {
