@@ -11,7 +11,7 @@
 import { z } from 'zod';
 import { SOIL_CLASS_IDS } from '../em/soils.ts';
 
-export const PROJECT_SCHEMA_VERSION = 1;
+export const PROJECT_SCHEMA_VERSION = 2;
 
 /** Plain-words messages for the commonest problems, in place of the validator's defaults. */
 function plainMessage(issue: { code: string; input?: unknown; expected?: unknown }): string | undefined {
@@ -91,7 +91,12 @@ export const SupportSchema = z.object({
 });
 export type Support = z.infer<typeof SupportSchema>;
 
-export const KEEP_OUT_KINDS = ['building', 'power-line', 'other'] as const;
+/**
+ * Keep-out kinds. A `path` is a walkway, drive or play area where people walk and linger: wires
+ * may pass over it (the end-height rule still holds), and the RF-exposure zones are checked
+ * against it.
+ */
+export const KEEP_OUT_KINDS = ['building', 'power-line', 'path', 'other'] as const;
 export type KeepOutKind = (typeof KEEP_OUT_KINDS)[number];
 
 export const KeepOutSchema = z
@@ -150,6 +155,22 @@ export const TargetSchema = z.union([
 ]);
 export type Target = z.infer<typeof TargetSchema>;
 
+/** Emission modes for the exposure estimate (duty factors in core/report/exposure.ts). */
+export const STATION_MODES = ['ssb', 'cw', 'ft8'] as const;
+/** Coaxial cable types of the feed-line loss table (core/report/buildSheet.ts). */
+export const COAX_TYPES = ['RG-58', 'RG-8X', 'RG-213', 'low-loss 10 mm foam'] as const;
+
+/** The station's transmitter and feed line, for the build sheet and the RF-exposure estimate. */
+export const StationSettingsSchema = z.object({
+  /** Peak envelope power at the transmitter, watts. */
+  powerW: finite.refine((v) => v > 0 && v <= 100_000, 'must be between 0 and 100000 W').default(100),
+  mode: z.enum(STATION_MODES, { message: `must be one of ${STATION_MODES.join(', ')}` }).default('ssb'),
+  /** Fraction of the averaging time spent transmitting, 0…1. */
+  onTimeFraction: finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1').default(0.5),
+  coax: z.enum(COAX_TYPES, { message: `must be one of ${COAX_TYPES.join(', ')}` }).default('RG-213'),
+});
+export type StationSettings = z.infer<typeof StationSettingsSchema>;
+
 export const SettingsSchema = z.object({
   units: z.enum(['metric', 'imperial']).default('metric'),
   /** Setback kept from the lot boundary, metres. */
@@ -172,6 +193,7 @@ export const SettingsSchema = z.object({
     .refine((s) => s === '' || /^https?:\/\/[^\s"'<>]+$/.test(s), 'must be an http(s) URL template or empty')
     .default(''),
   tileAttribution: z.string().max(300).default(''),
+  station: StationSettingsSchema.default(StationSettingsSchema.parse({})),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 
@@ -193,6 +215,14 @@ export const ProjectSchema = z.object({
     .max(3, 'at most 3 bands')
     .default(['80m']),
   settings: SettingsSchema.default(SettingsSchema.parse({})),
+  /**
+   * The user's feed-line routes: by shortlisted candidate id, the bend points [lon, lat] between
+   * the station point and the candidate's feed point (none: a straight run).
+   */
+  feedRoutes: z
+    .record(idSchema, z.array(LonLatSchema).max(100, 'a route may have at most 100 bend points'))
+    .refine((r) => Object.keys(r).length <= 500, 'at most 500 routes')
+    .default({}),
 });
 export type Project = z.infer<typeof ProjectSchema>;
 export type ProjectInput = z.input<typeof ProjectSchema>;
@@ -214,12 +244,18 @@ export function formatPath(path: readonly PropertyKey[]): string {
 
 export type ParseResult<T> = { ok: true; value: T } | { ok: false; errors: FieldError[] };
 
-/** Brings older documents forward. Version 1 is the first; later versions add steps here. */
+/**
+ * Brings older documents forward, one step per version:
+ * - none → 1: the version field was added;
+ * - 1 → 2: station settings (power, mode, on-time, coax), feed-line routes and the `path`
+ *   keep-out kind were added; all have defaults, so the step only sets the version.
+ */
 export function migrateProjectDocument(doc: unknown): unknown {
   if (doc === null || typeof doc !== 'object' || Array.isArray(doc)) return doc;
-  const version = (doc as { schemaVersion?: unknown }).schemaVersion;
-  if (version === undefined) return { ...(doc as object), schemaVersion: PROJECT_SCHEMA_VERSION };
-  return doc;
+  let d = doc as Record<string, unknown>;
+  if (d.schemaVersion === undefined) d = { ...d, schemaVersion: 1 };
+  if (d.schemaVersion === 1) d = { ...d, schemaVersion: 2 };
+  return d;
 }
 
 /** Validate an unknown document (after migration) as a project, collecting every error. */

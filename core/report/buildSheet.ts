@@ -11,7 +11,7 @@
 import { builderFor } from '../antennas/registry.ts';
 import { CUT_ALLOWANCE_PER_END_M, RADIAL_RADIUS_M, WIRE_RADIUS_M } from '../antennas/common.ts';
 import type { Design, Proposal, WireModel } from '../antennas/types.ts';
-import type { Project } from '../project/schema.ts';
+import { COAX_TYPES, type Project } from '../project/schema.ts';
 import { designKey, enumeratePlan, type Candidate, type Shortlist } from '../rank/plan.ts';
 import type { EvalGround, Evaluator } from '../rank/evaluator.ts';
 import { placeXYZ, type XYZ } from '../site/geometry.ts';
@@ -24,7 +24,7 @@ import { cautionsFor, type Caution } from './cautions.ts';
  * Coaxial cable loss
  * -------------------------------------------------------------------------------------------- */
 
-export const COAX_TYPES = ['RG-58', 'RG-8X', 'RG-213', 'low-loss 10 mm foam'] as const;
+export { COAX_TYPES };
 export type CoaxType = (typeof COAX_TYPES)[number];
 
 /** Frequencies of the loss table, MHz. */

@@ -91,7 +91,9 @@ export function keepOutDistance(ps: PreparedSite, index: number, p: XY): number 
 /** Horizontal distance a point at height z must keep from a keep-out, or 0 if it may pass (high over a building). */
 export function requiredClearance(k: SiteKeepOut, zM: number): number {
   if (k.kind === 'power-line') return Math.max(k.clearanceM, zM + POWER_LINE_MARGIN_M);
-  const top = k.heightM ?? Infinity;
+  // A path is walked on, not built up: wires may pass over it; its clearance keeps anchors and
+  // low parts off it. Other zones of unknown height reach up without limit.
+  const top = k.heightM ?? (k.kind === 'path' ? 0 : Infinity);
   return zM < top + k.clearanceM ? k.clearanceM : 0;
 }
 

@@ -30,6 +30,7 @@ export const COLOURS = {
   boundarySelected: '#0f4c55',
   building: '#7b5e4b',
   powerLine: '#c2410c',
+  path: '#8a6d1f',
   band: '#e07b39',
 } as const;
 
@@ -214,7 +215,8 @@ export function declutterLabels(container: HTMLElement): void {
 
 function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.LayerGroup): Shape {
   const power = k.kind === 'power-line';
-  const colour = power ? COLOURS.powerLine : COLOURS.building;
+  const walk = k.kind === 'path';
+  const colour = power ? COLOURS.powerLine : walk ? COLOURS.path : COLOURS.building;
   const band = clearanceBand(k);
   if (band) {
     L.geoJSON(band, {
@@ -232,7 +234,8 @@ function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.L
   }
   const style: L.PolylineOptions = {
     color: colour,
-    weight: selected ? 5 : power ? 3 : 2,
+    weight: selected ? 5 : power || walk ? 3 : 2,
+    ...(walk ? { dashArray: '2 6', lineCap: 'round' as const } : {}),
     interactive: o.interactive,
     className: `yw-keepout yw-keepout-${k.kind}`,
   };
@@ -240,7 +243,7 @@ function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.L
   if (k.geometry.type === 'LineString') layer = L.polyline(k.geometry.coordinates.map(toLatLng), style);
   else {
     const corners = (k.geometry.coordinates[0] ?? []).slice(0, -1).map(toLatLng);
-    layer = L.polygon(corners, { ...style, fillColor: colour, fillOpacity: 0.35 });
+    layer = L.polygon(corners, { ...style, fillColor: colour, fillOpacity: walk ? 0.15 : 0.35 });
   }
   layer.addTo(group);
   const clear = k.clearanceM > 0 ? ` · keep ${formatLength(k.clearanceM, o.units)} clear` : '';

@@ -68,6 +68,7 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
         doc.addKeepOut('building', { type: 'Polygon', coordinates: [[...corners, corners[0]!]] });
       else if (tool === 'power-line')
         doc.addKeepOut('power-line', { type: 'LineString', coordinates: corners });
+      else if (tool === 'path') doc.addKeepOut('path', { type: 'LineString', coordinates: corners });
       ui.setTool('select');
     });
 
@@ -133,6 +134,7 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       if (tool === 'boundary' || tool === 'building') map.pm.enableDraw('Polygon', opts);
       else if (tool === 'power-line')
         map.pm.enableDraw('Line', { ...opts, pathOptions: { color: COLOURS.powerLine } });
+      else if (tool === 'path') map.pm.enableDraw('Line', { ...opts, pathOptions: { color: COLOURS.path } });
     });
 
     // Fit the project into view when one is opened (or asked to).

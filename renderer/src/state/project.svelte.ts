@@ -106,7 +106,14 @@ export class ProjectState extends ProjectHistory {
     const p = this.project;
     if (!p) return null;
     const id = newId('keepout', [...p.supports.map((s) => s.id), ...p.keepOuts.map((k) => k.id)]);
-    const base = kind === 'power-line' ? 'Power line' : kind === 'building' ? 'Building' : 'Keep-out';
+    const base =
+      kind === 'power-line'
+        ? 'Power line'
+        : kind === 'building'
+          ? 'Building'
+          : kind === 'path'
+            ? 'Path'
+            : 'Keep-out';
     const k: KeepOut = {
       id,
       kind,

@@ -29,6 +29,7 @@ const TOOL_KEYS: Record<string, ToolId> = {
   b: 'boundary',
   k: 'building',
   p: 'power-line',
+  w: 'path',
   t: 'station',
 };
 
@@ -38,6 +39,7 @@ export const SHORTCUTS: readonly { keys: string; does: string }[] = [
   { keys: 'B', does: 'Draw the lot boundary' },
   { keys: 'K', does: 'Draw a building keep-out' },
   { keys: 'P', does: 'Draw a power line' },
+  { keys: 'W', does: 'Draw a path or play area (walkway)' },
   { keys: 'T', does: 'Place the station' },
   { keys: 'Enter', does: 'Finish the shape being drawn' },
   { keys: 'Esc', does: 'Cancel the tool or drawing' },

@@ -4,7 +4,7 @@
  */
 import type { LonLat } from '../../../core/project/schema.ts';
 
-export type ToolId = 'select' | 'support' | 'boundary' | 'building' | 'power-line' | 'station';
+export type ToolId = 'select' | 'support' | 'boundary' | 'building' | 'power-line' | 'path' | 'station';
 export type TabId = 'lot' | 'project' | 'settings' | 'aerial' | 'help';
 
 export interface ToolInfo {
@@ -45,6 +45,12 @@ export const TOOLS: readonly ToolInfo[] = [
     label: 'Draw power line',
     key: 'P',
     hint: 'Click along the line pole to pole; click the last point again (or Enter) to finish.',
+  },
+  {
+    id: 'path',
+    label: 'Draw path or play area',
+    key: 'W',
+    hint: 'Click along a walkway, drive or play area where people walk; click the last point again (or Enter) to finish.',
   },
   {
     id: 'station',
