@@ -8,7 +8,8 @@
  * handed out for `stallMs`) ends the run with an error in words, and every worker of the pool is
  * stopped; the next run starts a fresh pool. The project is never touched by a run.
  */
-import type { Job, Shortlist } from '../../../core/rank/plan.ts';
+import type { Candidate, Job, Shortlist } from '../../../core/rank/plan.ts';
+import type { TuningMeasurement } from '../../../core/report/buildSheet.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
 import type { CandidateDrawing, FromWorker, SweepPoint, TestFault } from '../workers/protocol.ts';
 import type { PlanWorker } from '../workers/pool.ts';
@@ -27,6 +28,17 @@ export interface RunnerOptions {
 /** The words of a worker failure, as shown in the run bar. */
 export const workerFailure = (why: string): string =>
   `a planning worker failed: ${why}; the project is unchanged; run again`;
+
+/** The tuning rate of one shortlisted candidate, as far as it is known. */
+export type TuningState =
+  | { status: 'measuring' }
+  | { status: 'ok'; measurement: TuningMeasurement }
+  | { status: 'error'; message: string };
+
+/** A request to the lead worker awaiting its answer. */
+type Pending =
+  | { kind: 'sweep'; resolve: (p: SweepPoint[]) => void; reject: (e: Error) => void }
+  | { kind: 'tune'; resolve: (t: TuningMeasurement) => void; reject: (e: Error) => void };
 
 export type RunStatus = 'idle' | 'enumerating' | 'evaluating' | 'ranking' | 'done' | 'cancelled' | 'error';
 
@@ -57,6 +69,11 @@ export class PlanRunner {
   error = $state<string | null>(null);
   elapsedMs = $state(0);
   workerCount = $state(0);
+  /**
+   * Tuning rates of the shown shortlist's candidates, by candidate id (requestTuning); emptied
+   * when a new plan replaces the shortlist.
+   */
+  tunings = $state.raw<Record<string, TuningState>>({});
 
   running = $derived(
     this.status === 'enumerating' || this.status === 'evaluating' || this.status === 'ranking',
@@ -72,9 +89,13 @@ export class PlanRunner {
   #busy = new Map<PlanWorker, string | null>();
   #run: Run | null = null;
   #runSeq = 0;
-  #sweepSeq = 0;
+  #reqSeq = 0;
   // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
-  #sweeps = new Map<number, { resolve: (p: SweepPoint[]) => void; reject: (e: Error) => void }>();
+  #requests = new Map<number, Pending>();
+  /** The tuning promises behind `tunings`, by candidate id; and which shortlist they belong to. */
+  // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
+  #tuneWaits = new Map<string, Promise<TuningMeasurement>>();
+  #shortlistSeq = 0;
 
   #stallMs: number;
   #takeFault: () => TestFault | null;
@@ -146,19 +167,72 @@ export class PlanRunner {
   /** Feed impedance of a shortlisted candidate across frequencies, from the lead worker's solver. */
   sweep(evaluationKey: string, trimM: number, freqsHz: number[]): Promise<SweepPoint[]> {
     const lead = this.#lead();
-    const reqId = ++this.#sweepSeq;
+    const reqId = ++this.#reqSeq;
     return new Promise((resolve, reject) => {
-      this.#sweeps.set(reqId, { resolve, reject });
+      this.#requests.set(reqId, { kind: 'sweep', resolve, reject });
       lead.post({ type: 'sweep', reqId, evaluationKey, trimM, freqsHz });
       this.#arm();
     });
+  }
+
+  /**
+   * The tuning rate of a shortlisted candidate, measured by the lead worker's field solver over
+   * the ground its plan used (about a second with the exact ground). `project` defaults to the
+   * project the shown shortlist was made for. Rejects with the reason in words.
+   */
+  tune(
+    candidate: Candidate,
+    project: Project | null = this.madeFor?.project ?? null,
+  ): Promise<TuningMeasurement> {
+    if (!project) return Promise.reject(new Error('there is no plan to measure: run the plan first'));
+    const lead = this.#lead();
+    const reqId = ++this.#reqSeq;
+    return new Promise((resolve, reject) => {
+      this.#requests.set(reqId, { kind: 'tune', resolve, reject });
+      lead.post({ type: 'tune', reqId, project, candidate: $state.snapshot(candidate) as Candidate });
+      this.#arm();
+    });
+  }
+
+  /**
+   * Measure a shown candidate's tuning rate once and keep it in `tunings` (a failed one is tried
+   * again). Resolves with the measurement; what comes back after a new plan replaced the
+   * shortlist is not kept.
+   */
+  requestTuning(candidate: Candidate): Promise<TuningMeasurement> {
+    const id = candidate.id;
+    const have = this.#tuneWaits.get(id);
+    if (have && this.tunings[id]?.status !== 'error') return have;
+    const seq = this.#shortlistSeq;
+    const set = (t: TuningState): void => {
+      if (seq === this.#shortlistSeq) this.tunings = { ...this.tunings, [id]: t };
+    };
+    const p = this.tune(candidate);
+    this.#tuneWaits.set(id, p);
+    set({ status: 'measuring' });
+    p.then(
+      (measurement) => set({ status: 'ok', measurement }),
+      (e: Error) => set({ status: 'error', message: e.message }),
+    );
+    return p;
+  }
+
+  /** What is known of a candidate's tuning rate, by candidate id. */
+  tuningOf(id: string): TuningState | null {
+    return this.tunings[id] ?? null;
+  }
+
+  /** The measured tuning rate of a candidate, by id, for the build sheet; null until measured. */
+  measuredTuning(id: string): TuningMeasurement | null {
+    const t = this.tunings[id];
+    return t?.status === 'ok' ? t.measurement : null;
   }
 
   dispose(): void {
     this.#stopPool();
     this.#run = null;
     if (this.running) this.status = 'cancelled';
-    this.#rejectSweeps('the plan was closed');
+    this.#rejectRequests('the plan was closed');
   }
 
   #stopPool(): void {
@@ -170,15 +244,22 @@ export class PlanRunner {
     this.#watchdog = null;
   }
 
-  #rejectSweeps(message: string): void {
-    const sweeps = [...this.#sweeps.values()];
-    this.#sweeps.clear();
-    for (const s of sweeps) s.reject(new Error(message));
+  #rejectRequests(message: string): void {
+    const pending = [...this.#requests.values()];
+    this.#requests.clear();
+    for (const r of pending) r.reject(new Error(message));
   }
 
-  /** True while some worker owes an answer: a run, a job of a cancelled run, or a sweep. */
+  /** The request waiting on this answer, taken off the list. */
+  #take(reqId: number): Pending | undefined {
+    const r = this.#requests.get(reqId);
+    this.#requests.delete(reqId);
+    return r;
+  }
+
+  /** True while some worker owes an answer: a run, a job of a cancelled run, a sweep or a tuning. */
   #owed(): boolean {
-    if (this.#run || this.#sweeps.size > 0) return true;
+    if (this.#run || this.#requests.size > 0) return true;
     for (const k of this.#busy.values()) if (k !== null) return true;
     return false;
   }
@@ -197,7 +278,7 @@ export class PlanRunner {
 
   /**
    * A worker failed: stop every worker (what they held is lost; the project is not touched), end
-   * the run with the reason in words, and fail the sweeps waiting on the lead.
+   * the run with the reason in words, and fail the sweeps and tunings waiting on the lead.
    */
   #fail(why: string): void {
     const message = workerFailure(why);
@@ -208,7 +289,7 @@ export class PlanRunner {
       this.error = message;
       this.status = 'error';
     }
-    this.#rejectSweeps(message);
+    this.#rejectRequests(message);
   }
 
   #dispatch(): void {
@@ -280,22 +361,29 @@ export class PlanRunner {
         if (!run || m.runId !== run.id) return;
         this.shortlist = m.shortlist;
         this.drawings = m.drawings;
+        this.#shortlistSeq++;
+        this.#tuneWaits.clear();
+        this.tunings = {};
         this.madeFor = { project: run.project, bands: run.bands };
         this.status = 'done';
         this.#run = null;
         return;
       }
       case 'swept': {
-        const s = this.#sweeps.get(m.reqId);
-        this.#sweeps.delete(m.reqId);
-        s?.resolve(m.points);
+        const r = this.#take(m.reqId);
+        if (r?.kind === 'sweep') r.resolve(m.points);
+        else r?.reject(new Error('the lead worker answered a tuning request with a sweep'));
+        return;
+      }
+      case 'tuned': {
+        const r = this.#take(m.reqId);
+        if (r?.kind === 'tune') r.resolve(m.tuning);
+        else r?.reject(new Error('the lead worker answered a sweep request with a tuning rate'));
         return;
       }
       case 'error': {
         if (m.reqId !== undefined) {
-          const s = this.#sweeps.get(m.reqId);
-          this.#sweeps.delete(m.reqId);
-          s?.reject(new Error(m.message));
+          this.#take(m.reqId)?.reject(new Error(m.message));
           return;
         }
         if (m.key !== undefined) this.#busy.set(w, null);

@@ -269,6 +269,37 @@ describe('PlanRunner with a failing worker', () => {
     await rerunEndsDone(runner);
   });
 
+  it('a crash fails the waiting tuning in words; asked again, a fresh pool measures it', async () => {
+    const { runner, p } = runnerWith(2);
+    await rerunEndsDone(runner);
+    const c = runner.shortlist!.candidates[0]!;
+    const tuning = runner.requestTuning(c);
+    expect(runner.tuningOf(c.id)).toEqual({ status: 'measuring' });
+    p.all[0]!.send({ type: 'crashed', message: 'out of memory' });
+    await expect(tuning).rejects.toThrow(/a planning worker failed: out of memory/);
+    expect(runner.tuningOf(c.id)).toEqual({ status: 'error', message: expect.stringMatching(FAILED) });
+    expect(runner.measuredTuning(c.id)).toBeNull();
+    expect(runner.status).toBe('done');
+    expect(runner.shortlist).not.toBeNull();
+    expect(p.all.every((w) => w.terminated)).toBe(true);
+    await sleep(20); // the stopped lead's late answer (if any) changes nothing
+    expect(runner.tuningOf(c.id)?.status).toBe('error');
+    // The new lead has never enumerated: it finds the design from the plan's project.
+    const m = await runner.requestTuning(c);
+    expect(p.starts).toBe(2);
+    expect(m.kHzPerCm).toBeLessThan(0);
+    expect(runner.measuredTuning(c.id)).toEqual(m);
+  });
+
+  it('a lead that keeps quiet fails the waiting tuning after the stall time', async () => {
+    const { runner, p } = runnerWith(1, null, 60);
+    await rerunEndsDone(runner);
+    const c = runner.shortlist!.candidates[0]!;
+    p.all[0]!.terminated = true; // stand-in for a lead that stopped answering
+    await expect(runner.tune(c)).rejects.toThrow(/no answer for 0\.1 s/);
+    expect(runner.tuningOf(c.id)).toBeNull();
+  });
+
   it('a solver error on one design ends the run in words and keeps the pool', async () => {
     const { runner, p } = runnerWith(2);
     runner.run(project, ['80m']);

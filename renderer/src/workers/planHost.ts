@@ -11,6 +11,8 @@ import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import { placeElements } from '../../../core/antennas/common.ts';
 import { enumeratePlan, planFromSetup, type PlanSetup, type Shortlist } from '../../../core/rank/plan.ts';
 import { placeXYZ, type XYZ } from '../../../core/site/geometry.ts';
+import { measureTuning } from '../../../core/report/buildSheet.ts';
+import { tuningProblem } from '../../../core/report/tuning.ts';
 import type { CandidateDrawing, FromWorker, ToWorker } from './protocol.ts';
 import { commitFault } from './testFault.ts';
 
@@ -130,6 +132,34 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
           return [{ type: 'swept', reqId: msg.reqId, points }];
         } catch (e) {
           return [{ type: 'error', reqId: msg.reqId, message: message(e) }];
+        }
+      }
+      case 'tune': {
+        const c = msg.candidate;
+        const fail = (why: string): FromWorker[] => [
+          {
+            type: 'error',
+            reqId: msg.reqId,
+            message: `the tuning rate of #${c.rank} could not be measured: ${why}`,
+          },
+        ];
+        try {
+          let d = designs.get(c.evaluationKey);
+          if (!d) {
+            // Not enumerated by this worker (a fresh pool): the candidate's band and type again,
+            // matched by its evaluation key (design and ground), with no solver work.
+            const setup = enumeratePlan(msg.project, { bands: [c.band], types: [c.type] });
+            const job = setup.jobs.find((j) => j.key === c.evaluationKey);
+            if (!job) return fail('the lot no longer yields this design: run the plan again');
+            d = { design: job.design, ground: job.ground };
+            designs.set(job.key, d);
+          }
+          const tuning = measureTuning(d.design, c.trim.valueM, d.ground, evaluator);
+          const problem = tuningProblem(tuning, d.design.designFreqHz);
+          if (problem) return fail(problem);
+          return [{ type: 'tuned', reqId: msg.reqId, tuning }];
+        } catch (e) {
+          return fail(`the solver failed (${message(e)})`);
         }
       }
     }

@@ -5,7 +5,8 @@
  * every core the machine offers and the window never waits on the solver.
  */
 import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
-import type { Job, Shortlist } from '../../../core/rank/plan.ts';
+import type { Candidate, Job, Shortlist } from '../../../core/rank/plan.ts';
+import type { TuningMeasurement } from '../../../core/report/buildSheet.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
 import type { Element } from '../../../core/site/feasibility.ts';
 import type { XYZ } from '../../../core/site/geometry.ts';
@@ -31,7 +32,13 @@ export type ToWorker =
   /** Lead: rank with every job in the cache (planSite evaluates nothing then). */
   | { type: 'rank'; runId: number; project: Project; bands: Band[]; evaluations: number; cacheHits: number }
   /** Lead: feed impedance of a shortlisted design at these frequencies (for the SWR curve). */
-  | { type: 'sweep'; reqId: number; evaluationKey: string; trimM: number; freqsHz: number[] };
+  | { type: 'sweep'; reqId: number; evaluationKey: string; trimM: number; freqsHz: number[] }
+  /**
+   * Lead: the tuning rate of a shortlisted candidate (measureTuning at its trimmed length, over
+   * the ground its plan used). `project` is the one the shortlist was made for: with it the lead
+   * finds the design again when it has not enumerated it itself (a fresh pool after a failure).
+   */
+  | { type: 'tune'; reqId: number; project: Project; candidate: Candidate };
 
 /**
  * A fault a test asks a worker to commit on purpose, after it has evaluated `afterEvaluations`
@@ -63,6 +70,7 @@ export type FromWorker =
       ms: number;
     }
   | { type: 'swept'; reqId: number; points: SweepPoint[] }
+  | { type: 'tuned'; reqId: number; tuning: TuningMeasurement }
   | { type: 'error'; runId?: number; reqId?: number; key?: string; message: string }
   /**
    * Not sent by a worker: what the pool reports when a worker itself failed (an uncaught error,

@@ -1,0 +1,73 @@
+/**
+ * How to tune a built antenna, in words and in the user's units: which wire to change and at
+ * which end(s), and the tuning rate that measureTuning (./buildSheet.ts) takes from the field
+ * solver, as kHz per centimetre (or per inch) and centimetres (or inches) per 10 kHz. Pure: the
+ * renderer and the build sheet can both use it.
+ *
+ * The trim texts say the same as the build sheet's; they are common practice, no source.
+ */
+import type { AntennaTypeId } from '../antennas/types.ts';
+import { feetToM, type UnitSystem } from '../units/index.ts';
+import type { TuningMeasurement } from './buildSheet.ts';
+
+/** Where to cut or add wire for each antenna type (common practice, no source). */
+export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {
+  dipole: 'Take equal amounts off both ends (half of the change at each end).',
+  'inverted-v': 'Take equal amounts off both leg ends (half of the change at each end).',
+  'half-square': 'Change both drops by the same amount (at their lower ends).',
+  vertical: 'Change the length of the vertical wire at its top end.',
+  'inverted-l': 'Change the wire at its far (top) end.',
+};
+
+/** The trim text of a type; a general one for a type the table does not know. */
+export function trimHow(type: string): string {
+  return (TRIM_HOW as Readonly<Record<string, string>>)[type] ?? 'Change the trim dimension as described.';
+}
+
+/** Centimetres in an inch: 2.54, from the international foot (0.3048 m, exact) over 12. */
+export const CM_PER_INCH = feetToM(1 / 12) * 100;
+
+/**
+ * How far the resonances at the two trial lengths may lie from the design frequency before the
+ * rate counts as an extrapolation: three times the ±1 % span the reactance is fitted over.
+ */
+export const TUNING_FIT_LIMIT = 0.03;
+
+/**
+ * Why a measurement cannot be shown, in plain words, or null when it can: every number finite,
+ * resonance lower for the longer wire (physics of every type here: a longer resonant wire
+ * resonates lower), and both resonances within TUNING_FIT_LIMIT of the design frequency.
+ */
+export function tuningProblem(m: TuningMeasurement, designFreqHz: number): string | null {
+  const nums = [m.trimM, m.resonanceMHz.shorter, m.resonanceMHz.longer, m.kHzPerCm, m.cmPer10kHzUp];
+  if (!nums.every(Number.isFinite))
+    return 'the solver found no resonance near the design frequency, so there is no tuning rate to give';
+  if (!(m.kHzPerCm < 0))
+    return 'the solved resonance did not move down when the wire was made longer, so the rate is not trustworthy';
+  const f0MHz = designFreqHz / 1e6;
+  const far = [m.resonanceMHz.shorter, m.resonanceMHz.longer].some(
+    (f) => Math.abs(f / f0MHz - 1) > TUNING_FIT_LIMIT,
+  );
+  if (far)
+    return `the antenna does not resonate within ${TUNING_FIT_LIMIT * 100} % of ${f0MHz.toFixed(3)} MHz, so a tuning rate would be a guess; expect a matching network`;
+  return null;
+}
+
+export interface TuningText {
+  /** Shift of resonance per unit of length, e.g. "0.91 kHz per cm" or "2.30 kHz per inch". */
+  rate: string;
+  /** Length change for 10 kHz, e.g. "11.0 cm" or "4.3 in". */
+  per10kHz: string;
+}
+
+/** The rate in the user's units: centimetres for metric, inches for imperial (magnitudes; the text says which way). */
+export function tuningText(m: TuningMeasurement, units: UnitSystem): TuningText {
+  const kHzPerCm = Math.abs(m.kHzPerCm);
+  const cm = Math.abs(m.cmPer10kHzUp);
+  return units === 'metric'
+    ? { rate: `${kHzPerCm.toFixed(2)} kHz per cm`, per10kHz: `${cm.toFixed(1)} cm` }
+    : {
+        rate: `${(kHzPerCm * CM_PER_INCH).toFixed(2)} kHz per inch`,
+        per10kHz: `${(cm / CM_PER_INCH).toFixed(1)} in`,
+      };
+}
