@@ -59,3 +59,26 @@ export function api(): YardwireApi {
   cached = window.yardwire ?? httpClient(browserToken());
   return cached;
 }
+
+/**
+ * The desktop-only bridge, `window.yardwireDesktop`, set by the Electron preload beside the data
+ * API (electron/desktopBridge.ts; browser mode has none). Its presence is how the renderer knows
+ * it runs in the desktop app.
+ */
+export interface DesktopBridge {
+  savePdf(request: {
+    fileBase: string;
+  }): Promise<{ ok: true; path: string } | { ok: false; error: { code: string; message: string } }>;
+}
+
+declare global {
+  interface Window {
+    yardwireDesktop?: DesktopBridge;
+  }
+}
+
+/** The desktop bridge, or null in browser mode. */
+export function desktopBridge(): DesktopBridge | null {
+  const d = window.yardwireDesktop;
+  return d && typeof d.savePdf === 'function' ? d : null;
+}
