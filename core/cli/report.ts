@@ -3,6 +3,7 @@
  * the station report (build sheet) of one shortlisted candidate as a standalone printable HTML
  * file. Options: --power W (PEP, default 100), --mode ssb|cw|ft8 (default ssb), --on-time 0…1
  * (default 0.5), --coax RG-58|RG-8X|RG-213|"low-loss 10 mm foam" (default RG-213), --workers N.
+ * Options not given come from the project's station settings (whose defaults are the ones above).
  * The plan is computed for the candidate's band (default candidate: the first of the first band).
  */
 import { writeFile as fsWriteFile } from 'node:fs/promises';
@@ -13,7 +14,6 @@ import { candidateGainAt, enumeratePlan, memoryCache, planFromSetup } from '../r
 import { solverEvaluator } from '../rank/solver.ts';
 import {
   COAX_TYPES,
-  DEFAULT_STATION,
   buildSheet,
   isCoaxType,
   measureTuning,
@@ -40,7 +40,8 @@ interface Args {
   demo: boolean;
   candidate: string | null;
   out: string | null;
-  station: StationOptions;
+  /** Only what the command line gave; the rest comes from the project's station settings. */
+  station: Partial<StationOptions>;
   workers: number;
 }
 
@@ -50,7 +51,7 @@ function parseArgs(argv: string[]): Args | string {
     demo: false,
     candidate: null,
     out: null,
-    station: { ...DEFAULT_STATION },
+    station: {},
     workers: availableParallelism(),
   };
   for (let i = 0; i < argv.length; i++) {

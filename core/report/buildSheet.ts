@@ -18,6 +18,7 @@ import { placeXYZ, type XYZ } from '../site/geometry.ts';
 import { buildSite } from '../site/site.ts';
 import type { XY } from '../site/frame.ts';
 import { estimateExposure, type ExposureEstimate, type Mode } from './exposure.ts';
+import { exposureOnLot, type ExposureOnLot } from './exposureZones.ts';
 import { cautionsFor, type Caution } from './cautions.ts';
 
 /* ----------------------------------------------------------------------------------------------
@@ -187,6 +188,22 @@ export const DEFAULT_STATION: StationOptions = {
   coax: 'RG-213',
 };
 
+/**
+ * The feed-line run: plan length along the route (station point, the user's bend points, the
+ * point under the feed), plus the rise to the feed point, plus FEED_SLACK.
+ */
+export function feedRun(
+  stationXY: XY,
+  bendsXY: readonly XY[],
+  feedXYZ: XYZ,
+): { planM: number; routeXY: XY[]; lengthM: number } {
+  const routeXY: XY[] = [stationXY, ...bendsXY, [feedXYZ[0], feedXYZ[1]]];
+  let planM = 0;
+  for (let i = 0; i + 1 < routeXY.length; i++)
+    planM += Math.hypot(routeXY[i + 1][0] - routeXY[i][0], routeXY[i + 1][1] - routeXY[i][1]);
+  return { planM, routeXY, lengthM: (planM + Math.max(0, feedXYZ[2])) * (1 + FEED_SLACK) };
+}
+
 /** Rope margin beyond twice the support height, metres (common practice, no source). */
 export const ROPE_MARGIN_M = 5;
 /** Slack added to the feed-line run (common practice, no source). */
@@ -216,6 +233,10 @@ export interface BuildSheet {
     stationXY: XY;
     feedXYZ: XYZ;
     planDistanceM: number;
+    /** The route drawn: station point, bend points, the point under the feed (site frame). */
+    routeXY: XY[];
+    /** True when the user drew the route; false for the straight run. */
+    routed: boolean;
     lengthM: number;
     lossDbPer100m: number;
     lossDb: number;
@@ -226,6 +247,8 @@ export interface BuildSheet {
   choke: string | null;
   tuning: { measured: TuningMeasurement | null; instruction: string };
   exposure: ExposureEstimate;
+  /** The estimate's distances on the lot: the places each zone reaches and the zone outlines. */
+  exposureOnLot: ExposureOnLot;
   cautions: Caution[];
   /** Lot drawing in the site frame. */
   lot: {
@@ -279,7 +302,7 @@ export interface BuildSheetInput {
 
 export function buildSheet(input: BuildSheetInput): BuildSheet {
   const { project, candidate: c } = input;
-  const station: StationOptions = { ...DEFAULT_STATION, ...input.station };
+  const station: StationOptions = { ...DEFAULT_STATION, ...project.settings.station, ...input.station };
   if (!(station.onTimeFraction >= 0 && station.onTimeFraction <= 1))
     throw new RangeError('on-time must be between 0 and 1');
   const site = buildSite(project);
@@ -363,8 +386,10 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
       'The design could not be rebuilt from the project: the feed point is taken at the start of the first wire.',
     );
   }
-  const planDistanceM = Math.hypot(feedXYZ[0] - site.station[0], feedXYZ[1] - site.station[1]);
-  const lengthM = (planDistanceM + feedXYZ[2]) * (1 + FEED_SLACK);
+  const bends = (project.feedRoutes[c.id] ?? []).map((q) => site.frame.toLocal(q));
+  const run = feedRun(site.station, bends, feedXYZ);
+  const planDistanceM = run.planM;
+  const lengthM = run.lengthM;
   const freqMHz = c.feed.freqMHz;
   const lossDbPer100m = coaxLossDbPer100m(station.coax, freqMHz);
   const feedLine = {
@@ -372,12 +397,16 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     stationXY: site.station,
     feedXYZ,
     planDistanceM,
+    routeXY: run.routeXY,
+    routed: bends.length > 0,
     lengthM,
     lossDbPer100m,
     lossDb: (lossDbPer100m * lengthM) / 100,
     freqMHz,
     source: COAX_SOURCE,
-    note: `straight-line plan distance from the station point plus the feed height, plus ${FEED_SLACK * 100} % slack (common practice, no source); route it along your real path and adjust`,
+    note: bends.length
+      ? `along your route (${bends.length} bend${bends.length === 1 ? '' : 's'}) from the station point, plus the feed height, plus ${FEED_SLACK * 100} % slack (common practice, no source)`
+      : `straight-line plan distance from the station point plus the feed height, plus ${FEED_SLACK * 100} % slack (common practice, no source); draw your real route in the app and the length follows`,
   };
 
   const choke = CENTRE_FED.has(c.type)
@@ -401,6 +430,8 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   exposure.notes.push(
     `Worst case: the feed-line loss (${feedLine.lossDb.toFixed(2)} dB) is not subtracted, and the candidate's peak gain (${c.peak.gainDbi.toFixed(1)} dBi) is used in every direction.`,
   );
+
+  const onLot = exposureOnLot(c.wires, site, exposure);
 
   const kindById = new Map(project.supports.map((s) => [s.id, s.kind]));
   const cautions = cautionsFor({
@@ -501,6 +532,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     choke,
     tuning: { measured, instruction },
     exposure,
+    exposureOnLot: onLot,
     cautions,
     lot: {
       boundary: site.boundary,

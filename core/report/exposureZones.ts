@@ -45,6 +45,8 @@ export interface PlaceReach {
   name: string;
   /** Shortest person-to-antenna distance anywhere on (or in) the place, metres. */
   closestM: number;
+  /** The ground point under the part of the antenna that comes closest (site frame). */
+  nearXY: XY;
 }
 
 /** Sample every wire (z > 0 or touching the ground) every `stepM`. */
@@ -69,16 +71,24 @@ export function personDistanceM(samples: readonly XYZ[], p: XY, headM = HEAD_HEI
  * The shortest person-to-antenna distance over a place, given the horizontal distance from a
  * ground point under the wire to the place (0 when that point lies on or in it).
  */
-function closestOver(samples: readonly XYZ[], headM: number, horizontal: (p: XY) => number): number {
+function closestOver(
+  samples: readonly XYZ[],
+  headM: number,
+  horizontal: (p: XY) => number,
+): { closestM: number; nearXY: XY } {
   let best = Infinity;
+  let at: XY = [NaN, NaN];
   for (const s of samples) {
     const dz = Math.max(0, s[2] - headM);
     if (dz >= best) continue;
     const h = horizontal([s[0], s[1]]);
     const d = Math.hypot(h, dz);
-    if (d < best) best = d;
+    if (d < best) {
+      best = d;
+      at = [s[0], s[1]];
+    }
   }
-  return best;
+  return { closestM: best, nearXY: at };
 }
 
 /**
@@ -104,7 +114,7 @@ export function placeReach(wires: readonly ZoneWire[], site: Site, headM = HEAD_
     out.push({
       kind: k.kind === 'building' ? 'house' : 'path',
       name: k.name,
-      closestM: closestOver(samples, headM, horizontal),
+      ...closestOver(samples, headM, horizontal),
     });
   }
   for (const s of site.supports) {
@@ -112,7 +122,7 @@ export function placeReach(wires: readonly ZoneWire[], site: Site, headM = HEAD_
     out.push({
       kind: 'house',
       name: s.name,
-      closestM: closestOver(samples, headM, (p) => Math.hypot(p[0] - s.xy[0], p[1] - s.xy[1])),
+      ...closestOver(samples, headM, (p) => Math.hypot(p[0] - s.xy[0], p[1] - s.xy[1])),
     });
   }
   if (site.boundary.length >= 4) {
@@ -120,13 +130,13 @@ export function placeReach(wires: readonly ZoneWire[], site: Site, headM = HEAD_
     out.push({
       kind: 'boundary',
       name: 'the property line',
-      closestM: closestOver(samples, headM, (p) => (insideRing(p, ring) ? distanceToRingEdges(p, ring) : 0)),
+      ...closestOver(samples, headM, (p) => (insideRing(p, ring) ? distanceToRingEdges(p, ring) : 0)),
     });
   }
   out.push({
     kind: 'station',
     name: 'the station point (operating position)',
-    closestM: personDistanceM(samples, site.station, headM),
+    ...closestOver(samples, headM, (p) => Math.hypot(p[0] - site.station[0], p[1] - site.station[1])),
   });
   return out;
 }

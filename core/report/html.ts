@@ -40,9 +40,14 @@ function section(title: (typeof REPORT_SECTIONS)[number], body: string): string 
   return `<section id="${id}"><h2>${e(title)}</h2>${body}</section>`;
 }
 
-function table(head: string[], rows: string[][]): string {
+/** A cell: its text, or its text with a class. */
+type Cell = string | { text: string; cls: string };
+
+function table(head: string[], rows: Cell[][]): string {
+  const td = (c: Cell): string =>
+    typeof c === 'string' ? `<td>${e(c)}</td>` : `<td class="${e(c.cls)}">${e(c.text)}</td>`;
   return `<table><thead><tr>${head.map((h) => `<th>${e(h)}</th>`).join('')}</tr></thead><tbody>${rows
-    .map((r) => `<tr>${r.map((c) => `<td>${e(c)}</td>`).join('')}</tr>`)
+    .map((r) => `<tr>${r.map(td).join('')}</tr>`)
     .join('')}</tbody></table>`;
 }
 
@@ -73,7 +78,7 @@ function lotSvg(s: BuildSheet): string {
   );
   out.push(`<path d="${path(lot.boundary, true)}" class="boundary"/>`);
   for (const k of lot.keepOuts) {
-    const cls = k.kind === 'power-line' ? 'keepout power' : 'keepout';
+    const cls = k.kind === 'power-line' ? 'keepout power' : k.kind === 'path' ? 'keepout path' : 'keepout';
     if (k.shape.type === 'polygon')
       out.push(`<path d="${path(k.shape.ring, true)}" class="${cls}"><title>${e(k.name)}</title></path>`);
     else
@@ -95,9 +100,14 @@ function lotSvg(s: BuildSheet): string {
       );
     });
   }
-  out.push(
-    `<line x1="${X(feedLine.stationXY[0])}" y1="${Y(feedLine.stationXY[1])}" x2="${X(feedLine.feedXYZ[0])}" y2="${Y(feedLine.feedXYZ[1])}" class="coax"/>`,
-  );
+  out.push(`<path d="${path(feedLine.routeXY, false)}" class="coax"><title>feed line</title></path>`);
+  for (const z of s.exposureOnLot.zones) {
+    if (!z.rings.length) continue;
+    const d = z.rings.map((r) => path(r, true)).join('');
+    out.push(
+      `<path d="${d}" class="zone ${z.limitId}"><title>${e(`${z.label}: ${f2(z.radiusM)} m with ground reflection`)}</title></path>`,
+    );
+  }
   for (const w of c.wires) {
     const L = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
     const mx = (w.from[0] + w.to[0]) / 2;
@@ -233,7 +243,11 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .keepout.line { fill: none; stroke-width: 2; stroke-dasharray: 6 3; }
 .klabel { fill: #a33; }
 .radial { stroke: #8c7a4b; stroke-width: 0.7; }
-.coax { stroke: #555; stroke-width: 1.2; stroke-dasharray: 4 3; }
+.coax { fill: none; stroke: #555; stroke-width: 1.2; stroke-dasharray: 4 3; }
+.keepout.path { stroke: #8a6d1f; stroke-dasharray: 2 4; }
+.zone { fill: rgba(124, 58, 237, 0.14); stroke: #7c3aed; stroke-width: 1.2; fill-rule: nonzero; }
+.zone.icnirp-public { fill: none; stroke: #0f766e; stroke-dasharray: 5 3; }
+.reach { color: #9a2b12; font-weight: 600; }
 .wire { stroke: #c0392b; stroke-width: 2.5; stroke-linecap: round; }
 .wire.vertical { fill: #fff; stroke-width: 2; }
 .wlabel { fill: #8a1f12; font-weight: 600; }
@@ -257,6 +271,41 @@ figcaption { font-size: 12px; color: #5a6570; }
   @page { size: A4; margin: 14mm; }
 }
 `;
+
+const PLACE_WORD: Record<string, string> = {
+  house: 'house',
+  path: 'path',
+  boundary: 'property line',
+  station: 'operating position',
+};
+
+/** Which places of the lot each zone reaches, and how close a person can come in each. */
+function exposureReachHtml(s: BuildSheet): string {
+  const lot = s.exposureOnLot;
+  const zoneRows = lot.zones.map((z): Cell[] => [
+    z.label,
+    `${f2(z.radiusM)} m`,
+    z.reached.length
+      ? {
+          cls: 'reach',
+          text: `Reaches ${z.reached.map((p) => `${p.name} (${PLACE_WORD[p.kind]}, ${f1(p.closestM)} m)`).join('; ')}`,
+        }
+      : 'reaches no house, path, property line or the operating position',
+    z.reachedFreeSpace.length ? z.reachedFreeSpace.map((p) => p.name).join('; ') : 'none',
+  ]);
+  const zones = table(
+    ['Limit', 'Distance (with ground reflection)', 'Where it reaches', 'Reached in free space'],
+    zoneRows,
+  );
+  const places = table(
+    ['Place', 'Kind', 'Closest a standing person comes to a wire'],
+    lot.places.map((p) => [p.name, PLACE_WORD[p.kind], `${f1(p.closestM)} m`]),
+  );
+  return (
+    `<h3>Where the zones reach on the lot</h3>${zones}${places}` +
+    lot.notes.map((n) => `<p class="note">${e(n)}</p>`).join('')
+  );
+}
 
 export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): string {
   const c = s.candidate;
@@ -297,7 +346,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
     section(
       'Lot plan',
       `${lotSvg(s)}<p class="note">${e(
-        'Site frame: x east, y north, metres. Red: antenna wires with their lengths and end heights (h). Filled circles: supports used. Dashed grey: feed line from the station. Thin brown: radials. Red shading and dashed red: keep-outs.',
+        'Site frame: x east, y north, metres. Red: antenna wires with their lengths and end heights (h). Filled circles: supports used. Dashed grey: feed line from the station along its route. Thin brown: radials. Red shading and dashed red: keep-outs; dotted brown: paths. Violet shading: where a standing person would be inside the FCC general-population distance (with ground reflection); dashed teal: the same for the ICNIRP 2020 public level.',
       )}</p>`,
     ),
   );
@@ -329,6 +378,12 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       'Feed line',
       `<dl>${[
         ['Cable', fl.coax],
+        [
+          'Route',
+          fl.routed
+            ? `drawn by you: ${fl.routeXY.length - 2} bend point${fl.routeXY.length === 3 ? '' : 's'}`
+            : 'straight from the station point (draw your real route in the app)',
+        ],
         ['Plan distance, station to feed point', `${f1(fl.planDistanceM)} m`],
         ['Feed point height', `${f1(fl.feedXYZ[2])} m`],
         ['Length to buy', `${f1(fl.lengthM)} m`],
@@ -436,6 +491,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
             d.limit.source,
           ]),
         ) +
+        exposureReachHtml(s) +
         `<p><strong>${e(
           'At low-band frequencies these distances fall in the antenna’s near field: the figures are estimates for compliance screening; local rules and a professional evaluation govern.',
         )}</strong></p>` +

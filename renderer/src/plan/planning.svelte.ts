@@ -28,7 +28,8 @@ export function planInputs(p: Project, bands: readonly Band[]): string {
     p.station,
     p.soil,
     p.targets,
-    p.settings,
+    // The station's transmitter and coax change the build sheet and the exposure, not the plan.
+    { ...p.settings, station: undefined },
     bands,
   ]);
 }

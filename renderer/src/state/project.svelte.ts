@@ -3,7 +3,15 @@
  * selection and the edits the lot editor offers (supports, boundary, keep-outs, station,
  * settings), each one validated, undoable step.
  */
-import type { KeepOut, LonLat, Polygon, Project, Settings, Support } from '../../../core/project/schema.ts';
+import type {
+  KeepOut,
+  LonLat,
+  Polygon,
+  Project,
+  Settings,
+  StationSettings,
+  Support,
+} from '../../../core/project/schema.ts';
 import type { UnitSystem } from '../../../core/units/index.ts';
 import { closeRing, newId, nextName } from '../lib/geo.ts';
 import { ProjectHistory } from './history.svelte.ts';
@@ -184,6 +192,27 @@ export class ProjectState extends ProjectHistory {
     return this.edit(label, (q) => {
       const same = Object.entries(patch).every(([k, v]) => q.settings[k as keyof Settings] === v);
       return same ? q : { ...q, settings: { ...q.settings, ...patch } };
+    });
+  }
+
+  /** Change the station's transmitter or feed-line settings (the exposure estimate and build sheet follow). */
+  updateStation(patch: Partial<StationSettings>, label = 'change station settings'): boolean {
+    return this.edit(label, (q) => {
+      const cur = q.settings.station;
+      const same = Object.entries(patch).every(([k, v]) => cur[k as keyof StationSettings] === v);
+      return same ? q : { ...q, settings: { ...q.settings, station: { ...cur, ...patch } } };
+    });
+  }
+
+  /** Set (or clear, with an empty list) the feed-line bend points for a shortlisted candidate. */
+  setFeedRoute(candidateId: string, bends: LonLat[], label = 'reroute feed line'): boolean {
+    return this.edit(label, (q) => {
+      const cur = q.feedRoutes[candidateId] ?? [];
+      if (JSON.stringify(cur) === JSON.stringify(bends)) return q;
+      const next = { ...q.feedRoutes };
+      if (bends.length) next[candidateId] = bends.map((b) => [b[0], b[1]] as LonLat);
+      else delete next[candidateId];
+      return { ...q, feedRoutes: next };
     });
   }
 
