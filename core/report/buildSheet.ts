@@ -20,6 +20,7 @@ import type { XY } from '../site/frame.ts';
 import { estimateExposure, type ExposureEstimate, type Mode } from './exposure.ts';
 import { exposureOnLot, type ExposureOnLot } from './exposureZones.ts';
 import { cautionsFor, type Caution } from './cautions.ts';
+import { trimHow } from './tuning.ts';
 
 /* ----------------------------------------------------------------------------------------------
  * Coaxial cable loss
@@ -275,13 +276,6 @@ export interface BuildSheet {
 const len3 = (a: XYZ, b: XYZ): number => Math.hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
 const near = (a: XYZ, b: XYZ, tol = 0.02): boolean => len3(a, b) < tol;
 
-const TRIM_HOW: Record<string, string> = {
-  dipole: 'Take equal amounts off both ends (half of the change at each end).',
-  'inverted-v': 'Take equal amounts off both leg ends (half of the change at each end).',
-  'half-square': 'Change both drops by the same amount (at their lower ends).',
-  vertical: 'Change the length of the vertical wire at its top end.',
-  'inverted-l': 'Change the wire at its far (top) end.',
-};
 
 /** Centre-fed types that want a choke balun at the feed point (common practice, no source). */
 const CENTRE_FED = new Set(['dipole', 'inverted-v']);
@@ -414,7 +408,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     : null;
 
   const measured = input.tuning ?? null;
-  const how = TRIM_HOW[c.type] ?? 'Change the trim dimension as described.';
+  const how = trimHow(c.type);
   const instruction = measured
     ? `Measure where the SWR is lowest. If resonance is low, shorten the ${measured.dimension} by ${Math.abs(measured.cmPer10kHzUp).toFixed(1)} cm for each 10 kHz it must move up (lengthen by as much to move it down). ${how} Trim in small steps and measure again.`
     : `Measure where the SWR is lowest and shorten the ${c.trim.dimension} to move resonance up (lengthen to move it down). ${how} Trim in small steps and measure again.`;
