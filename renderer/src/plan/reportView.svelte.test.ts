@@ -7,7 +7,6 @@ import { flushSync, mount, unmount } from 'svelte';
 import { REPORT_BODY_CLASS, renderReport, scopeReportCss, scopeSelector } from './reportHtml.ts';
 import { closeReport, reportView, showBuildSheet } from './reportView.svelte.ts';
 import ReportView from './ReportView.svelte';
-import { TEST_REPORT_EVENT, listenForTestReport } from './testReport.ts';
 import { buildSheet, resolveProposal } from '../../../core/report/buildSheet.ts';
 import { REPORT_SECTIONS, renderBuildSheetHtml } from '../../../core/report/html.ts';
 import { demoPlanProject, demoShortlist } from './testShortlist.ts';
@@ -220,26 +219,6 @@ describe('ReportView', () => {
     await vi.waitFor(() =>
       expect(document.querySelector('[role="status"]')!.textContent).toBe('Not saved: disk full'),
     );
-  });
-
-  it('the test hook opens the view only for a well-formed event, and stops when asked', () => {
-    const show = vi.fn();
-    const stop = listenForTestReport(window, show);
-    const send = (detail: unknown) => window.dispatchEvent(new CustomEvent(TEST_REPORT_EVENT, { detail }));
-    for (const bad of [
-      null,
-      'x',
-      { html: 1, fileBase: 'a' },
-      { html: 'h' },
-      { html: 'h', fileBase: '../x y' },
-    ])
-      send(bad);
-    expect(show).not.toHaveBeenCalled();
-    send({ html: '<p>h</p>', fileBase: 'build-sheet-1' });
-    expect(show).toHaveBeenCalledWith('<p>h</p>', 'build-sheet-1');
-    stop();
-    send({ html: '<p>h</p>', fileBase: 'build-sheet-1' });
-    expect(show).toHaveBeenCalledOnce();
   });
 
   it('the renderer and the preload agree on the desktop bridge', () => {
