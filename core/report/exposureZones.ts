@@ -47,6 +47,29 @@ export interface PlaceReach {
   closestM: number;
   /** The ground point under the part of the antenna that comes closest (site frame). */
   nearXY: XY;
+  /** The point of the place nearest to nearXY (site frame): where a flag goes. */
+  placeXY: XY;
+}
+
+/** The point of a polyline nearest to p. */
+export function nearestOnPolyline(p: XY, line: readonly XY[]): XY {
+  let best: XY = line[0] ?? p;
+  let bestD = Infinity;
+  for (let i = 0; i + 1 < line.length; i++) {
+    const a = line[i];
+    const b = line[i + 1];
+    const dx = b[0] - a[0];
+    const dy = b[1] - a[1];
+    const l2 = dx * dx + dy * dy;
+    const t = l2 === 0 ? 0 : Math.max(0, Math.min(1, ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / l2));
+    const q: XY = [a[0] + t * dx, a[1] + t * dy];
+    const d = Math.hypot(p[0] - q[0], p[1] - q[1]);
+    if (d < bestD) {
+      bestD = d;
+      best = q;
+    }
+  }
+  return best;
 }
 
 /** Sample every wire (z > 0 or touching the ground) every `stepM`. */
@@ -111,10 +134,14 @@ export function placeReach(wires: readonly ZoneWire[], site: Site, headM = HEAD_
             const line = k.shape.line;
             return (p: XY) => pointPolylineDistance(p, line);
           })();
+    const c = closestOver(samples, headM, horizontal);
+    const edge = k.shape.type === 'polygon' ? k.shape.ring : k.shape.line;
+    const inside = k.shape.type === 'polygon' && Number.isFinite(c.nearXY[0]) && insideRing(c.nearXY, edge);
     out.push({
       kind: k.kind === 'building' ? 'house' : 'path',
       name: k.name,
-      ...closestOver(samples, headM, horizontal),
+      ...c,
+      placeXY: inside ? c.nearXY : nearestOnPolyline(c.nearXY, edge),
     });
   }
   for (const s of site.supports) {
@@ -123,20 +150,25 @@ export function placeReach(wires: readonly ZoneWire[], site: Site, headM = HEAD_
       kind: 'house',
       name: s.name,
       ...closestOver(samples, headM, (p) => Math.hypot(p[0] - s.xy[0], p[1] - s.xy[1])),
+      placeXY: s.xy,
     });
   }
   if (site.boundary.length >= 4) {
     const ring = site.boundary;
+    const c = closestOver(samples, headM, (p) => (insideRing(p, ring) ? distanceToRingEdges(p, ring) : 0));
+    const outside = Number.isFinite(c.nearXY[0]) && !insideRing(c.nearXY, ring);
     out.push({
       kind: 'boundary',
       name: 'the property line',
-      ...closestOver(samples, headM, (p) => (insideRing(p, ring) ? distanceToRingEdges(p, ring) : 0)),
+      ...c,
+      placeXY: outside ? c.nearXY : nearestOnPolyline(c.nearXY, ring),
     });
   }
   out.push({
     kind: 'station',
     name: 'the station point (operating position)',
     ...closestOver(samples, headM, (p) => Math.hypot(p[0] - site.station[0], p[1] - site.station[1])),
+    placeXY: site.station,
   });
   return out;
 }

@@ -150,6 +150,17 @@ export function buildDemoProject(): Project {
         heightM: 9,
         notes: 'Keep every wire, rope and support farther away than anything could fall.',
       },
+      {
+        id: 'garden-path',
+        name: 'Garden path',
+        kind: 'path',
+        geometry: {
+          type: 'LineString',
+          coordinates: [demoLonLat(36, 22), demoLonLat(58, 50), demoLonLat(77, 82), demoLonLat(96, 96)],
+        },
+        clearanceM: 0,
+        notes: 'Gravel path from the house to the garden shed; the children walk here.',
+      },
     ],
     station: demoLonLat(30, 20),
     soil: { classId: 'average' },

@@ -190,7 +190,21 @@ test('draws a building keep-out', async ({ page, host }) => {
   await expect(page.getByTestId('keepout-name')).toHaveValue('Building 1');
   await expect(page.getByText(/^Area \d+ m²/)).toBeVisible();
   await page.getByRole('button', { name: 'Back to list' }).click();
-  await expect(page.getByRole('heading', { name: 'Keep-outs (3)' })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
+});
+
+test('draws a path where people walk, which blocks nothing by default', async ({ page, host }) => {
+  await openApp(page, host);
+  await page.keyboard.press('w');
+  await clickMap(page, 0.45, 0.5);
+  await clickMap(page, 0.52, 0.56);
+  await clickMap(page, 0.6, 0.58);
+  await page.keyboard.press('Enter');
+  await expect(page.getByRole('heading', { name: 'Path or play area' })).toBeVisible();
+  await expect(page.getByTestId('keepout-name')).toHaveValue('Path 1');
+  await expect(page.getByText(/^Length \d+/)).toBeVisible();
+  await page.getByRole('button', { name: 'Back to list' }).click();
+  await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
 });
 
 test('Esc cancels a drawing half way and leaves the lot as it was', async ({ page, host }) => {

@@ -65,27 +65,36 @@ test('the demo build sheet opens standalone with every section', async ({ page, 
 });
 
 test.describe('build sheet from the app', () => {
-  appTest('the candidate detail saves the build sheet as a standalone HTML file', async ({ page, host }) => {
-    appTest.setTimeout(240_000);
-    await openApp(page, host);
-    const bar = page.getByTestId('run-bar');
-    for (const b of ['160 m', '80 m']) {
-      const box = bar.getByRole('checkbox', { name: b });
-      if (await box.isChecked()) await box.uncheck();
-    }
-    const b40 = bar.getByRole('checkbox', { name: '40 m' });
-    if (!(await b40.isChecked())) await b40.check();
-    await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
-    await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 200_000 });
-    await page.getByTestId('candidate-row').first().click();
-    const detail = page.getByTestId('candidate-detail');
-    const download = page.waitForEvent('download');
-    await detail.getByRole('button', { name: 'Build sheet' }).click();
-    const file = await download;
-    expect(file.suggestedFilename()).toMatch(/^build-sheet-40m-.*\.html$/);
-    const html = Buffer.concat(await (await file.createReadStream()).toArray()).toString('utf8');
-    for (const h of REPORT_SECTIONS) expect(html).toContain(`<h2>${h}</h2>`);
-    expect(html).toContain('Larkspur Ridge');
-    await shot(page, 'report-button');
-  });
+  appTest(
+    'the candidate detail opens the build sheet, which saves as a standalone HTML file',
+    async ({ page, host }) => {
+      appTest.setTimeout(240_000);
+      await openApp(page, host);
+      const bar = page.getByTestId('run-bar');
+      for (const b of ['160 m', '80 m']) {
+        const box = bar.getByRole('checkbox', { name: b });
+        if (await box.isChecked()) await box.uncheck();
+      }
+      const b40 = bar.getByRole('checkbox', { name: '40 m' });
+      if (!(await b40.isChecked())) await b40.check();
+      await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
+      await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 200_000 });
+      await page.getByTestId('candidate-row').first().click();
+      const detail = page.getByTestId('candidate-detail');
+      await detail.getByRole('button', { name: 'Build sheet…' }).click();
+      const view = page.getByTestId('report-view');
+      await expect(view).toBeVisible();
+      const download = page.waitForEvent('download');
+      await view.getByRole('button', { name: 'Save HTML' }).click();
+      const file = await download;
+      expect(file.suggestedFilename()).toMatch(/^build-sheet-40m-.*\.html$/);
+      const html = Buffer.concat(await (await file.createReadStream()).toArray()).toString('utf8');
+      for (const h of REPORT_SECTIONS) expect(html).toContain(`<h2>${h}</h2>`);
+      expect(html).toContain('Larkspur Ridge');
+      // The sheet carries the station settings of the project and the zones on the lot.
+      expect(html).toContain('Where the zones reach on the lot');
+      expect(html).toContain('100 W PEP, ssb');
+      await shot(page, 'report-button');
+    },
+  );
 });

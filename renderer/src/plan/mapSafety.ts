@@ -87,8 +87,8 @@ export function drawExposure(
     );
   }
   for (const p of general.reached) {
-    if (!Number.isFinite(p.nearXY[0])) continue;
-    const m = L.marker(ll(p.nearXY), {
+    if (!Number.isFinite(p.placeXY[0])) continue;
+    const m = L.marker(ll(p.placeXY), {
       icon: L.divIcon({ className: 'yw-reach', html: '!', iconSize: [18, 18] }),
       keyboard: false,
       interactive: true,
@@ -136,16 +136,30 @@ export function drawFeedRoute(map: L.Map, project: Project, r: RouteDrawing): ()
     className: 'yw-feed-route',
   }).addTo(map);
   line.bindTooltip(textContent(r.label), { className: 'yw-tip', sticky: true });
+  let cleanup = (): void => {};
   if (r.editable) {
     line.pm.enable({ allowSelfIntersection: true, snappable: false, draggable: false });
-    line.on('pm:edit', () => {
+    // One user gesture, one edit (one undo step): a drag commits when it ends; a handle that is
+    // clicked (a bend added without a drag) commits a moment later unless a drag follows.
+    let pending: ReturnType<typeof setTimeout> | undefined;
+    const commit = (): void => {
+      clearTimeout(pending);
+      pending = undefined;
       const all = line.getLatLngs() as L.LatLng[];
       // The ends stay at the station point and under the feed; what lies between is the route.
-      const bends = all.slice(1, -1).map((p) => [p.lng, p.lat] as LonLat);
-      r.onChange(bends);
+      r.onChange(all.slice(1, -1).map((p) => [p.lng, p.lat] as LonLat));
+    };
+    line.on('pm:vertexadded', () => {
+      clearTimeout(pending);
+      pending = setTimeout(commit, 400);
     });
+    line.on('pm:markerdragstart', () => clearTimeout(pending));
+    line.on('pm:markerdragend', commit);
+    line.on('pm:vertexremoved', commit);
+    cleanup = () => clearTimeout(pending);
   }
   return () => {
+    cleanup();
     if (r.editable) line.pm.disable();
     line.remove();
   };

@@ -130,7 +130,9 @@ export class ProjectState extends ProjectHistory {
         base,
         p.keepOuts.map((x) => x.name),
       ),
-      clearanceM: kind === 'power-line' ? 15 : 1,
+      // A path only marks where people walk (checked by the exposure zones); it blocks nothing
+      // until the user gives it a clearance.
+      clearanceM: kind === 'power-line' ? 15 : kind === 'path' ? 0 : 1,
       notes: '',
       ...extra,
     };

@@ -129,3 +129,27 @@ describe('places a zone reaches', () => {
     expect(lot.zones.find((z) => z.limitId === 'fcc-controlled')!.rings).toEqual([]);
   });
 });
+
+describe('where a flag goes', () => {
+  it('on the place, at its point nearest the antenna', () => {
+    const project = testLot({
+      keepOuts: [
+        {
+          id: 'walk',
+          name: 'Walk',
+          kind: 'path',
+          geometry: { type: 'LineString', coordinates: [ring([[-4, -20]])[0], ring([[-4, 20]])[0]] },
+        },
+      ],
+    });
+    const site = buildSite(project);
+    const o = site.frame.toLocal(site.frame.toLonLat([0, 3]));
+    const walk = placeReach([{ from: [o[0], o[1], 0], to: [o[0], o[1], 10] }], site).find(
+      (p) => p.kind === 'path',
+    )!;
+    // The path runs north–south 4 m west of the vertical: the flag sits on it, level with the vertical.
+    expect(walk.closestM).toBeCloseTo(4, 1);
+    const onPath = site.frame.toLocal(ring([[-4, 3]])[0]);
+    expect(Math.hypot(walk.placeXY[0] - onPath[0], walk.placeXY[1] - onPath[1])).toBeLessThan(0.05);
+  });
+});
