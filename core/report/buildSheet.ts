@@ -276,7 +276,6 @@ export interface BuildSheet {
 const len3 = (a: XYZ, b: XYZ): number => Math.hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
 const near = (a: XYZ, b: XYZ, tol = 0.02): boolean => len3(a, b) < tol;
 
-
 /** Centre-fed types that want a choke balun at the feed point (common practice, no source). */
 const CENTRE_FED = new Set(['dipole', 'inverted-v']);
 const HIGH_VOLTAGE_ENDS = new Set(['dipole', 'inverted-v', 'half-square']);
