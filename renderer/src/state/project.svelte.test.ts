@@ -80,7 +80,7 @@ describe('ProjectState edits', () => {
     const { state } = opened();
     state.select({ kind: 'keepOut', id: 'house' });
     expect(state.deleteSelected()).toBe(true);
-    expect(state.project!.keepOuts.map((k) => k.id)).toEqual(['road-line']);
+    expect(state.project!.keepOuts.map((k) => k.id)).toEqual(['road-line', 'garden-path']);
     expect(state.selection).toBeNull();
     state.select({ kind: 'station' });
     state.deleteSelected();
