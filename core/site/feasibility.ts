@@ -240,7 +240,9 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
       fits.push(
         k.kind === 'power-line'
           ? `closest to "${k.name}": ${c.element} at ${f1(c.distM)} m, needs ${f1(c.needM)} m (fall distance plus ${POWER_LINE_MARGIN_M} m)`
-          : `clear of "${k.name}": closest ${c.element} at ${f1(c.distM)} m${c.needM > 0 ? ` (needs ${f1(c.needM)} m)` : ', passing above it'}`,
+          : k.kind === 'path'
+            ? `path "${k.name}": closest ${c.element} at ${f1(c.distM)} m${c.needM > 0 ? ` (keeps ${f1(c.needM)} m)` : ''}; see the RF-exposure zones for people walking there`
+            : `clear of "${k.name}": closest ${c.element} at ${f1(c.distM)} m${c.needM > 0 ? ` (needs ${f1(c.needM)} m)` : ', passing above it'}`,
       );
     });
     if (Number.isFinite(lowestEnd)) {
