@@ -9,7 +9,12 @@
  * or "typical datasheet values, from memory".
  */
 import { builderFor } from '../antennas/registry.ts';
-import { CUT_ALLOWANCE_PER_END_M, RADIAL_RADIUS_M, WIRE_RADIUS_M } from '../antennas/common.ts';
+import {
+  CUT_ALLOWANCE_PER_END_M,
+  RADIAL_RADIUS_M,
+  WIRE_RADIUS_M,
+  placeElements,
+} from '../antennas/common.ts';
 import type { Design, Proposal, WireModel } from '../antennas/types.ts';
 import { COAX_TYPES, type Project } from '../project/schema.ts';
 import { designKey, enumeratePlan, type Candidate, type Shortlist } from '../rank/plan.ts';
@@ -264,6 +269,8 @@ export interface BuildSheet {
     radialBase: XY | null;
     radialLengthsM: number[];
     radialRotationDeg: number;
+    /** Ropes from the wire ends to their supports or ground anchors (from the design), site frame. */
+    ropes: { label: string; from: XYZ; to: XYZ }[];
   };
   /** Elevation cut at the peak azimuth and azimuth cut at the peak elevation, when the pattern is in the shortlist. */
   pattern: {
@@ -540,6 +547,11 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
       radialBase: radialBaseXY(model, p),
       radialLengthsM,
       radialRotationDeg: p?.placement.rotationDeg ?? 0,
+      ropes: p
+        ? placeElements(builderFor(p.design.type).elements(p.design, c.trim.valueM), p.placement).flatMap(
+            (e) => (e.kind === 'rope' ? [{ label: e.label, from: e.from, to: e.to }] : []),
+          )
+        : [],
     },
     pattern,
     notes,

@@ -53,30 +53,105 @@ function table(head: string[], rows: Cell[][]): string {
 
 /* ---------------------------------------------------------------------------------------------- */
 
-function lotSvg(s: BuildSheet): string {
+/**
+ * A plan drawing in the site frame: 'lot' shows the whole lot with the antenna, its feed route
+ * and zones; 'detail' zooms on the antenna, with every wire length, end height and rope.
+ */
+function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
   const { lot, candidate: c, feedLine } = s;
-  const pts: XY[] = [...lot.boundary, lot.station];
+  const detail = view === 'detail';
+  const pts: XY[] = [];
   for (const w of c.wires) pts.push([w.from[0], w.from[1]], [w.to[0], w.to[1]]);
-  for (const sp of lot.supports) pts.push(sp.xy);
+  for (const r of lot.ropes) pts.push([r.from[0], r.from[1]], [r.to[0], r.to[1]]);
+  for (const sp of lot.supports) if (sp.used) pts.push(sp.xy);
+  if (detail) {
+    pts.push([feedLine.feedXYZ[0], feedLine.feedXYZ[1]]);
+    for (const z of s.exposureOnLot.zones) for (const r of z.rings) pts.push(...r);
+  } else {
+    pts.push(...lot.boundary, lot.station);
+    for (const sp of lot.supports) pts.push(sp.xy);
+  }
   const xs = pts.map((p) => p[0]);
   const ys = pts.map((p) => p[1]);
-  const pad = 8;
-  const minX = Math.min(...xs) - pad;
-  const maxX = Math.max(...xs) + pad;
-  const minY = Math.min(...ys) - pad;
-  const maxY = Math.max(...ys) + pad;
+  const pad = detail ? 5 : 8;
+  let minX = Math.min(...xs) - pad;
+  let maxX = Math.max(...xs) + pad;
+  let minY = Math.min(...ys) - pad;
+  let maxY = Math.max(...ys) + pad;
+  // A detail view at least 24 m across, so that a vertical is not drawn metres wide.
+  const minSpan = detail ? 24 : 0;
+  if (maxX - minX < minSpan) {
+    const m = (maxX + minX) / 2;
+    minX = m - minSpan / 2;
+    maxX = m + minSpan / 2;
+  }
+  if (maxY - minY < minSpan * 0.5) {
+    const m = (maxY + minY) / 2;
+    minY = m - minSpan / 4;
+    maxY = m + minSpan / 4;
+  }
   const W = 700;
   const scale = W / (maxX - minX);
-  const H = Math.max(200, Math.round((maxY - minY) * scale));
+  const H = Math.max(200, Math.min(900, Math.round((maxY - minY) * scale)));
   const X = (x: number): string => ((x - minX) * scale).toFixed(1);
   const Y = (y: number): string => ((maxY - y) * scale).toFixed(1);
+  const inView = (p: readonly number[]): boolean =>
+    p[0]! >= minX && p[0]! <= maxX && p[1]! >= minY && p[1]! <= maxY;
   const path = (ring: readonly XY[], close: boolean): string =>
     ring.map((p, i) => `${i ? 'L' : 'M'}${X(p[0])},${Y(p[1])}`).join('') + (close ? 'Z' : '');
   const out: string[] = [];
+  // Labels are placed greedily: the first of the offered offsets whose box overlaps no label
+  // placed before (the text width is estimated at 5.6 px a character for the 10 px font, 6.3 bold), kept
+  // inside the drawing.
+  // The north arrow and the scale bar are there from the start.
+  const boxes: { x0: number; y0: number; x1: number; y1: number }[] = [
+    { x0: W - 30, y0: 4, x1: W, y1: 58 },
+    { x0: 0, y0: H - 34, x1: 140, y1: H },
+  ];
+  const text = (
+    ax: number,
+    ay: number,
+    s: string,
+    cls: string,
+    offsets: readonly [number, number][],
+  ): void => {
+    const w = s.length * (cls === 'wlabel' || cls === 'flabel' ? 6.3 : 5.6);
+    let best: { x: number; y: number } | null = null;
+    for (const [dx, dy] of offsets) {
+      let x = ax + dx - (dx < 0 ? w : 0);
+      x = Math.min(Math.max(x, 2), W - 2 - w);
+      const y = Math.min(Math.max(ay + dy, 11), H - 3);
+      const b = { x0: x, y0: y - 10, x1: x + w, y1: y + 2 };
+      if (!best) best = { x, y };
+      if (!boxes.some((o) => b.x0 < o.x1 && b.x1 > o.x0 && b.y0 < o.y1 && b.y1 > o.y0)) {
+        best = { x, y };
+        break;
+      }
+    }
+    const at = best!;
+    boxes.push({ x0: at.x, y0: at.y - 10, x1: at.x + w, y1: at.y + 2 });
+    out.push(`<text x="${at.x.toFixed(1)}" y="${at.y.toFixed(1)}" class="${cls}">${e(s)}</text>`);
+  };
+  const AROUND: [number, number][] = [
+    [8, -8],
+    [8, 16],
+    [-8, -8],
+    [-8, 16],
+    [8, 30],
+    [-8, 30],
+    [8, -22],
+    [-8, -22],
+    [8, 44],
+    [-8, 44],
+  ];
+  const label = detail ? `Antenna detail of ${c.typeLabel}` : `Lot plan of ${s.projectName}`;
   out.push(
-    `<svg class="lot" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="${e('Lot plan of ' + s.projectName)}" xmlns="http://www.w3.org/2000/svg">`,
+    `<svg class="lot ${view}" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="${e(label)}" xmlns="http://www.w3.org/2000/svg">`,
+    `<defs><clipPath id="clip-${view}"><rect x="0" y="0" width="${W}" height="${H}"/></clipPath></defs><g clip-path="url(#clip-${view})">`,
   );
   out.push(`<path d="${path(lot.boundary, true)}" class="boundary"/>`);
+  // Keep-out names are placed last, after the antenna's own labels.
+  const klabels: (() => void)[] = [];
   for (const k of lot.keepOuts) {
     const cls = k.kind === 'power-line' ? 'keepout power' : k.kind === 'path' ? 'keepout path' : 'keepout';
     if (k.shape.type === 'polygon')
@@ -85,10 +160,10 @@ function lotSvg(s: BuildSheet): string {
       out.push(
         `<path d="${path(k.shape.line, false)}" class="${cls} line"><title>${e(k.name)}</title></path>`,
       );
-    const at = k.shape.type === 'polygon' ? k.shape.ring[0] : k.shape.line[0];
-    const lx = Math.min(Math.max(Number(X(at[0])), 4), W - 200);
-    const ly = Math.min(Math.max(Number(Y(at[1])), 12), H - 4);
-    out.push(`<text x="${lx.toFixed(1)}" y="${ly.toFixed(1)}" dy="-3" class="klabel">${e(k.name)}</text>`);
+    const line = k.shape.type === 'polygon' ? k.shape.ring : k.shape.line;
+    const at = line.find(inView);
+    if (!at) continue;
+    klabels.push(() => text(Number(X(at[0])), Number(Y(at[1])), k.name, 'klabel', AROUND));
   }
   if (lot.radialBase) {
     const n = lot.radialLengthsM.length;
@@ -108,45 +183,106 @@ function lotSvg(s: BuildSheet): string {
       `<path d="${d}" class="zone ${z.limitId}"><title>${e(`${z.label}: ${f2(z.radiusM)} m with ground reflection`)}</title></path>`,
     );
   }
+  for (const r of lot.ropes)
+    out.push(
+      `<line x1="${X(r.from[0])}" y1="${Y(r.from[1])}" x2="${X(r.to[0])}" y2="${Y(r.to[1])}" class="rope"><title>${e(r.label)}</title></line>`,
+    );
+  // Labels spread outward from the antenna's middle, so those at one point do not sit on each other.
+  const cx = c.wires.reduce((a, w) => a + w.from[0] + w.to[0], 0) / Math.max(1, 2 * c.wires.length);
+  const verticalTops: XY[] = [];
+  const vLabels: (() => void)[] = [];
+  const hLabels: (() => void)[] = [];
   for (const w of c.wires) {
     const L = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
     const mx = (w.from[0] + w.to[0]) / 2;
     const my = (w.from[1] + w.to[1]) / 2;
     const vertical = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1]) < 0.5;
-    out.push(
-      vertical
-        ? `<circle cx="${X(mx)}" cy="${Y(my)}" r="4" class="wire vertical"><title>${e(w.label)}</title></circle>`
-        : `<line x1="${X(w.from[0])}" y1="${Y(w.from[1])}" x2="${X(w.to[0])}" y2="${Y(w.to[1])}" class="wire"><title>${e(w.label)}</title></line>`,
-    );
     if (vertical) {
+      verticalTops.push([mx, my]);
       out.push(
-        `<text x="${X(mx)}" y="${Y(my)}" dx="6" dy="14" class="wlabel">${e(`${w.label}: ${f2(L)} m, ${f1(Math.min(w.from[2], w.to[2]))}→${f1(Math.max(w.from[2], w.to[2]))} m high`)}</text>`,
+        `<circle cx="${X(mx)}" cy="${Y(my)}" r="4" class="wire vertical"><title>${e(w.label)}</title></circle>`,
+      );
+      if (!detail) continue;
+      const left = mx < cx - 0.5;
+      const t = `${w.label}: ${f2(L)} m, ${f1(Math.min(w.from[2], w.to[2]))}→${f1(Math.max(w.from[2], w.to[2]))} m high`;
+      vLabels.push(() =>
+        text(
+          Number(X(mx)),
+          Number(Y(my)),
+          t,
+          'wlabel',
+          left
+            ? [
+                [-8, 16],
+                [-8, 30],
+                [-8, 44],
+                [8, 16],
+                [8, 30],
+              ]
+            : [
+                [8, 16],
+                [8, 30],
+                [8, 44],
+                [-8, 16],
+                [-8, 30],
+              ],
+        ),
       );
     } else {
-      out.push(`<text x="${X(mx)}" y="${Y(my)}" dy="-5" class="wlabel">${e(`${f2(L)} m`)}</text>`);
-      for (const p of [w.from, w.to])
-        out.push(`<text x="${X(p[0])}" y="${Y(p[1])}" dy="12" class="hlabel">${e(`h ${f1(p[2])} m`)}</text>`);
+      out.push(
+        `<line x1="${X(w.from[0])}" y1="${Y(w.from[1])}" x2="${X(w.to[0])}" y2="${Y(w.to[1])}" class="wire"><title>${e(w.label)}</title></line>`,
+      );
+      if (!detail) continue;
+      const t = `${w.label}: ${f2(L)} m`;
+      const x = Number(X(mx)) - t.length * 2.8;
+      hLabels.push(() =>
+        text(x, Number(Y(my)), t, 'wlabel', [
+          [0, -8],
+          [0, 16],
+          [0, -22],
+          [0, 30],
+        ]),
+      );
     }
   }
+  if (detail) {
+    for (const f of [...hLabels, ...vLabels]) f();
+    // End heights of the sloping and horizontal wires, except where a vertical wire's label says it.
+    const seen: XY[] = [];
+    for (const w of c.wires) {
+      if (Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1]) < 0.5) continue;
+      for (const p of [w.from, w.to]) {
+        const q: XY = [p[0], p[1]];
+        if ([...seen, ...verticalTops].some((o) => Math.hypot(o[0] - q[0], o[1] - q[1]) < 0.5)) continue;
+        seen.push(q);
+        text(Number(X(p[0])), Number(Y(p[1])), `h ${f1(p[2])} m`, 'hlabel', AROUND);
+      }
+    }
+    const f = feedLine.feedXYZ;
+    out.push(`<circle cx="${X(f[0])}" cy="${Y(f[1])}" r="5" class="feed"><title>feed point</title></circle>`);
+    text(Number(X(f[0])), Number(Y(f[1])), `feed, ${f1(f[2])} m up`, 'flabel', AROUND);
+  }
   for (const sp of lot.supports) {
+    if (detail && !sp.used && !inView(sp.xy)) continue;
     out.push(
       `<circle cx="${X(sp.xy[0])}" cy="${Y(sp.xy[1])}" r="${sp.used ? 5 : 3.5}" class="${sp.used ? 'support used' : 'support'}"/>`,
     );
-    out.push(
-      Number(X(sp.xy[0])) > W - 160
-        ? `<text x="${X(sp.xy[0])}" y="${Y(sp.xy[1])}" dx="-7" dy="-6" text-anchor="end" class="slabel">${e(`${sp.name} (${f1(sp.heightM)} m)`)}</text>`
-        : `<text x="${X(sp.xy[0])}" y="${Y(sp.xy[1])}" dx="7" dy="-6" class="slabel">${e(`${sp.name} (${f1(sp.heightM)} m)`)}</text>`,
-    );
+    text(Number(X(sp.xy[0])), Number(Y(sp.xy[1])), `${sp.name} (${f1(sp.heightM)} m)`, 'slabel', AROUND);
   }
-  out.push(
-    `<rect x="${(Number(X(lot.station[0])) - 5).toFixed(1)}" y="${(Number(Y(lot.station[1])) - 5).toFixed(1)}" width="10" height="10" class="station"/>`,
-    `<text x="${X(lot.station[0])}" y="${Y(lot.station[1])}" dx="8" dy="14" class="slabel">station</text>`,
-  );
-  // North arrow and a 10 m scale bar.
-  const bar = 10 * scale;
+  if (inView(lot.station)) {
+    out.push(
+      `<rect x="${(Number(X(lot.station[0])) - 5).toFixed(1)}" y="${(Number(Y(lot.station[1])) - 5).toFixed(1)}" width="10" height="10" class="station"/>`,
+    );
+    text(Number(X(lot.station[0])), Number(Y(lot.station[1])), 'station', 'slabel', AROUND);
+  }
+  for (const f of klabels) f();
+  out.push('</g>');
+  // North arrow and a scale bar of a round length.
+  const barM = [1, 2, 5, 10, 20, 50].find((m) => m * scale >= 60) ?? 100;
+  const bar = barM * scale;
   out.push(
     `<g class="north"><line x1="${W - 20}" y1="40" x2="${W - 20}" y2="12"/><path d="M${W - 25},18L${W - 20},8L${W - 15},18Z"/><text x="${W - 20}" y="54" text-anchor="middle">N</text></g>`,
-    `<g class="scale"><line x1="12" y1="${H - 14}" x2="${(12 + bar).toFixed(1)}" y2="${H - 14}"/><text x="12" y="${H - 20}">10 m</text></g>`,
+    `<g class="scale"><line x1="12" y1="${H - 14}" x2="${(12 + bar).toFixed(1)}" y2="${H - 14}"/><text x="12" y="${H - 20}">${barM} m</text></g>`,
   );
   out.push('</svg>');
   return out.join('');
@@ -243,6 +379,9 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .keepout.line { fill: none; stroke-width: 2; stroke-dasharray: 6 3; }
 .klabel { fill: #a33; }
 .radial { stroke: #8c7a4b; stroke-width: 0.7; }
+.rope { stroke: #6f7a80; stroke-width: 1; stroke-dasharray: 2 2; }
+.feed { fill: #ffd45c; stroke: #1d232a; stroke-width: 1.5; }
+.flabel { fill: #1d232a; font-weight: 600; }
 .coax { fill: none; stroke: #555; stroke-width: 1.2; stroke-dasharray: 4 3; }
 .keepout.path { stroke: #8a6d1f; stroke-dasharray: 2 4; }
 .zone { fill: rgba(124, 58, 237, 0.14); stroke: #7c3aed; stroke-width: 1.2; fill-rule: nonzero; }
@@ -345,8 +484,10 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
   parts.push(
     section(
       'Lot plan',
-      `${lotSvg(s)}<p class="note">${e(
-        'Site frame: x east, y north, metres. Red: antenna wires with their lengths and end heights (h). Filled circles: supports used. Dashed grey: feed line from the station along its route. Thin brown: radials. Red shading and dashed red: keep-outs; dotted brown: paths. Violet shading: where a standing person would be inside the FCC general-population distance (with ground reflection); dashed teal: the same for the ICNIRP 2020 public level.',
+      `${planSvg(s, 'lot')}<p class="note">${e(
+        'Site frame: x east, y north, metres. Red: antenna wires. Filled circles: supports used. Dashed grey: feed line from the station along its route. Thin brown: radials. Red shading and dashed red: keep-outs; dotted brown: paths. Violet shading: where a standing person would be inside the FCC general-population distance (with ground reflection); dashed teal: the same for the ICNIRP 2020 public level.',
+      )}</p><h3>Antenna detail</h3>${planSvg(s, 'detail')}<p class="note">${e(
+        'The same plan, closer: every wire with its length, the heights of the wire ends (h), the ropes (dotted grey) to their supports or ground anchors, and the feed point (yellow).',
       )}</p>`,
     ),
   );
