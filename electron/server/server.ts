@@ -182,6 +182,13 @@ export async function startBrowserServer(options: BrowserServerOptions): Promise
     port,
     token,
     url: `http://127.0.0.1:${port}/#token=${token}`,
-    close: () => new Promise<void>((ok) => server.close(() => ok())),
+    // Stop accepting; let requests in flight finish for up to a second, then drop what is left
+    // (a page that stays open keeps connections alive, and stopping must not wait on it).
+    close: () =>
+      new Promise<void>((ok) => {
+        server.close(() => ok());
+        server.closeIdleConnections();
+        setTimeout(() => server.closeAllConnections(), 1000).unref();
+      }),
   };
 }
