@@ -2,23 +2,9 @@
 // are kept in the project, the distances follow 47 CFR §1.1310 Table 1 and FCC OET Bulletin 65
 // (S = 2.56·EIRP/(4πR²)), the zones are drawn on the map and flagged where they reach the demo's
 // garden path, and the feed line can be routed on the map, its length following.
-import type { Page } from '@playwright/test';
-import { expect, openApp, shot, test } from './fixtures.ts';
+import { expect, openApp, planAndSelectFirst, shot, test } from './fixtures.ts';
 
 test.describe.configure({ mode: 'serial' });
-
-async function planAndSelect(page: Page): Promise<void> {
-  const bar = page.getByTestId('run-bar');
-  for (const b of ['160 m', '40 m']) {
-    const box = bar.getByRole('checkbox', { name: b });
-    if (await box.isChecked()) await box.uncheck();
-  }
-  const b80 = bar.getByRole('checkbox', { name: '80 m' });
-  if (!(await b80.isChecked())) await b80.check();
-  await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
-  await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 200_000 });
-  await page.getByTestId('candidate-row').first().click();
-}
 
 const num = (s: string | null, re: RegExp): number => {
   const m = re.exec(s ?? '');
@@ -32,7 +18,7 @@ test('exposure distances, zones on the map, and a flag where a zone reaches the 
 }) => {
   test.setTimeout(240_000);
   await openApp(page, host);
-  await planAndSelect(page);
+  await planAndSelectFirst(page, '80 m');
   const panel = page.getByTestId('exposure-panel');
   await expect(panel).toBeVisible();
 
@@ -71,14 +57,14 @@ test('exposure distances, zones on the map, and a flag where a zone reaches the 
 
   // The settings are kept in the project: after a reload they are still there.
   await page.reload();
-  await planAndSelect(page);
+  await planAndSelectFirst(page, '80 m');
   await expect(page.getByTestId('station-power')).toHaveValue('100000');
 });
 
 test('the feed line is routed on the map and its length follows', async ({ page, host }) => {
   test.setTimeout(240_000);
   await openApp(page, host);
-  await planAndSelect(page);
+  await planAndSelectFirst(page, '80 m');
   const run = page.getByTestId('feed-run');
   await expect(run).toContainText('straight from the station point');
   const before = num(await run.textContent(), /Feed line: ([\d.]+) m/);

@@ -130,6 +130,25 @@ export async function openApp(page: Page, host: Host): Promise<void> {
 }
 
 /** Wait until the last edit has reached the store. */
+/** Tick only this band in the run bar (the others off) and start the plan. */
+export async function startPlan(page: Page, band: '160 m' | '80 m' | '40 m'): Promise<void> {
+  const bar = page.getByTestId('run-bar');
+  for (const b of ['160 m', '80 m', '40 m'].filter((x) => x !== band)) {
+    const box = bar.getByRole('checkbox', { name: b });
+    if (await box.isChecked()) await box.uncheck();
+  }
+  const box = bar.getByRole('checkbox', { name: band });
+  if (!(await box.isChecked())) await box.check();
+  await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
+}
+
+/** Plan one band, wait for the shortlist and select its first candidate. */
+export async function planAndSelectFirst(page: Page, band: '160 m' | '80 m' | '40 m'): Promise<void> {
+  await startPlan(page, band);
+  await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 200_000 });
+  await page.getByTestId('candidate-row').first().click();
+}
+
 export async function waitSaved(page: Page): Promise<void> {
   await expect(page.getByTestId('save-status')).toHaveText('Saved');
 }

@@ -8,23 +8,14 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { REPORT_SECTIONS } from '../../core/report/html.ts';
-import { expect, openApp, shot, test } from './fixtures.ts';
+import { expect, openApp, planAndSelectFirst, shot, test } from './fixtures.ts';
 
 const REPORT_BLUE = 'rgb(47, 93, 124)'; // the report's heading colour (core/report/html.ts)
 
 test('the build sheet opens in the print view and prints only the report', async ({ page, host }) => {
   test.setTimeout(240_000);
   await openApp(page, host);
-  const bar = page.getByTestId('run-bar');
-  for (const b of ['160 m', '80 m']) {
-    const box = bar.getByRole('checkbox', { name: b });
-    if (await box.isChecked()) await box.uncheck();
-  }
-  const b40 = bar.getByRole('checkbox', { name: '40 m' });
-  if (!(await b40.isChecked())) await b40.check();
-  await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
-  await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 200_000 });
-  await page.getByTestId('candidate-row').first().click();
+  await planAndSelectFirst(page, '40 m');
   const detail = page.getByTestId('candidate-detail');
   const sheetButton = detail.getByRole('button', { name: 'Build sheet…' });
 

@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { runReport } from '../../core/cli/report.ts';
 import { REPORT_SECTIONS } from '../../core/report/html.ts';
-import { openApp, shot, test as appTest } from './fixtures.ts';
+import { openApp, planAndSelectFirst, shot, test as appTest } from './fixtures.ts';
 
 test('the demo build sheet opens standalone with every section', async ({ page, context }) => {
   test.setTimeout(180_000);
@@ -47,8 +47,11 @@ test('the demo build sheet opens standalone with every section', async ({ page, 
     await expect(page.getByRole('heading', { level: 1 })).toContainText('Build sheet');
     for (const h of REPORT_SECTIONS)
       await expect(page.getByRole('heading', { level: 2, name: h, exact: true })).toBeVisible();
-    await expect(page.locator('svg.lot')).toBeVisible();
-    await expect(page.locator('svg.lot .wire').first()).toBeVisible();
+    await expect(page.getByRole('img', { name: /^Lot plan of / })).toBeVisible();
+    const detail = page.getByRole('img', { name: /^Antenna detail of / });
+    await expect(detail).toBeVisible();
+    await expect(detail.locator('.wire').first()).toBeVisible();
+    await expect(detail.locator('.feed')).toHaveCount(1);
     await expect(page.getByText(/fall in the antenna’s near field/)).toBeVisible();
     await expect(page.getByText(/kHz per cm/)).toBeVisible();
     await page.setViewportSize({ width: 900, height: 860 });
@@ -70,16 +73,7 @@ test.describe('build sheet from the app', () => {
     async ({ page, host }) => {
       appTest.setTimeout(240_000);
       await openApp(page, host);
-      const bar = page.getByTestId('run-bar');
-      for (const b of ['160 m', '80 m']) {
-        const box = bar.getByRole('checkbox', { name: b });
-        if (await box.isChecked()) await box.uncheck();
-      }
-      const b40 = bar.getByRole('checkbox', { name: '40 m' });
-      if (!(await b40.isChecked())) await b40.check();
-      await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
-      await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 200_000 });
-      await page.getByTestId('candidate-row').first().click();
+      await planAndSelectFirst(page, '40 m');
       const detail = page.getByTestId('candidate-detail');
       await detail.getByRole('button', { name: 'Build sheet…' }).click();
       const view = page.getByTestId('report-view');
