@@ -39,6 +39,14 @@ export interface ZoneWire {
 
 export type PlaceKind = 'house' | 'path' | 'boundary' | 'station';
 
+/** A place kind in words. */
+export const PLACE_WORD: Readonly<Record<PlaceKind, string>> = {
+  house: 'house',
+  path: 'path',
+  boundary: 'property line',
+  station: 'operating position',
+};
+
 /** One place of the lot and how close a person there can come to the antenna. */
 export interface PlaceReach {
   kind: PlaceKind;

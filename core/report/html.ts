@@ -4,6 +4,7 @@
  * per-region gains, SWR and bandwidth, RF exposure and cautions. Every piece of text goes through
  * `escapeHtml` — names come from the user's project and are never markup.
  */
+import { PLACE_WORD } from './exposureZones.ts';
 import type { BuildSheet } from './buildSheet.ts';
 import type { XY } from '../site/frame.ts';
 
@@ -410,13 +411,6 @@ figcaption { font-size: 12px; color: #5a6570; }
   @page { size: A4; margin: 14mm; }
 }
 `;
-
-const PLACE_WORD: Record<string, string> = {
-  house: 'house',
-  path: 'path',
-  boundary: 'property line',
-  station: 'operating position',
-};
 
 /** Which places of the lot each zone reaches, and how close a person can come in each. */
 function exposureReachHtml(s: BuildSheet): string {

@@ -13,6 +13,45 @@ import {
 } from '../../../core/report/exposure.ts';
 import { exposureOnLot, type ExposureOnLot } from '../../../core/report/exposureZones.ts';
 import { buildSite } from '../../../core/site/site.ts';
+import { coaxLossDbPer100m, feedRun } from '../../../core/report/buildSheet.ts';
+import type { LonLat } from '../../../core/project/schema.ts';
+import type { XY } from '../../../core/site/frame.ts';
+import type { DrawnCandidate } from './mapDraw.ts';
+
+export interface CandidateFeedRun {
+  stationXY: XY;
+  routeXY: XY[];
+  lengthM: number;
+  bends: number;
+  lossDb: number;
+  per100: number;
+}
+
+/** The feed-line run of a drawn candidate along the user's bends, and its matched loss; null without a feed point. */
+export function candidateFeedRun(
+  madeFor: Project,
+  bends: readonly LonLat[],
+  coax: StationSettings['coax'],
+  c: DrawnCandidate,
+): CandidateFeedRun | null {
+  const feed = c.drawing?.feedXYZ;
+  if (!feed) return null;
+  const site = buildSite(madeFor);
+  const r = feedRun(
+    site.station,
+    bends.map((b) => site.frame.toLocal(b)),
+    feed,
+  );
+  const per100 = coaxLossDbPer100m(coax, c.feed.freqMHz);
+  return {
+    stationXY: site.station,
+    routeXY: r.routeXY,
+    lengthM: r.lengthM,
+    bends: bends.length,
+    lossDb: (per100 * r.lengthM) / 100,
+    per100,
+  };
+}
 
 /** Which rule's two zones (general public and controlled/occupational) the map draws. */
 export type ExposureRule = 'fcc' | 'icnirp';

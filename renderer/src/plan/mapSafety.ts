@@ -6,7 +6,7 @@
  */
 import L from '../map/leaflet.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
-import type { ZoneOnLot, PlaceReach } from '../../../core/report/exposureZones.ts';
+import { PLACE_WORD, type ZoneOnLot } from '../../../core/report/exposureZones.ts';
 import type { XY } from '../../../core/site/frame.ts';
 import type { XYZ } from '../../../core/site/geometry.ts';
 import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
@@ -24,13 +24,6 @@ function textContent(text: string): HTMLElement {
   el.textContent = text;
   return el;
 }
-
-const PLACE_WORD: Record<PlaceReach['kind'], string> = {
-  house: 'house',
-  path: 'path',
-  boundary: 'property line',
-  station: 'operating position',
-};
 
 /**
  * Draw the general-public zone (filled) and the controlled zone (outlined) of one rule, and a
