@@ -6,7 +6,7 @@ import type { Band } from '../project/schema.ts';
 import { wavelengthM } from '../units/index.ts';
 import type { Element } from '../site/feasibility.ts';
 import { placeXY, placeXYZ, type XYZ } from '../site/geometry.ts';
-import type { BandPlan, CutItem, Design, ModelWire, Placement } from './types.ts';
+import type { BandPlan, CutItem, CutKind, Design, ModelWire, Placement } from './types.ts';
 
 /**
  * Design frequencies, Hz. 160 m: 1.83 MHz, 80 m: 3.55 MHz, 40 m: 7.05 MHz — the centres of the
@@ -72,8 +72,14 @@ export function arr(design: Design, key: string): number[] {
   return v;
 }
 
-export function cut(label: string, count: number, lengthM: number, ends = 2): CutItem {
-  return { label, count, lengthM, cutLengthM: lengthM + ends * CUT_ALLOWANCE_PER_END_M };
+export function cut(
+  label: string,
+  count: number,
+  lengthM: number,
+  ends = 2,
+  kind: CutKind = 'wire',
+): CutItem {
+  return { kind, label, count, lengthM, cutLengthM: lengthM + ends * CUT_ALLOWANCE_PER_END_M };
 }
 
 /** Move canonical-frame elements onto the site. */

@@ -178,7 +178,7 @@ export const dipoleBuilder: Builder = {
     const items = [cut('dipole leg (centre insulator to end)', 2, L / 2)];
     if (sh.ropes.length)
       items.push({
-        ...cut('rope to support', 2, wireLength({ from: sh.ropes[0][0], to: sh.ropes[0][1] }), 0),
+        ...cut('rope to support', 2, wireLength({ from: sh.ropes[0][0], to: sh.ropes[0][1] }), 0, 'rope'),
       });
     return items;
   },

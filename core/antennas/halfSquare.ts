@@ -131,7 +131,7 @@ export const halfSquareBuilder: Builder = {
   elements(d, dropM): Element[] {
     const { top, A, B, s } = sides(d, dropM);
     const els: Element[] = [
-      { kind: 'wire', label: 'top wire', from: top[0], to: top[1] },
+      { kind: 'wire', label: 'top wire', role: 'top-wire', from: top[0], to: top[1] },
       { kind: 'wire', label: 'drop A', from: A.corner, to: A.bottom },
       { kind: 'wire', label: 'drop B', from: B.corner, to: B.bottom },
       { kind: 'end', label: 'lower end A', at: A.end },

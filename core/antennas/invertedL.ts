@@ -150,7 +150,7 @@ export const invertedLBuilder: Builder = {
     const { top, end, far } = shape(d, L);
     return [
       { kind: 'wire', label: 'vertical part', from: [0, 0, 0], to: top },
-      { kind: 'wire', label: 'top part', from: top, to: end },
+      { kind: 'wire', label: 'top part', role: 'top-wire', from: top, to: end },
       { kind: 'rope', label: 'rope to the far support', from: end, to: far },
       { kind: 'end', label: 'far end', at: end },
       { kind: 'support', label: 'support A', supportId: 'A', at: [0, 0], heightM: num(d, 'heightAM') },
@@ -173,7 +173,7 @@ export const invertedLBuilder: Builder = {
     for (const l of lengths) byLen.set(l, (byLen.get(l) ?? 0) + 1);
     [...byLen.entries()]
       .sort((p, q) => q[0] - p[0])
-      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1)));
+      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1, 'radial')));
     return items;
   },
 };

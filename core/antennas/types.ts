@@ -97,7 +97,11 @@ export interface BuildContext {
   band: BandPlan;
 }
 
+/** What a cut-list piece is, so that no consumer has to read it from the label. */
+export type CutKind = 'wire' | 'radial' | 'rope';
+
 export interface CutItem {
+  kind: CutKind;
   label: string;
   count: number;
   /** Electrical length of one piece as modelled, metres. */

@@ -184,7 +184,7 @@ export const verticalBuilder: Builder = {
     for (const l of lengths) byLen.set(l, (byLen.get(l) ?? 0) + 1);
     [...byLen.entries()]
       .sort((p, q) => q[0] - p[0])
-      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1)));
+      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1, 'radial')));
     return items;
   },
 };

@@ -1,16 +1,13 @@
 /**
- * Physical constants for the field solver (SI).
- *
- * μ0 is taken as 4π·10⁻⁷ H/m (its pre-2019 defined value; the CODATA 2018 value differs by
- * 5.5·10⁻¹⁰ relative, far below any tolerance here), c is exact, ε0 = 1/(μ0c²), η0 = μ0c.
- * Source: BIPM, The International System of Units (SI), 9th ed. (2019), §2.3.1 and appendix.
+ * The field solver's short names for the physical constants of core/units (the one place they are
+ * defined, with their source), in the symbols of the solver's formulas.
  */
-import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
+import { EPS0_F_PER_M, ETA0_OHM, MU0_H_PER_M, SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
 export const C0 = SPEED_OF_LIGHT_M_PER_S;
-export const MU0 = 4e-7 * Math.PI;
-export const EPS0 = 1 / (MU0 * C0 * C0);
+export const MU0 = MU0_H_PER_M;
+export const EPS0 = EPS0_F_PER_M;
 /** Impedance of free space, ≈ 376.730 Ω. */
-export const ETA0 = MU0 * C0;
+export const ETA0 = ETA0_OHM;
 
 export const waveNumber = (freqHz: number): number => (2 * Math.PI * freqHz) / C0;

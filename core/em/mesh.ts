@@ -34,6 +34,7 @@ import type { ConductorMaterial } from './conductor.ts';
 import { MATERIALS } from './conductor.ts';
 import { ModelError, type Diagnostic } from './errors.ts';
 import type { AntennaModel, Vec3 } from './types.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
 export const DEFAULT_SEGMENTS_PER_WAVELENGTH = 80;
 /** Wire ends closer than this (metres) are joined. */
@@ -212,7 +213,7 @@ export function buildMesh(model: AntennaModel, opts: MeshOptions): Mesh {
   const nWires = model.wires.length;
   if (nWires === 0) throw new ModelError('wires', 'the antenna has no wires');
   if (!(opts.maxFreqHz > 0)) throw new ModelError('frequenciesMHz', 'no positive frequency');
-  const lambda = 299_792_458 / opts.maxFreqHz;
+  const lambda = SPEED_OF_LIGHT_M_PER_S / opts.maxFreqHz;
   const spw = opts.segmentsPerWavelength ?? DEFAULT_SEGMENTS_PER_WAVELENGTH;
   const special = specialPositions(model);
 

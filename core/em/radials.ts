@@ -42,6 +42,7 @@
 import { c, cAdd, cDiv, cMul, type Complex } from '../numeric/complex.ts';
 import { gaussLegendre01 } from '../numeric/quadrature.ts';
 import { MU0 } from './constants.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
 export const RADIAL_LIMIT_WAVELENGTHS = 0.5;
 export const BARE_CONTACT_RADIUS_M = 0.0127;
@@ -121,7 +122,7 @@ export function groundLossResistance(inp: GroundLossInput): number {
  * ground (Wait & Pope 1954), I0 = Im sin kh the base current.
  */
 export function sinusoidalMonopoleSurfaceField(freqHz: number, heightM: number): (rhoM: number) => number {
-  const k = (2 * Math.PI * freqHz) / 299_792_458;
+  const k = (2 * Math.PI * freqHz) / SPEED_OF_LIGHT_M_PER_S;
   const s = Math.sin(k * heightM);
   const ckh = Math.cos(k * heightM);
   return (rho) => {

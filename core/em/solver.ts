@@ -35,6 +35,7 @@ import {
   type RadialScreen,
 } from './radials.ts';
 import type { AntennaModel, LoadSpec } from './types.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
 export interface Port {
   wire: number;
@@ -198,7 +199,7 @@ export function prepareModel(
 
 /** Outer limit of the radial-system integration: max(0.5 λ, longest radial). */
 export function zoneRadius(pc: PreparedContact, freqHz: number): number {
-  const lam = 299_792_458 / freqHz;
+  const lam = SPEED_OF_LIGHT_M_PER_S / freqHz;
   return Math.max(RADIAL_LIMIT_WAVELENGTHS * lam, ...pc.screen.lengthsM);
 }
 

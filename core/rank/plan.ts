@@ -16,7 +16,18 @@
  */
 import { BUILDERS, builderFor } from '../antennas/registry.ts';
 import { bandPlan, placeElements, CUT_ALLOWANCE_PER_END_M } from '../antennas/common.ts';
-import type { AntennaTypeId, Design, Proposal, Rejection } from '../antennas/types.ts';
+import type { AntennaTypeId, CutKind, Design, Placement, Proposal, Rejection } from '../antennas/types.ts';
+import type { Caution } from '../report/cautions.ts';
+import {
+  candidateCautions,
+  elementsWithRoles,
+  feedLineElement,
+  feedPointsOf,
+  groundSystemOf,
+  type FeedPoint,
+  type GroundSystem,
+  type PlacedElement,
+} from './candidate.ts';
 import { planPaths, type RegionPath } from '../paths/index.ts';
 import type { Band, LonLat, Project } from '../project/schema.ts';
 import type { XY } from '../site/frame.ts';
@@ -94,8 +105,17 @@ export interface RegionResult {
   hops: { min: number; max: number };
 }
 
+/**
+ * One shortlisted antenna, complete: everything a view needs is here, so that no view re-runs the
+ * enumeration, re-derives the frame or parses labels. `design` and `placement` rebuild the solver
+ * model exactly (builderFor(design.type).model(design, trim.valueM)).
+ */
 export interface Candidate {
   id: string;
+  /** The design as evaluated (type, band, parameters, trim limits). */
+  design: Design;
+  /** Canonical frame → site: rotation and origin in the site frame, and the site frame's origin on the map. */
+  placement: Placement & { frameOriginLonLat: LonLat };
   rank: number;
   band: Band;
   type: AntennaTypeId;
@@ -121,10 +141,18 @@ export interface Candidate {
     groundLossDb: number;
   };
   trim: { dimension: string; valueM: number; resonant: boolean };
-  cutList: { label: string; count: number; lengthM: number; cutLengthM: number }[];
+  cutList: { kind: CutKind; label: string; count: number; lengthM: number; cutLengthM: number }[];
   cutAllowance: string;
   footprint: { ringXY: XY[]; ringLonLat: LonLat[] };
+  /** The modelled conductors in the site frame (the solver's wires, radials aside). */
   wires: { label: string; from: [number, number, number]; to: [number, number, number] }[];
+  /** Every placed element with its role: radiators, top wires, radials, ropes, ends, anchors, supports, masts, the feed line. */
+  elements: PlacedElement[];
+  /** Feed points in the site frame and on the map (one for every type today). */
+  feedPoints: FeedPoint[];
+  groundSystem: GroundSystem;
+  /** The safety cautions that apply (core/report/cautions.ts): the one list every view shows. */
+  cautions: Caution[];
   fits: string[];
   variants: number;
   diagnostics: string[];
@@ -358,10 +386,14 @@ export function rankPlan(
         Math.round(q[1] * 100) / 100,
       ]);
       const model = builder.model(p.design, rec.trimM);
+      const feedPoints = feedPointsOf(model, p.placement, site.frame);
+      const placed = [...elementsWithRoles(elements), ...feedLineElement(site.station, feedPoints[0])];
       const peakAz = (rec.peak.azimuthDeg + p.placement.rotationDeg + 360) % 360;
       const bw = rec.bandwidth;
       candidates.push({
         id: `${b.band}-${p.groupKey.replace(/:/g, '-')}`,
+        design: p.design,
+        placement: { ...p.placement, frameOriginLonLat: site.frame.origin },
         rank: i + 1,
         band: b.band,
         type: p.design.type,
@@ -432,6 +464,10 @@ export function rankPlan(
           from: placeXYZ(w.from, p.placement.rotationDeg, p.placement.originXY),
           to: placeXYZ(w.to, p.placement.rotationDeg, p.placement.originXY),
         })),
+        elements: placed,
+        feedPoints,
+        groundSystem: groundSystemOf(model, p.placement, site.frame),
+        cautions: candidateCautions(p.design.type, p.supports, placed, site),
         fits,
         variants: g.count,
         diagnostics: rec.diagnostics,

@@ -24,7 +24,7 @@ import { buildSite } from '../site/site.ts';
 import type { XY } from '../site/frame.ts';
 import { estimateExposure, type ExposureEstimate, type Mode } from './exposure.ts';
 import { exposureOnLot, type ExposureOnLot } from './exposureZones.ts';
-import { cautionsFor, type Caution } from './cautions.ts';
+import type { Caution } from './cautions.ts';
 import { trimHow } from './tuning.ts';
 
 /* ----------------------------------------------------------------------------------------------
@@ -285,7 +285,6 @@ const near = (a: XYZ, b: XYZ, tol = 0.02): boolean => len3(a, b) < tol;
 
 /** Centre-fed types that want a choke balun at the feed point (common practice, no source). */
 const CENTRE_FED = new Set(['dipole', 'inverted-v']);
-const HIGH_VOLTAGE_ENDS = new Set(['dipole', 'inverted-v', 'half-square']);
 
 export interface BuildSheetInput {
   project: Project;
@@ -433,18 +432,8 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
 
   const onLot = exposureOnLot(c.wires, site, exposure);
 
-  const kindById = new Map(project.supports.map((s) => [s.id, s.kind]));
-  const cautions = cautionsFor({
-    hasPowerLine: project.keepOuts.some((k) => k.kind === 'power-line'),
-    highVoltageEnds: HIGH_VOLTAGE_ENDS.has(c.type),
-    usesSupports: c.supports.length > 0,
-    newStructure:
-      c.supports.some((s) => {
-        const k = kindById.get(s.id);
-        return k === 'mast' || k === 'tower';
-      }) ||
-      (c.supports.length === 0 && c.type === 'vertical'),
-  });
+  // The candidate's own list (core/report/cautions.ts through the planner): the same the app shows.
+  const cautions = c.cautions;
 
   let pattern: BuildSheet['pattern'] = null;
   if (input.gainAt) {

@@ -20,7 +20,8 @@ export const CAUTIONS: Record<CautionId, Caution> = {
   'high-voltage-ends': {
     id: 'high-voltage-ends',
     title: 'High RF voltage at wire ends',
-    text: 'The ends of a dipole or inverted-V and the lower ends of a half-square carry high RF voltage when you transmit. Keep them out of reach of people and animals, and use insulators rated for it.',
+    // The text is made per type by cautionsFor (highVoltageEndsText); this is the generic form.
+    text: 'The free ends of the wires carry high RF voltage when you transmit. Keep them out of reach of people and animals, and use insulators rated for it.',
   },
   climbing: {
     id: 'climbing',
@@ -44,25 +45,54 @@ export const CAUTIONS: Record<CautionId, Caution> = {
   },
 };
 
+/** What decides which cautions apply to one placed antenna on one lot. */
 export interface CautionContext {
-  /** The lot has a power line keep-out. */
+  /** The antenna type (decides where its high-voltage ends are). */
+  type: string;
+  /** The lot has a power-line keep-out. */
   hasPowerLine: boolean;
-  /** The antenna has wire ends at high RF voltage (dipole, inverted-V, half-square ends). */
-  highVoltageEnds: boolean;
-  /** Something is hung in a tree or on a mast or tower. */
-  usesSupports: boolean;
-  /** A self-supporting or tall structure is put up. */
-  newStructure: boolean;
+  /** Kinds of the supports the antenna hangs from ('tree', 'mast', 'tower', …). */
+  supportKinds: readonly string[];
+  /** The antenna puts up its own structure (a self-supporting vertical). */
+  selfSupporting: boolean;
 }
 
-/** The cautions that apply, most important first. Lightning and RF exposure always apply. */
+/**
+ * Where a type's wire ends carry high RF voltage, in plain words; null for a ground-fed vertical
+ * (its top is high, out of reach, and its base is at low impedance).
+ */
+export function highVoltageEndsText(type: string): string | null {
+  switch (type) {
+    case 'vertical':
+      return null;
+    case 'half-square':
+      return 'The lower ends of the two drops carry high RF voltage when you transmit.';
+    case 'inverted-l':
+      return 'The far end of the top part carries high RF voltage when you transmit.';
+    case 'inverted-v':
+      return 'Both ends of the inverted-V carry high RF voltage when you transmit, and they hang lowest.';
+    case 'dipole':
+      return 'Both ends of the dipole carry high RF voltage when you transmit.';
+    default:
+      return 'The free ends of the wires carry high RF voltage when you transmit.';
+  }
+}
+
+const HIGH_VOLTAGE_ADVICE = 'Keep them out of reach of people and animals, and use insulators rated for it.';
+
+/**
+ * The cautions that apply, most important first: the one list the candidate carries, and so the
+ * one the panel, the map and the build sheet show. Lightning and RF exposure always apply.
+ */
 export function cautionsFor(ctx: CautionContext): Caution[] {
   const out: Caution[] = [];
   if (ctx.hasPowerLine) out.push(CAUTIONS['power-lines']);
-  if (ctx.highVoltageEnds) out.push(CAUTIONS['high-voltage-ends']);
-  if (ctx.usesSupports) out.push(CAUTIONS.climbing);
+  const hv = highVoltageEndsText(ctx.type);
+  if (hv) out.push({ ...CAUTIONS['high-voltage-ends'], text: `${hv} ${HIGH_VOLTAGE_ADVICE}` });
+  if (ctx.supportKinds.length > 0) out.push(CAUTIONS.climbing);
   out.push(CAUTIONS.lightning);
-  if (ctx.newStructure) out.push(CAUTIONS.permits);
+  if (ctx.selfSupporting || ctx.supportKinds.some((k) => k === 'mast' || k === 'tower'))
+    out.push(CAUTIONS.permits);
   out.push(CAUTIONS['rf-exposure']);
   return out;
 }

@@ -22,9 +22,10 @@
  * 80 m), where the far-field formula is only a screening estimate: local rules and a professional
  * evaluation govern.
  */
+import { ETA0_OHM } from '../units/index.ts';
 
-/** Free-space wave impedance, Ω (CODATA 2018: μ0 c). */
-export const ETA0_OHM = 376.730313668;
+/** Free-space wave impedance, Ω (μ0 c, from core/units). */
+export { ETA0_OHM };
 /** Ground-reflection factor of OET Bulletin 65 (1.6², power density). */
 export const GROUND_REFLECTION_FACTOR = 2.56;
 

@@ -28,7 +28,15 @@ export const POWER_LINE_MARGIN_M = 3;
 export const SAMPLE_STEP_M = 0.5;
 
 export type Element =
-  | { kind: 'wire' | 'rope'; label: string; from: XYZ; to: XYZ }
+  | {
+      kind: 'wire';
+      label: string;
+      from: XYZ;
+      to: XYZ;
+      /** What the conductor does: the default is a radiator; a horizontal top section says so. */
+      role?: 'radiator' | 'top-wire';
+    }
+  | { kind: 'rope'; label: string; from: XYZ; to: XYZ }
   | { kind: 'radial'; label: string; from: XYZ; to: XYZ }
   | { kind: 'end'; label: string; at: XYZ }
   | { kind: 'anchor'; label: string; at: XYZ }

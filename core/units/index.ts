@@ -3,7 +3,18 @@
  * edges, through these functions (one quantity per name, unit as suffix).
  */
 export const FT_PER_M = 1 / 0.3048; // international foot, exact by definition (1959)
-export const SPEED_OF_LIGHT_M_PER_S = 299_792_458; // exact, SI definition
+
+/*
+ * Physical constants, the one place for them (SI). c is exact; μ0 is taken as 4π·10⁻⁷ H/m (its
+ * pre-2019 defined value; the CODATA 2018 value differs by 5.5·10⁻¹⁰ relative, far below any
+ * tolerance here); ε0 = 1/(μ0 c²); η0 = μ0 c ≈ 376.730 Ω.
+ * Source: BIPM, The International System of Units (SI), 9th ed. (2019), §2.3.1 and appendix.
+ */
+export const SPEED_OF_LIGHT_M_PER_S = 299_792_458;
+export const MU0_H_PER_M = 4e-7 * Math.PI;
+export const EPS0_F_PER_M = 1 / (MU0_H_PER_M * SPEED_OF_LIGHT_M_PER_S * SPEED_OF_LIGHT_M_PER_S);
+/** Impedance of free space, Ω. */
+export const ETA0_OHM = MU0_H_PER_M * SPEED_OF_LIGHT_M_PER_S;
 
 export const feetToM = (ft: number): number => ft * 0.3048;
 export const mToFeet = (m: number): number => m / 0.3048;

@@ -28,6 +28,7 @@ import { remainderCylindrical } from './index.ts';
 import { halfSpace, type HalfSpace } from './medium.ts';
 import { CYL_LEN } from './sommerfeld.ts';
 import { remainderTable, type RemainderTable } from './table.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../../units/index.ts';
 
 export interface ExactGroundOptions {
   /** Pairs with both segments below this height (m) use the exact model; default 1 λ. */
@@ -76,7 +77,7 @@ export class ExactGroundAt implements GroundAtFrequency {
     private readonly opts: ExactGroundOptions,
   ) {
     this.hs = halfSpace({ freqHz, ...soil });
-    this.hExact = (opts.exactHeightWavelengths * 299_792_458) / freqHz;
+    this.hExact = (opts.exactHeightWavelengths * SPEED_OF_LIGHT_M_PER_S) / freqHz;
   }
   get epsC(): GroundAtFrequency['epsC'] {
     return this.approx.epsC;

@@ -12,12 +12,11 @@
  *        electrostatic image factor: J. D. Jackson, Classical Electrodynamics, 3rd ed. (1999),
  *        §4.4, eq. 4.45, with ε → εc)
  */
-import { SPEED_OF_LIGHT_M_PER_S } from '../../units/index.ts';
+import { EPS0_F_PER_M, ETA0_OHM, SPEED_OF_LIGHT_M_PER_S } from '../../units/index.ts';
 
-/** ε0 = 1/(μ0 c²), μ0 = 4π·10⁻⁷ H/m (the same values as the solver's constants). */
-export const HS_EPS0 = 1 / (4e-7 * Math.PI * SPEED_OF_LIGHT_M_PER_S * SPEED_OF_LIGHT_M_PER_S);
-/** η0 = μ0 c. */
-export const HS_ETA0 = 4e-7 * Math.PI * SPEED_OF_LIGHT_M_PER_S;
+/** ε0 and η0 from core/units (the one place the constants are defined). */
+export const HS_EPS0 = EPS0_F_PER_M;
+export const HS_ETA0 = ETA0_OHM;
 
 export interface SoilAtFrequency {
   freqHz: number;

@@ -6,7 +6,6 @@
 // solver's rate is tested in planRunTune.svelte.test.ts.
 import { fireEvent, render, screen } from '@testing-library/svelte';
 import { describe, expect, it } from 'vitest';
-import type { EvalFrequency, Evaluator } from '../../../core/rank/evaluator.ts';
 import { tuningText } from '../../../core/report/tuning.ts';
 import { ProjectState } from '../state/project.svelte.ts';
 import { createPlanHost } from '../workers/planHost.ts';
@@ -15,27 +14,9 @@ import type { FromWorker, ToWorker } from '../workers/protocol.ts';
 import { Planning } from './planning.svelte.ts';
 import { demoPlanProject } from './testShortlist.ts';
 import TuningNote from './TuningNote.svelte';
+import { toyEvaluator as makeToyEvaluator } from '../../../test/helpers/toyEvaluator.ts';
 
-const toyEvaluator: Evaluator = (req) =>
-  req.frequenciesHz.map((f): EvalFrequency => {
-    const len = req.model.wires.reduce(
-      (s, w) => s + Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]),
-      0,
-    );
-    const gain = req.pattern
-      ? new Float64Array(req.pattern.elevationsDeg.length * req.pattern.azimuthsDeg.length).fill(3)
-      : null;
-    return {
-      freqHz: f,
-      zOhm: [60, 900 * (len / (299_792_458 / f) - 0.48)],
-      inputPowerW: 1,
-      radiatedPowerW: 0.8,
-      conductorLossW: 0.05,
-      groundLossW: 0.15,
-      gainDbi: gain,
-      diagnostics: [],
-    };
-  });
+const toyEvaluator = makeToyEvaluator({ pattern: 'flat' });
 
 async function until(check: () => boolean, ms = 20_000): Promise<void> {
   const t0 = Date.now();

@@ -3,36 +3,13 @@
 // planning host and its message loop with a toy evaluator. After each, a re-run must end done.
 import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
-import type { EvalFrequency, Evaluator } from '../../../core/rank/evaluator.ts';
 import { createPlanHost, workerLoop } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import type { FromWorker, TestFault, ToWorker } from '../workers/protocol.ts';
 import { PlanRunner, type RunStatus } from './planRun.svelte.ts';
+import { toyEvaluator as makeToyEvaluator } from '../../../test/helpers/toyEvaluator.ts';
 
-/** A toy evaluator (not physics): reactance grows with total wire length, so trimming converges. */
-const toyEvaluator: Evaluator = (req) =>
-  req.frequenciesHz.map((f): EvalFrequency => {
-    const len = req.model.wires.reduce(
-      (s, w) => s + Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]),
-      0,
-    );
-    const x = 900 * (len / (299_792_458 / f) - 0.48);
-    let gain: Float64Array | null = null;
-    if (req.pattern) {
-      const { elevationsDeg: els, azimuthsDeg: azs } = req.pattern;
-      gain = new Float64Array(els.length * azs.length).fill(3);
-    }
-    return {
-      freqHz: f,
-      zOhm: [60, x],
-      inputPowerW: 1,
-      radiatedPowerW: 0.8,
-      conductorLossW: 0.05,
-      groundLossW: 0.15,
-      gainDbi: gain,
-      diagnostics: [],
-    };
-  });
+const toyEvaluator = makeToyEvaluator({ pattern: 'flat' });
 
 interface Fake extends PlanWorker {
   terminated: boolean;

@@ -13,6 +13,7 @@ import {
 import type { AntennaModel, GroundSpec } from '../../../core/em/types.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { solveOne } from './helpers.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 
 const WP =
   'Wait & Pope 1954 surface-impedance model, REFERENCES §6 regression values (C, not independent truth)';
@@ -25,7 +26,7 @@ function rgSinusoidal(
   lenWl: number,
   hWl: number,
 ): number {
-  const lam = 299_792_458 / f;
+  const lam = SPEED_OF_LIGHT_M_PER_S / f;
   const zg = soilSurfaceImpedanceOhm(complexPermittivity(soil, f), ETA0);
   return groundLossResistance({
     freqHz: f,
@@ -73,7 +74,7 @@ describe('the trend of the 1937 measurements (3 MHz)', () => {
     // Full solver: the ground-system loss from the solved currents, radiation resistance from the
     // same vertical over perfect ground. "Nearly": within 0.25 dB of each other.
     const f = 3e6;
-    const lam = 299_792_458 / f;
+    const lam = SPEED_OF_LIGHT_M_PER_S / f;
     const soil: GroundSpec = { kind: 'soil', ...VERY_GOOD };
     const eff = (h: number): number => {
       const base = (g: GroundSpec): AntennaModel => ({
@@ -101,7 +102,7 @@ describe('solver ground system against the sinusoidal-current model', () => {
     // The solved current of a λ/4 vertical differs from the sinusoid of the model (its length is
     // above resonance), so agreement is to the shape of the current, not exact.
     const f = 3.6e6;
-    const lam = 299_792_458 / f;
+    const lam = SPEED_OF_LIGHT_M_PER_S / f;
     const r = solveOne(
       {
         wires: [{ from: [0, 0, 0], to: [0, 0, 0.25 * lam], radiusM: 0.01, material: 'perfect' }],
@@ -119,7 +120,7 @@ describe('solver ground system against the sinusoidal-current model', () => {
   });
   it('radials of different lengths (clipped by a lot boundary) lose more than full-length ones', () => {
     const f = 3.6e6;
-    const lam = 299_792_458 / f;
+    const lam = SPEED_OF_LIGHT_M_PER_S / f;
     const model = (lengths: number[]): AntennaModel => ({
       wires: [{ from: [0, 0, 0], to: [0, 0, 0.24 * lam], radiusM: 0.01, material: 'perfect' }],
       feeds: [{ wire: 0, position: 0 }],
@@ -137,7 +138,7 @@ describe('solver ground system against the sinusoidal-current model', () => {
 describe('quadrature of the loss integral', () => {
   // The default panel count is chosen for speed; it must keep the 200-panel value.
   const f = 3.6e6;
-  const lam = 299_792_458 / f;
+  const lam = SPEED_OF_LIGHT_M_PER_S / f;
   const zg = soilSurfaceImpedanceOhm(complexPermittivity(AVERAGE, f), ETA0);
   const cases: [string, number[], number][] = [
     ['bare soil', [], 0.25],

@@ -6,6 +6,7 @@ import { loadImpedance } from '../../../core/em/solver.ts';
 import { tryEvaluateAntenna } from '../../../core/em/index.ts';
 import type { AntennaModel } from '../../../core/em/types.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 
 const F = 7.1e6;
 const codes = (m: AntennaModel) => buildMesh(m, { maxFreqHz: F }).diagnostics.map((d) => d.code);
@@ -42,7 +43,7 @@ describe('mesh', () => {
   it('default segmentation: 80 per wavelength, even count for a centre feed', () => {
     const m = buildMesh(base([{ from: [-10, 0, 10], to: [10, 0, 10], radiusM: 0.001 }]), { maxFreqHz: F });
     expect(m.nSeg % 2).toBe(0);
-    expect(m.len[0]).toBeLessThanOrEqual(299_792_458 / F / 80 + 1e-9);
+    expect(m.len[0]).toBeLessThanOrEqual(SPEED_OF_LIGHT_M_PER_S / F / 80 + 1e-9);
   });
   it('diagnostics: long segments, short segments, crossing wires, near misses', () => {
     expect(codes(base([{ from: [-10, 0, 10], to: [10, 0, 10], radiusM: 0.001, segments: 2 }]))).toContain(
@@ -137,7 +138,7 @@ describe('loads', () => {
 describe('peak search', () => {
   it('finds a free-space peak below the horizon', () => {
     // two horizontal dipoles a quarter wave apart, the lower one fed 90° behind: end-fire downwards
-    const lam = 299_792_458 / 14e6;
+    const lam = SPEED_OF_LIGHT_M_PER_S / 14e6;
     const d = lam / 4;
     const w = (z: number) => ({
       from: [-lam / 4, 0, z] as const,

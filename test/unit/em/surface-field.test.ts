@@ -6,6 +6,7 @@ import { buildMesh } from '../../../core/em/mesh.ts';
 import { surfaceMagneticField } from '../../../core/em/solver.ts';
 import { sinusoidalMonopoleSurfaceField } from '../../../core/em/radials.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 
 const SOURCE = 'Wait & Pope 1954, surface Hφ of a monopole with sinusoidal current (REFERENCES §6)';
 // Piecewise-linear sampling of the sine with 200 segments: error well under 0.1 %.
@@ -15,7 +16,7 @@ describe('surface magnetic field of a vertical', () => {
   for (const hOverLambda of [0.25, 0.125]) {
     it(`matches the closed form for h = ${hOverLambda} λ`, () => {
       const freqHz = 3.6e6;
-      const lam = 299_792_458 / freqHz;
+      const lam = SPEED_OF_LIGHT_M_PER_S / freqHz;
       const k = (2 * Math.PI) / lam;
       const h = hOverLambda * lam;
       const mesh = buildMesh(

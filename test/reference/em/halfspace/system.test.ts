@@ -9,9 +9,10 @@ import { halfSpace } from '../../../../core/em/halfspace/medium.ts';
 import { ETA0 } from '../../../../core/em/constants.ts';
 import { createWorkspace, solveFrequency } from '../../../../core/em/solver.ts';
 import type { AntennaModel, GroundSpec } from '../../../../core/em/types.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../../../../core/units/index.ts';
 
 const F = 3.6e6;
-const LAMBDA = 299_792_458 / F;
+const LAMBDA = SPEED_OF_LIGHT_M_PER_S / F;
 const AVERAGE = { permittivity: 13, conductivitySPerM: 0.005 };
 const SOIL: GroundSpec = { kind: 'soil', ...AVERAGE };
 
