@@ -12,7 +12,7 @@ import { availableParallelism } from 'node:os';
 import { join, resolve as resolvePath } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { buildDemoProject } from '../../data/demo/demoProject.ts';
+import { buildDemoProject } from '../demo/demoProject.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
 import {
   enumeratePlan,

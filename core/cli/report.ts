@@ -8,7 +8,7 @@
  */
 import { writeFile as fsWriteFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
-import { buildDemoProject } from '../../data/demo/demoProject.ts';
+import { buildDemoProject } from '../demo/demoProject.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
 import { candidateGainAt, enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';

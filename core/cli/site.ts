@@ -1,5 +1,5 @@
 /** `site --demo --json` prints the demo project; `site FILE.json` validates a project file. */
-import { buildDemoProject } from '../../data/demo/demoProject.ts';
+import { buildDemoProject } from '../demo/demoProject.ts';
 import { parseProject } from '../project/schema.ts';
 import type { CliIo } from './main.ts';
 
