@@ -11,7 +11,7 @@
  *     U = η k² (|N_θ|² + |N_φ|²) / (32π²),  gain G = 4πU / P_in
  * (Balanis, Antenna Theory, 3rd ed., 2005, §6.6 and eq. 2.16 with the vector potential of §3.6).
  * Over ground the image currents radiate too (perfect-conductor image, ground.ts), their θ part
- * weighted by Rv and their φ part by −Rh at the elevation angle (REFERENCES §3 rule).
+ * weighted by Rv and their φ part by −Rh at the elevation angle (core/REFERENCES.md §3 rule).
  *
  * Directions: elevation el up from the horizon, azimuth az clockwise from north (y), so
  * r̂ = (cos el sin az, cos el cos az, sin el); θ̂ = (sin el sin az, sin el cos az, −cos el) is the

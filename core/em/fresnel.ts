@@ -6,7 +6,7 @@
  *     Rv = (εc sinψ − √S)/(εc sinψ + √S)       vertical (TM, E in the plane of incidence)
  *     Rh = (sinψ − √S)/(sinψ + √S)             horizontal (TE)
  *
- * Image rule used with them (REFERENCES §3): take the perfect-conductor image (vertical current
+ * Image rule used with them (core/REFERENCES.md §3): take the perfect-conductor image (vertical current
  * in phase, horizontal current reversed) and weight the image field's θ (TM) part by Rv and its
  * φ (TE) part by −Rh; over a perfect conductor Rv = 1 and −Rh = 1.
  *

@@ -1,13 +1,13 @@
 // Average gain of lossless antennas: 1 over the sphere in free space, 2 over the upper
 // hemisphere over perfect ground (power conservation with the IEEE definition of gain, IEEE Std
-// 145; REFERENCES §5), within 0.05 dB. The input power comes from the feed (½ Re V I*), the
+// 145; core/REFERENCES.md §5), within 0.05 dB. The input power comes from the feed (½ Re V I*), the
 // radiated power from integrating the far field, so this checks the solver end to end.
 import { describe, it } from 'vitest';
 import type { AntennaModel, GroundSpec } from '../../../core/em/types.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { solveOne } from './helpers.ts';
 
-const SRC = 'average gain 1 (free space) / 2 (perfect ground), IEEE Std 145 (REFERENCES §5)';
+const SRC = 'average gain 1 (free space) / 2 (perfect ground), IEEE Std 145 (core/REFERENCES.md §5)';
 const TOL_DB = 0.05;
 
 const free: GroundSpec = { kind: 'free-space' };

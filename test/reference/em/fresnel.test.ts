@@ -1,5 +1,5 @@
 // Fresnel reflection coefficients (core/em/fresnel.ts) at grazing, normal and pseudo-Brewster
-// incidence. Sources: Beckmann & Spizzichino (1963); ITU-R P.527; values REFERENCES §3
+// incidence. Sources: Beckmann & Spizzichino (1963); ITU-R P.527; values core/REFERENCES.md §3
 // (computed independently, ±0.05° for the pseudo-Brewster angles).
 import { describe, it } from 'vitest';
 import { cAbs, cArg, cSqrt, c } from '../../../core/numeric/complex.ts';
@@ -8,7 +8,7 @@ import { complexPermittivity, fresnelCoefficients } from '../../../core/em/fresn
 import { createGroundModel } from '../../../core/em/ground.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
-const SRC = 'Beckmann & Spizzichino 1963 / ITU-R P.527 (REFERENCES §3)';
+const SRC = 'Beckmann & Spizzichino 1963 / ITU-R P.527 (core/REFERENCES.md §3)';
 const F = 3.6e6;
 const EPS = 1e-9;
 

@@ -1,11 +1,11 @@
 // Horizontal half-wave dipole over perfect ground against image theory with sinusoidal currents
-// (Balanis, Antenna Theory, 3rd ed., §4.7; REFERENCES §5).
+// (Balanis, Antenna Theory, 3rd ed., §4.7; core/REFERENCES.md §5).
 import { describe, it, expect } from 'vitest';
 import { evaluateAntenna } from '../../../core/em/evaluate.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { F_LAMBDA_1M, horizontalDipole, solveOne } from './helpers.ts';
 
-const SRC = 'Balanis, Antenna Theory, 3rd ed., §4.7, image theory (REFERENCES §5)';
+const SRC = 'Balanis, Antenna Theory, 3rd ed., §4.7, image theory (core/REFERENCES.md §5)';
 const A = 1e-9; // thin-wire limit, where the sinusoidal current of the reference holds
 // R = R11 − R12(2h) in the reference; the solver's free-space R11 at this radius is 2 Ω above
 // 73.13 (see dipole.test.ts), so the check is on the ground's share, −R12(2h), within 1.5 Ω.

@@ -1,7 +1,7 @@
 // Mutual impedance of side-by-side half-wave dipoles against Carter's closed form, computed here
 // with an independent Si/Ci implementation from the registry (@stdlib/math-base-special-sici),
 // not the project's own. Sources: Carter, Proc. IRE 20 (1932) 1004; Balanis, Antenna Theory,
-// 3rd ed., §8.6; Kraus, Antennas, 2nd ed., ch. 10 (REFERENCES §2).
+// 3rd ed., §8.6; Kraus, Antennas, 2nd ed., ch. 10 (core/REFERENCES.md §2).
 import { describe, it } from 'vitest';
 import sici from '@stdlib/math-base-special-sici';
 import { c, cDiv, cMul, cSub } from '../../../core/numeric/complex.ts';
@@ -11,8 +11,8 @@ import type { AntennaModel } from '../../../core/em/types.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { F_LAMBDA_1M } from './helpers.ts';
 
-const SRC = 'Carter 1932 closed form via stdlib Si/Ci (Balanis §8.6; REFERENCES §2)';
-const ETA = 120 * Math.PI; // η0 as in REFERENCES §2
+const SRC = 'Carter 1932 closed form via stdlib Si/Ci (Balanis §8.6; core/REFERENCES.md §2)';
+const ETA = 120 * Math.PI; // η0 as in core/REFERENCES.md §2
 
 function carter(d: number): [number, number] {
   const k = 2 * Math.PI;
@@ -36,7 +36,7 @@ const TABLE: [number, number, number][] = [
 ];
 
 // The closed form assumes sinusoidal currents, the thin-wire limit; at a/λ = 1e-9 the solved
-// two-port is within 3 Ω of it (REFERENCES §2: "within about ±3 Ω").
+// two-port is within 3 Ω of it (core/REFERENCES.md §2: "within about ±3 Ω").
 const MOM_TOL = 3;
 
 function pair(d: number): AntennaModel {
@@ -58,8 +58,8 @@ describe("Carter's mutual impedance", () => {
     it(`d = ${d} λ`, () => {
       const [rc, xc] = carter(d);
       // the closed form evaluated here reproduces the published table (0.01 Ω rounding, 0.07 % for η0)
-      expectClose(rc, r21, 0.02, 'REFERENCES §2 table (Carter 1932)');
-      expectClose(xc, x21, 0.02, 'REFERENCES §2 table (Carter 1932)');
+      expectClose(rc, r21, 0.02, 'core/REFERENCES.md §2 table (Carter 1932)');
+      expectClose(xc, x21, 0.02, 'core/REFERENCES.md §2 table (Carter 1932)');
       // two-port from the solver: short port 2, excite port 1 → Y11, Y21; symmetric pair Y22 = Y11
       const s = solveFrequency(prepareFor(pair(d), [F_LAMBDA_1M]), F_LAMBDA_1M);
       const y11 = s.feeds[0].current;

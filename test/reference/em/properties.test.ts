@@ -240,11 +240,11 @@ describe('limiting cases', () => {
       s.feeds[0].impedanceOhm[0],
       p.feeds[0].impedanceOhm[0],
       0.02,
-      'σ → ∞: Rv → 1, Rh → −1 (REFERENCES §3)',
+      'σ → ∞: Rv → 1, Rh → −1 (core/REFERENCES.md §3)',
     );
-    expectClose(s.feeds[0].impedanceOhm[1], p.feeds[0].impedanceOhm[1], 0.02, 'σ → ∞ (REFERENCES §3)');
+    expectClose(s.feeds[0].impedanceOhm[1], p.feeds[0].impedanceOhm[1], 0.02, 'σ → ∞ (core/REFERENCES.md §3)');
     p.pattern.forEach((pp, i) =>
-      expectClose(s.pattern[i].gainDbi, pp.gainDbi, 0.01, 'σ → ∞ (REFERENCES §3)'),
+      expectClose(s.pattern[i].gainDbi, pp.gainDbi, 0.01, 'σ → ∞ (core/REFERENCES.md §3)'),
     );
   });
   it('a sweep reuses one mesh: the same answer as separate solves', () => {

@@ -1,6 +1,6 @@
 // Ground loss of a vertical with buried radials (surface-impedance method). Sources: Wait & Pope,
 // Appl. Sci. Res. B4 (1954) 177–195; Wait, IRE Trans. AP-4 (1956) 179; Abbott, Proc. IRE 40
-// (1952) 846; measurements: Brown, Lewis & Epstein, Proc. IRE 25 (1937) 753 (REFERENCES §6).
+// (1952) 846; measurements: Brown, Lewis & Epstein, Proc. IRE 25 (1937) 753 (core/REFERENCES.md §6).
 import { describe, it, expect } from 'vitest';
 import { ETA0 } from '../../../core/em/constants.ts';
 import { complexPermittivity, soilSurfaceImpedanceOhm } from '../../../core/em/fresnel.ts';
@@ -16,8 +16,8 @@ import { solveOne } from './helpers.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 
 const WP =
-  'Wait & Pope 1954 surface-impedance model, REFERENCES §6 regression values (C, not independent truth)';
-const BROWN = 'Brown, Lewis & Epstein, Proc. IRE 25 (1937) 753 (secondary report, REFERENCES §6)';
+  'Wait & Pope 1954 surface-impedance model, core/REFERENCES.md §6 regression values (C, not independent truth)';
+const BROWN = 'Brown, Lewis & Epstein, Proc. IRE 25 (1937) 753 (secondary report, core/REFERENCES.md §6)';
 
 function rgSinusoidal(
   f: number,
@@ -63,7 +63,7 @@ describe('the trend of the 1937 measurements (3 MHz)', () => {
   // The secondary report gives no soil for the site; the "very good" class (20, 30.3 mS/m,
   // rich moist soil) is our assumption, so this check is as loose as that assumption.
   const VERY_GOOD = { permittivity: 20, conductivitySPerM: 0.0303 };
-  const RR_QUARTER = 36.56; // REFERENCES §1
+  const RR_QUARTER = 36.56; // core/REFERENCES.md §1
   it('loss falls as radials are added, and 113 radials of 0.412 λ come within 0.18 ± 0.1 dB of perfect ground', () => {
     const rg = [15, 30, 60, 113].map((n) => rgSinusoidal(3e6, VERY_GOOD, n, 0.412, 0.25));
     for (let i = 1; i < rg.length; i++) expect(rg[i]).toBeLessThan(rg[i - 1]);

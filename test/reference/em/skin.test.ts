@@ -1,4 +1,4 @@
-// Conductor loss (core/em/conductor.ts) against REFERENCES §9: Ramo, Whinnery & Van Duzer,
+// Conductor loss (core/em/conductor.ts) against core/REFERENCES.md §9: Ramo, Whinnery & Van Duzer,
 // Fields and Waves in Communication Electronics, 3rd ed. (1994).
 import { describe, it } from 'vitest';
 import {
@@ -10,7 +10,7 @@ import {
 } from '../../../core/em/conductor.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
-const SRC = 'Ramo, Whinnery & Van Duzer, 3rd ed. (REFERENCES §9)';
+const SRC = 'Ramo, Whinnery & Van Duzer, 3rd ed. (core/REFERENCES.md §9)';
 const cu = MATERIALS.copper;
 
 describe('skin effect', () => {

@@ -1,10 +1,10 @@
-/** Hop geometry against the values of REFERENCES §7 (ITU-R P.533 form; Davies, Ionospheric Radio, 1990). */
+/** Hop geometry against the values of core/REFERENCES.md §7 (ITU-R P.533 form; Davies, Ionospheric Radio, 1990). */
 import { describe, expect, it } from 'vitest';
 import { fewestHops, maxSingleHopM, singleHopElevationDeg } from '../../../core/paths/hops.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
 const SRC =
-  'Δ = atan[(cos θ − R/(R+h))/sin θ], R = 6371 km (ITU-R P.533; Davies 1990), values computed independently (REFERENCES §7)';
+  'Δ = atan[(cos θ − R/(R+h))/sin θ], R = 6371 km (ITU-R P.533; Davies 1990), values computed independently (core/REFERENCES.md §7)';
 const TOL_DEG = 0.005;
 
 describe('single-hop elevation', () => {

@@ -125,7 +125,7 @@ describe('facts of the trade (common practice, no source)', () => {
       hi.peak.elevationDeg,
       30,
       4,
-      'arcsin(λ/4h) = 30° at h = λ/2 (Balanis §4.7, REFERENCES §5); real ground moves it a little (common practice)',
+      'arcsin(λ/4h) = 30° at h = λ/2 (Balanis §4.7, core/REFERENCES.md §5); real ground moves it a little (common practice)',
     );
     const lo = evaluated('dipole21', dipole(0.25 * LAMBDA), AVERAGE);
     expect(lo.peak.elevationDeg).toBeGreaterThan(hi.peak.elevationDeg + 20);

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { complianceDistanceM, estimateExposure, exposureLimit } from '../../../core/report/exposure.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
-// Worked example of REFERENCES §8 (computed from 47 CFR §1.1310 Table 1 and FCC OET Bulletin 65
+// Worked example of core/REFERENCES.md §8 (computed from 47 CFR §1.1310 Table 1 and FCC OET Bulletin 65
 // Ed. 97-01 eq. (3)/(6)): 1500 W PEP, 3.6 MHz, 6 dBi, SSB 20 % × 50 % on-time.
 const SOURCE = 'FCC OET Bulletin 65 (Ed. 97-01) eq. (3), (6) with 47 CFR §1.1310 Table 1';
 

@@ -1,6 +1,6 @@
 // The solver's surface magnetic field (core/em/solver.ts surfaceMagneticField) for an imposed
 // sinusoidal current on a ground-mounted vertical, against the closed form of Wait & Pope,
-// Appl. Sci. Res. B4 (1954) 177–195 (REFERENCES §6): Hφ = (j Im/2πρ)[e^{−jk√(ρ²+h²)} − cos kh e^{−jkρ}].
+// Appl. Sci. Res. B4 (1954) 177–195 (core/REFERENCES.md §6): Hφ = (j Im/2πρ)[e^{−jk√(ρ²+h²)} − cos kh e^{−jkρ}].
 import { describe, it } from 'vitest';
 import { buildMesh } from '../../../core/em/mesh.ts';
 import { surfaceMagneticField } from '../../../core/em/solver.ts';
@@ -8,7 +8,7 @@ import { sinusoidalMonopoleSurfaceField } from '../../../core/em/radials.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 
-const SOURCE = 'Wait & Pope 1954, surface Hφ of a monopole with sinusoidal current (REFERENCES §6)';
+const SOURCE = 'Wait & Pope 1954, surface Hφ of a monopole with sinusoidal current (core/REFERENCES.md §6)';
 // Piecewise-linear sampling of the sine with 200 segments: error well under 0.1 %.
 const REL_TOL = 2e-3;
 

@@ -28,7 +28,7 @@ function maxRel(a: Float64Array, b: Float64Array): number {
   return d / m;
 }
 
-/** Fresnel coefficients, written out from REFERENCES §3 (Beckmann & Spizzichino 1963). */
+/** Fresnel coefficients, written out from core/REFERENCES.md §3 (Beckmann & Spizzichino 1963). */
 function fresnelCoefficients(
   e: { re: number; im: number },
   sinPsi: number,
