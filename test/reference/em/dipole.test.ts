@@ -5,7 +5,8 @@ import { evaluateAntenna } from '../../../core/em/evaluate.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { F_LAMBDA_1M, centreFedDipole, solveOne } from './helpers.ts';
 
-const EMF = 'Balanis, Antenna Theory, 3rd ed., §4.6; Carter, Proc. IRE 20 (1932) 1004 (core/REFERENCES.md §1)';
+const EMF =
+  'Balanis, Antenna Theory, 3rd ed., §4.6; Carter, Proc. IRE 20 (1932) 1004 (core/REFERENCES.md §1)';
 const HALLEN =
   "Hallén's equation solved to convergence, compare King, The Theory of Linear Antennas (1956) (core/REFERENCES.md §1)";
 
@@ -35,7 +36,12 @@ describe('induced-EMF limit of very thin wires', () => {
     expectClose(r.feeds[0].impedanceOhm[0], 36.56, R_TOL / 2, EMF);
     expectClose(r.feeds[0].impedanceOhm[1], 21.27, X_TOL / 2, EMF);
     // horizon gain of the lossless λ/4 monopole: twice the dipole's directivity, 5.16 dBi (core/REFERENCES.md §1, C)
-    expectClose(r.peak.gainDbi, 5.16, 0.03, 'Balanis §4.6 and §4.7: 2 × 1.6409 → 5.16 dBi (core/REFERENCES.md §1)');
+    expectClose(
+      r.peak.gainDbi,
+      5.16,
+      0.03,
+      'Balanis §4.6 and §4.7: 2 × 1.6409 → 5.16 dBi (core/REFERENCES.md §1)',
+    );
     expectClose(
       r.peak.elevationDeg,
       0,
@@ -79,7 +85,12 @@ describe('directivity', () => {
     for (const p of r.pattern)
       expectClose(p.gainDbi, 2.151, 0.02, 'Balanis, Antenna Theory, 3rd ed., §4.6 (core/REFERENCES.md §1)');
     expectClose(r.peak.gainDbi, 2.151, 0.02, 'Balanis §4.6 (core/REFERENCES.md §1)');
-    expectClose(r.averageGainDb, 0, 0.01, 'average gain 1 in free space (IEEE Std 145; core/REFERENCES.md §5)');
+    expectClose(
+      r.averageGainDb,
+      0,
+      0.01,
+      'average gain 1 in free space (IEEE Std 145; core/REFERENCES.md §5)',
+    );
   });
   it('a very short dipole tends to the Hertzian 1.5 (1.761 dBi)', () => {
     const r = evaluateAntenna(centreFedDipole(0.01, 1e-5), {
@@ -87,7 +98,12 @@ describe('directivity', () => {
       pattern: { elevationsDeg: [0, 30, 60], azimuthsDeg: [0] },
       segmentsPerWavelength: 800,
     }).frequencies[0];
-    expectClose(r.peak.gainDbi, 1.761, 0.005, 'Balanis, Antenna Theory, 3rd ed., §4.2 (core/REFERENCES.md §1)');
+    expectClose(
+      r.peak.gainDbi,
+      1.761,
+      0.005,
+      'Balanis, Antenna Theory, 3rd ed., §4.2 (core/REFERENCES.md §1)',
+    );
     // pattern sin²θ: at 60° elevation (θ = 30°) the gain is 1.5·0.25
     expectClose(r.pattern[2].gainDbi, 10 * Math.log10(1.5 * 0.25), 0.01, 'Balanis §4.2: U ∝ sin²θ');
   });

@@ -242,7 +242,12 @@ describe('limiting cases', () => {
       0.02,
       'σ → ∞: Rv → 1, Rh → −1 (core/REFERENCES.md §3)',
     );
-    expectClose(s.feeds[0].impedanceOhm[1], p.feeds[0].impedanceOhm[1], 0.02, 'σ → ∞ (core/REFERENCES.md §3)');
+    expectClose(
+      s.feeds[0].impedanceOhm[1],
+      p.feeds[0].impedanceOhm[1],
+      0.02,
+      'σ → ∞ (core/REFERENCES.md §3)',
+    );
     p.pattern.forEach((pp, i) =>
       expectClose(s.pattern[i].gainDbi, pp.gainDbi, 0.01, 'σ → ∞ (core/REFERENCES.md §3)'),
     );
