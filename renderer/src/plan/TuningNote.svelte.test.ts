@@ -87,10 +87,11 @@ describe('TuningNote', () => {
 
   it('shows a failure in words and asks again when told to', async () => {
     const { planning, counts } = await planned();
-    const c = { ...planning.candidates[0]!, evaluationKey: 'not-a-design-of-this-lot' };
+    const first = planning.candidates[0]!;
+    const c = { ...first, design: { ...first.design, type: 'no-such-type' } };
     render(TuningNote, { planning, c, units: 'metric' });
     const alert = await screen.findByRole('alert');
-    expect(alert.textContent).toMatch(/could not be measured: the lot no longer yields this design/);
+    expect(alert.textContent).toMatch(/could not be measured: the solver failed/);
     expect(counts.tunes).toBe(1);
     await fireEvent.click(screen.getByRole('button', { name: 'Measure again' }));
     expect(counts.tunes).toBe(2);

@@ -135,7 +135,7 @@ describe('the tuning rate from the lead worker', () => {
     expect(runner.measuredTuning(dipole.id)).toBeNull();
   });
 
-  it('a fresh lead that never planned finds the design from the project and measures the same', async () => {
+  it('a fresh lead that never planned measures from the candidate’s own design, the same as the lead that planned', async () => {
     const first = await runner.tune(dipole);
     const fresh = new PlanRunner(solverPool(1, {}));
     expect(await fresh.tune(dipole, project)).toEqual(first);
@@ -144,9 +144,10 @@ describe('the tuning rate from the lead worker', () => {
 
   it('says in words when there is nothing to measure', async () => {
     await expect(new PlanRunner(solverPool(1, {})).tune(dipole)).rejects.toThrow(/run the plan first/);
-    const gone = { ...dipole, evaluationKey: 'not-a-design-of-this-lot' };
-    await expect(runner.tune(gone)).rejects.toThrow(
-      /tuning rate of #\d+ could not be measured: the lot no longer yields this design/,
+    // The candidate carries its design; one that no builder knows cannot be measured.
+    const broken = { ...dipole, design: { ...dipole.design, type: 'no-such-type' } };
+    await expect(runner.tune(broken)).rejects.toThrow(
+      /tuning rate of #\d+ could not be measured: the solver failed/,
     );
   });
 });

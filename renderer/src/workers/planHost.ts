@@ -144,16 +144,8 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
           },
         ];
         try {
-          let d = designs.get(c.evaluationKey);
-          if (!d) {
-            // Not enumerated by this worker (a fresh pool): the candidate's band and type again,
-            // matched by its evaluation key (design and ground), with no solver work.
-            const setup = enumeratePlan(msg.project, { bands: [c.band], types: [c.type] });
-            const job = setup.jobs.find((j) => j.key === c.evaluationKey);
-            if (!job) return fail('the lot no longer yields this design: run the plan again');
-            d = { design: job.design, ground: job.ground };
-            designs.set(job.key, d);
-          }
+          // The candidate carries its design; the ground is the plan's (the project's soil).
+          const d = { design: c.design, ground: msg.project.soil };
           const tuning = measureTuning(d.design, c.trim.valueM, d.ground, evaluator);
           const problem = tuningProblem(tuning, d.design.designFreqHz);
           if (problem) return fail(problem);
