@@ -22,7 +22,7 @@ import { spawnSync } from 'node:child_process';
 import { availableParallelism, loadavg } from 'node:os';
 import { evaluateAntenna } from '../../core/em/evaluate.ts';
 import { sweepImpedance } from '../../core/em/sweep.ts';
-import { luFactor } from '../../core/numeric/lu.ts';
+import { luFactor, useLuKernel } from '../../core/numeric/lu.ts';
 import { array200, halfSquare100 } from './models.ts';
 
 function median(xs: number[]): number {
@@ -109,6 +109,8 @@ const say = (s: string) => lines.push(s);
   const sizes = [100, 200, 400];
   const ours: Record<number, number> = {};
   const oursCpu: Record<number, number> = {};
+  const tsOnly: Record<number, number> = {};
+  const kernel = useLuKernel(true);
   for (const n of sizes) {
     let s = 12345;
     const a0 = new Float64Array(2 * n * n).map(() => {
@@ -129,6 +131,19 @@ const say = (s: string) => lines.push(s);
     );
     ours[n] = median(t);
     oursCpu[n] = median(cpu);
+    // the TypeScript path alone (no WebAssembly kernel), for what the kernel buys
+    useLuKernel(false);
+    tsOnly[n] = median(
+      time(
+        () => {
+          a.set(a0);
+          luFactor(n, a, piv);
+        },
+        2,
+        n >= 400 ? 5 : 9,
+      ),
+    );
+    useLuKernel(true);
   }
   const py = `
 import time, sys
@@ -171,13 +186,20 @@ print(' '.join(f'{n}:{out[n]}' for n in out))
       break;
     }
   }
-  json.lu = { oursMs: ours, oursCpuMs: oursCpu, lapackMs: lapack, lapack: how || null };
+  json.lu = {
+    oursMs: ours,
+    oursCpuMs: oursCpu,
+    wasmKernel: kernel,
+    typeScriptOnlyMs: tsOnly,
+    lapackMs: lapack,
+    lapack: how || null,
+  };
   for (const n of sizes) {
     const flops = (8 / 3) * n ** 3; // complex LU flop count of LAPACK Working Note 41 (zgetrf)
     const gf = flops / (ours[n] * 1e6);
     if (lapack)
       say(
-        `LU n = ${n}: ours ${ours[n].toFixed(2)} ms (CPU ${oursCpu[n].toFixed(2)} ms, ${gf.toFixed(1)} GFlop/s), LAPACK ${lapack[n].toFixed(2)} ms, ratio ${(ours[n] / lapack[n]).toFixed(1)}×`,
+        `LU n = ${n}: ours ${ours[n].toFixed(2)} ms (CPU ${oursCpu[n].toFixed(2)} ms, ${gf.toFixed(1)} GFlop/s; TypeScript path alone ${tsOnly[n].toFixed(2)} ms), LAPACK ${lapack[n].toFixed(2)} ms, ratio ${(ours[n] / lapack[n]).toFixed(1)}×`,
       );
     else say(`LU n = ${n}: ours ${ours[n].toFixed(2)} ms (${gf.toFixed(1)} GFlop/s)`);
   }
