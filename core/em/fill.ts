@@ -103,13 +103,20 @@ export function fillImpedanceMatrix(
       const b0 = mesh.wireSegStart[wb];
       const b1 = mesh.wireSegStart[wb + 1];
       const freeRel = useCache ? wireRelation(mesh, wa, wb, false) : 0;
-      const imageRel =
-        useCache && ground !== null && ground.weightImage !== undefined
-          ? wireRelation(mesh, wa, wb, true)
-          : 0;
+      // image models: the image moments are cached by the mirror relation, and their weighted
+      // result too when the weights are translation-invariant; other models (the exact
+      // half-space) cache their result when they say it is translation-invariant for this pair
+      const imageModel = ground !== null && ground.weightImage !== undefined;
+      const invariantPairs =
+        useCache &&
+        ground !== null &&
+        !imageModel &&
+        ground.pairsTranslationInvariant?.(mesh, wa, wb) === true;
+      const imageRel = (useCache && imageModel) || invariantPairs ? wireRelation(mesh, wa, wb, true) : 0;
       const freeCached = freeRel !== 0;
-      const imageCached = imageRel !== 0;
-      const reflCached = imageCached && ground!.translationInvariantWeights === true;
+      const imageCached = imageRel !== 0 && imageModel;
+      const reflCached =
+        imageRel !== 0 && (imageModel ? ground!.translationInvariantWeights === true : invariantPairs);
       const offset = a1 - a0 - 1;
       ensureTables(a1 - a0 + b1 - b0 - 1);
       for (let p = a0; p < a1; p++) {
@@ -197,6 +204,7 @@ export function fillImpedanceMatrix(
             if (reflCached && reflDone[di]) {
               rf = reflTable;
               ro = 10 * di;
+              ground.reusedPair?.(mesh, p, q);
             } else {
               let im: Float64Array = img;
               if (imageCached) {

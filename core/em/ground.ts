@@ -79,6 +79,16 @@ export interface GroundAtFrequency {
    */
   inGroundSystemZone?(mesh: Mesh, p: number, q: number): boolean;
   /**
+   * Optional, for models without `weightImage` (the exact half-space): true when `reflectedPair`
+   * of a segment of wire `wa` with one of wire `wb` depends on the two segments only through
+   * their relative position and directions (laterally uniform ground, every such pair taking the
+   * same branch of the model), so the fill may reuse its result for pairs that differ by a
+   * translation, as it does for `weightImage` with `translationInvariantWeights`.
+   */
+  pairsTranslationInvariant?(mesh: Mesh, wa: number, wb: number): boolean;
+  /** Optional: told when the fill reused a cached `reflectedPair` result for (p, q) (counters). */
+  reusedPair?(mesh: Mesh, p: number, q: number): void;
+  /**
    * Plane-wave reflection at grazing angle ψ (sin ψ given): writes Rv (re, im) and Rh (re, im)
    * into out[0…3]. Perfect ground: Rv = 1, Rh = −1.
    */

@@ -12,6 +12,13 @@
  * product. The trailing update takes four trailing rows against two panel rows at a time
  * (register blocking), and the trailing rows stay in the first-level cache while they receive the
  * whole panel's contribution.
+ * Where WebAssembly SIMD is available (Node, Chromium and Electron workers) matrices of
+ * LU_WASM_MIN_N unknowns or more are factored in the kernel's memory: every multiply-add of the
+ * three steps goes to one WebAssembly block update, A[i][j] −= Σ A[i][q]·A[q][j] over a block,
+ * in register tiles of 2 rows × 2 complex columns on 128-bit f64x2 lanes; pivot search, row
+ * swaps and the column scaling stay in TypeScript. The kernel is generated and assembled by
+ * tools/build-lu-kernel.mjs into wasm/luKernel.generated.ts. Same algorithm and pivots, so the
+ * factors agree with the TypeScript path up to rounding (test/unit/numeric/lu-kernel.test.ts).
  * Growth and stability as for Gaussian elimination with partial pivoting (Golub & Van Loan).
  *
  * References:
@@ -19,6 +26,8 @@
  *    elimination, algorithm 3.2.1), §3.4 (pivoting), §3.2.11 (block LU).
  *  - E. Anderson et al., LAPACK Users' Guide, 3rd ed. (1999), routines xGETRF / xGETF2.
  */
+
+import { LU_KERNEL_WASM_BASE64 } from './wasm/luKernel.generated.ts';
 
 /** Panel width of the blocked factorisation (columns). */
 export const LU_BLOCK = 16;
@@ -43,6 +52,122 @@ export interface LuFactors {
  */
 export function luFactor(n: number, a: Float64Array, pivots: Int32Array = new Int32Array(n)): LuFactors {
   if (a.length !== 2 * n * n) throw new RangeError(`matrix storage ${a.length} does not match n = ${n}`);
+  const k = n >= LU_WASM_MIN_N ? wasmKernel() : null;
+  if (!k) {
+    factorBlocked(n, a, pivots);
+    return { n, a, pivots };
+  }
+  // factor in the kernel's memory (one copy in, one out), the trailing update in WebAssembly
+  const bytes = 16 * n * n;
+  const have = k.memory.buffer.byteLength;
+  if (have < bytes) k.memory.grow(Math.ceil((bytes - have) / 65536));
+  const view = new Float64Array(k.memory.buffer, 0, 2 * n * n);
+  view.set(a);
+  try {
+    factorWithKernel(n, view, pivots, k);
+  } finally {
+    a.set(view);
+  }
+  return { n, a, pivots };
+}
+
+/**
+ * The same blocked algorithm as `factorBlocked`, every multiply-add of its three steps done by
+ * the kernel's one block update (pivot search, row swaps and the column scaling stay here).
+ */
+function factorWithKernel(n: number, a: Float64Array, pivots: Int32Array, kern: LuKernel): void {
+  const n2 = 2 * n;
+  for (let j0 = 0; j0 < n; j0 += LU_BLOCK) {
+    const jEnd = Math.min(j0 + LU_BLOCK, n);
+    for (let k = j0; k < jEnd; k++) {
+      let p = k;
+      let best = -1;
+      for (let i = k; i < n; i++) {
+        const idx = i * n2 + 2 * k;
+        const m = a[idx] * a[idx] + a[idx + 1] * a[idx + 1];
+        if (m > best) {
+          best = m;
+          p = i;
+        }
+      }
+      if (!(best > 0)) throw new SingularMatrixError(k);
+      pivots[k] = p;
+      if (p !== k) {
+        const rk = k * n2;
+        const rp = p * n2;
+        for (let j = 0; j < n2; j++) {
+          const t = a[rk + j];
+          a[rk + j] = a[rp + j];
+          a[rp + j] = t;
+        }
+      }
+      const kk = k * n2 + 2 * k;
+      const pr = a[kk];
+      const pi = a[kk + 1];
+      const d = pr * pr + pi * pi;
+      const ir = pr / d;
+      const ii = -pi / d;
+      for (let i = k + 1; i < n; i++) {
+        const idx = i * n2 + 2 * k;
+        const xr = a[idx];
+        const xi = a[idx + 1];
+        a[idx] = xr * ir - xi * ii;
+        a[idx + 1] = xr * ii + xi * ir;
+      }
+      // rank-1 update confined to the panel
+      kern.update(n, k + 1, n, k, k + 1, k + 1, jEnd);
+    }
+    if (jEnd === n) break;
+    // block row of U, row by row, then the trailing matrix
+    for (let r = j0 + 1; r < jEnd; r++) kern.update(n, r, r + 1, j0, r, jEnd, n);
+    kern.update(n, jEnd, n, j0, jEnd, jEnd, n);
+  }
+}
+
+/** Matrices smaller than this are factored in TypeScript (the copies would cost more). */
+export const LU_WASM_MIN_N = 24;
+
+interface LuKernel {
+  memory: WebAssembly.Memory;
+  /** A[i][j] −= Σ_{q0 ≤ q < q1} A[i][q]·A[q][j], r0 ≤ i < r1, c0 ≤ j < c1 (build-lu-kernel.mjs). */
+  update(n: number, r0: number, r1: number, q0: number, q1: number, c0: number, c1: number): void;
+}
+
+let kernel: LuKernel | null | undefined;
+let kernelAllowed = true;
+
+/**
+ * The WebAssembly SIMD block update (tools/build-lu-kernel.mjs), or null where
+ * WebAssembly or its SIMD is unavailable (or a content policy refuses it): then everything runs
+ * in TypeScript, with the same results up to rounding.
+ */
+function wasmKernel(): LuKernel | null {
+  if (!kernelAllowed) return null;
+  if (kernel !== undefined) return kernel;
+  kernel = null;
+  try {
+    const bin = atob(LU_KERNEL_WASM_BASE64);
+    const bytes = new Uint8Array(bin.length);
+    for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
+    const inst = new WebAssembly.Instance(new WebAssembly.Module(bytes), {});
+    const memory = inst.exports.memory;
+    const update = inst.exports.update;
+    if (memory instanceof WebAssembly.Memory && typeof update === 'function')
+      kernel = { memory, update: update as LuKernel['update'] };
+  } catch {
+    kernel = null;
+  }
+  return kernel;
+}
+
+/** Whether luFactor uses the WebAssembly kernel: `allow` false forces TypeScript (tests, benchmarks). */
+export function useLuKernel(allow: boolean): boolean {
+  kernelAllowed = allow;
+  return allow && wasmKernel() !== null;
+}
+
+/** Steps 1–3 of the blocked factorisation on `a` in TypeScript. */
+function factorBlocked(n: number, a: Float64Array, pivots: Int32Array): void {
   const n2 = 2 * n;
   for (let j0 = 0; j0 < n; j0 += LU_BLOCK) {
     const jEnd = Math.min(j0 + LU_BLOCK, n);
@@ -110,134 +235,142 @@ export function luFactor(n: number, a: Float64Array, pivots: Int32Array = new In
         }
       }
     }
-    // 3. Trailing update A22 −= L21·U12, register-blocked: four trailing rows against two panel
-    //    rows per sweep (then two rows, then one), so each loaded element of U12 serves four rows
-    //    and each trailing element receives two updates per load and store.
-    let i = jEnd;
-    for (; i + 3 < n; i += 4) {
-      const ri = i * n2;
-      const rj = ri + n2;
-      const rk = rj + n2;
-      const rl = rk + n2;
-      let q = j0;
-      for (; q + 1 < jEnd; q += 2) {
-        const q2 = 2 * q;
-        const a0r = a[ri + q2];
-        const a0i = a[ri + q2 + 1];
-        const a1r = a[ri + q2 + 2];
-        const a1i = a[ri + q2 + 3];
-        const b0r = a[rj + q2];
-        const b0i = a[rj + q2 + 1];
-        const b1r = a[rj + q2 + 2];
-        const b1i = a[rj + q2 + 3];
-        const c0r = a[rk + q2];
-        const c0i = a[rk + q2 + 1];
-        const c1r = a[rk + q2 + 2];
-        const c1i = a[rk + q2 + 3];
-        const d0r = a[rl + q2];
-        const d0i = a[rl + q2 + 1];
-        const d1r = a[rl + q2 + 2];
-        const d1i = a[rl + q2 + 3];
-        const r0 = q * n2;
-        const r1 = r0 + n2;
-        for (let j = c0; j < n2; j += 2) {
-          const u0r = a[r0 + j];
-          const u0i = a[r0 + j + 1];
-          const u1r = a[r1 + j];
-          const u1i = a[r1 + j + 1];
-          a[ri + j] -= a0r * u0r - a0i * u0i + (a1r * u1r - a1i * u1i);
-          a[ri + j + 1] -= a0r * u0i + a0i * u0r + (a1r * u1i + a1i * u1r);
-          a[rj + j] -= b0r * u0r - b0i * u0i + (b1r * u1r - b1i * u1i);
-          a[rj + j + 1] -= b0r * u0i + b0i * u0r + (b1r * u1i + b1i * u1r);
-          a[rk + j] -= c0r * u0r - c0i * u0i + (c1r * u1r - c1i * u1i);
-          a[rk + j + 1] -= c0r * u0i + c0i * u0r + (c1r * u1i + c1i * u1r);
-          a[rl + j] -= d0r * u0r - d0i * u0i + (d1r * u1r - d1i * u1i);
-          a[rl + j + 1] -= d0r * u0i + d0i * u0r + (d1r * u1i + d1i * u1r);
-        }
-      }
-      for (; q < jEnd; q++) {
-        const q2 = 2 * q;
-        const rq = q * n2;
-        const ar = a[ri + q2];
-        const ai = a[ri + q2 + 1];
-        const br = a[rj + q2];
-        const bi = a[rj + q2 + 1];
-        const cr = a[rk + q2];
-        const ci = a[rk + q2 + 1];
-        const dr = a[rl + q2];
-        const di = a[rl + q2 + 1];
-        for (let j = c0; j < n2; j += 2) {
-          const ur = a[rq + j];
-          const ui = a[rq + j + 1];
-          a[ri + j] -= ar * ur - ai * ui;
-          a[ri + j + 1] -= ar * ui + ai * ur;
-          a[rj + j] -= br * ur - bi * ui;
-          a[rj + j + 1] -= br * ui + bi * ur;
-          a[rk + j] -= cr * ur - ci * ui;
-          a[rk + j + 1] -= cr * ui + ci * ur;
-          a[rl + j] -= dr * ur - di * ui;
-          a[rl + j + 1] -= dr * ui + di * ur;
-        }
+    trailingUpdateTs(n, a, j0, jEnd);
+  }
+}
+
+/**
+ * Step 3 in TypeScript: trailing update A22 −= L21·U12 for panel columns j0…jEnd−1,
+ * register-blocked: four trailing rows against two panel rows per sweep (then two rows, then
+ * one), so each loaded element of U12 serves four rows and each trailing element receives two
+ * updates per load and store.
+ */
+function trailingUpdateTs(n: number, a: Float64Array, j0: number, jEnd: number): void {
+  const n2 = 2 * n;
+  const c0 = 2 * jEnd;
+  let i = jEnd;
+  for (; i + 3 < n; i += 4) {
+    const ri = i * n2;
+    const rj = ri + n2;
+    const rk = rj + n2;
+    const rl = rk + n2;
+    let q = j0;
+    for (; q + 1 < jEnd; q += 2) {
+      const q2 = 2 * q;
+      const a0r = a[ri + q2];
+      const a0i = a[ri + q2 + 1];
+      const a1r = a[ri + q2 + 2];
+      const a1i = a[ri + q2 + 3];
+      const b0r = a[rj + q2];
+      const b0i = a[rj + q2 + 1];
+      const b1r = a[rj + q2 + 2];
+      const b1i = a[rj + q2 + 3];
+      const c0r = a[rk + q2];
+      const c0i = a[rk + q2 + 1];
+      const c1r = a[rk + q2 + 2];
+      const c1i = a[rk + q2 + 3];
+      const d0r = a[rl + q2];
+      const d0i = a[rl + q2 + 1];
+      const d1r = a[rl + q2 + 2];
+      const d1i = a[rl + q2 + 3];
+      const r0 = q * n2;
+      const r1 = r0 + n2;
+      for (let j = c0; j < n2; j += 2) {
+        const u0r = a[r0 + j];
+        const u0i = a[r0 + j + 1];
+        const u1r = a[r1 + j];
+        const u1i = a[r1 + j + 1];
+        a[ri + j] -= a0r * u0r - a0i * u0i + (a1r * u1r - a1i * u1i);
+        a[ri + j + 1] -= a0r * u0i + a0i * u0r + (a1r * u1i + a1i * u1r);
+        a[rj + j] -= b0r * u0r - b0i * u0i + (b1r * u1r - b1i * u1i);
+        a[rj + j + 1] -= b0r * u0i + b0i * u0r + (b1r * u1i + b1i * u1r);
+        a[rk + j] -= c0r * u0r - c0i * u0i + (c1r * u1r - c1i * u1i);
+        a[rk + j + 1] -= c0r * u0i + c0i * u0r + (c1r * u1i + c1i * u1r);
+        a[rl + j] -= d0r * u0r - d0i * u0i + (d1r * u1r - d1i * u1i);
+        a[rl + j + 1] -= d0r * u0i + d0i * u0r + (d1r * u1i + d1i * u1r);
       }
     }
-    for (; i + 1 < n; i += 2) {
-      const ri = i * n2;
-      const rj = ri + n2;
-      let q = j0;
-      for (; q + 1 < jEnd; q += 2) {
-        const a0r = a[ri + 2 * q];
-        const a0i = a[ri + 2 * q + 1];
-        const a1r = a[ri + 2 * q + 2];
-        const a1i = a[ri + 2 * q + 3];
-        const b0r = a[rj + 2 * q];
-        const b0i = a[rj + 2 * q + 1];
-        const b1r = a[rj + 2 * q + 2];
-        const b1i = a[rj + 2 * q + 3];
-        const r0 = q * n2;
-        const r1 = r0 + n2;
-        for (let j = c0; j < n2; j += 2) {
-          const u0r = a[r0 + j];
-          const u0i = a[r0 + j + 1];
-          const u1r = a[r1 + j];
-          const u1i = a[r1 + j + 1];
-          a[ri + j] -= a0r * u0r - a0i * u0i + (a1r * u1r - a1i * u1i);
-          a[ri + j + 1] -= a0r * u0i + a0i * u0r + (a1r * u1i + a1i * u1r);
-          a[rj + j] -= b0r * u0r - b0i * u0i + (b1r * u1r - b1i * u1i);
-          a[rj + j + 1] -= b0r * u0i + b0i * u0r + (b1r * u1i + b1i * u1r);
-        }
-      }
-      for (; q < jEnd; q++) {
-        const lr = a[ri + 2 * q];
-        const li = a[ri + 2 * q + 1];
-        const mr = a[rj + 2 * q];
-        const mi = a[rj + 2 * q + 1];
-        const rq = q * n2;
-        for (let j = c0; j < n2; j += 2) {
-          const ur = a[rq + j];
-          const ui = a[rq + j + 1];
-          a[ri + j] -= lr * ur - li * ui;
-          a[ri + j + 1] -= lr * ui + li * ur;
-          a[rj + j] -= mr * ur - mi * ui;
-          a[rj + j + 1] -= mr * ui + mi * ur;
-        }
-      }
-    }
-    for (; i < n; i++) {
-      const ri = i * n2;
-      for (let q = j0; q < jEnd; q++) {
-        const lr = a[ri + 2 * q];
-        const li = a[ri + 2 * q + 1];
-        const rq = q * n2;
-        for (let j = c0; j < n2; j += 2) {
-          const ur = a[rq + j];
-          const ui = a[rq + j + 1];
-          a[ri + j] -= lr * ur - li * ui;
-          a[ri + j + 1] -= lr * ui + li * ur;
-        }
+    for (; q < jEnd; q++) {
+      const q2 = 2 * q;
+      const rq = q * n2;
+      const ar = a[ri + q2];
+      const ai = a[ri + q2 + 1];
+      const br = a[rj + q2];
+      const bi = a[rj + q2 + 1];
+      const cr = a[rk + q2];
+      const ci = a[rk + q2 + 1];
+      const dr = a[rl + q2];
+      const di = a[rl + q2 + 1];
+      for (let j = c0; j < n2; j += 2) {
+        const ur = a[rq + j];
+        const ui = a[rq + j + 1];
+        a[ri + j] -= ar * ur - ai * ui;
+        a[ri + j + 1] -= ar * ui + ai * ur;
+        a[rj + j] -= br * ur - bi * ui;
+        a[rj + j + 1] -= br * ui + bi * ur;
+        a[rk + j] -= cr * ur - ci * ui;
+        a[rk + j + 1] -= cr * ui + ci * ur;
+        a[rl + j] -= dr * ur - di * ui;
+        a[rl + j + 1] -= dr * ui + di * ur;
       }
     }
   }
-  return { n, a, pivots };
+  for (; i + 1 < n; i += 2) {
+    const ri = i * n2;
+    const rj = ri + n2;
+    let q = j0;
+    for (; q + 1 < jEnd; q += 2) {
+      const a0r = a[ri + 2 * q];
+      const a0i = a[ri + 2 * q + 1];
+      const a1r = a[ri + 2 * q + 2];
+      const a1i = a[ri + 2 * q + 3];
+      const b0r = a[rj + 2 * q];
+      const b0i = a[rj + 2 * q + 1];
+      const b1r = a[rj + 2 * q + 2];
+      const b1i = a[rj + 2 * q + 3];
+      const r0 = q * n2;
+      const r1 = r0 + n2;
+      for (let j = c0; j < n2; j += 2) {
+        const u0r = a[r0 + j];
+        const u0i = a[r0 + j + 1];
+        const u1r = a[r1 + j];
+        const u1i = a[r1 + j + 1];
+        a[ri + j] -= a0r * u0r - a0i * u0i + (a1r * u1r - a1i * u1i);
+        a[ri + j + 1] -= a0r * u0i + a0i * u0r + (a1r * u1i + a1i * u1r);
+        a[rj + j] -= b0r * u0r - b0i * u0i + (b1r * u1r - b1i * u1i);
+        a[rj + j + 1] -= b0r * u0i + b0i * u0r + (b1r * u1i + b1i * u1r);
+      }
+    }
+    for (; q < jEnd; q++) {
+      const lr = a[ri + 2 * q];
+      const li = a[ri + 2 * q + 1];
+      const mr = a[rj + 2 * q];
+      const mi = a[rj + 2 * q + 1];
+      const rq = q * n2;
+      for (let j = c0; j < n2; j += 2) {
+        const ur = a[rq + j];
+        const ui = a[rq + j + 1];
+        a[ri + j] -= lr * ur - li * ui;
+        a[ri + j + 1] -= lr * ui + li * ur;
+        a[rj + j] -= mr * ur - mi * ui;
+        a[rj + j + 1] -= mr * ui + mi * ur;
+      }
+    }
+  }
+  for (; i < n; i++) {
+    const ri = i * n2;
+    for (let q = j0; q < jEnd; q++) {
+      const lr = a[ri + 2 * q];
+      const li = a[ri + 2 * q + 1];
+      const rq = q * n2;
+      for (let j = c0; j < n2; j += 2) {
+        const ur = a[rq + j];
+        const ui = a[rq + j + 1];
+        a[ri + j] -= lr * ur - li * ui;
+        a[ri + j + 1] -= lr * ui + li * ur;
+      }
+    }
+  }
 }
 
 /**

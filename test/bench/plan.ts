@@ -1,12 +1,14 @@
 /**
- * Planning benchmark: `npx tsx test/bench/plan.ts [--quick]`.
+ * Planning benchmark: `npx tsx test/bench/plan.ts [--quick] [--json]`. With `--json` the progress
+ * lines go to stderr and stdout gets one JSON object (also merged into `npm run bench -- --json`).
  *
  *  1. Cold start: `plan --demo --json` in a fresh Node process (worker threads on every core),
  *     wall time, median of 3.
  *  2. Re-plan: with warm workers and the evaluation cache of a first plan, move one support by a
  *     few metres and plan again; median of 5 different moves.
  *  3. Growth: designs to evaluate and plan time against the number of supports on an invented
- *     300 m × 200 m lot (seeded positions), up to 40 supports, with the peak memory.
+ *     300 m × 200 m lot (seeded positions), up to 40 supports (the 40-support lot three times, a
+ *     fresh evaluation cache each time; median), with the peak memory.
  */
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -23,7 +25,9 @@ const median = (xs: number[]): number => {
   const s = [...xs].sort((a, b) => a - b);
   return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
 };
-const log = (s: string): void => void process.stdout.write(s + '\n');
+const asJson = process.argv.includes('--json');
+const log = (s: string): void => void (asJson ? process.stderr : process.stdout).write(s + '\n');
+const json: Record<string, unknown> = {};
 
 // 1. Cold start
 const cold: number[] = [];
@@ -41,6 +45,8 @@ for (let i = 0; i < (quick ? 1 : 3); i++) {
   log(`cold start ${i + 1}: ${s.toFixed(2)} s (${n} candidates)`);
 }
 log(`COLD START median: ${median(cold).toFixed(2)} s (target ≤ 5 s)`);
+json.coldPlanDemoS = median(cold);
+json.coldPlanDemoRunsS = cold;
 
 // 2. Re-plan after moving one support
 const pool = createWorkerPool(2);
@@ -75,6 +81,8 @@ for (const [id, e, n] of moves.slice(0, quick ? 2 : 5)) {
   );
 }
 log(`RE-PLAN median: ${median(replan).toFixed(2)} s (target ≤ 1 s)`);
+json.replanMedianS = median(replan);
+json.replanRunsS = replan;
 
 // 3. Growth with the number of supports
 function lotWith(n: number): Project {
@@ -106,7 +114,8 @@ function lotWith(n: number): Project {
     bands: ['80m'],
   });
 }
-for (const n of quick ? [4, 8] : [4, 8, 16, 40]) {
+const growth: Record<number, number[]> = {};
+for (const n of quick ? [4, 8, 40] : [4, 8, 16, 40, 40, 40]) {
   const p = lotWith(n);
   const t0 = performance.now();
   const setup = enumeratePlan(p);
@@ -115,6 +124,7 @@ for (const n of quick ? [4, 8] : [4, 8, 16, 40]) {
   await pool.evaluate(setup.jobs, c);
   const out = planFromSetup(setup, p, { evaluator: solverEvaluator, cache: c });
   const sec = (performance.now() - t0) / 1000;
+  (growth[n] ??= []).push(sec);
   const mem = process.memoryUsage();
   log(
     `${String(n).padStart(2)} supports: ${setup.jobs.length} designs, ${setup.bands[0].proposed.length} feasible placements, ` +
@@ -123,3 +133,7 @@ for (const n of quick ? [4, 8] : [4, 8, 16, 40]) {
   );
 }
 await pool.close();
+json.plan40SupportsS = median(growth[40]);
+json.plan40SupportsRunsS = growth[40];
+json.planBySupportsS = Object.fromEntries(Object.entries(growth).map(([k, v]) => [k, median(v)]));
+if (asJson) process.stdout.write(JSON.stringify(json) + '\n');

@@ -8,18 +8,21 @@
  *     interpolated (an anchor every third point);
  *  3. LU factorisation against LAPACK through numpy/scipy, one thread, at n = 100, 200, 400;
  *  4. memory of the solve: one complex matrix, factored in place, plus the pivot rows;
- *  5. then test/bench/halfspace.ts (the exact ground) in its own process.
+ *  5. then test/bench/halfspace.ts (the exact ground), test/bench/phases.ts (fill, LU and
+ *     pattern of one evaluation, timed apart) and test/bench/plan.ts (cold plan, re-plan, 40
+ *     supports; left out with `--no-plan`, shortened with `--quick`), each in its own process.
  * Items 1 and 2 use the reflection-coefficient ground (comparable with earlier runs); the exact
  * ground's figures are item 5's.
  * Medians of several runs after warm-up, wall clock and process CPU time (the CPU time is the
  * fairer figure on a machine shared with other work; the load average is printed). Prints plain
- * text; `--json` prints JSON.
+ * text; `--json` prints one JSON object: the headline figures first (explained in README.md,
+ * "Benchmarks"), then each part's details.
  */
 import { spawnSync } from 'node:child_process';
-import { loadavg } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { evaluateAntenna } from '../../core/em/evaluate.ts';
 import { sweepImpedance } from '../../core/em/sweep.ts';
-import { luFactor } from '../../core/numeric/lu.ts';
+import { luFactor, useLuKernel } from '../../core/numeric/lu.ts';
 import { array200, halfSquare100 } from './models.ts';
 
 function median(xs: number[]): number {
@@ -106,6 +109,8 @@ const say = (s: string) => lines.push(s);
   const sizes = [100, 200, 400];
   const ours: Record<number, number> = {};
   const oursCpu: Record<number, number> = {};
+  const tsOnly: Record<number, number> = {};
+  const kernel = useLuKernel(true);
   for (const n of sizes) {
     let s = 12345;
     const a0 = new Float64Array(2 * n * n).map(() => {
@@ -126,6 +131,19 @@ const say = (s: string) => lines.push(s);
     );
     ours[n] = median(t);
     oursCpu[n] = median(cpu);
+    // the TypeScript path alone (no WebAssembly kernel), for what the kernel buys
+    useLuKernel(false);
+    tsOnly[n] = median(
+      time(
+        () => {
+          a.set(a0);
+          luFactor(n, a, piv);
+        },
+        2,
+        n >= 400 ? 5 : 9,
+      ),
+    );
+    useLuKernel(true);
   }
   const py = `
 import time, sys
@@ -168,13 +186,20 @@ print(' '.join(f'{n}:{out[n]}' for n in out))
       break;
     }
   }
-  json.lu = { oursMs: ours, oursCpuMs: oursCpu, lapackMs: lapack, lapack: how || null };
+  json.lu = {
+    oursMs: ours,
+    oursCpuMs: oursCpu,
+    wasmKernel: kernel,
+    typeScriptOnlyMs: tsOnly,
+    lapackMs: lapack,
+    lapack: how || null,
+  };
   for (const n of sizes) {
     const flops = (8 / 3) * n ** 3; // complex LU flop count of LAPACK Working Note 41 (zgetrf)
     const gf = flops / (ours[n] * 1e6);
     if (lapack)
       say(
-        `LU n = ${n}: ours ${ours[n].toFixed(2)} ms (CPU ${oursCpu[n].toFixed(2)} ms, ${gf.toFixed(1)} GFlop/s), LAPACK ${lapack[n].toFixed(2)} ms, ratio ${(ours[n] / lapack[n]).toFixed(1)}×`,
+        `LU n = ${n}: ours ${ours[n].toFixed(2)} ms (CPU ${oursCpu[n].toFixed(2)} ms, ${gf.toFixed(1)} GFlop/s; TypeScript path alone ${tsOnly[n].toFixed(2)} ms), LAPACK ${lapack[n].toFixed(2)} ms, ratio ${(ours[n] / lapack[n]).toFixed(1)}×`,
       );
     else say(`LU n = ${n}: ours ${ours[n].toFixed(2)} ms (${gf.toFixed(1)} GFlop/s)`);
   }
@@ -201,14 +226,60 @@ say(
 );
 json.loadAverage = loadavg();
 
-if (process.argv.includes('--json')) process.stdout.write(JSON.stringify(json, null, 2) + '\n');
-else process.stdout.write(lines.join('\n') + '\n');
+const asJson = process.argv.includes('--json');
+const quick = process.argv.includes('--quick');
+if (!asJson) process.stdout.write(lines.join('\n') + '\n');
 
-// 5. the exact ground (tables, 200-unknown evaluation, sweep): its own script, own process
-{
-  const args = ['--import', 'tsx', 'test/bench/halfspace.ts', ...process.argv.slice(2)];
-  const r = spawnSync(process.execPath, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] });
-  if (r.status !== 0)
-    process.stdout.write('exact-ground benchmark failed; run `npx tsx test/bench/halfspace.ts` alone\n');
-  else process.stdout.write((process.argv.includes('--json') ? '' : '\nexact ground:\n') + r.stdout);
+/** Runs another benchmark script in its own process; its JSON (with --json) or null. */
+function child(script: string, extra: string[] = []): Record<string, unknown> | null {
+  const args = ['--import', 'tsx', script, ...extra, ...(asJson ? ['--json'] : [])];
+  const r = spawnSync(process.execPath, args, {
+    encoding: 'utf8',
+    stdio: ['ignore', 'pipe', 'inherit'],
+    maxBuffer: 64 * 1024 * 1024,
+  });
+  if (r.status !== 0) {
+    process.stderr.write(`${script} failed; run \`npx tsx ${script}\` alone\n`);
+    return null;
+  }
+  if (!asJson) {
+    process.stdout.write(`\n${script}:\n${r.stdout}`);
+    return null;
+  }
+  return JSON.parse(r.stdout) as Record<string, unknown>;
+}
+
+// 5. the exact ground (tables, 200-unknown evaluation, sweep); 6. the phases of one evaluation;
+// 7. planning (cold, re-plan, 40 supports): each its own script, own process
+const exact = child('test/bench/halfspace.ts');
+const phases = child('test/bench/phases.ts');
+const plan = process.argv.includes('--no-plan')
+  ? null
+  : child('test/bench/plan.ts', quick ? ['--quick'] : []);
+
+if (asJson) {
+  type Timed = { ms: number };
+  const lu = json.lu as { oursMs: Record<number, number>; lapackMs: Record<number, number> | null };
+  const ratio = (n: number): number | null => (lu.lapackMs ? lu.oursMs[n] / lu.lapackMs[n] : null);
+  const ev = json.fullEvaluation200 as { medianMs: number };
+  const ex = exact?.fullEvaluation200 as { cachedMedian: Timed; first: Timed } | undefined;
+  const ph = phases as Record<string, { fillMs: number; luMs: number; patternMs: number }> | null;
+  const summary = {
+    evaluation200Ms: ev.medianMs,
+    evaluation200ExactMs: ex?.cachedMedian.ms ?? null,
+    evaluation200ExactFirstMs: ex?.first.ms ?? null,
+    fill200Ms: ph?.approximate.fillMs ?? null,
+    fill200ExactMs: ph?.exact.fillMs ?? null,
+    lu200Ms: lu.oursMs[200],
+    pattern200Ms: ph?.approximate.patternMs ?? null,
+    luRatio200: ratio(200),
+    luRatio400: ratio(400),
+    coldPlanDemoS: plan?.coldPlanDemoS ?? null,
+    replanMedianS: plan?.replanMedianS ?? null,
+    plan40SupportsS: plan?.plan40SupportsS ?? null,
+    loadAverage: loadavg(),
+    cores: availableParallelism(),
+  };
+  const out = { ...summary, solver: json, exactGround: exact, phases, plan };
+  process.stdout.write(JSON.stringify(out, null, 2) + '\n');
 }

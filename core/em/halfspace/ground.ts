@@ -104,6 +104,30 @@ export class ExactGroundAt implements GroundAtFrequency {
     );
   }
 
+  /**
+   * True when every segment pair of wires wa and wb takes the exact branch of `isExact` (both
+   * wires wholly between the contact height and the exact-height limit) and the wrapped model
+   * has no ground-system zone: the reflected interaction over the laterally uniform half-space
+   * then depends on the horizontal offset, the sum of the heights and the directions only, so
+   * the fill reuses it for pairs related by a translation (fill.ts, the mirror relation).
+   */
+  pairsTranslationInvariant(mesh: Mesh, wa: number, wb: number): boolean {
+    if (this.approx.translationInvariantWeights !== true) return false;
+    const lo = this.opts.contactHeightM;
+    for (const w of wa === wb ? [wa] : [wa, wb])
+      for (let s = mesh.wireSegStart[w]; s < mesh.wireSegStart[w + 1]; s++) {
+        const z0 = mesh.sz[s];
+        const z1 = z0 + mesh.len[s] * mesh.tz[s];
+        if (!(Math.min(z0, z1) > lo && Math.max(z0, z1) <= this.hExact)) return false;
+      }
+    return true;
+  }
+
+  /** Counts a pair whose exact result the fill took from its translation cache. */
+  reusedPair(): void {
+    this.stats.exactPairs++;
+  }
+
   /** The table used for the last fill (null before the first exact pair or without a table). */
   get lastTable(): RemainderTable | null {
     return this.table;

@@ -1,0 +1,72 @@
+// The WebAssembly SIMD path of the dense LU (core/numeric/lu.ts, core/numeric/wasm/) against the
+// TypeScript path: the same factors up to rounding, the same pivots, the same refusal of a
+// singular matrix; and the committed kernel is what its build script makes (regression guards,
+// not reference checks: the LU itself is checked in numeric.test.ts).
+import { spawnSync } from 'node:child_process';
+import { afterEach, describe, expect, it } from 'vitest';
+import { luFactor, luSolve, SingularMatrixError, useLuKernel } from '../../../core/numeric/lu.ts';
+
+/** Largest factor difference between the two paths, relative to the largest factor element. */
+const PATH_TOL = 1e-12;
+
+function randomMatrix(n: number, seed: number): Float64Array {
+  let s = seed;
+  return new Float64Array(2 * n * n).map(() => {
+    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+    return s / 4294967296 - 0.5;
+  });
+}
+
+afterEach(() => {
+  useLuKernel(true);
+});
+
+describe('dense LU: WebAssembly kernel against TypeScript', () => {
+  it('the kernel loads here (Node has WebAssembly SIMD)', () => {
+    expect(useLuKernel(true)).toBe(true);
+  });
+  for (const n of [24, 37, 101, 200])
+    it(`n = ${n}: same pivots, factors within ${PATH_TOL}, and the solve reproduces b`, () => {
+      const a0 = randomMatrix(n, 7 + n);
+      useLuKernel(false);
+      const t = luFactor(n, a0.slice());
+      expect(useLuKernel(true)).toBe(true);
+      const w = luFactor(n, a0.slice());
+      expect(Array.from(w.pivots)).toEqual(Array.from(t.pivots));
+      let big = 0;
+      let diff = 0;
+      for (let i = 0; i < t.a.length; i++) {
+        big = Math.max(big, Math.abs(t.a[i]));
+        diff = Math.max(diff, Math.abs(w.a[i] - t.a[i]));
+      }
+      expect(diff / big).toBeLessThan(PATH_TOL);
+      // A x = b with b = A·1: x must come back as ones (residual check of the kernel's factors)
+      const b = new Float64Array(2 * n);
+      for (let i = 0; i < n; i++)
+        for (let j = 0; j < n; j++) {
+          b[2 * i] += a0[2 * (i * n + j)];
+          b[2 * i + 1] += a0[2 * (i * n + j) + 1];
+        }
+      const x = luSolve(w, b);
+      for (let i = 0; i < n; i++) {
+        expect(Math.abs(x[2 * i] - 1)).toBeLessThan(1e-9);
+        expect(Math.abs(x[2 * i + 1])).toBeLessThan(1e-9);
+      }
+    });
+  it('refuses a singular matrix in the kernel path too, and leaves a usable kernel behind', () => {
+    const n = 40;
+    const a = randomMatrix(n, 3);
+    // column 30 (in the second panel) all zero: its pivot is exactly zero
+    for (let i = 0; i < n; i++) a[2 * (i * n + 30)] = a[2 * (i * n + 30) + 1] = 0;
+    expect(() => luFactor(n, a)).toThrow(SingularMatrixError);
+    const ok = randomMatrix(n, 4);
+    expect(() => luFactor(n, ok)).not.toThrow();
+  });
+  it('the committed kernel is what tools/build-lu-kernel.mjs builds', () => {
+    const r = spawnSync(process.execPath, ['tools/build-lu-kernel.mjs', '--check'], {
+      encoding: 'utf8',
+    });
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+  });
+});
