@@ -15,6 +15,7 @@ import { Worker } from 'node:worker_threads';
 import { buildDemoProject } from '../../data/demo/demoProject.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
 import {
+  conductorJobs,
   enumeratePlan,
   memoryCache,
   planFromSetup,
@@ -357,6 +358,12 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   if (pool) {
     try {
       await pool.evaluate(setup.jobs, cache, progress);
+      // Step 2: the best orientation of each placement near a metal support, with the support.
+      const second = conductorJobs(setup, cache, project);
+      if (second.length) {
+        io.stderr(`plan: ${second.length} placements again with the metal supports near them\n`);
+        await pool.evaluate(second, cache, progress);
+      }
     } finally {
       await pool.close();
     }
@@ -367,7 +374,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
     shortlistSize: args.top,
     onProgress: (p) => progress(p.done, p.total),
   });
-  shortlist.stats.evaluations = setup.jobs.length;
+  shortlist.stats.evaluations = setup.jobs.length + (setup.conductorJobs?.length ?? 0);
   shortlist.stats.cacheHits = 0;
   const seconds = (performance.now() - t0) / 1000;
   if (args.json) {
