@@ -280,6 +280,16 @@ function describe(c: Candidate): string {
         `${r.distanceKm.min.toFixed(0)}–${r.distanceKm.max.toFixed(0)} km, elevation ${f1(r.elevationWindowDeg.min)}–${f1(r.elevationWindowDeg.max)}°, ${r.hops.min}–${r.hops.max} hops`,
     );
   }
+  const sr = c.soilRange;
+  if (sr.scores.length > 1)
+    lines.push(
+      `    over the soil range: ${sr.scores.map((x) => `${x.soil} ${f2(x.scoreDbi)} dBi (#${x.rank})`).join(', ')}` +
+        (sr.rankHolds ? '; the rank holds' : '; the rank does not hold'),
+    );
+  if (c.conductingSupports.length)
+    lines.push(
+      `    metal supports in the model: ${c.conductingSupports.map((m) => `${m.name} (${f1(m.heightM)} m, ${m.grounded ? 'grounded' : 'not grounded'})`).join(', ')}`,
+    );
   const [r, x] = c.feed.zOhm;
   lines.push(
     `    feed ${f1(r)} ${x < 0 ? '−' : '+'} j${f1(Math.abs(x))} Ω at ${c.feed.freqMHz.toFixed(3)} MHz, SWR ${f2(c.feed.swr)} on ${c.feed.z0Ohm} Ω`,
