@@ -12,7 +12,7 @@ if (!port) throw new Error('plan-worker must run as a worker thread');
 port.on('message', (msg: Job) => {
   try {
     const t0 = performance.now();
-    const record = evaluateDesign(msg.design, msg.ground, solverEvaluator, msg.soilRange);
+    const record = evaluateDesign(msg.design, msg.ground, solverEvaluator, msg.soilRange, msg.soilOnly);
     port.postMessage({ key: msg.key, record, ms: performance.now() - t0 });
   } catch (e) {
     port.postMessage({ key: msg.key, error: e instanceof Error ? e.message : String(e) });

@@ -16,6 +16,7 @@ import { buildDemoProject } from '../../data/demo/demoProject.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
 import {
   conductorJobs,
+  soilRangeJobs,
   enumeratePlan,
   memoryCache,
   planFromSetup,
@@ -373,6 +374,12 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
       if (second.length) {
         io.stderr(`plan: ${second.length} placements again with the metal supports near them\n`);
         await pool.evaluate(second, cache, progress);
+      }
+      // Step 3: the soil range of the shortlisted candidates only.
+      const third = soilRangeJobs(setup, cache, project, args.top);
+      if (third.length) {
+        io.stderr(`plan: ${third.length} shortlisted designs over the soil range\n`);
+        await pool.evaluate(third, cache, progress);
       }
     } finally {
       await pool.close();

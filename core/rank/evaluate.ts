@@ -79,6 +79,37 @@ function one(
 }
 
 /**
+ * Only the soil range of a design already trimmed over the project's soil: one solve with pattern
+ * per soil class at `trimM`. The other fields of the record are empty (it is kept in the cache
+ * under its own key, beside the design's full record).
+ */
+function soilRangeRecord(
+  design: Design,
+  evaluator: Evaluator,
+  soilRange: readonly string[],
+  trimM: number,
+): EvaluationRecord {
+  const f0 = design.designFreqHz;
+  return {
+    trimM,
+    resonant: false,
+    trimSteps: [],
+    freqHz: f0,
+    zOhm: [0, 0],
+    swr: Infinity,
+    power: { inputW: 0, radiatedW: 0, conductorLossW: 0, groundLossW: 0, efficiency: 0 },
+    bandwidth: { lowHz: null, highHz: null, widthHz: 0, extrapolated: false },
+    gainDbi: [],
+    peak: { gainDbi: -Infinity, elevationDeg: 0, azimuthDeg: 0 },
+    diagnostics: [],
+    soilRange: soilRange.map((soilId) => {
+      const r = one(evaluator, design, trimM, { classId: soilId }, [f0], true)[0];
+      return { soilId, gainDbi: r.gainDbi ? Array.from(r.gainDbi) : [] };
+    }),
+  };
+}
+
+/**
  * Trim, sweep and pattern of one design; with `soilRange` (soil class ids), also the pattern over
  * each of those soils at the same trim (the design as trimmed over the project's soil, which is
  * what the user would build; one solve with pattern per soil, no trim and no sweep).
@@ -88,8 +119,10 @@ export function evaluateDesign(
   ground: EvalGround,
   evaluator: Evaluator,
   soilRange: readonly string[] = [],
+  soilOnly?: { trimM: number },
 ): EvaluationRecord {
   const f0 = design.designFreqHz;
+  if (soilOnly) return soilRangeRecord(design, evaluator, soilRange, soilOnly.trimM);
   const { minM, maxM, nominalM } = design.trim;
   const clamp = (v: number): number => Math.min(maxM, Math.max(minM, v));
   const steps: { trimM: number; zOhm: [number, number] }[] = [];
@@ -177,10 +210,9 @@ export function evaluateDesign(
     }
   });
   const nAz = PATTERN_GRID.azimuthsDeg.length;
-  const range = soilRange.map((soilId) => {
-    const r = one(evaluator, design, trimM, { classId: soilId }, [f0], true)[0];
-    return { soilId, gainDbi: r.gainDbi ? Array.from(r.gainDbi) : [] };
-  });
+  const range = soilRange.length
+    ? (soilRangeRecord(design, evaluator, soilRange, trimM).soilRange ?? [])
+    : [];
   return {
     trimM,
     resonant,

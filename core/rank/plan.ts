@@ -69,6 +69,8 @@ export interface Job {
   ground: EvalGround;
   /** Soil classes over which the pattern is also computed (the soil range; evaluateDesign). */
   soilRange?: string[];
+  /** Step 3: only the soil range, at this trim (the design's record over the project's soil has it). */
+  soilOnly?: { trimM: number };
 }
 
 export interface Proposed {
@@ -240,11 +242,11 @@ const r3 = (v: number): number => Math.round(v * 1000) / 1000;
 
 /**
  * Cache key of a design over a ground: hash of its parameters, trim limits, nominal wire model,
- * conducting supports (canonical frame), ground, soil range and frequency. A design with no
+ * conducting supports (canonical frame), ground and frequency. A design with no
  * conducting support near it has one key for every placement (its pattern is read rotated);
  * with one, the key holds the supports' positions relative to the placement.
  */
-export function designKey(design: Design, ground: EvalGround, soilRange: readonly string[] = []): string {
+export function designKey(design: Design, ground: EvalGround): string {
   const model = builderFor(design.type).model(design, design.trim.nominalM);
   const geom = model.wires.map((w) => [
     w.from.map(r3),
@@ -264,7 +266,6 @@ export function designKey(design: Design, ground: EvalGround, soilRange: readonl
       radials: model.radials,
       ground,
       ...(design.conductors?.length ? { sc: design.conductors } : {}),
-      ...(soilRange.length ? { sr: soilRange } : {}),
       f: design.designFreqHz,
       grid: [PATTERN_GRID.elevationsDeg.length, PATTERN_GRID.azimuthsDeg.length],
     }),
@@ -285,7 +286,6 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
     options.layerHeightsM ? { layerHeightsM: options.layerHeightsM } : {},
   );
   const ground = groundOf(project);
-  const soilRange = soilRangeOf(project);
   const away = (mainTargetBearing(paths) + 180) % 360;
   const metalSupports: NearbySupport[] = site.supports
     .filter((s) => s.conducts !== false && s.conducts !== undefined)
@@ -307,13 +307,12 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
           const near = metalSupports.length
             ? conductorsNear(p.design, p.placement, metalSupports, away)
             : { conductors: [], unknown: [] };
-          const key = designKey(p.design, ground, soilRange);
-          if (!jobs.has(key))
-            jobs.set(key, { key, design: p.design, ground, ...(soilRange.length ? { soilRange } : {}) });
+          const key = designKey(p.design, ground);
+          if (!jobs.has(key)) jobs.set(key, { key, design: p.design, ground });
           let withConductors: Proposed['withConductors'];
           if (near.conductors.length) {
             const design = { ...p.design, conductors: near.conductors };
-            withConductors = { design, key: designKey(design, ground, soilRange) };
+            withConductors = { design, key: designKey(design, ground) };
           }
           proposed.push({
             proposal: p,
@@ -355,7 +354,7 @@ export function evaluateJobs(
 ): number {
   const todo = jobs.filter((j) => !cache.has(j.key));
   todo.forEach((j, i) => {
-    cache.set(j.key, evaluateDesign(j.design, j.ground, evaluator, j.soilRange));
+    cache.set(j.key, evaluateDesign(j.design, j.ground, evaluator, j.soilRange, j.soilOnly));
     onProgress?.({ phase: 'evaluate', done: i + 1, total: todo.length });
   });
   return todo.length;
@@ -399,7 +398,6 @@ function scorerFor(paths: readonly RegionPath[]): Scorer {
 export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project: Project): Job[] {
   if (setup.conductorJobs) return setup.conductorJobs;
   const scoreOf = scorerFor(setup.paths);
-  const soilRange = soilRangeOf(project);
   const ground = groundOf(project);
   const jobs = new Map<string, Job>();
   const choice = new Map<Band, Set<number>>();
@@ -418,14 +416,51 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
     for (const { i } of best.values()) {
       set.add(i);
       const w = b.proposed[i].withConductors!;
-      if (!jobs.has(w.key))
-        jobs.set(w.key, { key: w.key, design: w.design, ground, ...(soilRange.length ? { soilRange } : {}) });
+      if (!jobs.has(w.key)) jobs.set(w.key, { key: w.key, design: w.design, ground });
     }
     choice.set(b.band, set);
   }
   setup.conductorJobs = [...jobs.values()];
   setup.conductorChoice = choice;
   return setup.conductorJobs;
+}
+
+/** Cache key of the soil-range record of the design of evaluation key `key`. */
+export function soilRangeKey(key: string, soils: readonly string[]): string {
+  return `${key}~soils~${soils.join(',')}`;
+}
+
+/**
+ * Step 3 (after steps 1 and 2 are in the cache): the soil range, for the shortlisted candidates
+ * only. Each shortlisted design, as trimmed over the project's soil, is solved once more per soil
+ * class of the range, pattern only. Ranking without the range first is cheap (no solver work).
+ */
+export function soilRangeJobs(
+  setup: PlanSetup,
+  cache: EvaluationCache,
+  project: Project,
+  shortlistSize = 10,
+): Job[] {
+  const soils = soilRangeOf(project);
+  if (!soils.length) return [];
+  const ranked = rankPlan(setup, cache, project, shortlistSize);
+  const designs = new Map<string, Design>();
+  for (const j of [...setup.jobs, ...(setup.conductorJobs ?? [])]) designs.set(j.key, j.design);
+  const jobs = new Map<string, Job>();
+  for (const c of ranked.candidates) {
+    const key = soilRangeKey(c.evaluationKey, soils);
+    const design = designs.get(c.evaluationKey);
+    const rec = cache.get(c.evaluationKey);
+    if (!design || !rec || jobs.has(key)) continue;
+    jobs.set(key, {
+      key,
+      design,
+      ground: groundOf(project),
+      soilRange: soils,
+      soilOnly: { trimM: rec.trimM },
+    });
+  }
+  return [...jobs.values()];
 }
 
 /** Every job of a setup: step 1, and step 2 when known. */
@@ -546,7 +581,7 @@ export function rankPlan(
       const { p, rec, key, regionGains, fits, elements, unknownMetal } = g.best;
       const perSoil = new Map<string, number>([[ownSoil, g.best.score]]);
       for (const id of rangeSoils) {
-        const alt = rec.soilRange?.find((r) => r.soilId === id);
+        const alt = cache.get(soilRangeKey(key, rangeSoils))?.soilRange?.find((r) => r.soilId === id);
         if (alt && alt.gainDbi.length) perSoil.set(id, scoreOf(alt.gainDbi, p.placement.rotationDeg).score);
       }
       soilScores.push(perSoil);
@@ -735,6 +770,8 @@ export function planFromSetup(setup: PlanSetup, project: Project, options: PlanO
   let evaluations = evaluateJobs(setup.jobs, options.evaluator, cache, options.onProgress);
   const second = conductorJobs(setup, cache, project);
   evaluations += evaluateJobs(second, options.evaluator, cache, options.onProgress);
+  const third = soilRangeJobs(setup, cache, project, options.shortlistSize ?? 10);
+  evaluateJobs(third, options.evaluator, cache, options.onProgress);
   const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10);
   const feasible = setup.bands.reduce((s, b) => s + b.proposed.length, 0);
   return {

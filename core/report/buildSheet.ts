@@ -17,7 +17,7 @@ import {
 } from '../antennas/common.ts';
 import type { Design, Proposal, WireModel } from '../antennas/types.ts';
 import { COAX_TYPES, type Project } from '../project/schema.ts';
-import { designKey, enumeratePlan, soilRangeOf, type Candidate, type Shortlist } from '../rank/plan.ts';
+import { designKey, enumeratePlan, type Candidate, type Shortlist } from '../rank/plan.ts';
 import { evaluationModel } from '../antennas/conductors.ts';
 import type { EvalGround, Evaluator } from '../rank/evaluator.ts';
 import { placeXYZ, type XYZ } from '../site/geometry.ts';
@@ -567,5 +567,5 @@ function radialBaseXY(model: WireModel | null, p: Proposal | null): XY | null {
 
 /** Check that a proposal rebuilds the candidate (its design key); for callers that resolved it elsewhere. */
 export function proposalMatches(project: Project, candidate: Candidate, proposal: Proposal): boolean {
-  return designKey(proposal.design, project.soil, soilRangeOf(project)) === candidate.evaluationKey;
+  return designKey(proposal.design, project.soil) === candidate.evaluationKey;
 }

@@ -90,7 +90,7 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
         try {
           const record =
             cache.get(msg.job.key) ??
-            evaluateDesign(msg.job.design, msg.job.ground, evaluator, msg.job.soilRange);
+            evaluateDesign(msg.job.design, msg.job.ground, evaluator, msg.job.soilRange, msg.job.soilOnly);
           cache.set(msg.job.key, record);
           return [{ type: 'evaluated', runId: msg.runId, key: msg.job.key, record, ms: now() - t0 }];
         } catch (e) {
