@@ -9,6 +9,7 @@ import type { Band } from '../project/schema.ts';
 import type { XY } from '../site/frame.ts';
 import type { Element, PreparedSite } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
+import type { SupportConductor } from './conductors.ts';
 
 export type AntennaTypeId =
   'dipole' | 'inverted-v' | 'half-square' | 'vertical' | 'inverted-l' | (string & {});
@@ -19,7 +20,7 @@ export interface ModelWire {
   to: XYZ;
   radiusM: number;
   segments?: number;
-  material?: 'copper' | 'aluminium' | 'perfect';
+  material?: 'copper' | 'aluminium' | 'perfect' | 'steel';
   /** Plain-words name used in cut lists and reasons. */
   label: string;
 }
@@ -56,6 +57,11 @@ export interface Design {
   params: DesignParams;
   /** The dimension adjusted to bring the feed to resonance, with its nominal value and limits (metres). */
   trim: { name: string; nominalM: number; minM: number; maxM: number };
+  /**
+   * Conducting supports near this placement, in the canonical frame (core/antennas/conductors.ts);
+   * set by the planner, not by a builder. They go into the solver's model after the antenna's wires.
+   */
+  conductors?: SupportConductor[];
 }
 
 /** Canonical frame → site: rotate clockwise (compass sense) by rotationDeg about the origin, then translate. */

@@ -15,6 +15,8 @@ import { Worker } from 'node:worker_threads';
 import { buildDemoProject } from '../demo/demoProject.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
 import {
+  conductorJobs,
+  soilRangeJobs,
   enumeratePlan,
   memoryCache,
   planFromSetup,
@@ -279,6 +281,16 @@ function describe(c: Candidate): string {
         `${r.distanceKm.min.toFixed(0)}–${r.distanceKm.max.toFixed(0)} km, elevation ${f1(r.elevationWindowDeg.min)}–${f1(r.elevationWindowDeg.max)}°, ${r.hops.min}–${r.hops.max} hops`,
     );
   }
+  const sr = c.soilRange;
+  if (sr.scores.length > 1)
+    lines.push(
+      `    over the soil range: ${sr.scores.map((x) => `${x.soil} ${f2(x.scoreDbi)} dBi (#${x.rank})`).join(', ')}` +
+        (sr.rankHolds ? '; the rank holds' : '; the rank does not hold'),
+    );
+  if (c.conductingSupports.length)
+    lines.push(
+      `    metal supports in the model: ${c.conductingSupports.map((m) => `${m.name} (${f1(m.heightM)} m, ${m.grounded ? 'grounded' : 'not grounded'})`).join(', ')}`,
+    );
   const [r, x] = c.feed.zOhm;
   lines.push(
     `    feed ${f1(r)} ${x < 0 ? '−' : '+'} j${f1(Math.abs(x))} Ω at ${c.feed.freqMHz.toFixed(3)} MHz, SWR ${f2(c.feed.swr)} on ${c.feed.z0Ohm} Ω`,
@@ -357,6 +369,18 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   if (pool) {
     try {
       await pool.evaluate(setup.jobs, cache, progress);
+      // Step 2: the best orientation of each placement near a metal support, with the support.
+      const second = conductorJobs(setup, cache, project);
+      if (second.length) {
+        io.stderr(`plan: ${second.length} placements again with the metal supports near them\n`);
+        await pool.evaluate(second, cache, progress);
+      }
+      // Step 3: the soil range of the shortlisted candidates only.
+      const third = soilRangeJobs(setup, cache, project, args.top);
+      if (third.length) {
+        io.stderr(`plan: ${third.length} shortlisted designs over the soil range\n`);
+        await pool.evaluate(third, cache, progress);
+      }
     } finally {
       await pool.close();
     }
@@ -367,7 +391,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
     shortlistSize: args.top,
     onProgress: (p) => progress(p.done, p.total),
   });
-  shortlist.stats.evaluations = setup.jobs.length;
+  shortlist.stats.evaluations = setup.jobs.length + (setup.conductorJobs?.length ?? 0);
   shortlist.stats.cacheHits = 0;
   const seconds = (performance.now() - t0) / 1000;
   if (args.json) {

@@ -169,3 +169,40 @@ export const SOIL_CLASS_IDS = SOIL_CLASSES.map((s) => s.id);
 export function soilById(id: string): SoilClass | undefined {
   return SOIL_CLASSES.find((s) => s.id === id);
 }
+
+/**
+ * Soil classes from wettest to driest, one ladder per family of classes: the amateur classes and
+ * the ITU-R P.368 land classes. Water and ice classes are on no ladder (their electrical values
+ * do not depend on how wet the ground is). The order follows the conductivity of each class.
+ */
+export const SOIL_LADDERS: readonly (readonly string[])[] = [
+  ['very-good', 'average', 'poor', 'very-poor', 'extremely-poor'],
+  ['itu-very-wet', 'itu-wet', 'itu-land', 'itu-medium-dry', 'itu-dry', 'itu-very-dry'],
+];
+
+/**
+ * The soil classes next to a soil: one drier and one wetter on its ladder (either may be missing
+ * at the end of a ladder). A soil given by its values takes the amateur classes whose
+ * conductivity brackets its own. Water and ice classes have no neighbours.
+ */
+export function neighbourSoils(
+  soil: { classId: string } | { permittivity: number; conductivitySPerM: number },
+): { drier: string | null; wetter: string | null } {
+  if ('classId' in soil) {
+    for (const ladder of SOIL_LADDERS) {
+      const i = ladder.indexOf(soil.classId);
+      if (i >= 0) return { wetter: ladder[i - 1] ?? null, drier: ladder[i + 1] ?? null };
+    }
+    return { drier: null, wetter: null };
+  }
+  const ladder = SOIL_LADDERS[0];
+  const sigma = (id: string): number => soilById(id)?.conductivitySPerM ?? 0;
+  let wetter: string | null = null;
+  let drier: string | null = null;
+  for (const id of ladder) {
+    // Conductivity falls along the ladder; the last class above and the first one below.
+    if (sigma(id) > soil.conductivitySPerM) wetter = id;
+    else if (sigma(id) < soil.conductivitySPerM && drier === null) drier = id;
+  }
+  return { drier, wetter };
+}

@@ -79,17 +79,87 @@ export type SupportKind = (typeof SUPPORT_KINDS)[number];
 /** Highest usable attachment height we accept, in metres (a very tall tower). */
 export const MAX_SUPPORT_HEIGHT_M = 200;
 
-export const SupportSchema = z.object({
-  id: idSchema,
-  name: nameSchema,
-  kind: z.enum(SUPPORT_KINDS, { message: `must be one of ${SUPPORT_KINDS.join(', ')}` }),
-  position: LonLatSchema,
-  usableHeightM: finite
-    .refine((v) => v > 0, 'must be greater than 0 m')
-    .refine((v) => v <= MAX_SUPPORT_HEIGHT_M, `must be at most ${MAX_SUPPORT_HEIGHT_M} m`),
-  notes: notesSchema,
-});
+/**
+ * What a tower or mast is made of. Steel and aluminium conduct and go into the antenna model as
+ * a vertical conductor (core/antennas/conductors.ts); fibreglass does not. Trees and buildings
+ * take no material: they are never modelled as conductors.
+ */
+export const SUPPORT_MATERIALS = ['steel', 'aluminium', 'fibreglass'] as const;
+export type SupportMaterial = (typeof SUPPORT_MATERIALS)[number];
+
+/** Limits of the metal-support dimensions we accept, metres. */
+export const FACE_WIDTH_LIMITS_M = { min: 0.05, max: 3 } as const;
+export const DIAMETER_LIMITS_M = { min: 0.01, max: 1 } as const;
+
+export const SupportSchema = z
+  .object({
+    id: idSchema,
+    name: nameSchema,
+    kind: z.enum(SUPPORT_KINDS, { message: `must be one of ${SUPPORT_KINDS.join(', ')}` }),
+    position: LonLatSchema,
+    usableHeightM: finite
+      .refine((v) => v > 0, 'must be greater than 0 m')
+      .refine((v) => v <= MAX_SUPPORT_HEIGHT_M, `must be at most ${MAX_SUPPORT_HEIGHT_M} m`),
+    notes: notesSchema,
+    /**
+     * Towers and masts only. Unset: a tower is taken as steel (it conducts); a mast is unknown
+     * (the planner leaves it out of the model and says so).
+     */
+    material: z
+      .enum(SUPPORT_MATERIALS, { message: `must be one of ${SUPPORT_MATERIALS.join(', ')}` })
+      .optional(),
+    /** Height of the metal structure, metres (unset: the usable height). */
+    structureHeightM: finite
+      .refine((v) => v > 0, 'must be greater than 0 m')
+      .refine((v) => v <= MAX_SUPPORT_HEIGHT_M, `must be at most ${MAX_SUPPORT_HEIGHT_M} m`)
+      .optional(),
+    /** Face width of a lattice tower, metres. */
+    faceWidthM: finite
+      .refine(
+        (v) => v >= FACE_WIDTH_LIMITS_M.min && v <= FACE_WIDTH_LIMITS_M.max,
+        `must be between ${FACE_WIDTH_LIMITS_M.min} and ${FACE_WIDTH_LIMITS_M.max} m`,
+      )
+      .optional(),
+    /** Outside diameter of a tubular mast, metres. */
+    diameterM: finite
+      .refine(
+        (v) => v >= DIAMETER_LIMITS_M.min && v <= DIAMETER_LIMITS_M.max,
+        `must be between ${DIAMETER_LIMITS_M.min} and ${DIAMETER_LIMITS_M.max} m`,
+      )
+      .optional(),
+    /** Whether the metal structure is connected to ground at its base (unset: yes). */
+    grounded: z.boolean().optional(),
+  })
+  .superRefine((s, ctx) => {
+    if (s.kind === 'tree' || s.kind === 'building') {
+      for (const f of ['material', 'structureHeightM', 'faceWidthM', 'diameterM', 'grounded'] as const) {
+        if (s[f] !== undefined)
+          ctx.addIssue({
+            code: 'custom',
+            path: [f],
+            message: `a ${s.kind} is never modelled as a conductor: leave ${f} unset`,
+          });
+      }
+    }
+    if (s.structureHeightM !== undefined && s.structureHeightM < s.usableHeightM)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['structureHeightM'],
+        message: `must be at least the usable height (${s.usableHeightM} m): the attachment is on the structure`,
+      });
+  });
 export type Support = z.infer<typeof SupportSchema>;
+
+/**
+ * Whether a support conducts: a tower unless it is fibreglass, a mast only when its material is
+ * set to a metal (null: a mast whose material is not set, which the user is asked for), never a
+ * tree or a building.
+ */
+export function supportConducts(s: Pick<Support, 'kind' | 'material'>): boolean | null {
+  if (s.kind === 'tower') return s.material !== 'fibreglass';
+  if (s.kind === 'mast') return s.material === undefined ? null : s.material !== 'fibreglass';
+  return false;
+}
 
 /**
  * Keep-out kinds. A `path` is a walkway, drive or play area where people walk and linger: wires
@@ -171,6 +241,9 @@ export const StationSettingsSchema = z.object({
 });
 export type StationSettings = z.infer<typeof StationSettingsSchema>;
 
+/** Most soil classes a user's soil range may list (each costs one more solve per design). */
+export const MAX_SOIL_RANGE = 4;
+
 export const SettingsSchema = z.object({
   units: z.enum(['metric', 'imperial']).default('metric'),
   /** Setback kept from the lot boundary, metres. */
@@ -194,6 +267,21 @@ export const SettingsSchema = z.object({
     .default(''),
   tileAttribution: z.string().max(300).default(''),
   station: StationSettingsSchema.default(StationSettingsSchema.parse({})),
+  /**
+   * Soil classes over which each candidate is also scored, to show how far its score moves when
+   * the soil is not what the project says (unset: the classes next to the project's, one drier
+   * and one wetter; core/em/soils.ts neighbourSoils).
+   */
+  soilRange: z
+    .array(
+      z.enum(SOIL_CLASS_IDS as [string, ...string[]], {
+        message: `must be one of the soil classes: ${SOIL_CLASS_IDS.join(', ')}`,
+      }),
+    )
+    .min(1, 'give at least one soil class, or leave the range unset')
+    .max(MAX_SOIL_RANGE, `at most ${MAX_SOIL_RANGE} soil classes`)
+    .refine((ids) => new Set(ids).size === ids.length, 'lists a soil class twice')
+    .optional(),
 });
 export type Settings = z.infer<typeof SettingsSchema>;
 

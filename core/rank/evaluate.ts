@@ -10,7 +10,7 @@
  * δ = SWEEP_FRACTION, and the fitted SWR is followed outward from f0 in steps of 0.05 % up to
  * ±2δ. Beyond ±δ it is an extrapolation; the result says so when an edge lies there.
  */
-import { builderFor } from '../antennas/registry.ts';
+import { evaluationModel } from '../antennas/conductors.ts';
 import type { Design } from '../antennas/types.ts';
 import { Z0_OHM, swrOf, type EvalGround, type EvalFrequency, type Evaluator } from './evaluator.ts';
 import { PATTERN_GRID } from './pattern.ts';
@@ -42,6 +42,11 @@ export interface EvaluationRecord {
   gainDbi: number[];
   peak: { gainDbi: number; elevationDeg: number; azimuthDeg: number };
   diagnostics: string[];
+  /**
+   * The pattern over other soil classes (the soil range), at the trim found over the project's
+   * soil: gain on PATTERN_GRID, one entry per class asked for. Absent when none was asked.
+   */
+  soilRange?: { soilId: string; gainDbi: number[] }[];
 }
 
 function fitQuadratic(xs: readonly number[], ys: readonly number[]): (x: number) => number {
@@ -62,7 +67,7 @@ function one(
   freqs: number[],
   pattern: boolean,
 ): EvalFrequency[] {
-  const model = builderFor(design.type).model(design, trimM);
+  const model = evaluationModel(design, trimM);
   return evaluator({
     model,
     ground,
@@ -73,9 +78,51 @@ function one(
   });
 }
 
-/** Trim, sweep and pattern of one design. */
-export function evaluateDesign(design: Design, ground: EvalGround, evaluator: Evaluator): EvaluationRecord {
+/**
+ * Only the soil range of a design already trimmed over the project's soil: one solve with pattern
+ * per soil class at `trimM`. The other fields of the record are empty (it is kept in the cache
+ * under its own key, beside the design's full record).
+ */
+function soilRangeRecord(
+  design: Design,
+  evaluator: Evaluator,
+  soilRange: readonly string[],
+  trimM: number,
+): EvaluationRecord {
   const f0 = design.designFreqHz;
+  return {
+    trimM,
+    resonant: false,
+    trimSteps: [],
+    freqHz: f0,
+    zOhm: [0, 0],
+    swr: Infinity,
+    power: { inputW: 0, radiatedW: 0, conductorLossW: 0, groundLossW: 0, efficiency: 0 },
+    bandwidth: { lowHz: null, highHz: null, widthHz: 0, extrapolated: false },
+    gainDbi: [],
+    peak: { gainDbi: -Infinity, elevationDeg: 0, azimuthDeg: 0 },
+    diagnostics: [],
+    soilRange: soilRange.map((soilId) => {
+      const r = one(evaluator, design, trimM, { classId: soilId }, [f0], true)[0];
+      return { soilId, gainDbi: r.gainDbi ? Array.from(r.gainDbi) : [] };
+    }),
+  };
+}
+
+/**
+ * Trim, sweep and pattern of one design; with `soilRange` (soil class ids), also the pattern over
+ * each of those soils at the same trim (the design as trimmed over the project's soil, which is
+ * what the user would build; one solve with pattern per soil, no trim and no sweep).
+ */
+export function evaluateDesign(
+  design: Design,
+  ground: EvalGround,
+  evaluator: Evaluator,
+  soilRange: readonly string[] = [],
+  soilOnly?: { trimM: number },
+): EvaluationRecord {
+  const f0 = design.designFreqHz;
+  if (soilOnly) return soilRangeRecord(design, evaluator, soilRange, soilOnly.trimM);
   const { minM, maxM, nominalM } = design.trim;
   const clamp = (v: number): number => Math.min(maxM, Math.max(minM, v));
   const steps: { trimM: number; zOhm: [number, number] }[] = [];
@@ -163,6 +210,9 @@ export function evaluateDesign(design: Design, ground: EvalGround, evaluator: Ev
     }
   });
   const nAz = PATTERN_GRID.azimuthsDeg.length;
+  const range = soilRange.length
+    ? (soilRangeRecord(design, evaluator, soilRange, trimM).soilRange ?? [])
+    : [];
   return {
     trimM,
     resonant,
@@ -185,5 +235,6 @@ export function evaluateDesign(design: Design, ground: EvalGround, evaluator: Ev
       azimuthDeg: PATTERN_GRID.azimuthsDeg[pkI % nAz] ?? 0,
     },
     diagnostics: [...new Set(diagnostics)],
+    ...(range.length ? { soilRange: range } : {}),
   };
 }

@@ -15,6 +15,13 @@
  * azimuths at 5–25° elevation.
  */
 import { BUILDERS, builderFor } from '../antennas/registry.ts';
+import {
+  conductorsNear,
+  NEARBY_WAVELENGTHS,
+  STANDOFF_M,
+  type NearbySupport,
+} from '../antennas/conductors.ts';
+import { neighbourSoils, soilById } from '../em/soils.ts';
 import { bandPlan, placeElements, CUT_ALLOWANCE_PER_END_M } from '../antennas/common.ts';
 import type { AntennaTypeId, CutKind, Design, Placement, Proposal, Rejection } from '../antennas/types.ts';
 import type { Caution } from '../report/cautions.ts';
@@ -41,7 +48,7 @@ import { PATTERN_GRID, averageGainDbi, azimuthAdvantage, gainAt } from './patter
 import { Z0_OHM } from './evaluator.ts';
 
 /** Version of the evaluation record and grid; part of every cache key. */
-export const EVALUATION_VERSION = 1;
+export const EVALUATION_VERSION = 2;
 
 export interface EvaluationCache {
   get(key: string): EvaluationRecord | undefined;
@@ -71,11 +78,21 @@ export interface Job {
   key: string;
   design: Design;
   ground: EvalGround;
+  /** Soil classes over which the pattern is also computed (the soil range; evaluateDesign). */
+  soilRange?: string[];
+  /** Step 3: only the soil range, at this trim (the design's record over the project's soil has it). */
+  soilOnly?: { trimM: number };
 }
 
-interface Proposed {
+export interface Proposed {
+  /** The builder's proposal (its design without conducting supports). */
   proposal: Proposal;
+  /** Evaluation key of the design alone (shared by every orientation of it). */
   key: string;
+  /** The design with the conducting supports near this placement, and its key (none near: absent). */
+  withConductors?: { design: Design; key: string };
+  /** Names of nearby masts whose material is not set (left out of the model). */
+  unknownMetal?: string[];
 }
 
 export interface PlanSetup {
@@ -83,7 +100,15 @@ export interface PlanSetup {
   prepared: PreparedSite;
   paths: RegionPath[];
   bands: { band: Band; proposed: Proposed[]; rejections: Rejection[] }[];
+  /** Step-1 jobs: every design alone, one evaluation for all its orientations. */
   jobs: Job[];
+  /**
+   * Step-2 jobs, set by conductorJobs once the step-1 jobs are evaluated: per placement group with
+   * a conducting support near it, its best orientation again with the supports in the model.
+   */
+  conductorJobs?: Job[];
+  /** Indices into `bands[b].proposed` of the orientations chosen for step 2, by band. */
+  conductorChoice?: Map<Band, Set<number>>;
 }
 
 export interface RejectedPlacement {
@@ -157,6 +182,31 @@ export interface Candidate {
   variants: number;
   diagnostics: string[];
   evaluationKey: string;
+  /**
+   * Conducting supports in this candidate's model (within about 0.5 λ of its wires): a grounded
+   * (unless marked otherwise) vertical conductor each (core/antennas/conductors.ts).
+   */
+  conductingSupports: {
+    id: string;
+    name: string;
+    heightM: number;
+    grounded: boolean;
+    equivalentRadiusM: number;
+    /** The wire hangs from a stand-off arm: the support's axis is modelled 1 m from it. */
+    standoff: boolean;
+  }[];
+  /**
+   * The score over the project's soil and the soil range (the trimmed design re-solved over
+   * each; pattern only). lowDbi ≤ score ≤ highDbi. `rankHolds` is false when the candidate's
+   * rank in its band's shortlist differs over any soil of the range.
+   */
+  soilRange: {
+    soils: string[];
+    lowDbi: number;
+    highDbi: number;
+    scores: { soil: string; scoreDbi: number; rank: number }[];
+    rankHolds: boolean;
+  };
 }
 
 export interface Shortlist {
@@ -184,9 +234,46 @@ function groundOf(project: Project): EvalGround {
   return project.soil;
 }
 
+/** Name of the project's soil in a soil range: its class id, or `custom` for soil given by values. */
+export function projectSoilId(project: Project): string {
+  return 'classId' in project.soil ? project.soil.classId : 'custom';
+}
+
+/**
+ * The soil classes each candidate is also scored over: the user's range (settings.soilRange) or,
+ * unset, the classes next to the project's soil (one drier, one wetter), without the project's own.
+ */
+export function soilRangeOf(project: Project): string[] {
+  const own = projectSoilId(project);
+  const n = neighbourSoils(project.soil);
+  const ids = project.settings.soilRange ?? [n.drier, n.wetter].filter((v): v is string => v !== null);
+  return ids.filter((id) => id !== own && soilById(id) !== undefined);
+}
+
+/**
+ * Site bearing, degrees, the main target lies on: the weight-averaged unit vector of the paths'
+ * centre bearings (north with no targets). Used to put a wire on the target side of a tower.
+ */
+function mainTargetBearing(paths: readonly RegionPath[]): number {
+  let x = 0;
+  let y = 0;
+  for (const p of paths) {
+    const b = (p.azimuthSpan.centerDeg * Math.PI) / 180;
+    x += p.weight * Math.sin(b);
+    y += p.weight * Math.cos(b);
+  }
+  if (Math.hypot(x, y) < 1e-9) return 0;
+  return ((Math.atan2(x, y) * 180) / Math.PI + 360) % 360;
+}
+
 const r3 = (v: number): number => Math.round(v * 1000) / 1000;
 
-/** Cache key of a design over a ground: hash of its parameters, trim limits, nominal wire model, ground and frequency. */
+/**
+ * Cache key of a design over a ground: hash of its parameters, trim limits, nominal wire model,
+ * conducting supports (canonical frame), ground and frequency. A design with no
+ * conducting support near it has one key for every placement (its pattern is read rotated);
+ * with one, the key holds the supports' positions relative to the placement.
+ */
 export function designKey(design: Design, ground: EvalGround): string {
   const model = builderFor(design.type).model(design, design.trim.nominalM);
   const geom = model.wires.map((w) => [
@@ -206,6 +293,7 @@ export function designKey(design: Design, ground: EvalGround): string {
       feeds: model.feeds,
       radials: model.radials,
       ground,
+      ...(design.conductors?.length ? { sc: design.conductors } : {}),
       f: design.designFreqHz,
       grid: [PATTERN_GRID.elevationsDeg.length, PATTERN_GRID.azimuthsDeg.length],
     }),
@@ -226,6 +314,10 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
     options.layerHeightsM ? { layerHeightsM: options.layerHeightsM } : {},
   );
   const ground = groundOf(project);
+  const away = (mainTargetBearing(paths) + 180) % 360;
+  const metalSupports: NearbySupport[] = site.supports
+    .filter((s) => s.conducts !== false && s.conducts !== undefined)
+    .map((s) => ({ id: s.id, name: s.name, xy: s.xy, metal: s.metal ?? null }));
   const builders = BUILDERS.filter((b) => !options.types || options.types.includes(b.type));
   const jobs = new Map<string, Job>();
   const bands = (options.bands ?? project.bands).map((band) => {
@@ -240,9 +332,22 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
       for (const p of out.proposals) {
         const res = checkPlacement(prepared, placedElements(p, p.design.trim.nominalM));
         if (res.ok) {
+          const near = metalSupports.length
+            ? conductorsNear(p.design, p.placement, metalSupports, away)
+            : { conductors: [], unknown: [] };
           const key = designKey(p.design, ground);
           if (!jobs.has(key)) jobs.set(key, { key, design: p.design, ground });
-          proposed.push({ proposal: p, key });
+          let withConductors: Proposed['withConductors'];
+          if (near.conductors.length) {
+            const design = { ...p.design, conductors: near.conductors };
+            withConductors = { design, key: designKey(design, ground) };
+          }
+          proposed.push({
+            proposal: p,
+            key,
+            ...(withConductors ? { withConductors } : {}),
+            ...(near.unknown.length ? { unknownMetal: near.unknown } : {}),
+          });
           okGroups.add(p.groupKey);
         } else {
           const worst = Math.max(...res.violations.map((v) => v.byM));
@@ -277,7 +382,7 @@ export function evaluateJobs(
 ): number {
   const todo = jobs.filter((j) => !cache.has(j.key));
   todo.forEach((j, i) => {
-    cache.set(j.key, evaluateDesign(j.design, j.ground, evaluator));
+    cache.set(j.key, evaluateDesign(j.design, j.ground, evaluator, j.soilRange, j.soilOnly));
     onProgress?.({ phase: 'evaluate', done: i + 1, total: todo.length });
   });
   return todo.length;
@@ -295,6 +400,102 @@ function lossDb(lossW: number, inputW: number): number {
   return inputW > 0 && lossW < inputW ? 10 * Math.log10(inputW / (inputW - lossW)) : Infinity;
 }
 
+type Scorer = (gainDbi: readonly number[], rot: number) => { score: number; regionGains: number[] };
+
+/** Score of a pattern placed with rotation `rot` over the paths, and its region gains. */
+function scorerFor(paths: readonly RegionPath[]): Scorer {
+  const totalWeight = paths.reduce((s, p) => s + p.weight, 0);
+  return (gainDbi, rot) => {
+    const regionGains = paths.map((path) => averageGainDbi(gainDbi, rot, path.directions));
+    const score =
+      totalWeight > 0
+        ? regionGains.reduce((s, g, i) => s + g * paths[i].weight, 0) / totalWeight
+        : averageGainDbi(gainDbi, rot, LOW_ANGLE_DIRECTIONS);
+    return { score, regionGains };
+  };
+}
+
+/**
+ * Step 2 of a plan with conducting supports near some placements (call after the step-1 jobs are
+ * in the cache). A support near a placement breaks the "one evaluation per design, rotated"
+ * reuse: every orientation would need its own solve. So the orientations of a placement group are
+ * compared without the supports (step 1), and only the best one that still fits after trimming is
+ * solved again with them. Returns those jobs (and keeps them and the choice on the setup);
+ * idempotent.
+ */
+export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project: Project): Job[] {
+  if (setup.conductorJobs) return setup.conductorJobs;
+  const scoreOf = scorerFor(setup.paths);
+  const ground = groundOf(project);
+  const jobs = new Map<string, Job>();
+  const choice = new Map<Band, Set<number>>();
+  for (const b of setup.bands) {
+    const best = new Map<string, { i: number; score: number }>();
+    b.proposed.forEach((q, i) => {
+      if (!q.withConductors) return;
+      const rec = cache.get(q.key);
+      if (!rec) throw new Error(`conductorJobs: evaluation ${q.key} missing from the cache`);
+      if (!checkPlacement(setup.prepared, placedElements(q.proposal, rec.trimM)).ok) return;
+      const { score } = scoreOf(rec.gainDbi, q.proposal.placement.rotationDeg);
+      const prev = best.get(q.proposal.groupKey);
+      if (!prev || score > prev.score) best.set(q.proposal.groupKey, { i, score });
+    });
+    const set = new Set<number>();
+    for (const { i } of best.values()) {
+      set.add(i);
+      const w = b.proposed[i].withConductors!;
+      if (!jobs.has(w.key)) jobs.set(w.key, { key: w.key, design: w.design, ground });
+    }
+    choice.set(b.band, set);
+  }
+  setup.conductorJobs = [...jobs.values()];
+  setup.conductorChoice = choice;
+  return setup.conductorJobs;
+}
+
+/** Cache key of the soil-range record of the design of evaluation key `key`. */
+export function soilRangeKey(key: string, soils: readonly string[]): string {
+  return `${key}~soils~${soils.join(',')}`;
+}
+
+/**
+ * Step 3 (after steps 1 and 2 are in the cache): the soil range, for the shortlisted candidates
+ * only. Each shortlisted design, as trimmed over the project's soil, is solved once more per soil
+ * class of the range, pattern only. Ranking without the range first is cheap (no solver work).
+ */
+export function soilRangeJobs(
+  setup: PlanSetup,
+  cache: EvaluationCache,
+  project: Project,
+  shortlistSize = 10,
+): Job[] {
+  const soils = soilRangeOf(project);
+  if (!soils.length) return [];
+  const ranked = rankPlan(setup, cache, project, shortlistSize);
+  const designs = new Map<string, Design>();
+  for (const j of [...setup.jobs, ...(setup.conductorJobs ?? [])]) designs.set(j.key, j.design);
+  const jobs = new Map<string, Job>();
+  for (const c of ranked.candidates) {
+    const key = soilRangeKey(c.evaluationKey, soils);
+    const design = designs.get(c.evaluationKey);
+    const rec = cache.get(c.evaluationKey);
+    if (!design || !rec || jobs.has(key)) continue;
+    jobs.set(key, {
+      key,
+      design,
+      ground: groundOf(project),
+      soilRange: soils,
+      soilOnly: { trimM: rec.trimM },
+    });
+  }
+  return [...jobs.values()];
+}
+
+/** Every job of a setup: step 1, and step 2 when known. */
+export function allJobs(setup: PlanSetup): Job[] {
+  return [...setup.jobs, ...(setup.conductorJobs ?? [])];
+}
+
 /** Step 3: re-check at trimmed dimensions, score, group, rank and describe. */
 export function rankPlan(
   setup: PlanSetup,
@@ -307,7 +508,9 @@ export function rankPlan(
   const candidates: Candidate[] = [];
   const rejected: RejectedPlacement[] = [];
   const patterns: Record<string, number[]> = {};
-  const totalWeight = paths.reduce((s, p) => s + p.weight, 0);
+  const scoreOf = scorerFor(paths);
+  const ownSoil = projectSoilId(project);
+  const rangeSoils = soilRangeOf(project);
   for (const b of setup.bands) {
     rejected.push(...b.rejections.map((r) => ({ ...r })));
     type Scored = {
@@ -318,10 +521,34 @@ export function rankPlan(
       regionGains: number[];
       fits: string[];
       elements: Element[];
+      unknownMetal: string[];
     };
     const byGroup = new Map<string, { best: Scored; count: number }>();
     const postTrimFail = new Map<string, { p: Proposal; reasons: string[] }>();
-    for (const { proposal: p, key } of b.proposed) {
+    const pendingVariants = new Map<string, number>();
+    const chosenForConductors = setup.conductorChoice?.get(b.band);
+    const groupsWithChoice = new Set(
+      [...(chosenForConductors ?? [])].map((i) => b.proposed[i].proposal.groupKey),
+    );
+    for (const [qi, q] of b.proposed.entries()) {
+      const { unknownMetal } = q;
+      let p = q.proposal;
+      let key = q.key;
+      if (q.withConductors) {
+        if (!chosenForConductors)
+          throw new Error('rankPlan: conductorJobs(setup, …) must run first (a metal support is near)');
+        if (!chosenForConductors.has(qi) && groupsWithChoice.has(p.groupKey)) {
+          // An orientation not chosen for step 2: counted as a variant of its group only.
+          const g = byGroup.get(p.groupKey);
+          if (g) g.count++;
+          else pendingVariants.set(p.groupKey, (pendingVariants.get(p.groupKey) ?? 0) + 1);
+          continue;
+        }
+        if (chosenForConductors.has(qi)) {
+          p = { ...p, design: q.withConductors.design };
+          key = q.withConductors.key;
+        }
+      }
       const rec = cache.get(key);
       if (!rec) throw new Error(`rankPlan: evaluation ${key} missing from the cache`);
       const elements = placedElements(p, rec.trimM);
@@ -338,14 +565,19 @@ export function rankPlan(
         continue;
       }
       const rot = p.placement.rotationDeg;
-      const regionGains = paths.map((path) => averageGainDbi(rec.gainDbi, rot, path.directions));
-      const score =
-        totalWeight > 0
-          ? regionGains.reduce((s, g, i) => s + g * paths[i].weight, 0) / totalWeight
-          : averageGainDbi(rec.gainDbi, rot, LOW_ANGLE_DIRECTIONS);
-      const s: Scored = { p, key, rec, score, regionGains, fits: check.fits, elements };
+      const { score, regionGains } = scoreOf(rec.gainDbi, rot);
+      const s: Scored = {
+        p,
+        key,
+        rec,
+        score,
+        regionGains,
+        fits: check.fits,
+        elements,
+        unknownMetal: unknownMetal ?? [],
+      };
       const g = byGroup.get(p.groupKey);
-      if (!g) byGroup.set(p.groupKey, { best: s, count: 1 });
+      if (!g) byGroup.set(p.groupKey, { best: s, count: 1 + (pendingVariants.get(p.groupKey) ?? 0) });
       else {
         g.count++;
         if (s.score > g.best.score) g.best = s;
@@ -371,8 +603,20 @@ export function rankPlan(
       types.add(g.best.p.design.type);
       return true;
     });
+    const bandStart = candidates.length;
+    const soilScores: Map<string, number>[] = [];
     [...chosen, ...extra].forEach((g, i) => {
-      const { p, rec, key, regionGains, fits, elements } = g.best;
+      const { p, rec, key, regionGains, fits, elements, unknownMetal } = g.best;
+      const perSoil = new Map<string, number>([[ownSoil, g.best.score]]);
+      for (const id of rangeSoils) {
+        const alt = cache.get(soilRangeKey(key, rangeSoils))?.soilRange?.find((r) => r.soilId === id);
+        if (alt && alt.gainDbi.length) perSoil.set(id, scoreOf(alt.gainDbi, p.placement.rotationDeg).score);
+      }
+      soilScores.push(perSoil);
+      const nAntennaWires = builderFor(p.design.type).model(p.design, rec.trimM).wires.length;
+      const conductorDiagnostics = (p.design.conductors ?? []).map(
+        (c, k) => [`wire ${nAntennaWires + k} meets the lossy ground without radials`, c] as const,
+      );
       const builder = builderFor(p.design.type);
       patterns[key] = rec.gainDbi;
       const plan: XY[] = [];
@@ -468,11 +712,66 @@ export function rankPlan(
         feedPoints,
         groundSystem: groundSystemOf(model, p.placement, site.frame),
         cautions: candidateCautions(p.design.type, p.supports, placed, site),
-        fits,
+        fits: [
+          ...fits,
+          ...(p.design.conductors ?? []).map(
+            (c) =>
+              `${c.name} is in the model as a ${c.grounded ? 'grounded' : 'ungrounded'} ${c.material} conductor ` +
+              `${c.heightM.toFixed(1)} m tall (equivalent radius ${(c.radiusM * 100).toFixed(1)} cm)` +
+              (c.standoff ? `, the wire hung ${STANDOFF_M} m out on its side toward the targets` : ''),
+          ),
+        ],
         variants: g.count,
-        diagnostics: rec.diagnostics,
+        diagnostics: [
+          ...rec.diagnostics.map((d) => {
+            const hit = conductorDiagnostics.find(([prefix]) => d.startsWith(prefix));
+            return hit
+              ? `the ground loss at the base of ${hit[1].name} is that of its bare footing (no radials of its own)`
+              : d;
+          }),
+          ...unknownMetal.map(
+            (n) =>
+              `${n} is within ${NEARBY_WAVELENGTHS} λ but its material is not set: left out of the model (set it in the support's inspector)`,
+          ),
+        ],
         evaluationKey: key,
+        conductingSupports: (p.design.conductors ?? []).map((c) => ({
+          id: c.supportId,
+          name: c.name,
+          heightM: c.heightM,
+          grounded: c.grounded,
+          equivalentRadiusM: c.radiusM,
+          standoff: c.standoff,
+        })),
+        soilRange: { soils: [], lowDbi: g.best.score, highDbi: g.best.score, scores: [], rankHolds: true },
       });
+    });
+    // Ranks over each soil of the range, among this band's shortlisted candidates.
+    const bandCands = candidates.slice(bandStart);
+    const soils = [ownSoil, ...rangeSoils.filter((id) => soilScores.every((m) => m.has(id)))];
+    const rankAt = new Map<string, number[]>();
+    for (const soil of soils) {
+      const order = bandCands
+        .map((_, i) => i)
+        .sort((x, y) => soilScores[y].get(soil)! - soilScores[x].get(soil)! || x - y);
+      const ranks: number[] = [];
+      order.forEach((ci, r) => (ranks[ci] = r + 1));
+      rankAt.set(soil, ranks);
+    }
+    bandCands.forEach((c, i) => {
+      const scores = soils.map((soil) => ({
+        soil,
+        scoreDbi: soilScores[i].get(soil)!,
+        rank: rankAt.get(soil)![i],
+      }));
+      const values = scores.map((x) => x.scoreDbi);
+      c.soilRange = {
+        soils,
+        lowDbi: Math.min(...values),
+        highDbi: Math.max(...values),
+        scores,
+        rankHolds: scores.every((x) => x.rank === c.rank),
+      };
     });
   }
   return {
@@ -504,7 +803,11 @@ export function memoryCache(): EvaluationCache {
 export function planFromSetup(setup: PlanSetup, project: Project, options: PlanOptions): Shortlist {
   const cache = options.cache ?? memoryCache();
   const before = setup.jobs.filter((j) => cache.has(j.key)).length;
-  const evaluations = evaluateJobs(setup.jobs, options.evaluator, cache, options.onProgress);
+  let evaluations = evaluateJobs(setup.jobs, options.evaluator, cache, options.onProgress);
+  const second = conductorJobs(setup, cache, project);
+  evaluations += evaluateJobs(second, options.evaluator, cache, options.onProgress);
+  const third = soilRangeJobs(setup, cache, project, options.shortlistSize ?? 10);
+  evaluateJobs(third, options.evaluator, cache, options.onProgress);
   const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10);
   const feasible = setup.bands.reduce((s, b) => s + b.proposed.length, 0);
   return {

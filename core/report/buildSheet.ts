@@ -18,6 +18,7 @@ import {
 import type { Design, Proposal, WireModel } from '../antennas/types.ts';
 import { COAX_TYPES, type Project } from '../project/schema.ts';
 import { designKey, enumeratePlan, type Candidate, type Shortlist } from '../rank/plan.ts';
+import { evaluationModel } from '../antennas/conductors.ts';
 import type { EvalGround, Evaluator } from '../rank/evaluator.ts';
 import { placeXYZ, type XYZ } from '../site/geometry.ts';
 import { buildSite } from '../site/site.ts';
@@ -97,14 +98,12 @@ export function gaugeText(radiusM: number): string {
 export function resolveProposal(project: Project, candidate: Candidate): Proposal | null {
   const setup = enumeratePlan(project, { bands: [candidate.band], types: [candidate.type] });
   for (const b of setup.bands)
-    for (const { proposal: p, key } of b.proposed) {
+    for (const { proposal: p, key, withConductors } of b.proposed) {
       const id = `${candidate.band}-${p.groupKey.replace(/:/g, '-')}`;
-      if (
-        id === candidate.id &&
-        key === candidate.evaluationKey &&
-        p.placement.rotationDeg === candidate.rotationDeg
-      )
-        return p;
+      if (id !== candidate.id || p.placement.rotationDeg !== candidate.rotationDeg) continue;
+      if (key === candidate.evaluationKey) return p;
+      // A placement near a metal support: its design with the support in the model.
+      if (withConductors?.key === candidate.evaluationKey) return { ...p, design: withConductors.design };
     }
   return null;
 }
@@ -158,7 +157,7 @@ export function measureTuning(
   const f0 = design.designFreqHz;
   const fs: [number, number, number] = [f0 * 0.99, f0, f0 * 1.01];
   const resAt = (t: number): number => {
-    const model = builderFor(design.type).model(design, t);
+    const model = evaluationModel(design, t);
     const r = evaluator({ model, ground, frequenciesHz: fs, pattern: null });
     return reactanceZero(fs, [r[0].zOhm[1], r[1].zOhm[1], r[2].zOhm[1]]);
   };

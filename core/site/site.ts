@@ -2,7 +2,16 @@
  * A project turned into a site: everything in the local frame (x east, y north, z up, metres,
  * origin at the centre of the lot boundary's bounding box), ready for feasibility checks.
  */
-import type { Project, Settings, Soil, SupportKind, KeepOutKind, LonLat } from '../project/schema.ts';
+import {
+  supportConducts,
+  type Project,
+  type Settings,
+  type Soil,
+  type SupportKind,
+  type KeepOutKind,
+  type LonLat,
+} from '../project/schema.ts';
+import { supportMetal, type SupportMetal } from '../antennas/supportMetal.ts';
 import { makeSiteFrame, ringReferencePoint, type SiteFrame, type XY } from './frame.ts';
 
 export class SiteError extends Error {
@@ -15,6 +24,10 @@ export interface SiteSupport {
   kind: SupportKind;
   xy: XY;
   heightM: number;
+  /** Whether it conducts (core/project/schema.ts supportConducts; null: a mast of unknown material). */
+  conducts?: boolean | null;
+  /** Its metal as modelled, when it conducts (core/antennas/conductors.ts). */
+  metal?: SupportMetal | null;
 }
 
 export interface SiteKeepOut {
@@ -56,6 +69,8 @@ export function buildSite(project: Project): Site {
       kind: s.kind,
       xy: toXY(s.position),
       heightM: s.usableHeightM,
+      conducts: supportConducts(s),
+      metal: supportMetal({ ...s, conducts: supportConducts(s) }),
     })),
     keepOuts: project.keepOuts.map((k) => ({
       id: k.id,

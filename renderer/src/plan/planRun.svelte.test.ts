@@ -77,21 +77,47 @@ describe('PlanRunner', () => {
     expect(s.stats.cacheHits).toBe(0);
   });
 
-  it('re-runs after a target edit from the cache, with no solver work', async () => {
+  it('re-runs after a target edit from the cache, solving only the soil range of new candidates', async () => {
     const counter = { calls: 0 };
     const runner = new PlanRunner(fakePool(2, counter));
-    runner.run(project, ['80m']);
+    // No metal on the lot: with a metal support near a placement, which of its orientations is
+    // solved again with the support depends on the targets (the next test).
+    const noMetal = {
+      ...project,
+      supports: project.supports.map((s) =>
+        s.kind === 'tower' ? { ...s, material: 'fibreglass' as const } : s,
+      ),
+    };
+    runner.run(noMetal, ['80m']);
     await until(() => !runner.running);
     const calls = counter.calls;
-    const edited = { ...project, targets: [{ regionId: 'japan', weight: 2 }] };
+    const edited = { ...noMetal, targets: [{ regionId: 'japan', weight: 2 }] };
     runner.run(edited, ['80m']);
     await until(() => !runner.running);
     expect(runner.status).toBe('done');
     expect(runner.total).toBe(0);
     expect(runner.cached).toBeGreaterThan(0);
-    expect(counter.calls).toBe(calls);
+    // No design is solved again; candidates new to the shortlist get their soil range (two soils,
+    // one pattern solve each).
+    expect(counter.calls - calls).toBeLessThanOrEqual(2 * runner.shortlist!.candidates.length);
     expect(runner.shortlist!.paths[0]!.name).toBe('Japan');
     expect(runner.shortlist!.stats.cacheHits).toBe(runner.cached);
+  });
+
+  it('after a target edit re-solves only the placements near a metal support', async () => {
+    const counter = { calls: 0 };
+    const runner = new PlanRunner(fakePool(2, counter));
+    runner.run(project, ['80m']);
+    await until(() => !runner.running);
+    const first = counter.calls;
+    const calls = counter.calls;
+    runner.run({ ...project, targets: [{ regionId: 'japan', weight: 2 }] }, ['80m']);
+    await until(() => !runner.running);
+    expect(runner.status).toBe('done');
+    expect(runner.total).toBe(0);
+    // Steps 2 and 3 only: a few placements near the demo's tower and the soil range of new
+    // candidates, far fewer solves than the first plan.
+    expect(counter.calls - calls).toBeLessThan(first / 5);
   });
 
   it('cancels at once; the next run reuses what was finished', async () => {

@@ -6,6 +6,7 @@
 import { builderFor } from '../../../core/antennas/registry.ts';
 import type { Design } from '../../../core/antennas/types.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
+import { evaluationModel } from '../../../core/antennas/conductors.ts';
 import { swrOf, type EvalGround, type Evaluator } from '../../../core/rank/evaluator.ts';
 import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import { placeElements } from '../../../core/antennas/common.ts';
@@ -23,7 +24,7 @@ export function drawingsOf(setup: PlanSetup, shortlist: Shortlist): Record<strin
     const band = setup.bands.find((b) => b.band === c.band);
     const hit = band?.proposed.find(
       (q) =>
-        q.key === c.evaluationKey &&
+        (q.key === c.evaluationKey || q.withConductors?.key === c.evaluationKey) &&
         Math.abs(q.proposal.placement.rotationDeg - c.rotationDeg) < 1e-9 &&
         `${c.band}-${q.proposal.groupKey.replace(/:/g, '-')}` === c.id,
     );
@@ -87,7 +88,9 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
       case 'evaluate': {
         const t0 = now();
         try {
-          const record = cache.get(msg.job.key) ?? evaluateDesign(msg.job.design, msg.job.ground, evaluator);
+          const record =
+            cache.get(msg.job.key) ??
+            evaluateDesign(msg.job.design, msg.job.ground, evaluator, msg.job.soilRange, msg.job.soilOnly);
           cache.set(msg.job.key, record);
           return [{ type: 'evaluated', runId: msg.runId, key: msg.job.key, record, ms: now() - t0 }];
         } catch (e) {
@@ -111,6 +114,9 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
             last?.runId === msg.runId ? last.setup : enumeratePlan(msg.project, { bands: msg.bands });
           // planSite is planFromSetup(enumeratePlan(...)); the setup of this run's enumeration is reused.
           const shortlist = planFromSetup(setup, msg.project, { evaluator, cache, bands: msg.bands });
+          // Step 2 (placements near a metal support) ran here: keep those designs for sweeps.
+          for (const j of setup.conductorJobs ?? [])
+            designs.set(j.key, { design: j.design, ground: j.ground });
           shortlist.stats.evaluations = msg.evaluations;
           shortlist.stats.cacheHits = msg.cacheHits;
           const drawings = drawingsOf(setup, shortlist);
@@ -126,7 +132,7 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
             { type: 'error', reqId: msg.reqId, message: 'this candidate is from an older plan: run again' },
           ];
         try {
-          const model = builderFor(d.design.type).model(d.design, msg.trimM);
+          const model = evaluationModel(d.design, msg.trimM);
           const out = evaluator({ model, ground: d.ground, frequenciesHz: msg.freqsHz, pattern: null });
           const points = out.map((r) => ({ freqHz: r.freqHz, zOhm: r.zOhm, swr: swrOf(r.zOhm) }));
           return [{ type: 'swept', reqId: msg.reqId, points }];

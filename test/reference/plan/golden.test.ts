@@ -25,6 +25,10 @@ interface GoldenCandidate {
   peakElevationDeg: number;
   zOhm: [number, number];
   regions: Record<string, number>;
+  /** Score range over the soil range (added with metal supports and the soil range, issue 13). */
+  soilRangeDbi?: [number, number];
+  /** Ids of the conducting supports in the candidate's model. */
+  metal?: string[];
 }
 interface Golden {
   candidates: GoldenCandidate[];
@@ -45,6 +49,8 @@ function summarise(s: Shortlist): Golden {
       peakElevationDeg: r(c.peak.elevationDeg, 1),
       zOhm: [r(c.feed.zOhm[0], 2), r(c.feed.zOhm[1], 2)],
       regions: Object.fromEntries(c.regions.map((g) => [g.id, r(g.gainDbi)])),
+      soilRangeDbi: [r(c.soilRange.lowDbi), r(c.soilRange.highDbi)],
+      metal: c.conductingSupports.map((m) => m.id),
     })),
     rejected: s.rejected.map((x) => ({ type: x.type, where: x.where, reason: x.reasons[0] ?? '' })),
   };
@@ -70,6 +76,11 @@ describe('golden shortlist of the demo lot (80 m)', () => {
       expectClose(g.zOhm[1], w.zOhm[1], TOL.ohm, `${SRC}: ${w.id} X`);
       for (const [id, v] of Object.entries(w.regions))
         expectClose(g.regions[id], v, TOL.gainDb, `${SRC}: ${w.id} ${id}`);
+      if (w.soilRangeDbi) {
+        expectClose(g.soilRangeDbi![0], w.soilRangeDbi[0], TOL.scoreDb, `${SRC}: ${w.id} soil range low`);
+        expectClose(g.soilRangeDbi![1], w.soilRangeDbi[1], TOL.scoreDb, `${SRC}: ${w.id} soil range high`);
+      }
+      if (w.metal) expect(g.metal, `${SRC}: ${w.id} metal supports`).toEqual(w.metal);
     });
   });
 
