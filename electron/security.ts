@@ -6,8 +6,7 @@
  */
 export const CONTENT_SECURITY_POLICY = [
   "default-src 'self'",
-  // 'wasm-unsafe-eval' lets WebAssembly compile (the solver's LU kernel); it allows no JavaScript eval.
-  "script-src 'self' 'wasm-unsafe-eval'",
+  "script-src 'self'",
   "worker-src 'self' blob:",
   "style-src 'self' 'unsafe-inline'",
   "img-src 'self' data: blob: https:",
