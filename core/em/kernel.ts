@@ -59,7 +59,10 @@ const G4 = gaussLegendre01(4);
 const G3 = gaussLegendre01(3);
 const G2 = gaussLegendre01(2);
 
-/** The smooth remainder r(R) = G − 1/R + k²R/2, written to (re, im) of `o` at `i`. */
+/**
+ * Real part of the smooth remainder r(R) = G − 1/R + k²R/2, G = e^(−jkR)/R; the
+ * callers form the imaginary part, −sin(kR)/R, inline beside it.
+ */
 function remainderRe(kR: number, R: number): number {
   if (kR < 2e-2) {
     const k2 = kR * kR;
