@@ -9,6 +9,7 @@
  * documents forward before validation.
  */
 import { z } from 'zod';
+import { isOnTimeFraction, isPowerW, MAX_POWER_W, STATION_DEFAULTS } from './station.ts';
 import { SOIL_CLASS_IDS } from '../em/soils.ts';
 
 export const PROJECT_SCHEMA_VERSION = 2;
@@ -233,11 +234,17 @@ export const COAX_TYPES = ['RG-58', 'RG-8X', 'RG-213', 'low-loss 10 mm foam'] as
 /** The station's transmitter and feed line, for the build sheet and the RF-exposure estimate. */
 export const StationSettingsSchema = z.object({
   /** Peak envelope power at the transmitter, watts. */
-  powerW: finite.refine((v) => v > 0 && v <= 100_000, 'must be between 0 and 100000 W').default(100),
-  mode: z.enum(STATION_MODES, { message: `must be one of ${STATION_MODES.join(', ')}` }).default('ssb'),
+  powerW: finite.refine(isPowerW, `must be between 0 and ${MAX_POWER_W} W`).default(STATION_DEFAULTS.powerW),
+  mode: z
+    .enum(STATION_MODES, { message: `must be one of ${STATION_MODES.join(', ')}` })
+    .default(STATION_DEFAULTS.mode),
   /** Fraction of the averaging time spent transmitting, 0…1. */
-  onTimeFraction: finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1').default(0.5),
-  coax: z.enum(COAX_TYPES, { message: `must be one of ${COAX_TYPES.join(', ')}` }).default('RG-213'),
+  onTimeFraction: finite
+    .refine(isOnTimeFraction, 'must be between 0 and 1')
+    .default(STATION_DEFAULTS.onTimeFraction),
+  coax: z
+    .enum(COAX_TYPES, { message: `must be one of ${COAX_TYPES.join(', ')}` })
+    .default(STATION_DEFAULTS.coax),
 });
 export type StationSettings = z.infer<typeof StationSettingsSchema>;
 
