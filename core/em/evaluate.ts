@@ -31,11 +31,12 @@ import {
   type PreparedModel,
 } from './solver.ts';
 import type { AntennaModel, ComplexPair } from './types.ts';
+import { swrOf } from './swr.ts';
+
+export { swrOf, SWR_CAP } from './swr.ts';
 
 /** Gains below this are reported as this value (a null in the field), never as −∞ or NaN. */
 export const GAIN_FLOOR_DBI = -150;
-/** SWR is capped here (|Γ| → 1). */
-export const SWR_CAP = 1e6;
 /** Default pattern step (degrees) over the upper half-space. */
 export const DEFAULT_PATTERN_STEP_DEG = 2;
 
@@ -128,16 +129,6 @@ export interface EvaluationResult {
 
 export const toDbi = (g: number): number =>
   g > 0 ? Math.max(GAIN_FLOOR_DBI, 10 * Math.log10(g)) : GAIN_FLOOR_DBI;
-
-/** SWR of impedance z on reference z0 (real). */
-export function swrOf(r: number, x: number, z0: number): number {
-  const nr = r - z0;
-  const dr = r + z0;
-  const g2 = (nr * nr + x * x) / (dr * dr + x * x);
-  const g = Math.sqrt(g2);
-  if (!(g < 1)) return SWR_CAP;
-  return Math.min(SWR_CAP, (1 + g) / (1 - g));
-}
 
 const degs = (from: number, to: number, step: number): number[] => {
   const out: number[] = [];
