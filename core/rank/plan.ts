@@ -27,6 +27,7 @@ import type { AntennaTypeId, CutKind, Design, Placement, Proposal, Rejection } f
 import type { Caution } from '../report/cautions.ts';
 import {
   candidateCautions,
+  conductingSupportElements,
   elementsWithRoles,
   feedLineElement,
   feedPointsOf,
@@ -631,7 +632,11 @@ export function rankPlan(
       ]);
       const model = builder.model(p.design, rec.trimM);
       const feedPoints = feedPointsOf(model, p.placement, site.frame);
-      const placed = [...elementsWithRoles(elements), ...feedLineElement(site.station, feedPoints[0])];
+      const placed = [
+        ...elementsWithRoles(elements),
+        ...feedLineElement(site.station, feedPoints[0]),
+        ...conductingSupportElements(p.design.conductors ?? [], p.placement),
+      ];
       const peakAz = (rec.peak.azimuthDeg + p.placement.rotationDeg + 360) % 360;
       const bw = rec.bandwidth;
       candidates.push({
