@@ -41,6 +41,7 @@
  *    §2 (thin-wire EFIE, reduced kernel).
  */
 import { gaussLegendre01 } from '../numeric/quadrature.ts';
+import type { Mesh } from './mesh.ts';
 
 /**
  * Centre distance over the longer segment below which a pair is treated as near. The far-rule
@@ -439,4 +440,40 @@ function selfMoments(l: number, a2: number, k: number, out: Float64Array, o: num
   out[o + 5] += m10i;
   out[o + 6] += m11r;
   out[o + 7] += m11i;
+}
+
+/**
+ * The moments of segment p against the perfect-ground image of segment q (q mirrored in z = 0),
+ * written to `out` from 0: the image term both ground models build on.
+ */
+export function imagePairMoments(
+  mesh: Mesh,
+  p: number,
+  q: number,
+  a2: number,
+  k: number,
+  out: Float64Array,
+): void {
+  out.fill(0);
+  pairMoments(
+    mesh.sx[p],
+    mesh.sy[p],
+    mesh.sz[p],
+    mesh.tx[p],
+    mesh.ty[p],
+    mesh.tz[p],
+    mesh.len[p],
+    mesh.sx[q],
+    mesh.sy[q],
+    -mesh.sz[q],
+    mesh.tx[q],
+    mesh.ty[q],
+    -mesh.tz[q],
+    mesh.len[q],
+    a2,
+    k,
+    false,
+    out,
+    0,
+  );
 }
