@@ -8,7 +8,7 @@ import {
   type Element,
 } from '../../../core/site/feasibility.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { ll, ring, testLot, box } from './lot.ts';
+import { box, ll, testLot } from './lot.ts';
 
 // The site frame's origin is the centre of the boundary's box; a symmetric lot puts it at (0, 0)
 // to within the projection's millimetres, so metre-level test geometry can be written directly.
