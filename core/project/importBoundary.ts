@@ -137,6 +137,11 @@ function fromGeometry(g: unknown, path: string, warnings: string[]): BoundaryImp
   );
 }
 
+/** Checks one GeoJSON Polygon (or one-polygon MultiPolygon) as a lot boundary; `path` names it in the errors. */
+export function boundaryFromGeometry(g: unknown, path: string): BoundaryImport {
+  return fromGeometry(g, path, []);
+}
+
 function importGeoJson(doc: unknown): BoundaryImport {
   const warnings: string[] = [];
   if (doc === null || typeof doc !== 'object' || Array.isArray(doc))
