@@ -8,6 +8,7 @@ import { pathToFileURL } from 'node:url';
 import { evaluateAntenna, type EvaluationResult } from '../em/evaluate.ts';
 import { ModelError } from '../em/errors.ts';
 import { parseAntennaInput } from '../em/input.ts';
+import { checkWork } from '../em/limits.ts';
 import { hzToMhz } from '../units/index.ts';
 
 export interface EvaluateIo {
@@ -98,6 +99,8 @@ export async function runEvaluate(argv: string[], io: EvaluateIo): Promise<numbe
   }
   const parsed = parseAntennaInput(doc);
   if (!parsed.ok) return fail(io, parsed.errors[0].field, parsed.errors[0].message, parsed.errors);
+  const over = checkWork(parsed.model, parsed.options);
+  if (over.length) return fail(io, over[0].field, over[0].message, over);
   try {
     const result = evaluateAntenna(parsed.model, parsed.options);
     io.stdout(JSON.stringify(formatEvaluation(result), null, 2) + '\n');
@@ -109,7 +112,12 @@ export async function runEvaluate(argv: string[], io: EvaluateIo): Promise<numbe
         e.field,
         e.message.startsWith(`${e.field}: `) ? e.message.slice(e.field.length + 2) : e.message,
       );
-    throw e;
+    // Not a model error: still one JSON line and no stack trace; say what to send with a report.
+    return fail(
+      io,
+      '',
+      `internal error while solving (${e instanceof Error ? e.message : String(e)}); please report it with the input file`,
+    );
   }
 }
 
