@@ -3,13 +3,13 @@
  * print the result as JSON on stdout. Errors: a JSON `{ "error": … }` on stdout, a plain line on
  * stderr, and exit code 1 (bad input or a model that cannot be built) or 2 (usage).
  */
-import { readFile } from 'node:fs/promises';
 import { pathToFileURL } from 'node:url';
 import { evaluateAntenna, type EvaluationResult } from '../em/evaluate.ts';
 import { ModelError } from '../em/errors.ts';
 import { parseAntennaInput } from '../em/input.ts';
 import { checkWork } from '../em/limits.ts';
 import { hzToMhz } from '../units/index.ts';
+import { readTextFile } from './text.ts';
 
 export interface EvaluateIo {
   stdout: (s: string) => void;
@@ -126,7 +126,7 @@ if (entry !== undefined && import.meta.url === pathToFileURL(entry).href) {
   runEvaluate(process.argv.slice(2), {
     stdout: (s) => process.stdout.write(s),
     stderr: (s) => process.stderr.write(s),
-    readFile: (p) => readFile(p, 'utf8'),
+    readFile: readTextFile,
   }).then(
     (code) => {
       process.exitCode = code;
