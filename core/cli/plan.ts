@@ -2,8 +2,8 @@
  * `plan FILE.json | plan --demo`: the ranked shortlist of antennas for a lot.
  *
  * Options: --json (machine-readable, schema in core/rank/README.md), --band 160m|80m|40m (repeatable;
- * default the project's bands), --top N (placements per band, default 10), --workers N (default:
- * the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON).
+ * default the project's bands), --top N (placements per band, default 10), --workers N (default and
+ * most: the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON).
  * A progress line goes to stderr while designs are evaluated.
  */
 import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
@@ -71,7 +71,7 @@ function parseArgs(argv: string[]): Args | string {
       const n = Number(next());
       if (!Number.isInteger(n) || n < (v === '--top' ? 1 : 0)) return `${v} needs a whole number`;
       if (v === '--top') a.top = n;
-      else a.workers = n;
+      else a.workers = Math.min(n, availableParallelism());
     } else if (v.startsWith('--')) return `unknown option ${v}`;
     else if (a.file === null) a.file = v;
     else return 'give one project file';

@@ -13,6 +13,7 @@
  * says so when an edge lies there.
  */
 import { evaluationModel } from '../antennas/conductors.ts';
+import { ModelError } from '../em/errors.ts';
 import type { Design } from '../antennas/types.ts';
 import { swrEdges, swrOf } from '../em/swr.ts';
 import { trimToResonance } from '../numeric/roots.ts';
@@ -51,6 +52,30 @@ export interface EvaluationRecord {
    * soil: gain on PATTERN_GRID, one entry per class asked for. Absent when none was asked.
    */
   soilRange?: { soilId: string; gainDbi: number[] }[];
+  /**
+   * Set when the field solver refused the design (core/em ModelError: coincident wires from
+   * supports at one place, a wire on the ground, …): the reason. The plan rejects the placement
+   * with it instead of failing; every other field then holds a neutral value.
+   */
+  unsolvable?: string;
+}
+
+/** The record of a design the solver cannot solve: the reason, and neutral values elsewhere. */
+export function unsolvableRecord(design: Design, reason: string): EvaluationRecord {
+  return {
+    trimM: design.trim.nominalM,
+    resonant: false,
+    trimSteps: [],
+    freqHz: design.designFreqHz,
+    zOhm: [0, 0],
+    swr: 0,
+    power: { inputW: 0, radiatedW: 0, conductorLossW: 0, groundLossW: 0, efficiency: 0 },
+    bandwidth: { lowHz: null, highHz: null, widthHz: 0, extrapolated: false },
+    gainDbi: [],
+    peak: { gainDbi: -150, elevationDeg: 0, azimuthDeg: 0 },
+    diagnostics: [reason],
+    unsolvable: reason,
+  };
 }
 
 function fitQuadratic(xs: readonly number[], ys: readonly number[]): (x: number) => number {
@@ -124,6 +149,22 @@ export function evaluateDesign(
   evaluator: Evaluator,
   soilRange: readonly string[] = [],
   soilOnly?: { trimM: number },
+): EvaluationRecord {
+  try {
+    return evaluateDesignOrThrow(design, ground, evaluator, soilRange, soilOnly);
+  } catch (e) {
+    // One design the solver refuses is a rejected placement, never the end of the plan.
+    if (e instanceof ModelError) return unsolvableRecord(design, e.message);
+    throw e;
+  }
+}
+
+function evaluateDesignOrThrow(
+  design: Design,
+  ground: EvalGround,
+  evaluator: Evaluator,
+  soilRange: readonly string[],
+  soilOnly: { trimM: number } | undefined,
 ): EvaluationRecord {
   const f0 = design.designFreqHz;
   if (soilOnly) return soilRangeRecord(design, evaluator, soilRange, soilOnly.trimM);

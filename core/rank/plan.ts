@@ -436,6 +436,7 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
       if (!q.withConductors) return;
       const rec = cache.get(q.key);
       if (!rec) throw new Error(`conductorJobs: evaluation ${q.key} missing from the cache`);
+      if (rec.unsolvable !== undefined) return;
       if (!checkPlacement(setup.prepared, placedElements(q.proposal, rec.trimM)).ok) return;
       const { score } = scoreOf(rec.gainDbi, q.proposal.placement.rotationDeg);
       const prev = best.get(q.proposal.groupKey);
@@ -552,6 +553,14 @@ export function rankPlan(
       }
       const rec = cache.get(key);
       if (!rec) throw new Error(`rankPlan: evaluation ${key} missing from the cache`);
+      if (rec.unsolvable !== undefined) {
+        if (!postTrimFail.has(p.groupKey))
+          postTrimFail.set(p.groupKey, {
+            p,
+            reasons: [`the field solver cannot solve it: ${rec.unsolvable}`],
+          });
+        continue;
+      }
       const elements = placedElements(p, rec.trimM);
       const check = checkPlacement(prepared, elements);
       if (!check.ok) {
