@@ -10,17 +10,10 @@ import { writeFile as fsWriteFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { buildDemoProject } from '../demo/demoProject.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
-import { candidateGainAt, enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
+import { enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
-import {
-  COAX_TYPES,
-  buildSheet,
-  isCoaxType,
-  measureTuning,
-  resolveProposal,
-  type StationOptions,
-} from '../report/buildSheet.ts';
-import { renderBuildSheetHtml } from '../report/html.ts';
+import { COAX_TYPES, isCoaxType, measureTuning, type StationOptions } from '../report/buildSheet.ts';
+import { stationReport } from '../report/stationReport.ts';
 import type { Mode } from '../report/exposure.ts';
 import { createWorkerPool } from './plan.ts';
 
@@ -150,24 +143,17 @@ export async function runReport(argv: string[], io: ReportIo): Promise<number> {
     );
     return 1;
   }
-  const proposal = resolveProposal(project, candidate);
-  let tuning = null;
-  if (proposal) {
-    io.stderr(`report: measuring the tuning rate of ${candidate.id}\n`);
-    tuning = measureTuning(proposal.design, candidate.trim.valueM, project.soil, solverEvaluator);
-  }
-  const sheet = buildSheet({
+  // The candidate carries its design: the tuning rate is measured on it, nothing is found again.
+  io.stderr(`report: measuring the tuning rate of ${candidate.id}\n`);
+  const tuning = measureTuning(candidate.design, candidate.trim.valueM, project.soil, solverEvaluator);
+  const { html } = stationReport({
     project,
     shortlist,
     candidate,
     station: args.station,
-    proposal,
     tuning,
-    gainAt: shortlist.patterns[candidate.evaluationKey]
-      ? (az, el) => candidateGainAt(shortlist, candidate.id, az, el)
-      : undefined,
+    generatedAt: new Date().toISOString().slice(0, 10),
   });
-  const html = renderBuildSheetHtml(sheet, new Date().toISOString().slice(0, 10));
   const write = io.writeFile ?? ((p: string, d: string) => fsWriteFile(p, d, 'utf8'));
   await write(args.out as string, html);
   io.stdout(`report: ${candidate.id} → ${args.out}\n`);
