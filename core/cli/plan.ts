@@ -26,6 +26,7 @@ import {
   type Candidate,
 } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
+import { candidateMatching } from '../match/candidateMatch.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
 
 export interface PlanIo {
@@ -333,6 +334,21 @@ function humanReport(project: Project, s: Shortlist, seconds: number): string {
   return out.join('\n') + '\n';
 }
 
+/** A candidate's designed match for the JSON (core/match), or nothing when its SWR needs none. */
+function matchingJson(c: Candidate): { matching?: object } {
+  const m = candidateMatching(c);
+  if (!m) return {};
+  return {
+    matching: {
+      network: m.network,
+      components: m.components,
+      lossDb: m.lossDb,
+      q: m.q,
+      ...(m.vertical ? { vertical: m.vertical } : {}),
+    },
+  };
+}
+
 /**
  * The shortlist as `plan --json` prints it (core/rank/README.md): each candidate as the planner
  * made it, with its cautions as plain strings ("Title: text") and its feed points in the site
@@ -346,6 +362,7 @@ export function shortlistJson(shortlist: Shortlist, withPatterns: boolean): obje
       ...c,
       cautions: c.cautions.map((k) => `${k.title}: ${k.text}`),
       feedPoints: c.feedPoints.map((f) => ({ xyz: f.xyz, lonLat: f.lonLat })),
+      ...matchingJson(c),
     })),
   };
   return withPatterns ? { ...out, patterns } : out;

@@ -17,6 +17,7 @@ import { buildSite } from '../site/site.ts';
 import type { XY } from '../site/frame.ts';
 import type { XYZ } from '../site/geometry.ts';
 import type { UnitSystem } from '../units/index.ts';
+import { candidateMatching, type CandidateMatching } from '../match/candidateMatch.ts';
 import { materialsOf, type BomItem, type Materials } from './bom.ts';
 import type { Caution } from './cautions.ts';
 import { estimateExposure, type ExposureEstimate, type Mode } from './exposure.ts';
@@ -72,6 +73,8 @@ export interface BuildSheet {
   feedLine: FeedLine;
   choke: string | null;
   tuning: { measured: TuningMeasurement | null; instruction: string };
+  /** The designed match (core/match), or null when the SWR needs none. */
+  matching: CandidateMatching | null;
   exposure: ExposureEstimate;
   /** The estimate's distances on the lot: the places each zone reaches and the zone outlines. */
   exposureOnLot: ExposureOnLot;
@@ -198,6 +201,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     feedLine,
     choke: m.choke,
     tuning: { measured, instruction },
+    matching: candidateMatching(c),
     exposure,
     exposureOnLot: onLot,
     // The candidate's own list (core/report/cautions.ts through the planner): the same the app shows.

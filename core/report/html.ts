@@ -9,6 +9,7 @@ import type { BuildSheet } from './buildSheet.ts';
 import { escapeHtml, planSvg, polarSvg } from './drawings.ts';
 import { sheetLengths } from './format.ts';
 import { tuningText } from './tuning.ts';
+import { matchingText } from '../match/matchText.ts';
 import { TUNING_STEP, TUNING_STEP_TEXT } from './tuningMeasure.ts';
 
 export { escapeHtml };
@@ -25,6 +26,7 @@ export const REPORT_SECTIONS = [
   'Bill of materials',
   'Feed line',
   'Tuning',
+  'Matching',
   'Patterns',
   'Gain per target region',
   'SWR and bandwidth',
@@ -134,6 +136,25 @@ function exposureReachHtml(s: BuildSheet): string {
   return (
     `<h3>Where the zones reach on the lot</h3>${zones}${places}` +
     lot.notes.map((n) => `<p class="note">${e(n)}</p>`).join('')
+  );
+}
+
+/** The designed match, or why none is needed (core/match through the sheet). */
+function matchingHtml(s: BuildSheet): string {
+  const c = s.candidate;
+  if (!s.matching)
+    return `<p>${e(`None needed: the SWR is ${c.feed.swr.toFixed(2)} on ${c.feed.z0Ohm} Ω at ${c.feed.freqMHz.toFixed(3)} MHz; the coax connects at the feed point.`)}</p>`;
+  const t = matchingText(s.matching, c.feed);
+  const rows = s.matching.components.map((k) => [
+    k.kind === 'inductor' ? 'Coil' : 'Capacitor',
+    k.position === 'series' ? 'in series' : 'across the line',
+    `${k.value} ${k.unit}`,
+  ]);
+  return (
+    `<p>${e(t.summary)}</p>` +
+    table(['Part (transmitter side first)', 'Where', 'Value'], rows) +
+    `<ul>${[...t.arrangements, ...t.alternatives].map((a) => `<li>${e(a)}</li>`).join('')}</ul>` +
+    `<p class="note">${e(t.adjust)}</p>`
   );
 }
 
@@ -252,6 +273,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
           : `<p class="note">${e('The solver rate was not measured for this report.')}</p>`),
     ),
   );
+  parts.push(section('Matching', matchingHtml(s)));
   parts.push(
     section(
       'Patterns',

@@ -49,6 +49,33 @@ describe('plan --json', () => {
     }
   });
 
+  it('gives a designed match to each candidate above 1.5:1 and none to the others', () => {
+    for (const [i, c] of json.candidates.entries()) {
+      const made = shortlist.candidates[i]!;
+      const m = (
+        c as {
+          matching?: {
+            network: string;
+            components: { kind: string; value: number; unit: string }[];
+            lossDb: number;
+          };
+        }
+      ).matching;
+      if (made.feed.swr > 1.5) {
+        expect(m, c.id).toBeDefined();
+        expect(m!.network).toMatch(/^L-network/);
+        // Two parts; one series part when the resistance is already 50 Ω (the fake's is).
+        expect(m!.components.length).toBeGreaterThanOrEqual(1);
+        for (const k of m!.components) {
+          expect(['inductor', 'capacitor']).toContain(k.kind);
+          expect(k.unit).toBe(k.kind === 'inductor' ? 'µH' : 'pF');
+          expect(k.value).toBeGreaterThan(0);
+        }
+        expect(m!.lossDb).toBeGreaterThanOrEqual(0);
+      } else expect(m, c.id).toBeUndefined();
+    }
+  });
+
   it('leaves the patterns out unless asked for', () => {
     expect(json.patterns).toBeUndefined();
     expect((shortlistJson(shortlist, true) as { patterns?: unknown }).patterns).toBeDefined();
