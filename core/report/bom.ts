@@ -88,12 +88,21 @@ export function materialsOf(
   const modelledM = c.wires.reduce((s, w) => s + len3(w.from, w.to), 0);
   const wireCuts = c.cutList.filter((i) => i.kind === 'wire');
   const allowanceM = wireCuts.reduce((s, i) => s + i.count * (i.cutLengthM - i.lengthM), 0);
-  const wire = { modelledM, allowanceM, totalM: modelledM + allowanceM, gauge: gaugeText(wireRadiusOf(c)) };
+  const wire = {
+    modelledM,
+    allowanceM,
+    totalM: modelledM + allowanceM,
+    gauge: gaugeText(wireRadiusOf(c), L.units),
+  };
 
   const g = c.groundSystem;
   const radials: Materials['radials'] =
     g.kind === 'radials'
-      ? { count: g.count, totalM: g.lengthsM.reduce((s, v) => s + v, 0), gauge: gaugeText(g.radiusM) }
+      ? {
+          count: g.count,
+          totalM: g.lengthsM.reduce((s, v) => s + v, 0),
+          gauge: gaugeText(g.radiusM, L.units),
+        }
       : null;
 
   const insulators = insulatorsOf(c, supports, L);

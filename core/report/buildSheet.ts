@@ -16,7 +16,8 @@ import { gainAt } from '../rank/pattern.ts';
 import { buildSite } from '../site/site.ts';
 import type { XY } from '../site/frame.ts';
 import type { XYZ } from '../site/geometry.ts';
-import type { UnitSystem } from '../units/index.ts';
+import { lengthsInText, type UnitSystem } from '../units/index.ts';
+import { CUT_ALLOWANCE_PER_END_M } from '../antennas/common.ts';
 import { candidateMatching, type CandidateMatching } from '../match/candidateMatch.ts';
 import { materialsOf, type BomItem, type Materials } from './bom.ts';
 import type { Caution } from './cautions.ts';
@@ -167,7 +168,9 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   exposure.notes.push(
     `Worst case: the feed-line loss (${feedLine.lossDb.toFixed(2)} dB) is not subtracted, and the candidate's peak gain (${c.peak.gainDbi.toFixed(1)} dBi) is used in every direction.`,
   );
+  exposure.notes = exposure.notes.map((n) => lengthsInText(n, units));
   const onLot = exposureOnLot(c.wires, site, exposure);
+  onLot.notes = onLot.notes.map((n) => lengthsInText(n, units));
 
   let pattern: BuildSheet['pattern'] = null;
   const canonical = input.shortlist.patterns[c.evaluationKey];
@@ -183,7 +186,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
 
   if (!c.trim.resonant)
     notes.push('The solver found no resonance inside the design limits: expect a matching network.');
-  notes.push(...c.diagnostics);
+  notes.push(...c.diagnostics.map((d) => lengthsInText(d, units)));
 
   return {
     projectName: project.name,
@@ -191,7 +194,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     station,
     units,
     cutList: c.cutList,
-    cutAllowance: c.cutAllowance,
+    cutAllowance: `Cut lengths include ${L.small(CUT_ALLOWANCE_PER_END_M, 0)} per end for the loop through an insulator or the connection; trim after a first measurement.`,
     bom: m.bom,
     wire: m.wire,
     radials: m.radials,

@@ -170,7 +170,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
     section(
       'Summary',
       `<dl>${[
-        ['Antenna', `#${c.rank} ${c.band} ${c.typeLabel}`],
+        ['Antenna', `${c.typeLabel}, #${c.rank} on the ${c.band.replace('m', ' m')} band`],
         ['Where', c.where],
         [
           'Supports',
@@ -359,7 +359,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">
 <title>${e(title)}</title><style>${STYLE}</style></head>
-<body><header><h1>${e(title)}</h1><p class="sub">${e(`Yardwire station report · ${c.band.replace('m', ' m')} #${c.rank}${generatedAt ? ` · ${generatedAt}` : ''}`)}</p></header>
+<body><header><h1>${e(title)}</h1><p class="sub">${e(`Yardwire station report · ${c.band.replace('m', ' m')} band, #${c.rank}${generatedAt ? ` · ${generatedAt}` : ''}`)}</p></header>
 ${parts.join('\n')}
 </body></html>
 `;

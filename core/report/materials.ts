@@ -4,6 +4,7 @@
  * the app's exposure panel.
  */
 import { COAX_TYPES } from '../project/schema.ts';
+import type { UnitSystem } from '../units/index.ts';
 
 /* ----------------------------------------------------------------------------------------------
  * Coaxial cable loss
@@ -58,8 +59,11 @@ export function nearestAwg(diameterMm: number): number {
   return Math.round(36 - (39 * Math.log(diameterMm / 0.127)) / Math.log(92));
 }
 
-export function gaugeText(radiusM: number): string {
+/** The wire as bought: millimetres for metric users, the AWG number and inches for imperial ones. */
+export function gaugeText(radiusM: number, units: UnitSystem = 'metric'): string {
   const d = radiusM * 2000;
   const n = nearestAwg(d);
+  if (units === 'imperial')
+    return `${n} AWG copper (${(awgDiameterMm(n) / 25.4).toFixed(3)} in; the nearest gauge to the modelled wire by the AWG formula)`;
   return `${d.toFixed(1)} mm diameter copper (≈ ${n} AWG, ${awgDiameterMm(n).toFixed(2)} mm; nearest gauge by the AWG formula)`;
 }
