@@ -273,6 +273,8 @@ export const SettingsSchema = z.object({
   minEndHeightM: finite.refine((v) => v >= 0 && v <= 30, 'must be between 0 and 30 m').default(2.5),
   /** Tallest self-supporting vertical the user would put up, metres. */
   maxVerticalHeightM: finite.refine((v) => v >= 0 && v <= 60, 'must be between 0 and 60 m').default(12),
+  /** Longest rope from a wire end to its support or anchor, metres (was a fixed 40 m). */
+  maxRopeM: finite.refine((v) => v >= 1 && v <= 200, 'must be between 1 and 200 m').default(40),
   /** Number of radials the user would lay. */
   radialCount: z
     .number()
