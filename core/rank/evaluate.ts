@@ -16,6 +16,7 @@ import { evaluationModel } from '../antennas/conductors.ts';
 import { ModelError } from '../em/errors.ts';
 import type { Design } from '../antennas/types.ts';
 import { swrEdges, swrOf } from '../em/swr.ts';
+import { quadraticThrough } from '../numeric/fit.ts';
 import { trimToResonance } from '../numeric/roots.ts';
 import { Z0_OHM, type EvalGround, type EvalFrequency, type Evaluator } from './evaluator.ts';
 import { PATTERN_GRID } from './pattern.ts';
@@ -76,16 +77,6 @@ export function unsolvableRecord(design: Design, reason: string): EvaluationReco
     diagnostics: [reason],
     unsolvable: reason,
   };
-}
-
-function fitQuadratic(xs: readonly number[], ys: readonly number[]): (x: number) => number {
-  // Lagrange form through three points.
-  const [x0, x1, x2] = xs;
-  const [y0, y1, y2] = ys;
-  return (x) =>
-    (y0 * (x - x1) * (x - x2)) / ((x0 - x1) * (x0 - x2)) +
-    (y1 * (x - x0) * (x - x2)) / ((x1 - x0) * (x1 - x2)) +
-    (y2 * (x - x0) * (x - x1)) / ((x2 - x0) * (x2 - x1));
 }
 
 function one(
@@ -212,8 +203,8 @@ function evaluateDesignOrThrow(
   }
   for (const r of [...sweep, main]) diagnostics.push(...r.diagnostics);
   const fs = [fl, f0, fh];
-  const R = fitQuadratic(fs, [sweep[0].zOhm[0], main.zOhm[0], sweep[1].zOhm[0]]);
-  const X = fitQuadratic(fs, [sweep[0].zOhm[1], main.zOhm[1], sweep[1].zOhm[1]]);
+  const R = quadraticThrough(fs, [sweep[0].zOhm[0], main.zOhm[0], sweep[1].zOhm[0]]);
+  const X = quadraticThrough(fs, [sweep[0].zOhm[1], main.zOhm[1], sweep[1].zOhm[1]]);
   const swrAt = (f: number): number => swrOf(R(f), X(f), Z0_OHM);
   // The fitted curve sampled every 0.05 % out to ±2δ, its 2:1 edges found from f0 outward.
   const fsFit = Array.from({ length: 161 }, (_, k) => f0 * (1 + (k - 80) * 0.0005));

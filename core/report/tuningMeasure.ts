@@ -6,6 +6,8 @@
 import type { Design } from '../antennas/types.ts';
 import { evaluationModel } from '../antennas/conductors.ts';
 import type { EvalGround, Evaluator } from '../rank/evaluator.ts';
+import { quadraticThrough } from '../numeric/fit.ts';
+import { trimToResonance } from '../numeric/roots.ts';
 
 /** Relative change of the trim dimension for the tuning measurement (each side of the design). */
 export const TUNING_STEP = 0.005;
@@ -24,21 +26,23 @@ export interface TuningMeasurement {
   cmPer10kHzUp: number;
 }
 
-/** Zero of X(f) from a quadratic through three points, nearest f1. */
+/**
+ * Resonance (X = 0) of the quadratic through three reactances, found by the one trim routine
+ * from the middle frequency, within ±50 % of it (a fit over ±1 %, so far from the middle it is an
+ * extrapolation; a design the trim left far from resonance gets a tuning problem, ./tuning.ts).
+ */
 function reactanceZero(fs: [number, number, number], xs: [number, number, number]): number {
-  const [f0, f1, f2] = fs;
-  const [x0, x1, x2] = xs;
-  // X(f) = a (f − f1)² + b (f − f1) + x1
-  const d0 = f0 - f1;
-  const d2 = f2 - f1;
-  const a = ((x0 - x1) / d0 - (x2 - x1) / d2) / (d0 - d2);
-  const b = (x0 - x1) / d0 - a * d0;
-  if (Math.abs(a) < 1e-30) return f1 - x1 / b;
-  const disc = b * b - 4 * a * x1;
-  if (disc < 0) return f1 - x1 / b;
-  const r1 = (-b + Math.sqrt(disc)) / (2 * a);
-  const r2 = (-b - Math.sqrt(disc)) / (2 * a);
-  return f1 + (Math.abs(r1) < Math.abs(r2) ? r1 : r2);
+  const X = quadraticThrough(fs, xs);
+  const f1 = fs[1];
+  return trimToResonance(X, {
+    start: f1,
+    min: 0.5 * f1,
+    max: 1.5 * f1,
+    fTol: 1e-6,
+    xTol: 1e-3,
+    maxEvaluations: 60,
+    firstStep: 0.001,
+  }).x;
 }
 
 /**

@@ -9,6 +9,7 @@ import {
   buildSheet,
   coaxLossDbPer100m,
   measureTuning,
+  TUNING_STEP,
   nearestAwg,
   type BuildSheet,
 } from '../../../core/report/buildSheet.ts';
@@ -18,6 +19,8 @@ import { feetInches } from '../../../core/report/format.ts';
 import { lengthsInText } from '../../../core/units/index.ts';
 import type { Project } from '../../../core/project/schema.ts';
 import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
+import { toyEvaluator } from '../../helpers/toyEvaluator.ts';
+import { evaluationModel } from '../../../core/antennas/conductors.ts';
 
 // Planning mechanics only: the fake evaluator is not physics (see its header). Verticals resonate
 // near a quarter wave, wire antennas near a half wave.
@@ -106,11 +109,20 @@ describe('build sheet', () => {
 
   it('measures a tuning rate through the evaluator', () => {
     const c = byType('dipole');
-    const t = measureTuning(c.design, c.trim.valueM, project.soil, ev);
-    // The fake's reactance is linear in length: longer wire, lower resonance, f_res ∝ 1/L.
+    // The toy's reactance is X = 900 Ω·(L·f/c − 0.48) for total wire length L: resonance at
+    // f = 0.48·c/L, so longer wire, lower resonance, and f_short/f_long = L_long/L_short.
+    const t = measureTuning(c.design, c.trim.valueM, project.soil, toyEvaluator());
     expect(t.kHzPerCm).toBeLessThan(0);
     expect(t.resonanceMHz.shorter).toBeGreaterThan(t.resonanceMHz.longer);
     expect(t.cmPer10kHzUp).toBeGreaterThan(0);
+    const total = (trimM: number): number =>
+      evaluationModel(c.design, trimM).wires.reduce(
+        (s, w) => s + Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]),
+        0,
+      );
+    const lo = c.trim.valueM * (1 - TUNING_STEP);
+    const hi = c.trim.valueM * (1 + TUNING_STEP);
+    expect(t.resonanceMHz.shorter / t.resonanceMHz.longer).toBeCloseTo(total(hi) / total(lo), 6);
   });
 
   it('states the wire gauge from the model radius', () => {
