@@ -1,5 +1,6 @@
 // Import of georeferenced aerials, against TIFFs written by the demo generator's encoder.
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import {
@@ -207,5 +208,34 @@ describe('AerialSource levels and windows', () => {
     );
     expect(area.georef.transform.slice(0, 4)).toEqual([440_000, 1, 0, 4_975_000]);
     expect(point.georef.transform.slice(0, 4)).toEqual([439_999.5, 1, 0, 4_975_000.5]);
+  });
+
+  it('answers a damaged file with an AerialImportError, never another error (property test, seeded)', async () => {
+    const good = new Uint8Array(
+      tiledGeoTiffBytes({
+        width: 40,
+        height: 30,
+        tile: 16,
+        geo: { tiepoint: [440_000, 4_975_000], pixelScale: [1, 1], keys: epsgProjectedKeys(32615) },
+        fill: (_x, _y, rgb) => rgb.fill(120),
+      }),
+    );
+    await fc.assert(
+      fc.asyncProperty(fc.nat(), fc.uint8Array({ minLength: 1, maxLength: 16 }), async (at, junk) => {
+        const bad = good.slice();
+        const from = at % 600; // inside the header, the IFD and the tag values
+        bad.set(junk.subarray(0, bad.length - from), from);
+        const t0 = performance.now();
+        try {
+          const source = await AerialSource.open(bad.buffer);
+          const [w, h] = source.wholeSize(32);
+          await source.render(source.bounds, w, h);
+        } catch (e) {
+          expect(e, String(e)).toBeInstanceOf(AerialImportError);
+        }
+        expect(performance.now() - t0, `byte ${from}`).toBeLessThan(2000);
+      }),
+      { seed: 20261205, numRuns: Number(process.env.YARDWIRE_PROPERTY_RUNS ?? 150) },
+    );
   });
 });
