@@ -173,4 +173,12 @@ test('imports a projected aerial and a shapefile parcel, traces supports on them
     .getByTestId('aerial-reopen')
     .setInputFiles({ name: 'ortho-utm15.tif', mimeType: 'image/tiff', buffer: aerial() });
   await expect(page.locator('img.yw-aerial')).toHaveAttribute('src', /^blob:/);
+
+  // Asked to, the project keeps a copy too: after a reload it shows without the file.
+  await page.getByTestId('aerial-embed-now').click();
+  await expect(page.getByTestId('aerial-crs')).toContainText('a copy is kept in the project');
+  await page.reload();
+  await expect(page.locator('img.yw-aerial')).toHaveAttribute('src', /^data:image\/png;base64,/);
+  await page.getByRole('tab', { name: 'Aerial' }).click();
+  await expect(page.getByTestId('aerial-needs-file')).toHaveCount(0);
 });
