@@ -62,7 +62,7 @@ export type Progress = (fraction: number, what: string) => void;
 /** Longest side of the coarsest level kept for zoomed-out views. */
 export const OVERVIEW_SIDE_PX = 2048;
 /** Largest band read at once while building an overview. */
-export const BAND_BYTES = 32 * 1024 * 1024;
+export const BAND_BYTES = 16 * 1024 * 1024;
 /** Largest window read for one view (pixels of the chosen level). */
 export const MAX_WINDOW_PX = 4096 * 4096;
 const GRID_NODES = 16;
