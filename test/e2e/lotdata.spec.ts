@@ -169,8 +169,18 @@ test('imports a projected aerial and a shapefile parcel, traces supports on them
   await page.reload();
   await page.getByRole('tab', { name: 'Aerial' }).click();
   await expect(page.getByTestId('aerial-needs-file')).toContainText('ortho-utm15.tif');
+  await expect(page.locator('path.yw-aerial-outline')).toHaveCount(1);
   await page
     .getByTestId('aerial-reopen')
     .setInputFiles({ name: 'ortho-utm15.tif', mimeType: 'image/tiff', buffer: aerial() });
   await expect(page.locator('img.yw-aerial')).toHaveAttribute('src', /^blob:/);
+  await expect(page.locator('path.yw-aerial-outline')).toHaveCount(0);
+
+  // Asked to, the project keeps a copy too: after a reload it shows without the file.
+  await page.getByTestId('aerial-embed-now').click();
+  await expect(page.getByTestId('aerial-crs')).toContainText('a copy is kept in the project');
+  await page.reload();
+  await expect(page.locator('img.yw-aerial')).toHaveAttribute('src', /^data:image\/png;base64,/);
+  await page.getByRole('tab', { name: 'Aerial' }).click();
+  await expect(page.getByTestId('aerial-needs-file')).toHaveCount(0);
 });

@@ -1,5 +1,6 @@
 // Import of georeferenced aerials, against TIFFs written by the demo generator's encoder.
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import {
@@ -12,7 +13,14 @@ import {
   geoKeysProjected,
   lonLatOf,
 } from '../../demo/generate-aerial.mjs';
-import { AerialImportError, decodeGeoTiff, webMercatorToLonLat } from './aerial.ts';
+import { epsgProjectedKeys, tiledGeoTiffBytes } from '../../../test/helpers/geotiffWriter.ts';
+import {
+  AerialImportError,
+  AerialSource,
+  OVERVIEW_SIDE_PX,
+  decodeGeoTiff,
+  webMercatorToLonLat,
+} from './aerial.ts';
 
 const DEG_TOL = 1e-9; // bounds are read back from doubles written by our own encoder
 
@@ -140,5 +148,94 @@ describe('decodeGeoTiff errors and projections', () => {
     // same longitude: 25 · 1.556 ≈ 39 px (spherical mercator, EPSG guidance note 7-2).
     expect([a.width, a.height]).toEqual([50, Math.round(25 / Math.cos((50 * Math.PI) / 180))]);
     expect(a.rgba.length).toBe(a.width * a.height * 4);
+  });
+});
+
+describe('AerialSource levels and windows', () => {
+  // A strip wider than OVERVIEW_SIDE_PX and without overviews: one is built, and whole-image views
+  // read from it, while a small view reads a small full-resolution window.
+  const W = 2304;
+  const H = 64;
+  const strip = (): ArrayBuffer =>
+    tiledGeoTiffBytes({
+      width: W,
+      height: H,
+      tile: 256,
+      geo: { tiepoint: [440_000, 4_975_000], pixelScale: [0.5, 0.5], keys: epsgProjectedKeys(32615) },
+      fill(tx, _ty, rgb) {
+        for (let p = 0; p < 256 * 256; p++) rgb.set(tx < 4 ? [200, 0, 0] : [0, 0, 200], p * 3);
+      },
+    });
+
+  it('builds one overview when the file has none, and reads views at the right level', async () => {
+    const progress: number[] = [];
+    const source = await AerialSource.open(strip(), (f) => progress.push(f));
+    expect(source.levelFactors).toEqual([1, Math.ceil(W / OVERVIEW_SIDE_PX)]);
+    expect(progress.at(-1)).toBe(1);
+    const band = source.maxWindowPx;
+    expect(band).toBeLessThanOrEqual(W * H);
+    const [w, h] = source.wholeSize(256);
+    const whole = await source.render(source.bounds, w, h);
+    // Whole view from the overview: its window is at most the overview's size.
+    expect(source.maxWindowPx).toBe(band);
+    // Left half red, right half blue (tiles 0–3 red of 9).
+    const at = (x: number): number[] => [
+      ...whole.rgba.subarray((Math.floor(h / 2) * w + x) * 4, (Math.floor(h / 2) * w + x) * 4 + 4),
+    ];
+    expect(at(2)).toEqual([200, 0, 0, 255]);
+    expect(at(w - 3)).toEqual([0, 0, 200, 255]);
+  });
+
+  it('puts pixel centres on the tie point for PixelIsPoint rasters (GeoTIFF 1.0, raster space)', async () => {
+    const keys = [...epsgProjectedKeys(32615).filter((k) => k.key !== 1025), { key: 1025, value: 2 }];
+    const area = await AerialSource.open(
+      tiledGeoTiffBytes({
+        width: 16,
+        height: 16,
+        tile: 16,
+        geo: { tiepoint: [440_000, 4_975_000], pixelScale: [1, 1], keys: epsgProjectedKeys(32615) },
+        fill: () => {},
+      }),
+    );
+    const point = await AerialSource.open(
+      tiledGeoTiffBytes({
+        width: 16,
+        height: 16,
+        tile: 16,
+        geo: { tiepoint: [440_000, 4_975_000], pixelScale: [1, 1], keys },
+        fill: () => {},
+      }),
+    );
+    expect(area.georef.transform.slice(0, 4)).toEqual([440_000, 1, 0, 4_975_000]);
+    expect(point.georef.transform.slice(0, 4)).toEqual([439_999.5, 1, 0, 4_975_000.5]);
+  });
+
+  it('answers a damaged file with an AerialImportError, never another error (property test, seeded)', async () => {
+    const good = new Uint8Array(
+      tiledGeoTiffBytes({
+        width: 40,
+        height: 30,
+        tile: 16,
+        geo: { tiepoint: [440_000, 4_975_000], pixelScale: [1, 1], keys: epsgProjectedKeys(32615) },
+        fill: (_x, _y, rgb) => rgb.fill(120),
+      }),
+    );
+    await fc.assert(
+      fc.asyncProperty(fc.nat(), fc.uint8Array({ minLength: 1, maxLength: 16 }), async (at, junk) => {
+        const bad = good.slice();
+        const from = at % 600; // inside the header, the IFD and the tag values
+        bad.set(junk.subarray(0, bad.length - from), from);
+        const t0 = performance.now();
+        try {
+          const source = await AerialSource.open(bad.buffer);
+          const [w, h] = source.wholeSize(32);
+          await source.render(source.bounds, w, h);
+        } catch (e) {
+          expect(e, String(e)).toBeInstanceOf(AerialImportError);
+        }
+        expect(performance.now() - t0, `byte ${from}`).toBeLessThan(2000);
+      }),
+      { seed: 20261205, numRuns: Number(process.env.YARDWIRE_PROPERTY_RUNS ?? 150) },
+    );
   });
 });

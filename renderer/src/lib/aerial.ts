@@ -62,7 +62,7 @@ export type Progress = (fraction: number, what: string) => void;
 /** Longest side of the coarsest level kept for zoomed-out views. */
 export const OVERVIEW_SIDE_PX = 2048;
 /** Largest band read at once while building an overview. */
-export const BAND_BYTES = 32 * 1024 * 1024;
+export const BAND_BYTES = 16 * 1024 * 1024;
 /** Largest window read for one view (pixels of the chosen level). */
 export const MAX_WINDOW_PX = 4096 * 4096;
 const GRID_NODES = 16;
@@ -85,6 +85,18 @@ async function checkComplete(image: GeoTIFFImage, byteLength: number): Promise<v
   const counts = (await fd.loadValue(tiled ? 'TileByteCounts' : 'StripByteCounts')) as
     ArrayLike<number> | undefined;
   if (!offsets || !counts) throw new AerialImportError('The TIFF has no image data (no strips or tiles).');
+  const [w, h] = [image.getWidth(), image.getHeight()];
+  const [tw, th] = [image.getTileWidth(), image.getTileHeight()];
+  if (!(w > 0 && h > 0 && tw > 0 && th > 0))
+    throw new AerialImportError(
+      `The image size (${w} × ${h}) or its ${tiled ? 'tile' : 'strip'} size is not possible.`,
+    );
+  const planes = image.planarConfiguration === 2 ? image.getSamplesPerPixel() : 1;
+  const needed = Math.ceil(w / tw) * Math.ceil(h / th) * planes;
+  if (offsets.length !== needed || counts.length !== needed)
+    throw new AerialImportError(
+      `The TIFF's ${tiled ? 'tile' : 'strip'} table holds ${offsets.length} entries, but a ${w} × ${h} image needs ${needed}; the file is damaged.`,
+    );
   for (let i = 0; i < offsets.length; i++) {
     if ((offsets[i] ?? 0) + (counts[i] ?? 0) > byteLength) {
       throw new AerialImportError(
@@ -261,27 +273,32 @@ export class AerialSource {
         : new Uint8Array(await input.slice(0, 8).arrayBuffer());
     if (!isTiff(head))
       throw new AerialImportError('This file is not a TIFF image (it does not start like one).');
-    let tiff: GeoTIFF;
-    let image: GeoTIFFImage;
-    let count: number;
     try {
-      tiff = input instanceof ArrayBuffer ? await fromArrayBuffer(input) : await fromBlob(input);
-      image = await tiff.getImage(0);
-      count = await tiff.getImageCount();
+      return await AerialSource.#openTiff(input, byteLength, progress);
     } catch (e) {
+      if (e instanceof AerialImportError) throw e;
+      if (e instanceof CrsError) throw new AerialImportError(`GeoKeys, ${e.message}`);
       throw new AerialImportError(`The TIFF cannot be read; it may be truncated or damaged (${String(e)}).`);
     }
+  }
+
+  static async #openTiff(
+    input: Blob | ArrayBuffer,
+    byteLength: number,
+    progress?: Progress,
+  ): Promise<AerialSource> {
+    const tiff: GeoTIFF = input instanceof ArrayBuffer ? await fromArrayBuffer(input) : await fromBlob(input);
+    const image = await tiff.getImage(0);
+    const count = await tiff.getImageCount();
     const keys = image.getGeoKeys() as GeoKeys | null;
     const transform = await affineOf(image, keys?.['GTRasterTypeGeoKey'] === 2);
-    let crs: ImageCrs;
-    try {
-      crs = crsFromGeoKeys(keys ?? {});
-    } catch (e) {
-      if (e instanceof CrsError) throw new AerialImportError(`GeoKeys, ${e.message}`);
-      throw e;
-    }
+    const crs: ImageCrs = crsFromGeoKeys(keys ?? {});
     await checkComplete(image, byteLength);
     const georef: AerialGeoref = { crs, widthPx: image.getWidth(), heightPx: image.getHeight(), transform };
+    if (!(georef.widthPx > 0 && georef.heightPx > 0))
+      throw new AerialImportError(
+        `The image is ${georef.widthPx} × ${georef.heightPx} pixels; there is nothing to show.`,
+      );
     const levels: Level[] = [fileLevel(image, 1)];
     // Reduced-resolution images of the same file (overviews), when they cover the same extent.
     for (let i = 1; i < Math.min(count, 16); i++) {
@@ -404,7 +421,14 @@ export class AerialSource {
     if (ww * wh > MAX_WINDOW_PX)
       throw new AerialImportError(`The view needs a window of ${ww} × ${wh} pixels; zoom in.`);
     this.maxWindowPx = Math.max(this.maxWindowPx, ww * wh);
-    const src = await level.read([wx0, wy0, wx1, wy1]);
+    let src: Uint8ClampedArray;
+    try {
+      src = await level.read([wx0, wy0, wx1, wy1]);
+    } catch (e) {
+      throw e instanceof AerialImportError
+        ? e
+        : new AerialImportError(`The image data cannot be read (${String(e)}).`);
+    }
     for (let y = 0; y < H; y++) {
       const gy = ((y + 0.5) / H) * G;
       const j = Math.min(G - 1, Math.floor(gy));

@@ -9,6 +9,7 @@ import './geoman.ts';
 import L from './leaflet.ts';
 import { COLOURS, buildLayers, declutterLabels, toLatLng, toLonLat, type Shape } from './layers.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
+import { footprintOf } from '../lib/aerial.ts';
 import type { Session } from '../state/session.svelte.ts';
 import type { ToolId } from '../state/ui.svelte.ts';
 
@@ -208,6 +209,34 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       );
     };
     map.on('moveend', renderView);
+    // A referenced image whose file is not open: its outline, so the user sees where it lies.
+    $effect(() => {
+      const ref = overlay.needsFile ? overlay.overlay?.source : undefined;
+      if (!ref) return;
+      let corners: LonLat[];
+      try {
+        corners = footprintOf({
+          crs: ref.crs,
+          widthPx: ref.widthPx,
+          heightPx: ref.heightPx,
+          transform: ref.transform,
+        });
+      } catch {
+        return;
+      }
+      const outline = L.polygon(corners.map(toLatLng), {
+        pane: 'aerial',
+        color: '#6b6b6b',
+        weight: 1.5,
+        dashArray: '6 4',
+        fill: false,
+        interactive: false,
+        className: 'yw-aerial-outline',
+      }).addTo(map);
+      return () => {
+        outline.remove();
+      };
+    });
     $effect(() => {
       if (overlay.live) untrack(renderView);
     });

@@ -144,6 +144,16 @@ export class OverlayState {
     });
   }
 
+  /** Keep a PNG copy of the open file in the project as well as the reference. */
+  async embedNow(): Promise<boolean> {
+    const source = this.live;
+    const o = this.overlay;
+    if (!source || !o) return false;
+    return this.#guard(o.name, async () => {
+      await this.#store({ ...o, pngDataUrl: await this.#embedded(source) });
+    });
+  }
+
   async #embedded(source: AerialSource): Promise<string> {
     for (let side = FIRST_MAX_SIDE_PX; ; side /= 2) {
       const [w, h] = source.wholeSize(side);
@@ -160,11 +170,12 @@ export class OverlayState {
 
   /**
    * Render the live image for the part of the map in view (`view`, `widthPx` × `heightPx` screen
-   * pixels); the latest call wins. Embedded images need no rendering.
+   * pixels); the latest call wins. While the file is open it is drawn from the file (sharper than
+   * an embedded copy, which is shown only when the file is not open).
    */
   async showView(view: LatLngBox, widthPx: number, heightPx: number): Promise<void> {
     const source = this.live;
-    if (!source || this.overlay?.pngDataUrl) return;
+    if (!source) return;
     const seq = ++this.#viewSeq;
     const k = Math.min(1, MAX_VIEW_SIDE_PX / Math.max(widthPx, heightPx, 1));
     let r: RenderedAerial;

@@ -4,6 +4,7 @@
 import { deflateRawSync } from 'node:zlib';
 import proj4 from 'proj4';
 import Geodesic from 'geographiclib-geodesic';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { importShapefile, parcelLabels, type InputFile } from '../../../core/project/importShapefile.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
@@ -189,5 +190,38 @@ describe('importShapefile', () => {
     expect(r.parcels.map((p) => p.record)).toEqual([1]);
     expect(r.skippedCount).toBe(1);
     expect(r.skipped[0]!.path).toMatch(/^p\.shp, record 2/);
+  });
+
+  it('never throws on damaged files: random bytes spliced into a good layer (property test, seeded)', async () => {
+    const shp = polygonShp(lots);
+    const dbf = textDbf(FIELDS, ROWS);
+    const zip = storedZip([
+      { name: 'p.shp', data: shp },
+      { name: 'p.dbf', data: dbf },
+    ]);
+    await fc.assert(
+      fc.asyncProperty(
+        fc.constantFrom('shp', 'dbf', 'zip'),
+        fc.nat(),
+        fc.uint8Array({ minLength: 1, maxLength: 64 }),
+        fc.boolean(),
+        async (which, at, junk, cut) => {
+          const good = which === 'shp' ? shp : which === 'dbf' ? dbf : zip;
+          const bad = good.slice();
+          const from = at % bad.length;
+          bad.set(junk.subarray(0, bad.length - from), from);
+          const bytes = cut ? bad.subarray(0, from + 1) : bad;
+          const files =
+            which === 'zip'
+              ? [file('p.zip', bytes)]
+              : [file('p.shp', which === 'shp' ? bytes : shp), file('p.dbf', which === 'dbf' ? bytes : dbf)];
+          const t0 = performance.now();
+          const r = await importShapefile(files);
+          expect(performance.now() - t0).toBeLessThan(2000);
+          if (!r.ok) for (const e of r.errors) expect(e.path.length * e.message.length).toBeGreaterThan(0);
+        },
+      ),
+      { seed: 20261205, numRuns: Number(process.env.YARDWIRE_PROPERTY_RUNS ?? 200) },
+    );
   });
 });
