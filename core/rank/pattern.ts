@@ -71,6 +71,27 @@ export function averageGainDbi(
 }
 
 /**
+ * Gain averaged in power over a weighted distribution of directions, dBi: 10·log10 Σ w·g(az, el)
+ * with the weights as given (a take-off distribution, core/paths/takeoff.ts, has them summing to
+ * 1; they are normalised here in case they do not). An empty or zero-weight set throws.
+ */
+export function distributionGainDbi(
+  gainDbi: readonly number[],
+  rotationDeg: number,
+  directions: readonly { azimuthDeg: number; elevationDeg: number; weight: number }[],
+): number {
+  let sum = 0;
+  let wsum = 0;
+  for (const d of directions) {
+    if (d.weight <= 0) continue;
+    sum += d.weight * dbToLinear(gainAt(gainDbi, rotationDeg, d.azimuthDeg, d.elevationDeg));
+    wsum += d.weight;
+  }
+  if (!(wsum > 0)) throw new Error('distributionGainDbi: no direction carries weight');
+  return linearToDb(sum / wsum);
+}
+
+/**
  * Over how many degrees of azimuth (1° steps) pattern A beats pattern B by more than `marginDb`
  * at `elevationDeg`, and the reverse.
  */
