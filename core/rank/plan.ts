@@ -44,7 +44,14 @@ import { buildSite, type Site } from '../site/site.ts';
 import { evaluateDesign, type EvaluationRecord } from './evaluate.ts';
 import type { EvalGround, Evaluator } from './evaluator.ts';
 import { fnv1a64 } from './hash.ts';
-import { PATTERN_GRID, averageGainDbi, azimuthAdvantage, distributionGainDbi, gainAt } from './pattern.ts';
+import {
+  PATTERN_GRID,
+  averageGainDbi,
+  azimuthAdvantage,
+  compileDirections,
+  compiledGainDbi,
+  gainAt,
+} from './pattern.ts';
 import { Z0_OHM } from './evaluator.ts';
 
 /** Version of the evaluation record and grid; part of every cache key. */
@@ -416,8 +423,9 @@ type Scorer = (gainDbi: readonly number[], rot: number) => { score: number; regi
  */
 function scorerFor(paths: readonly RegionPath[], band: Band): Scorer {
   const totalWeight = paths.reduce((s, p) => s + p.weight, 0);
+  const compiled = paths.map((path) => compileDirections(path.takeoff[band].directions));
   return (gainDbi, rot) => {
-    const regionGains = paths.map((path) => distributionGainDbi(gainDbi, rot, path.takeoff[band].directions));
+    const regionGains = compiled.map((c) => compiledGainDbi(gainDbi, rot, c));
     const score =
       totalWeight > 0
         ? regionGains.reduce((s, g, i) => s + g * paths[i].weight, 0) / totalWeight

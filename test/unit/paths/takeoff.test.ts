@@ -12,7 +12,12 @@ import {
   pathModes,
   takeoffDistribution,
 } from '../../../core/paths/takeoff.ts';
-import { PATTERN_GRID, distributionGainDbi } from '../../../core/rank/pattern.ts';
+import {
+  PATTERN_GRID,
+  compileDirections,
+  compiledGainDbi,
+  distributionGainDbi,
+} from '../../../core/rank/pattern.ts';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 
 const sum = (xs: readonly { weight: number }[]): number => xs.reduce((s, x) => s + x.weight, 0);
@@ -175,6 +180,17 @@ describe('distributionGainDbi', () => {
     ];
     // 10·log10(0.75·1 + 0.25·10) = 10·log10(3.25)
     expect(distributionGainDbi(g, 0, d)).toBeCloseTo(10 * Math.log10(3.25), 10);
+  });
+
+  it('gives the same value compiled (grouped by azimuth) as direction by direction', () => {
+    const g = Array.from({ length: nAz * nEl }, (_, i) => 6 * Math.sin(i * 0.731) + Math.cos(i * 0.0137));
+    const project = buildDemoProject();
+    for (const p of planPaths(project.station!, project.targets)) {
+      for (const rot of [0, 35, 271.5]) {
+        const d = p.takeoff['80m'].directions;
+        expect(compiledGainDbi(g, rot, compileDirections(d))).toBeCloseTo(distributionGainDbi(g, rot, d), 10);
+      }
+    }
   });
 
   it('refuses a set with no weight', () => {
