@@ -279,7 +279,7 @@ function describe(c: Candidate): string {
   for (const r of c.regions) {
     lines.push(
       `    ${r.name.padEnd(26)} ${f1(r.gainDbi).padStart(6)} dBi  bearing ${f1(r.bearingDeg.from)}–${f1(r.bearingDeg.to)}°, ` +
-        `${r.distanceKm.min.toFixed(0)}–${r.distanceKm.max.toFixed(0)} km, elevation ${f1(r.elevationWindowDeg.min)}–${f1(r.elevationWindowDeg.max)}°, ${r.hops.min}–${r.hops.max} hops`,
+        `${r.distanceKm.min.toFixed(0)}–${r.distanceKm.max.toFixed(0)} km, take-off median ${f1(r.takeoff.medianDeg)}° (10–90 %: ${f1(r.takeoff.p10Deg)}–${f1(r.takeoff.p90Deg)}°${r.takeoff.model === 'user-window' ? ', own window' : ''})`,
     );
   }
   const sr = c.soilRange;
@@ -324,8 +324,12 @@ function humanReport(project: Project, s: Shortlist, seconds: number): string {
   for (const p of s.paths) {
     out.push(
       `  target ${p.name} (weight ${p.weight}): bearing ${f1(p.bearingDeg.from)}–${f1(p.bearingDeg.to)}°, ` +
-        `${p.distanceKm.min.toFixed(0)}–${p.distanceKm.max.toFixed(0)} km, elevation ${f1(p.elevationWindowDeg.min)}–${f1(p.elevationWindowDeg.max)}°`,
+        `${p.distanceKm.min.toFixed(0)}–${p.distanceKm.max.toFixed(0)} km, fewest-hop elevation ${f1(p.elevationWindowDeg.min)}–${f1(p.elevationWindowDeg.max)}°`,
     );
+    for (const [band, t] of Object.entries(p.takeoffByBand))
+      out.push(
+        `    take-off on ${band} (${t.model}): median ${f1(t.medianDeg)}°, 10–90 % ${f1(t.p10Deg)}–${f1(t.p90Deg)}°`,
+      );
   }
   out.push('');
   for (const c of s.candidates) out.push(describe(c), '');

@@ -1,13 +1,16 @@
 /**
  * Paths from the station to the target regions: for each region, geodesic bearings and distances
  * to its sample points (an azimuth span), and the take-off elevation of each sample over a range
- * of reflection heights with the fewest hops that are geometrically possible (an elevation
- * window). The (azimuth, elevation) pairs are what the ranking averages a candidate's gain over.
+ * of reflection heights with the fewest hops that are geometrically possible (the fewest-hop
+ * window), and per band the weighted take-off distribution of the modes that can carry the path
+ * (core/paths/takeoff.ts) or the user's own window: the ranking averages a candidate's gain over
+ * that distribution.
  */
-import type { LonLat, Polygon, Target } from '../project/schema.ts';
+import { BANDS, type Band, type LonLat, type Polygon, type Target } from '../project/schema.ts';
 import { azimuthSpan, bearingDistance, destination, type AzimuthSpan } from './geodesy.ts';
 import { DEFAULT_LAYER_HEIGHTS_M, DEFAULT_MIN_HOP_ELEVATION_DEG, fewestHops } from './hops.ts';
 import { regionById } from './regions.ts';
+import { takeoffDistribution, userWindowDistribution, type TakeoffDistribution } from './takeoff.ts';
 
 export { bearingDistance, destination, azimuthSpan, normalizeDeg } from './geodesy.ts';
 export {
@@ -19,6 +22,17 @@ export {
 } from './hops.ts';
 export { REGIONS, regionById } from './regions.ts';
 export { toLocator, fromLocator } from './maidenhead.ts';
+export {
+  TAKEOFF_MODEL_ID,
+  USER_WINDOW_MODEL_ID,
+  takeoffDistribution,
+  userWindowDistribution,
+  pathModes,
+  takeoffSummary,
+  type TakeoffSummary,
+  type TakeoffDistribution,
+  type TakeoffDirection,
+} from './takeoff.ts';
 
 export class UnknownRegionError extends Error {
   override name = 'UnknownRegionError';
@@ -30,6 +44,8 @@ export interface ResolvedTarget {
   name: string;
   weight: number;
   points: LonLat[];
+  /** The user's own take-off window, degrees, in place of the computed distribution. */
+  takeoffWindowDeg?: [number, number];
 }
 
 export interface PathOptions {
@@ -54,10 +70,16 @@ export interface RegionPath {
   samples: PathSample[];
   azimuthSpan: AzimuthSpan;
   distanceKm: { min: number; max: number };
+  /** Take-off angles of the fewest-hop geometry alone (min and max over samples and heights). */
   elevationWindowDeg: { min: number; max: number };
   hopRange: { min: number; max: number };
-  /** Every (azimuth, elevation) pair the ranking averages over. */
+  /** Every (azimuth, elevation) pair of the fewest-hop geometry. */
   directions: { azimuthDeg: number; elevationDeg: number }[];
+  /**
+   * Per band, the weighted take-off distribution the ranking averages over (core/paths/takeoff.ts),
+   * or the user's own window when the target sets one.
+   */
+  takeoff: Record<Band, TakeoffDistribution>;
 }
 
 /** Sample points of a circle: the centre and 8 points on the rim (geodesic). */
@@ -116,10 +138,17 @@ export function resolveTargets(targets: readonly Target[]): ResolvedTarget[] {
         name: r.name,
         weight: t.weight,
         points: r.points.map((p) => [p[0], p[1]] as LonLat),
+        ...(t.takeoffWindowDeg ? { takeoffWindowDeg: t.takeoffWindowDeg } : {}),
       };
     }
     const points = 'center' in t.area ? circlePoints(t.area.center, t.area.radiusKm) : polygonPoints(t.area);
-    return { id: t.id, name: t.name, weight: t.weight, points };
+    return {
+      id: t.id,
+      name: t.name,
+      weight: t.weight,
+      points,
+      ...(t.takeoffWindowDeg ? { takeoffWindowDeg: t.takeoffWindowDeg } : {}),
+    };
   });
 }
 
@@ -155,6 +184,12 @@ export function regionPath(station: LonLat, target: ResolvedTarget, options: Pat
     elevationWindowDeg: { min: Math.min(...els), max: Math.max(...els) },
     hopRange: { min: Math.min(...hopsAll), max: Math.max(...hopsAll) },
     directions,
+    takeoff: Object.fromEntries(
+      BANDS.map((band) => {
+        const win = target.takeoffWindowDeg;
+        return [band, win ? userWindowDistribution(samples, win, band) : takeoffDistribution(samples, band)];
+      }),
+    ) as Record<Band, TakeoffDistribution>,
   };
 }
 

@@ -214,16 +214,44 @@ export type Soil = z.infer<typeof SoilSchema>;
 export const BANDS = ['160m', '80m', '40m'] as const;
 export type Band = (typeof BANDS)[number];
 
+/**
+ * A region's own take-off window [lowest, highest] in degrees above the horizon, in place of the
+ * computed distribution (core/paths/takeoff.ts); optional.
+ */
+export const TakeoffWindowSchema = z
+  .unknown()
+  // Checked by hand so that every refusal names this field (a type error inside the union of
+  // target kinds would otherwise be reported against the whole target).
+  .superRefine((v, ctx) => {
+    if (!Array.isArray(v) || v.length !== 2) {
+      ctx.addIssue({ code: 'custom', message: 'must be a list of two angles in degrees: [lowest, highest]' });
+      return;
+    }
+    v.forEach((a: unknown, i) => {
+      if (typeof a !== 'number' || !Number.isFinite(a) || a < 1 || a > 89)
+        ctx.addIssue({
+          code: 'custom',
+          path: [i],
+          message: `the ${i === 0 ? 'lowest' : 'highest'} angle must be a number between 1 and 89 degrees`,
+        });
+    });
+    if (typeof v[0] === 'number' && typeof v[1] === 'number' && v[0] > v[1])
+      ctx.addIssue({ code: 'custom', message: 'the lowest angle must not be above the highest' });
+  })
+  .transform((v) => v as [number, number]);
+
 export const TargetSchema = z.union(
   [
     z.object({
       regionId: idSchema,
       weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
+      takeoffWindowDeg: TakeoffWindowSchema.optional(),
     }),
     z.object({
       id: idSchema,
       name: nameSchema,
       weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
+      takeoffWindowDeg: TakeoffWindowSchema.optional(),
       area: z.union(
         [
           z.object({

@@ -36,7 +36,7 @@ import {
   type GroundSystem,
   type PlacedElement,
 } from './candidate.ts';
-import { planPaths, type RegionPath } from '../paths/index.ts';
+import { planPaths, takeoffSummary, type RegionPath, type TakeoffSummary } from '../paths/index.ts';
 import type { Band, LonLat, Project } from '../project/schema.ts';
 import type { XY } from '../site/frame.ts';
 import { checkPlacement, prepareSite, type Element, type PreparedSite } from '../site/feasibility.ts';
@@ -45,7 +45,14 @@ import { buildSite, type Site } from '../site/site.ts';
 import { evaluateDesign, type EvaluationRecord } from './evaluate.ts';
 import type { EvalGround, Evaluator } from './evaluator.ts';
 import { fnv1a64 } from './hash.ts';
-import { PATTERN_GRID, averageGainDbi, azimuthAdvantage, gainAt } from './pattern.ts';
+import {
+  PATTERN_GRID,
+  averageGainDbi,
+  azimuthAdvantage,
+  compileDirections,
+  compiledGainDbi,
+  gainAt,
+} from './pattern.ts';
 import { Z0_OHM } from './evaluator.ts';
 
 /** Version of the evaluation record and grid; part of every cache key. */
@@ -127,8 +134,11 @@ export interface RegionResult {
   gainDbi: number;
   bearingDeg: { from: number; to: number; center: number };
   distanceKm: { min: number; max: number };
+  /** The 10–90 % span of the band's take-off distribution (`takeoff`). */
   elevationWindowDeg: { min: number; max: number };
   hops: { min: number; max: number };
+  /** The band's take-off distribution the region gain is averaged over. */
+  takeoff: TakeoffSummary;
 }
 
 /**
@@ -221,8 +231,13 @@ export interface Shortlist {
     weight: number;
     bearingDeg: { from: number; to: number; center: number };
     distanceKm: { min: number; max: number };
+    /** Take-off angles of the fewest-hop geometry alone (hops.ts). */
     elevationWindowDeg: { min: number; max: number };
     hops: { min: number; max: number };
+    /** The take-off distribution of the first planned band. */
+    takeoff: TakeoffSummary;
+    /** The take-off distribution of every planned band. */
+    takeoffByBand: Partial<Record<Band, TakeoffSummary>>;
   }[];
   candidates: Candidate[];
   rejected: RejectedPlacement[];
@@ -403,11 +418,15 @@ function lossDb(lossW: number, inputW: number): number {
 
 type Scorer = (gainDbi: readonly number[], rot: number) => { score: number; regionGains: number[] };
 
-/** Score of a pattern placed with rotation `rot` over the paths, and its region gains. */
-function scorerFor(paths: readonly RegionPath[]): Scorer {
+/**
+ * Score of a pattern placed with rotation `rot` over the paths, and its region gains: per region,
+ * the gain averaged in power over the band's take-off distribution (core/paths/takeoff.ts).
+ */
+function scorerFor(paths: readonly RegionPath[], band: Band): Scorer {
   const totalWeight = paths.reduce((s, p) => s + p.weight, 0);
+  const compiled = paths.map((path) => compileDirections(path.takeoff[band].directions));
   return (gainDbi, rot) => {
-    const regionGains = paths.map((path) => averageGainDbi(gainDbi, rot, path.directions));
+    const regionGains = compiled.map((c) => compiledGainDbi(gainDbi, rot, c));
     const score =
       totalWeight > 0
         ? regionGains.reduce((s, g, i) => s + g * paths[i].weight, 0) / totalWeight
@@ -426,11 +445,11 @@ function scorerFor(paths: readonly RegionPath[]): Scorer {
  */
 export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project: Project): Job[] {
   if (setup.conductorJobs) return setup.conductorJobs;
-  const scoreOf = scorerFor(setup.paths);
   const ground = groundOf(project);
   const jobs = new Map<string, Job>();
   const choice = new Map<Band, Set<number>>();
   for (const b of setup.bands) {
+    const scoreOf = scorerFor(setup.paths, b.band);
     const best = new Map<string, { i: number; score: number }>();
     b.proposed.forEach((q, i) => {
       if (!q.withConductors) return;
@@ -510,10 +529,10 @@ export function rankPlan(
   const candidates: Candidate[] = [];
   const rejected: RejectedPlacement[] = [];
   const patterns: Record<string, number[]> = {};
-  const scoreOf = scorerFor(paths);
   const ownSoil = projectSoilId(project);
   const rangeSoils = soilRangeOf(project);
   for (const b of setup.bands) {
+    const scoreOf = scorerFor(paths, b.band);
     rejected.push(...b.rejections.map((r) => ({ ...r })));
     type Scored = {
       p: Proposal;
@@ -680,8 +699,9 @@ export function rankPlan(
             center: path.azimuthSpan.centerDeg,
           },
           distanceKm: path.distanceKm,
-          elevationWindowDeg: path.elevationWindowDeg,
+          elevationWindowDeg: { min: path.takeoff[b.band].p10Deg, max: path.takeoff[b.band].p90Deg },
           hops: path.hopRange,
+          takeoff: takeoffSummary(path.takeoff[b.band]),
         })),
         peak: { gainDbi: rec.peak.gainDbi, elevationDeg: rec.peak.elevationDeg, azimuthDeg: peakAz },
         feed: { zOhm: rec.zOhm, swr: rec.swr, z0Ohm: Z0_OHM, freqMHz: rec.freqHz / 1e6 },
@@ -801,6 +821,8 @@ export function rankPlan(
       distanceKm: p.distanceKm,
       elevationWindowDeg: p.elevationWindowDeg,
       hops: p.hopRange,
+      takeoff: takeoffSummary(p.takeoff[setup.bands[0]?.band ?? project.bands[0] ?? '80m']),
+      takeoffByBand: Object.fromEntries(setup.bands.map((b) => [b.band, takeoffSummary(p.takeoff[b.band])])),
     })),
     candidates,
     rejected,

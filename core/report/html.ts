@@ -296,13 +296,13 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       'Gain per target region',
       c.regions.length
         ? table(
-            ['Region', 'Weight', 'Gain', 'Bearings', 'Elevation window', 'Distance'],
+            ['Region', 'Weight', 'Gain', 'Bearings', 'Take-off, median (10–90 %)', 'Distance'],
             c.regions.map((g) => [
               g.name,
               String(g.weight),
               `${f1(g.gainDbi)} dBi`,
               `${f1(g.bearingDeg.from)}–${f1(g.bearingDeg.to)}°`,
-              `${f1(g.elevationWindowDeg.min)}–${f1(g.elevationWindowDeg.max)}°`,
+              `${f1(g.takeoff.medianDeg)}° (${f1(g.takeoff.p10Deg)}–${f1(g.takeoff.p90Deg)}°)${g.takeoff.model === 'user-window' ? ', own window' : ''}`,
               `${g.distanceKm.min.toFixed(0)}–${g.distanceKm.max.toFixed(0)} km`,
             ]),
           )

@@ -63,10 +63,10 @@ export function sweepFrequenciesHz(band: Band, count = 26): number[] {
   return Array.from({ length: count }, (_, i) => (lo + ((hi - lo) * i) / (count - 1)) * 1e6);
 }
 
-/** The elevation to show the azimuth pattern at first: the middle of the first target's window, else the peak's. */
+/** The elevation to show the azimuth pattern at first: the first target's median take-off angle, else the peak's. */
 export function defaultElevationDeg(c: Candidate): number {
   const r = c.regions[0];
-  const el = r ? (r.elevationWindowDeg.min + r.elevationWindowDeg.max) / 2 : c.peak.elevationDeg;
+  const el = r ? r.takeoff.medianDeg : c.peak.elevationDeg;
   return Math.max(1, Math.min(60, Math.round(el)));
 }
 
@@ -79,8 +79,12 @@ export interface ElevationSeries {
 export interface ElevationWindow {
   name: string;
   colour: string;
+  /** The 10–90 % span of the take-off distribution, degrees. */
   min: number;
   max: number;
+  /** The distribution in 1° bins (weights summing to 1), shaded by weight; median marked. */
+  weights?: readonly { elevationDeg: number; weight: number }[];
+  medianDeg?: number;
 }
 
 export interface AzimuthSeries {

@@ -1,11 +1,18 @@
 /**
  * Target regions of the open project: which built-in regions are chosen and with what weight,
  * the user's own areas (a point with a radius, or a polygon), the station position and its
- * Maidenhead locator, and the paths (bearings, distances, elevation windows) from the planning
- * core. Every change goes through the project state as one undoable, validated edit.
+ * Maidenhead locator, the paths (bearings, distances, take-off distributions) from the planning
+ * core, and a target's own take-off window when the user sets one. Every change goes through the project state as one undoable, validated edit.
  */
 import { planPaths, REGIONS, toLocator, fromLocator, type RegionPath } from '../../../core/paths/index.ts';
-import type { LonLat, Polygon, Project, Target } from '../../../core/project/schema.ts';
+import {
+  TakeoffWindowSchema,
+  type Band,
+  type LonLat,
+  type Polygon,
+  type Project,
+  type Target,
+} from '../../../core/project/schema.ts';
 import { ringReferencePoint } from '../../../core/site/frame.ts';
 import type { ProjectState } from '../state/project.svelte.ts';
 import { newId } from '../lib/geo.ts';
@@ -28,6 +35,8 @@ export interface TargetRow {
   colour: number;
   /** Short description of a custom area. */
   area: string;
+  /** The user's own take-off window, degrees, when set. */
+  takeoffWindowDeg: [number, number] | null;
 }
 
 /** Where the station is for paths: the project's station, else the centre of the lot (as the core's site does). */
@@ -105,8 +114,11 @@ export class TargetsState {
       builtIn: 'regionId' in t,
       colour: i,
       area: describeArea(t),
+      takeoffWindowDeg: t.takeoffWindowDeg ?? null,
     })),
   );
+  /** The band whose take-off distribution the list shows: the project's first. */
+  band: Band = $derived.by(() => this.#doc.project?.bands[0] ?? '80m');
   /** Bearings, distances and elevation windows from the planning core, one per target. */
   paths: RegionPath[] = $derived.by(() => {
     const st = this.station;
@@ -150,6 +162,39 @@ export class TargetsState {
     return this.#doc.edit(`weight of ${row.name}: ${w}`, (q) => ({
       ...q,
       targets: q.targets.map((t) => (targetKey(t) === key ? { ...t, weight: w } : t)),
+    }));
+  }
+
+  /**
+   * Set a target's own take-off window [lowest, highest] in degrees, in place of the computed
+   * distribution. Returns an error in words (checked by the project schema), or null when set.
+   */
+  setTakeoffWindow(key: string, lowDeg: number, highDeg: number): string | null {
+    const row = this.rows.find((r) => r.key === key);
+    if (!row) return 'no such target';
+    const checked = TakeoffWindowSchema.safeParse([lowDeg, highDeg]);
+    if (!checked.success) return checked.error.issues[0]?.message ?? 'not a valid window';
+    const win: [number, number] = [lowDeg, highDeg];
+    if (row.takeoffWindowDeg && row.takeoffWindowDeg[0] === lowDeg && row.takeoffWindowDeg[1] === highDeg)
+      return null;
+    const ok = this.#doc.edit(`take-off angles of ${row.name}: ${lowDeg}–${highDeg}°`, (q) => ({
+      ...q,
+      targets: q.targets.map((t) => (targetKey(t) === key ? { ...t, takeoffWindowDeg: win } : t)),
+    }));
+    return ok ? null : (this.#doc.editError ?? 'the window could not be set');
+  }
+
+  /** Go back to the computed take-off distribution for a target. */
+  clearTakeoffWindow(key: string): boolean {
+    const row = this.rows.find((r) => r.key === key);
+    if (!row || !row.takeoffWindowDeg) return false;
+    return this.#doc.edit(`computed take-off angles for ${row.name}`, (q) => ({
+      ...q,
+      targets: q.targets.map((t) => {
+        if (targetKey(t) !== key) return t;
+        const { takeoffWindowDeg: _drop, ...rest } = t;
+        return rest as Target;
+      }),
     }));
   }
 
