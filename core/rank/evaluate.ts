@@ -25,6 +25,8 @@ export interface PowerSplit {
   radiatedW: number;
   conductorLossW: number;
   groundLossW: number;
+  /** Loss of the ground connection(s) near the base; absent when nothing touches the soil. */
+  groundSystemLossW?: number;
   /** radiated / input. */
   efficiency: number;
 }
@@ -225,6 +227,7 @@ export function evaluateDesign(
       radiatedW: radiatedPowerW,
       conductorLossW,
       groundLossW,
+      ...(main.groundSystemLossW !== undefined ? { groundSystemLossW: main.groundSystemLossW } : {}),
       efficiency: inputPowerW > 0 ? radiatedPowerW / inputPowerW : 0,
     },
     bandwidth: { lowHz, highHz, widthHz, extrapolated: swr0 <= 2 && extrapolated },

@@ -34,6 +34,8 @@ export interface EvalFrequency {
   radiatedPowerW?: number;
   conductorLossW?: number;
   groundLossW?: number;
+  /** Loss of the ground connection(s) near the base (radial field); absent when nothing touches the soil. */
+  groundSystemLossW?: number;
   /** Total gain, dBi, on the requested grid: elevation-major (index = iEl·nAz + iAz). */
   gainDbi: Float64Array | null;
   diagnostics: string[];

@@ -81,6 +81,9 @@ export const solverEvaluator: Evaluator = (req) => {
       radiatedPowerW: f.radiatedPowerW,
       conductorLossW: f.conductorLossW,
       groundLossW: f.groundLossW,
+      ...(f.groundSystems.length
+        ? { groundSystemLossW: f.groundSystems.reduce((s, g) => s + g.lossW, 0) }
+        : {}),
       gainDbi: gain,
       diagnostics,
     };

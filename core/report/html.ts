@@ -7,6 +7,7 @@
 import { PLACE_WORD } from './exposureZones.ts';
 import type { BuildSheet } from './buildSheet.ts';
 import type { XY } from '../site/frame.ts';
+import { efficiencySummary } from '../rank/lossSplit.ts';
 
 export function escapeHtml(s: string): string {
   return s
@@ -464,7 +465,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
           'Peak gain',
           `${f1(c.peak.gainDbi)} dBi at ${f1(c.peak.elevationDeg)}° elevation, bearing ${f1(c.peak.azimuthDeg)}°`,
         ],
-        ['Efficiency', `${f1(c.efficiency.percent)} % (ground loss ${f2(c.efficiency.groundLossDb)} dB)`],
+        ['Efficiency', `${f1(c.efficiency.percent)} % radiated (${efficiencySummary(c.efficiency)})`],
         ['Design frequency', `${fl.freqMHz.toFixed(3)} MHz`],
         [
           'Station',
