@@ -25,8 +25,10 @@ export interface PowerSplit {
   radiatedW: number;
   conductorLossW: number;
   groundLossW: number;
-  /** Loss of the ground connection(s) near the base; absent when nothing touches the soil. */
+  /** Loss in the radial field(s) near the base; absent when no wire with radials touches the soil. */
   groundSystemLossW?: number;
+  /** Loss where wires without radials (a grounded tower, a bare stake) meet the soil. */
+  bareContactLossW?: number;
   /** radiated / input. */
   efficiency: number;
 }
@@ -228,6 +230,7 @@ export function evaluateDesign(
       conductorLossW,
       groundLossW,
       ...(main.groundSystemLossW !== undefined ? { groundSystemLossW: main.groundSystemLossW } : {}),
+      ...(main.bareContactLossW !== undefined ? { bareContactLossW: main.bareContactLossW } : {}),
       efficiency: inputPowerW > 0 ? radiatedPowerW / inputPowerW : 0,
     },
     bandwidth: { lowHz, highHz, widthHz, extrapolated: swr0 <= 2 && extrapolated },

@@ -9,6 +9,8 @@
  *    the near-field disc). This is what "radial efficiency" means in the trade: the share of the
  *    power that gets past the ground system, Rr/(Rr + Rg) for a vertical (common practice, no
  *    source);
+ *  - bare-contact loss: where a wire without radials meets the soil (a grounded metal support in
+ *    the model, a bare stake), the same surface-impedance loss with no screen;
  *  - the rest of the ground loss: lost in the soil beyond the radial field, mostly in the
  *    reflection of the far field. Every antenna over this soil loses it, with or without radials,
  *    and no radial field can remove it (the solver counts it through the soil's reflection
@@ -23,8 +25,10 @@ export interface PowerSplitIn {
   radiatedW: number;
   conductorLossW: number;
   groundLossW: number;
-  /** Loss of the ground connection(s) in the near-field disc; absent when nothing touches the soil. */
+  /** Loss in the radial field(s) in the near-field disc; absent when no wire with radials touches the soil. */
   groundSystemLossW?: number;
+  /** Loss where wires without radials meet the soil (grounded supports, bare stakes); absent when none do. */
+  bareContactLossW?: number;
 }
 
 export interface EfficiencySplit {
@@ -45,6 +49,9 @@ export interface EfficiencySplit {
    * the antenna has no ground connection.
    */
   groundSystemEfficiencyPercent: number | null;
+  /** Lost where wires without radials (a grounded tower, a bare stake) meet the soil. */
+  bareContactLossW: number;
+  bareContactLossDb: number;
   /** Lost in the soil beyond the radial field (far-field reflection): every antenna over this soil. */
   reflectionLossW: number;
   reflectionLossDb: number;
@@ -57,7 +64,8 @@ export function lossDb(lossW: number, inputW: number): number {
 
 export function efficiencySplit(p: PowerSplitIn): EfficiencySplit {
   const gs = Math.max(0, Math.min(p.groundSystemLossW ?? 0, p.groundLossW));
-  const refl = Math.max(0, p.groundLossW - gs);
+  const bare = Math.max(0, Math.min(p.bareContactLossW ?? 0, p.groundLossW - gs));
+  const refl = Math.max(0, p.groundLossW - gs - bare);
   return {
     percent: p.inputW > 0 ? (100 * p.radiatedW) / p.inputW : 0,
     radiatedW: p.radiatedW,
@@ -70,13 +78,15 @@ export function efficiencySplit(p: PowerSplitIn): EfficiencySplit {
     groundSystemLossDb: lossDb(gs, p.inputW),
     groundSystemEfficiencyPercent:
       p.groundSystemLossW === undefined || !(p.inputW > 0) ? null : 100 * (1 - gs / p.inputW),
+    bareContactLossW: bare,
+    bareContactLossDb: lossDb(bare, p.inputW),
     reflectionLossW: refl,
-    reflectionLossDb: lossDb(refl, p.inputW - gs),
+    reflectionLossDb: lossDb(refl, p.inputW - gs - bare),
   };
 }
 
 export interface LossPart {
-  key: 'radiated' | 'ground-system' | 'soil-beyond' | 'conductor';
+  key: 'radiated' | 'ground-system' | 'bare-contact' | 'soil-beyond' | 'conductor';
   label: string;
   /** Share of the input power, percent. */
   pct: number;
@@ -97,6 +107,16 @@ export function lossParts(e: EfficiencySplit): LossPart[] {
             label: 'lost in the radial field',
             pct: share(e.groundSystemLossW),
             db: e.groundSystemLossDb,
+          },
+        ]
+      : []),
+    ...(e.bareContactLossW > 0
+      ? [
+          {
+            key: 'bare-contact' as const,
+            label: 'lost where grounded supports meet bare soil',
+            pct: share(e.bareContactLossW),
+            db: e.bareContactLossDb,
           },
         ]
       : []),
@@ -122,6 +142,8 @@ export function efficiencySummary(e: EfficiencySplit): string {
     parts.push(
       `radial field efficiency ${pct0(e.groundSystemEfficiencyPercent)} (${db2(e.groundSystemLossDb)})`,
     );
+  if (e.bareContactLossW > 0)
+    parts.push(`${db2(e.bareContactLossDb)} lost where grounded supports meet bare soil`);
   parts.push(
     `${db2(e.reflectionLossDb)} lost in the soil${e.groundSystemEfficiencyPercent !== null ? ' beyond' : ''}, as for every antenna over this soil`,
   );

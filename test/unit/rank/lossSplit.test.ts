@@ -48,6 +48,22 @@ describe('efficiency split', () => {
     expect(lossParts(e).map((p) => p.key)).toEqual(['radiated', 'soil-beyond', 'conductor']);
     expect(efficiencySummary(e)).not.toContain('radial');
   });
+  it('a grounded tower without radials near a dipole: its loss is apart, and no radial efficiency is claimed', () => {
+    const e = efficiencySplit({
+      inputW: 1,
+      radiatedW: 0.6,
+      conductorLossW: 0.02,
+      groundLossW: 0.38,
+      bareContactLossW: 0.08,
+    });
+    expect(e.groundSystemEfficiencyPercent).toBeNull();
+    expect(e.bareContactLossW).toBeCloseTo(0.08, 12);
+    expect(e.reflectionLossW).toBeCloseTo(0.3, 12);
+    const parts = lossParts(e);
+    expect(parts.map((p) => p.key)).toEqual(['radiated', 'bare-contact', 'soil-beyond', 'conductor']);
+    expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 10);
+    expect(efficiencySummary(e)).toContain('lost where grounded supports meet bare soil');
+  });
   it('a quarter-wave vertical with 32 radials: radial efficiency as hams compute it, Rr/(Rr + Rg)', () => {
     // The trade's radial efficiency (common practice, no source): the radiation resistance over a
     // perfect ground against the same plus the ground-system loss resistance in series.
