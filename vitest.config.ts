@@ -5,7 +5,12 @@ import { svelteTesting } from '@testing-library/svelte/vite';
 export default defineConfig({
   plugins: [svelte(), svelteTesting()],
   test: {
-    include: ['test/unit/**/*.test.ts', 'test/reference/**/*.test.ts', 'renderer/**/*.svelte.test.ts'],
+    include: [
+      'test/unit/**/*.test.ts',
+      'test/reference/**/*.test.ts',
+      'test/regression/**/*.test.ts',
+      'renderer/**/*.svelte.test.ts',
+    ],
     environment: 'node',
     setupFiles: ['test/helpers/setup.ts'],
     pool: 'forks',

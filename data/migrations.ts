@@ -37,6 +37,27 @@ export const MIGRATIONS: readonly Migration[] = [
       );
     `,
   },
+  // Number 3, not 2: migration 2 (the plans table) is being added on another branch. This one is
+  // self-contained (it touches only the overlays table), so the two apply in either order.
+  {
+    version: 3,
+    description: 'overlays keep a reference to the image file and its georeference; the PNG becomes optional',
+    sql: `
+      CREATE TABLE overlays_v3 (
+        project_id TEXT PRIMARY KEY REFERENCES projects (id) ON DELETE CASCADE,
+        name TEXT NOT NULL,
+        bounds TEXT NOT NULL,
+        png_data_url TEXT,
+        source TEXT,
+        updated_at TEXT NOT NULL,
+        CHECK (png_data_url IS NOT NULL OR source IS NOT NULL)
+      );
+      INSERT INTO overlays_v3 (project_id, name, bounds, png_data_url, source, updated_at)
+        SELECT project_id, name, bounds, png_data_url, NULL, updated_at FROM overlays;
+      DROP TABLE overlays;
+      ALTER TABLE overlays_v3 RENAME TO overlays;
+    `,
+  },
 ];
 
 export const LATEST_STORE_VERSION = MIGRATIONS.reduce((v, m) => Math.max(v, m.version), 0);

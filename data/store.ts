@@ -184,15 +184,25 @@ export class ProjectStore {
 
   getOverlay(projectId: string): ImageOverlay | null {
     const row = this.db
-      .prepare('SELECT project_id, name, bounds, png_data_url FROM overlays WHERE project_id = ?')
+      .prepare('SELECT project_id, name, bounds, png_data_url, source FROM overlays WHERE project_id = ?')
       .get(projectId) as
-      { project_id: string; name: string; bounds: string; png_data_url: string } | undefined;
+      | {
+          project_id: string;
+          name: string;
+          bounds: string;
+          png_data_url: string | null;
+          source: string | null;
+        }
+      | undefined;
     if (!row) return null;
     return {
       projectId: row.project_id,
       name: row.name,
       bounds: JSON.parse(row.bounds) as ImageOverlay['bounds'],
-      pngDataUrl: row.png_data_url,
+      ...(row.png_data_url !== null ? { pngDataUrl: row.png_data_url } : {}),
+      ...(row.source !== null
+        ? { source: JSON.parse(row.source) as NonNullable<ImageOverlay['source']> }
+        : {}),
     };
   }
 
@@ -201,11 +211,18 @@ export class ProjectStore {
       throw new StoreError('not-found', `no project with id "${o.projectId}"`);
     this.db
       .prepare(
-        `INSERT INTO overlays (project_id, name, bounds, png_data_url, updated_at) VALUES (?, ?, ?, ?, ?)
+        `INSERT INTO overlays (project_id, name, bounds, png_data_url, source, updated_at) VALUES (?, ?, ?, ?, ?, ?)
          ON CONFLICT (project_id) DO UPDATE SET name = excluded.name, bounds = excluded.bounds,
-           png_data_url = excluded.png_data_url, updated_at = excluded.updated_at`,
+           png_data_url = excluded.png_data_url, source = excluded.source, updated_at = excluded.updated_at`,
       )
-      .run(o.projectId, o.name, JSON.stringify(o.bounds), o.pngDataUrl, new Date().toISOString());
+      .run(
+        o.projectId,
+        o.name,
+        JSON.stringify(o.bounds),
+        o.pngDataUrl ?? null,
+        o.source ? JSON.stringify(o.source) : null,
+        new Date().toISOString(),
+      );
   }
 
   clearOverlay(projectId: string): void {

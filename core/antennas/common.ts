@@ -25,7 +25,7 @@ export const WIRE_RADIUS_M = 0.001;
 export const RADIAL_RADIUS_M = 0.0008;
 /** Cut allowance per end for the loop through an insulator or the connection, metres (common practice, no source). */
 export const CUT_ALLOWANCE_PER_END_M = 0.2;
-/** Longest rope between a wire end and its support, metres (common practice, no source). */
+/** Default of settings.maxRopeM: longest rope between a wire end and its support, metres (common practice, no source). */
 export const MAX_ROPE_M = 40;
 /** Target segment length as a fraction of the wavelength (solver convergence aside, about 20 per half wave). */
 export const SEGMENT_FRACTION = 1 / 40;

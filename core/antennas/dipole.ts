@@ -9,9 +9,10 @@
  * Trim dimension: the total wire length L.
  */
 import type { Element } from '../site/feasibility.ts';
+import { whereToChange } from '../project/settingLimits.ts';
 import type { XYZ } from '../site/geometry.ts';
 import { bearingOf, dist2 } from '../site/geometry.ts';
-import { MAX_ROPE_M, cut, lambdaOf, num, round, wire, wireLength } from './common.ts';
+import { cut, lambdaOf, num, round, wire, wireLength } from './common.ts';
 import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
 
 interface Shape {
@@ -79,14 +80,14 @@ export const dipoleBuilder: Builder = {
         const s = dist2(a.xy, b.xy);
         const where = `between ${a.name} and ${b.name}`;
         const ropeM = (s - nominal) / 2;
-        if (ropeM > MAX_ROPE_M) {
+        if (ropeM > site.site.settings.maxRopeM) {
           rejections.push({
             type: 'dipole',
             band: band.band,
             supports: [a.id, b.id],
             where,
             reasons: [
-              `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${MAX_ROPE_M} m rope limit`,
+              `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
             ],
           });
           continue;

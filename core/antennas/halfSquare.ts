@@ -10,9 +10,10 @@
  * voltage, so they must stay at or above e.
  */
 import type { Element } from '../site/feasibility.ts';
+import { whereToChange } from '../project/settingLimits.ts';
 import type { XYZ } from '../site/geometry.ts';
 import { bearingOf, dist2 } from '../site/geometry.ts';
-import { MAX_ROPE_M, cut, lambdaOf, num, round, wire } from './common.ts';
+import { cut, lambdaOf, num, round, wire } from './common.ts';
 import type { Builder, Design, ModelWire, Proposal, Rejection, WireModel } from './types.ts';
 
 /** Top wire length as a fraction of the wavelength (common practice, no source). */
@@ -64,9 +65,9 @@ export const halfSquareBuilder: Builder = {
         const where = `between ${a.name} and ${b.name}`;
         const reasons: string[] = [];
         if (s < T) reasons.push(`span ${s.toFixed(1)} m is shorter than the ${T.toFixed(1)} m top wire`);
-        else if ((s - T) / 2 > MAX_ROPE_M) {
+        else if ((s - T) / 2 > site.site.settings.maxRopeM) {
           reasons.push(
-            `span ${s.toFixed(1)} m needs ropes of ${((s - T) / 2).toFixed(1)} m, over the ${MAX_ROPE_M} m rope limit`,
+            `span ${s.toFixed(1)} m needs ropes of ${((s - T) / 2).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
           );
         }
         const h = Math.min(a.heightM, b.heightM);

@@ -7,11 +7,11 @@
  * L − hA metres and is tied to B by a rope for the rest. Trim dimension: the total wire length L.
  */
 import { clipRadial } from '../site/feasibility.ts';
+import { whereToChange } from '../project/settingLimits.ts';
 import type { Element } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
 import { bearingOf, dist2 } from '../site/geometry.ts';
 import {
-  MAX_ROPE_M,
   RADIAL_RADIUS_M,
   arr,
   clippedRadials,
@@ -74,7 +74,7 @@ export const invertedLBuilder: Builder = {
         const run = Math.hypot(s, b.heightM - a.heightM);
         const horiz = nominal - a.heightM;
         const where = `up ${a.name} toward ${b.name}`;
-        if (run < horiz * 1.1 || run - horiz > MAX_ROPE_M) {
+        if (run < horiz * 1.1 || run - horiz > site.site.settings.maxRopeM) {
           rejections.push({
             type: 'inverted-l',
             band: band.band,
@@ -83,7 +83,7 @@ export const invertedLBuilder: Builder = {
             reasons: [
               run < horiz * 1.1
                 ? `${b.name} is ${s.toFixed(1)} m away, too close for a ${horiz.toFixed(1)} m top wire`
-                : `${b.name} is ${s.toFixed(1)} m away: the rope would be ${(run - horiz).toFixed(1)} m, over the ${MAX_ROPE_M} m limit`,
+                : `${b.name} is ${s.toFixed(1)} m away: the rope would be ${(run - horiz).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
             ],
           });
           continue;

@@ -9,6 +9,7 @@
  * Trim dimension: the height of the vertical wire.
  */
 import { clipRadial, requiredClearance, boundaryDistance, keepOutDistance } from '../site/feasibility.ts';
+import { whereToChange } from '../project/settingLimits.ts';
 import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { RADIAL_RADIUS_M, arr, clippedRadials, cut, lambdaOf, num, radialElements, wire } from './common.ts';
@@ -87,7 +88,7 @@ export const verticalBuilder: Builder = {
         supports: [],
         where: 'self-supporting at a free spot',
         reasons: [
-          `a quarter-wave vertical (about ${nominal.toFixed(1)} m) is taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit`,
+          `a quarter-wave vertical (about ${nominal.toFixed(1)} m) is taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit${whereToChange('maxVerticalHeightM')}`,
         ],
       });
       return { proposals, rejections };

@@ -8,6 +8,7 @@
  */
 import { z } from 'zod';
 import { ProjectSchema, type FieldError, type Project } from '../project/schema.ts';
+import { AerialReferenceSchema, type AerialReference } from '../project/aerialReference.ts';
 
 /** Largest message the host accepts, in bytes of JSON (an overlay image is the biggest payload). */
 export const MAX_MESSAGE_BYTES = 24 * 1024 * 1024;
@@ -30,8 +31,10 @@ export interface ImageOverlay {
   name: string;
   /** [[south, west], [north, east]] in degrees. */
   bounds: [[number, number], [number, number]];
-  /** PNG image as a data: URL. */
-  pngDataUrl: string;
+  /** PNG image as a data: URL, when the image is embedded in the project. */
+  pngDataUrl?: string;
+  /** The image file and its georeference, when it is referenced (issue 18): the file stays the user's. */
+  source?: AerialReference;
 }
 
 export interface HostInfo {
@@ -50,7 +53,9 @@ export const ImageOverlaySchema = z.object({
   pngDataUrl: z
     .string()
     .max(MAX_MESSAGE_BYTES)
-    .regex(/^data:image\/png;base64,[A-Za-z0-9+/=]+$/, 'must be a PNG data URL'),
+    .regex(/^data:image\/png;base64,[A-Za-z0-9+/=]+$/, 'must be a PNG data URL')
+    .optional(),
+  source: AerialReferenceSchema.optional(),
 });
 
 /** The table of calls. Request schemas validate every message at the host. */
@@ -67,7 +72,12 @@ export const API = {
   deleteProject: { request: z.object({ id: projectId }).strict() },
   resetDemoProject: { request: z.object({}).strict() },
   getOverlay: { request: z.object({ projectId }).strict() },
-  setOverlay: { request: ImageOverlaySchema.strict() },
+  setOverlay: {
+    request: ImageOverlaySchema.strict().refine((o) => o.pngDataUrl !== undefined || o.source !== undefined, {
+      message: 'needs the embedded image (pngDataUrl) or a reference to its file (source)',
+      path: ['source'],
+    }),
+  },
   clearOverlay: { request: z.object({ projectId }).strict() },
 } as const;
 

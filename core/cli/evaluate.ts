@@ -3,12 +3,13 @@
  * print the result as JSON on stdout. Errors: a JSON `{ "error": … }` on stdout, a plain line on
  * stderr, and exit code 1 (bad input or a model that cannot be built) or 2 (usage).
  */
-import { readFile } from 'node:fs/promises';
 import { pathToFileURL } from 'node:url';
 import { evaluateAntenna, type EvaluationResult } from '../em/evaluate.ts';
 import { ModelError } from '../em/errors.ts';
 import { parseAntennaInput } from '../em/input.ts';
+import { checkWork } from '../em/limits.ts';
 import { hzToMhz } from '../units/index.ts';
+import { readTextFile } from './text.ts';
 
 export interface EvaluateIo {
   stdout: (s: string) => void;
@@ -98,6 +99,8 @@ export async function runEvaluate(argv: string[], io: EvaluateIo): Promise<numbe
   }
   const parsed = parseAntennaInput(doc);
   if (!parsed.ok) return fail(io, parsed.errors[0].field, parsed.errors[0].message, parsed.errors);
+  const over = checkWork(parsed.model, parsed.options);
+  if (over.length) return fail(io, over[0].field, over[0].message, over);
   try {
     const result = evaluateAntenna(parsed.model, parsed.options);
     io.stdout(JSON.stringify(formatEvaluation(result), null, 2) + '\n');
@@ -109,7 +112,12 @@ export async function runEvaluate(argv: string[], io: EvaluateIo): Promise<numbe
         e.field,
         e.message.startsWith(`${e.field}: `) ? e.message.slice(e.field.length + 2) : e.message,
       );
-    throw e;
+    // Not a model error: still one JSON line and no stack trace; say what to send with a report.
+    return fail(
+      io,
+      '',
+      `internal error while solving (${e instanceof Error ? e.message : String(e)}); please report it with the input file`,
+    );
   }
 }
 
@@ -118,7 +126,7 @@ if (entry !== undefined && import.meta.url === pathToFileURL(entry).href) {
   runEvaluate(process.argv.slice(2), {
     stdout: (s) => process.stdout.write(s),
     stderr: (s) => process.stderr.write(s),
-    readFile: (p) => readFile(p, 'utf8'),
+    readFile: readTextFile,
   }).then(
     (code) => {
       process.exitCode = code;

@@ -2,8 +2,8 @@
  * The command-line entry (`npm run -s cli -- <command> …`). The only part of core/ that may use
  * node:*; each command is a function of (argv, io) → exit code, so tests call it directly.
  */
-import { readFile } from 'node:fs/promises';
 import { runSite } from './site.ts';
+import { readTextFile } from './text.ts';
 import { runPlan } from './plan.ts';
 import { runEvaluate } from './evaluate.ts';
 import { runReport } from './report.ts';
@@ -63,7 +63,7 @@ if (isEntry) {
   const io: CliIo = {
     stdout: (s) => process.stdout.write(s),
     stderr: (s) => process.stderr.write(s),
-    readFile: (p) => readFile(p, 'utf8'),
+    readFile: readTextFile,
   };
   runCli(process.argv.slice(2), io).then(
     (code) => {

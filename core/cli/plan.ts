@@ -2,8 +2,8 @@
  * `plan FILE.json | plan --demo`: the ranked shortlist of antennas for a lot.
  *
  * Options: --json (machine-readable, schema in core/rank/README.md), --band 160m|80m|40m (repeatable;
- * default the project's bands), --top N (placements per band, default 10), --workers N (default:
- * the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON).
+ * default the project's bands), --top N (placements per band, default 10), --workers N (default and
+ * most: the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON).
  * A progress line goes to stderr while designs are evaluated.
  */
 import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
@@ -26,6 +26,7 @@ import {
   type Candidate,
 } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
+import { candidateMatching } from '../match/candidateMatch.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
 
@@ -72,7 +73,7 @@ function parseArgs(argv: string[]): Args | string {
       const n = Number(next());
       if (!Number.isInteger(n) || n < (v === '--top' ? 1 : 0)) return `${v} needs a whole number`;
       if (v === '--top') a.top = n;
-      else a.workers = n;
+      else a.workers = Math.min(n, availableParallelism());
     } else if (v.startsWith('--')) return `unknown option ${v}`;
     else if (a.file === null) a.file = v;
     else return 'give one project file';
@@ -332,6 +333,40 @@ function humanReport(project: Project, s: Shortlist, seconds: number): string {
   return out.join('\n') + '\n';
 }
 
+/** A candidate's designed match for the JSON (core/match), or nothing when its SWR needs none. */
+function matchingJson(c: Candidate): { matching?: object } {
+  const m = candidateMatching(c);
+  if (!m) return {};
+  return {
+    matching: {
+      network: m.network,
+      components: m.components,
+      lossDb: m.lossDb,
+      q: m.q,
+      ...(m.vertical ? { vertical: m.vertical } : {}),
+    },
+  };
+}
+
+/**
+ * The shortlist as `plan --json` prints it (core/rank/README.md): each candidate as the planner
+ * made it, with its cautions as plain strings ("Title: text") and its feed points in the site
+ * frame and as [lon, lat]; the canonical patterns only when asked for.
+ */
+export function shortlistJson(shortlist: Shortlist, withPatterns: boolean): object {
+  const { patterns, candidates, ...rest } = shortlist;
+  const out = {
+    ...rest,
+    candidates: candidates.map((c) => ({
+      ...c,
+      cautions: c.cautions.map((k) => `${k.title}: ${k.text}`),
+      feedPoints: c.feedPoints.map((f) => ({ xyz: f.xyz, lonLat: f.lonLat })),
+      ...matchingJson(c),
+    })),
+  };
+  return withPatterns ? { ...out, patterns } : out;
+}
+
 export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   const args = parseArgs(argv);
   if (typeof args === 'string') {
@@ -393,9 +428,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   shortlist.stats.evaluations = setup.jobs.length + (setup.conductorJobs?.length ?? 0);
   shortlist.stats.cacheHits = 0;
   const seconds = (performance.now() - t0) / 1000;
-  if (args.json) {
-    const { patterns, ...rest } = shortlist;
-    io.stdout(JSON.stringify(args.patterns ? { ...rest, patterns } : rest, null, 2) + '\n');
-  } else io.stdout(humanReport(project, shortlist, seconds));
+  if (args.json) io.stdout(JSON.stringify(shortlistJson(shortlist, args.patterns), null, 2) + '\n');
+  else io.stdout(humanReport(project, shortlist, seconds));
   return 0;
 }

@@ -2,7 +2,7 @@
  * `report FILE.json --candidate ID --out report.html | report --demo [--candidate ID] --out FILE`:
  * the station report (build sheet) of one shortlisted candidate as a standalone printable HTML
  * file. Options: --power W (PEP, default 100), --mode ssb|cw|ft8 (default ssb), --on-time 0…1
- * (default 0.5), --coax RG-58|RG-8X|RG-213|"low-loss 10 mm foam" (default RG-213), --workers N.
+ * (default 0.5), --units imperial|metric (default: the project's choice), --coax RG-58|RG-8X|RG-213|"low-loss 10 mm foam" (default RG-213), --workers N.
  * Options not given come from the project's station settings (whose defaults are the ones above).
  * The plan is computed for the candidate's band (default candidate: the first of the first band).
  */
@@ -10,17 +10,11 @@ import { writeFile as fsWriteFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { buildDemoProject } from '../demo/demoProject.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
-import { candidateGainAt, enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
+import { enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
-import {
-  COAX_TYPES,
-  buildSheet,
-  isCoaxType,
-  measureTuning,
-  resolveProposal,
-  type StationOptions,
-} from '../report/buildSheet.ts';
-import { renderBuildSheetHtml } from '../report/html.ts';
+import { COAX_TYPES, isCoaxType, measureTuning, type StationOptions } from '../report/buildSheet.ts';
+import { stationReport } from '../report/stationReport.ts';
+import type { UnitSystem } from '../units/index.ts';
 import type { Mode } from '../report/exposure.ts';
 import { createWorkerPool } from './plan.ts';
 
@@ -33,7 +27,7 @@ export interface ReportIo {
 }
 
 const MODES = ['ssb', 'cw', 'ft8'] as const;
-const USAGE = `usage: report (FILE.json | --demo) [--candidate ID] --out FILE.html [--power W] [--mode ${MODES.join('|')}] [--on-time 0..1] [--coax ${COAX_TYPES.join('|')}] [--workers N]\n`;
+const USAGE = `usage: report (FILE.json | --demo) [--candidate ID] --out FILE.html [--units imperial|metric] [--power W] [--mode ${MODES.join('|')}] [--on-time 0..1] [--coax ${COAX_TYPES.join('|')}] [--workers N]\n`;
 
 interface Args {
   file: string | null;
@@ -43,6 +37,8 @@ interface Args {
   /** Only what the command line gave; the rest comes from the project's station settings. */
   station: Partial<StationOptions>;
   workers: number;
+  /** Null: the project's choice. */
+  units: UnitSystem | null;
 }
 
 function parseArgs(argv: string[]): Args | string {
@@ -53,6 +49,7 @@ function parseArgs(argv: string[]): Args | string {
     out: null,
     station: {},
     workers: availableParallelism(),
+    units: null,
   };
   for (let i = 0; i < argv.length; i++) {
     const v = argv[i];
@@ -79,6 +76,10 @@ function parseArgs(argv: string[]): Args | string {
       const c = next();
       if (!c || !isCoaxType(c)) return `--coax needs one of ${COAX_TYPES.join(', ')}`;
       a.station.coax = c;
+    } else if (v === '--units') {
+      const u = next();
+      if (u !== 'imperial' && u !== 'metric') return '--units needs imperial or metric';
+      a.units = u;
     } else if (v === '--workers') {
       const n = Number(next());
       if (!Number.isInteger(n) || n < 0) return '--workers needs a whole number';
@@ -150,24 +151,18 @@ export async function runReport(argv: string[], io: ReportIo): Promise<number> {
     );
     return 1;
   }
-  const proposal = resolveProposal(project, candidate);
-  let tuning = null;
-  if (proposal) {
-    io.stderr(`report: measuring the tuning rate of ${candidate.id}\n`);
-    tuning = measureTuning(proposal.design, candidate.trim.valueM, project.soil, solverEvaluator);
-  }
-  const sheet = buildSheet({
+  // The candidate carries its design: the tuning rate is measured on it, nothing is found again.
+  io.stderr(`report: measuring the tuning rate of ${candidate.id}\n`);
+  const tuning = measureTuning(candidate.design, candidate.trim.valueM, project.soil, solverEvaluator);
+  const { html } = stationReport({
     project,
     shortlist,
     candidate,
     station: args.station,
-    proposal,
+    units: args.units ?? project.settings.units,
     tuning,
-    gainAt: shortlist.patterns[candidate.evaluationKey]
-      ? (az, el) => candidateGainAt(shortlist, candidate.id, az, el)
-      : undefined,
+    generatedAt: new Date().toISOString().slice(0, 10),
   });
-  const html = renderBuildSheetHtml(sheet, new Date().toISOString().slice(0, 10));
   const write = io.writeFile ?? ((p: string, d: string) => fsWriteFile(p, d, 'utf8'));
   await write(args.out as string, html);
   io.stdout(`report: ${candidate.id} → ${args.out}\n`);

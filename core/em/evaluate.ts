@@ -20,8 +20,9 @@ import { ETA0 } from './constants.ts';
 import { ModelError, type Diagnostic } from './errors.ts';
 import { integrateRadiatedPower, radiationIntensity, type FarFieldSource } from './farfield.ts';
 import type { GroundModel, GroundModelChoice } from './ground.ts';
-import { groundAbsorption } from './halfspace/absorption.ts';
+import { groundAbsorption, groundAbsorptionWork } from './halfspace/absorption.ts';
 import { ExactGroundAt, type ExactGroundModel } from './halfspace/ground.ts';
+import { assertWork, GROUND_CHECK_S_PER_UNIT, MAX_GROUND_CHECK_WORK } from './limits.ts';
 import { DEFAULT_SEGMENTS_PER_WAVELENGTH } from './mesh.ts';
 import {
   createWorkspace,
@@ -31,11 +32,13 @@ import {
   type PreparedModel,
 } from './solver.ts';
 import type { AntennaModel, ComplexPair } from './types.ts';
+import { swrOf } from './swr.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
+
+export { swrOf, SWR_CAP } from './swr.ts';
 
 /** Gains below this are reported as this value (a null in the field), never as −∞ or NaN. */
 export const GAIN_FLOOR_DBI = -150;
-/** SWR is capped here (|Γ| → 1). */
-export const SWR_CAP = 1e6;
 /** Default pattern step (degrees) over the upper half-space. */
 export const DEFAULT_PATTERN_STEP_DEG = 2;
 
@@ -128,16 +131,6 @@ export interface EvaluationResult {
 
 export const toDbi = (g: number): number =>
   g > 0 ? Math.max(GAIN_FLOOR_DBI, 10 * Math.log10(g)) : GAIN_FLOOR_DBI;
-
-/** SWR of impedance z on reference z0 (real). */
-export function swrOf(r: number, x: number, z0: number): number {
-  const nr = r - z0;
-  const dr = r + z0;
-  const g2 = (nr * nr + x * x) / (dr * dr + x * x);
-  const g = Math.sqrt(g2);
-  if (!(g < 1)) return SWR_CAP;
-  return Math.min(SWR_CAP, (1 + g) / (1 - g));
-}
 
 const degs = (from: number, to: number, step: number): number[] => {
   const out: number[] = [];
@@ -376,9 +369,28 @@ export function exactGroundDiagnostic(ground: GroundModel): Diagnostic | null {
  * built; otherwise every number in the result is finite.
  */
 export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): EvaluationResult {
+  checkFrequencies(opts.frequenciesHz);
+  assertWork(model, opts);
   const pm = prepareFor(model, opts.frequenciesHz, opts.segmentsPerWavelength, opts.groundModel);
-  const ws = createWorkspace(pm);
   const diagnostics = [...pm.diagnostics];
+  if (opts.groundPowerCheck && pm.ground.kind === 'exact') {
+    const k0max = (2 * Math.PI * Math.max(...opts.frequenciesHz)) / SPEED_OF_LIGHT_M_PER_S;
+    const work = groundAbsorptionWork(pm.mesh, k0max);
+    if (work === null)
+      diagnostics.push({
+        level: 'info',
+        code: 'ground-power-check-skipped',
+        message:
+          'groundPowerCheck: not computed, because a wire touches the ground (the plane-wave check needs every segment above it); the ground loss is the input power less the radiated power and the wire and load losses',
+        field: 'groundPowerCheck',
+      });
+    else if (work * opts.frequenciesHz.length > MAX_GROUND_CHECK_WORK)
+      throw new ModelError(
+        'groundPowerCheck',
+        `the independent ground-power check would take about ${Math.round(work * opts.frequenciesHz.length * GROUND_CHECK_S_PER_UNIT)} s for this model (its cost grows with the antenna's width over its lowest height); leave groundPowerCheck off, raise the lowest wire, or check fewer frequencies`,
+      );
+  }
+  const ws = createWorkspace(pm);
   const frequencies = opts.frequenciesHz.map((f) => {
     const r = frequencyResult(pm, solveFrequency(pm, f, ws), opts);
     if (r.powerBalanceError !== null && Math.abs(r.powerBalanceError) > 0.005)
@@ -386,6 +398,12 @@ export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): Eva
         level: 'warning',
         code: 'power-balance',
         message: `at ${(f / 1e6).toFixed(4)} MHz the radiated power and losses differ from the input power by ${(100 * r.powerBalanceError).toFixed(2)} %: the segmentation is too coarse for this geometry`,
+      });
+    if (r.efficiency > 1.005)
+      diagnostics.push({
+        level: 'warning',
+        code: 'efficiency-above-one',
+        message: `at ${(f / 1e6).toFixed(4)} MHz the radiated power exceeds the input power (efficiency ${r.efficiency.toFixed(3)}): the model is outside the solver's validity (wires too thick or too close together for their segments); do not trust its figures`,
       });
     if (r.groundLossW < -0.005 * r.inputPowerW)
       diagnostics.push({

@@ -307,7 +307,12 @@ export function integrateRadiatedPower(src: FarFieldSource, eta: number): Radiat
           [0.25, 1, nMu],
         ]
       : [[0, 1, nMu]]
-    : [[-1, 1, 2 * nMu]];
+    : 2 * nMu <= 200
+      ? [[-1, 1, 2 * nMu]]
+      : [
+          [-1, 0, nMu],
+          [0, 1, nMu],
+        ];
   const out = new Float64Array(2);
   let sum = 0;
   let count = 0;

@@ -42,7 +42,7 @@ import {
   soilSurfaceImpedanceOhm,
   type SoilElectrical,
 } from './fresnel.ts';
-import { pairMoments } from './kernel.ts';
+import { imagePairMoments } from './kernel.ts';
 import type { Mesh } from './mesh.ts';
 import type { GroundSpec } from './types.ts';
 
@@ -113,28 +113,7 @@ export interface GroundModel {
 const scratch = new Float64Array(8);
 
 function imageMoments(mesh: Mesh, p: number, q: number, a2: number, k: number): void {
-  scratch.fill(0);
-  pairMoments(
-    mesh.sx[p],
-    mesh.sy[p],
-    mesh.sz[p],
-    mesh.tx[p],
-    mesh.ty[p],
-    mesh.tz[p],
-    mesh.len[p],
-    mesh.sx[q],
-    mesh.sy[q],
-    -mesh.sz[q],
-    mesh.tx[q],
-    mesh.ty[q],
-    -mesh.tz[q],
-    mesh.len[q],
-    a2,
-    k,
-    false,
-    scratch,
-    0,
-  );
+  imagePairMoments(mesh, p, q, a2, k, scratch);
 }
 
 class PerfectAt implements GroundAtFrequency {

@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import { mhzToHz } from '../units/index.ts';
-import { SOIL_CLASS_IDS, soilById } from './soils.ts';
+import { SOIL_CLASS_IDS, soilGround } from './soils.ts';
 import type { EvaluateOptions } from './evaluate.ts';
 import type { AntennaModel, GroundSpec, LoadSpec } from './types.ts';
 
@@ -157,16 +157,8 @@ export type ParsedInput =
 export function groundFromInput(g: AntennaInput['ground']): GroundSpec {
   if (g === 'free-space') return { kind: 'free-space' };
   if (g === 'perfect') return { kind: 'perfect' };
-  if (typeof g === 'string') {
-    const s = soilById(g)!;
-    return {
-      kind: 'soil',
-      permittivity: s.permittivity,
-      conductivitySPerM: s.conductivitySPerM,
-      label: s.id,
-    };
-  }
-  return { kind: 'soil', permittivity: g.permittivity, conductivitySPerM: g.conductivitySPerM };
+  // The schema admits only known class ids, so the conversion always answers here.
+  return soilGround(g)!;
 }
 
 /** Validate an unknown document and convert it to the solver's model and options. */

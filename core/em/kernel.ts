@@ -41,6 +41,7 @@
  *    §2 (thin-wire EFIE, reduced kernel).
  */
 import { gaussLegendre01 } from '../numeric/quadrature.ts';
+import type { Mesh } from './mesh.ts';
 
 /**
  * Centre distance over the longer segment below which a pair is treated as near. The far-rule
@@ -59,7 +60,10 @@ const G4 = gaussLegendre01(4);
 const G3 = gaussLegendre01(3);
 const G2 = gaussLegendre01(2);
 
-/** The smooth remainder r(R) = G − 1/R + k²R/2, written to (re, im) of `o` at `i`. */
+/**
+ * Real part of the smooth remainder r(R) = G − 1/R + k²R/2, G = e^(−jkR)/R; the
+ * callers form the imaginary part, −sin(kR)/R, inline beside it.
+ */
 function remainderRe(kR: number, R: number): number {
   if (kR < 2e-2) {
     const k2 = kR * kR;
@@ -436,4 +440,40 @@ function selfMoments(l: number, a2: number, k: number, out: Float64Array, o: num
   out[o + 5] += m10i;
   out[o + 6] += m11r;
   out[o + 7] += m11i;
+}
+
+/**
+ * The moments of segment p against the perfect-ground image of segment q (q mirrored in z = 0),
+ * written to `out` from 0: the image term both ground models build on.
+ */
+export function imagePairMoments(
+  mesh: Mesh,
+  p: number,
+  q: number,
+  a2: number,
+  k: number,
+  out: Float64Array,
+): void {
+  out.fill(0);
+  pairMoments(
+    mesh.sx[p],
+    mesh.sy[p],
+    mesh.sz[p],
+    mesh.tx[p],
+    mesh.ty[p],
+    mesh.tz[p],
+    mesh.len[p],
+    mesh.sx[q],
+    mesh.sy[q],
+    -mesh.sz[q],
+    mesh.tx[q],
+    mesh.ty[q],
+    -mesh.tz[q],
+    mesh.len[q],
+    a2,
+    k,
+    false,
+    out,
+    0,
+  );
 }

@@ -7,6 +7,8 @@
  *  - The classes radio amateurs commonly model with: common practice, tabulated in amateur antenna
  *    handbooks (no single source).
  */
+import type { GroundSpec } from './types.ts';
+
 export interface SoilClass {
   id: string;
   label: string;
@@ -168,6 +170,27 @@ export const SOIL_CLASS_IDS = SOIL_CLASSES.map((s) => s.id);
 
 export function soilById(id: string): SoilClass | undefined {
   return SOIL_CLASSES.find((s) => s.id === id);
+}
+
+/**
+ * The one conversion from a soil (a class id or its own values) to the solver's ground model;
+ * the planner and the `evaluate` input both use it. Undefined for an unknown class id (callers
+ * refuse it in their own words).
+ */
+export function soilGround(
+  soil: string | { classId: string } | { permittivity: number; conductivitySPerM: number },
+): GroundSpec | undefined {
+  if (typeof soil === 'string' || 'classId' in soil) {
+    const s = soilById(typeof soil === 'string' ? soil : soil.classId);
+    if (!s) return undefined;
+    return {
+      kind: 'soil',
+      permittivity: s.permittivity,
+      conductivitySPerM: s.conductivitySPerM,
+      label: s.id,
+    };
+  }
+  return { kind: 'soil', permittivity: soil.permittivity, conductivitySPerM: soil.conductivitySPerM };
 }
 
 /**

@@ -12,7 +12,7 @@
  * series with the connection; the solution is updated by the Sherman–Morrison–Woodbury identity
  * (Golub & Van Loan, Matrix Computations, 4th ed., 2013, §2.1.4) instead of a new factorisation.
  */
-import { luFactor, luSolve } from '../numeric/lu.ts';
+import { luFactor, luSolve, SingularMatrixError } from '../numeric/lu.ts';
 import { c, cDiv, type Complex } from '../numeric/complex.ts';
 import { gaussLegendre01 } from '../numeric/quadrature.ts';
 import { ETA0, waveNumber } from './constants.ts';
@@ -330,7 +330,13 @@ export function solveFrequency(
       rhs[2 * f.basis[t]] += f.coef[t] * f.voltage.re;
       rhs[2 * f.basis[t] + 1] += f.coef[t] * f.voltage.im;
     }
-  const lu = luFactor(n, z, ws.pivots);
+  let lu: ReturnType<typeof luFactor>;
+  try {
+    lu = luFactor(n, z, ws.pivots);
+  } catch (e) {
+    if (e instanceof SingularMatrixError) throw singularModelError(mesh, e.column);
+    throw e;
+  }
   const x = luSolve(lu, rhs.slice());
 
   // Ground connections over lossy ground: Wait–Pope loss in series, Woodbury update.
@@ -598,4 +604,22 @@ function contactLoss(
     innerLimitM: rhoMinM,
     radials: pc.screen.lengthsM.length,
   };
+}
+
+/**
+ * The model error of a singular impedance matrix: names the wire that carries the unknown whose
+ * pivot vanished (the first segment piece of that basis function) and what usually causes it.
+ */
+function singularModelError(mesh: PreparedModel['mesh'], column: number): ModelError {
+  let wire = -1;
+  for (let s = 0; s < mesh.nSeg && wire < 0; s++)
+    for (let t = mesh.segPieceStart[s]; t < mesh.segPieceStart[s + 1]; t++)
+      if (mesh.pieceBasis[t] === column) {
+        wire = mesh.segWire[s];
+        break;
+      }
+  return new ModelError(
+    wire >= 0 ? `wires[${wire}]` : 'wires',
+    `the model cannot be solved (its matrix is singular at unknown ${column}${wire >= 0 ? `, on wire ${wire}` : ''}): two wires coincide or overlap, or a radius is far outside the thin-wire range; move or remove the duplicate wire`,
+  );
 }

@@ -18,11 +18,12 @@
  * lowest, at one frequency; the segmentation is frozen at the start so that the function of the
  * dimension is smooth.
  */
-import { brentMinimize, brentRoot } from '../numeric/roots.ts';
+import { brentMinimize, trimToResonance } from '../numeric/roots.ts';
 import { c, cDiv, type Complex } from '../numeric/complex.ts';
 import { ModelError } from './errors.ts';
 import type { GroundModelChoice } from './ground.ts';
-import { prepareFor, swrOf } from './evaluate.ts';
+import { prepareFor } from './evaluate.ts';
+import { swrEdges, swrOf } from './swr.ts';
 import { createWorkspace, solveFrequency, type PreparedModel, type SolveWorkspace } from './solver.ts';
 import type { AntennaModel, WireSpec } from './types.ts';
 
@@ -189,25 +190,8 @@ export function swrBandwidth(
     return swrOf(zz.re, zz.im, z0);
   };
   const s = fs.map(swrAt);
-  let ib = 0;
-  s.forEach((v, i) => {
-    if (v < s[ib]) ib = i;
-  });
-  const tol = (opts.relTol ?? 1e-5) * fs[ib];
-  let lowerHz: number | null = null;
-  let upperHz: number | null = null;
-  if (s[ib] < N) {
-    for (let i = ib; i > 0; i--)
-      if (s[i - 1] >= N) {
-        lowerHz = brentRoot((f) => swrAt(f) - N, fs[i - 1], fs[i], tol, 60, s[i - 1] - N, s[i] - N).x;
-        break;
-      }
-    for (let i = ib; i + 1 < fs.length; i++)
-      if (s[i + 1] >= N) {
-        upperHz = brentRoot((f) => swrAt(f) - N, fs[i], fs[i + 1], tol, 60, s[i] - N, s[i + 1] - N).x;
-        break;
-      }
-  }
+  const tol = (opts.relTol ?? 1e-5) * fs[s.indexOf(Math.min(...s))];
+  const { centre: ib, lowerHz, upperHz } = swrEdges(swrAt, fs, s, N, tol);
   return {
     bestHz: fs[ib],
     bestSwr: s[ib],
@@ -256,6 +240,9 @@ function frozen(model: AntennaModel, counts: number[]): AntennaModel {
   };
 }
 
+/** Above this |X| (ohms) at the end of a zero-reactance trim, the sign change was a pole. */
+const POLE_REACTANCE_OHM = 100;
+
 /** Trim a dimension until the reactance is zero or the SWR lowest at one frequency. */
 export function trimDimension(opts: TrimOptions): TrimResult {
   const [lo, hi] = opts.range;
@@ -290,18 +277,20 @@ export function trimDimension(opts: TrimOptions): TrimResult {
   const tol = opts.tolerance ?? 1e-6 * Math.max(Math.abs(lo), Math.abs(hi));
   let value: number;
   if (opts.target === 'zero-reactance') {
-    // bracket by scanning 9 points, then Brent
-    const xs = Array.from({ length: 9 }, (_, i) => lo + ((hi - lo) * i) / 8);
-    const fx = xs.map((x) => zAt(x).im);
-    let found = -1;
-    for (let i = 0; i + 1 < xs.length; i++)
-      if (fx[i] <= 0 !== fx[i + 1] <= 0 && Math.abs(fx[i] - fx[i + 1]) < 5000) {
-        found = i;
-        break;
-      }
-    if (found < 0)
+    // The one trim routine (core/numeric/roots.ts): secant steps from the middle of the range
+    // until the zero is bracketed, then Brent's method to the tolerance.
+    const r = trimToResonance((x) => zAt(x).im, {
+      start: 0.5 * (lo + hi),
+      min: lo,
+      max: hi,
+      fTol: 0,
+      xTol: tol,
+      maxEvaluations: 90,
+    });
+    // A sign change through a pole (antiresonance) is no zero: its reactance stays large.
+    if (!r.bracketed || !(Math.abs(r.fx) < POLE_REACTANCE_OHM))
       throw new ModelError('range', 'the reactance does not change sign over the range: widen it');
-    value = brentRoot((x) => zAt(x).im, xs[found], xs[found + 1], tol, 80, fx[found], fx[found + 1]).x;
+    value = r.x;
   } else {
     value = brentMinimize(
       (x) => {

@@ -28,7 +28,7 @@ export interface RootResult {
 
 /**
  * Brent's method (Brent 1973, ch. 4): a zero of f in [a, b] where f(a) and f(b) differ in sign.
- * Stops when the bracket is below `xTol` (absolute) or f is exactly zero.
+ * Stops when the bracket is below `xTol` (absolute) or |f| is at most `fTol` (default: exactly 0).
  */
 export function brentRoot(
   f: (x: number) => number,
@@ -38,6 +38,7 @@ export function brentRoot(
   maxEvaluations = 100,
   fa0?: number,
   fb0?: number,
+  fTol = 0,
 ): RootResult {
   let a = a0;
   let b = b0;
@@ -46,8 +47,8 @@ export function brentRoot(
   let evaluations = (fa0 === undefined ? 1 : 0) + (fb0 === undefined ? 1 : 0);
   if (!Number.isFinite(fa) || !Number.isFinite(fb))
     throw new RangeError('function is not finite at the bracket');
-  if (fa === 0) return { x: a, fx: 0, evaluations };
-  if (fb === 0) return { x: b, fx: 0, evaluations };
+  if (Math.abs(fa) <= fTol) return { x: a, fx: fa, evaluations };
+  if (Math.abs(fb) <= fTol) return { x: b, fx: fb, evaluations };
   if (fa > 0 === fb > 0) throw new NoBracketError(a, b, fa, fb);
   let c = a;
   let fc = fa;
@@ -70,7 +71,7 @@ export function brentRoot(
     }
     const tol = 2 * Number.EPSILON * Math.abs(b) + 0.5 * xTol;
     const m = 0.5 * (c - b);
-    if (Math.abs(m) <= tol || fb === 0) break;
+    if (Math.abs(m) <= tol || Math.abs(fb) <= fTol) break;
     if (Math.abs(e) >= tol && Math.abs(fa) > Math.abs(fb)) {
       let p: number;
       let q: number;
@@ -105,6 +106,77 @@ export function brentRoot(
     if (!Number.isFinite(fb)) throw new RangeError(`function is not finite at ${b}`);
   }
   return { x: b, fx: fb, evaluations };
+}
+
+export interface ResonanceSearch {
+  /** Where the search starts, and the limits the parameter stays inside. */
+  start: number;
+  min: number;
+  max: number;
+  /** Resonant when |f| is below this. */
+  fTol: number;
+  /** The search ends when the parameter moves less than this. */
+  xTol: number;
+  maxEvaluations: number;
+  /** The first step as a fraction of `start`, taken downward where f(start) > 0 (default 0.03). */
+  firstStep?: number;
+}
+
+export interface ResonanceResult {
+  /** Every evaluation, in order. */
+  steps: { x: number; fx: number }[];
+  /** Whether a zero was reached: |f| < fTol, or a bracket closed to xTol with |f| < 5·fTol. */
+  resonant: boolean;
+  /** Whether two evaluations of opposite sign were found inside the limits. */
+  bracketed: boolean;
+  /** Where Brent's method ended when bracketed, otherwise the evaluated parameter of smallest |f|. */
+  x: number;
+  fx: number;
+}
+
+/**
+ * The one trim routine: the zero of f (a feed reactance against a trim dimension, or against
+ * frequency) near `start` inside [min, max]. Secant steps from `start` until the zero is
+ * bracketed, then Brent's method inside the bracket (Brent 1973, ch. 4, whose interpolation the
+ * secant steps share), within `maxEvaluations` evaluations of f in all.
+ */
+export function trimToResonance(f: (x: number) => number, o: ResonanceSearch): ResonanceResult {
+  const steps: { x: number; fx: number }[] = [];
+  const at = (x: number): number => {
+    const v = f(x);
+    steps.push({ x, fx: v });
+    return v;
+  };
+  const clamp = (v: number): number => Math.min(o.max, Math.max(o.min, v));
+  let bracketed = false;
+  const done = (resonant: boolean): ResonanceResult => {
+    let best = steps[0];
+    for (const s of steps) if (Math.abs(s.fx) < Math.abs(best.fx)) best = s;
+    return { steps, resonant, bracketed, x: best.x, fx: best.fx };
+  };
+  let x0 = clamp(o.start);
+  let f0 = at(x0);
+  if (Math.abs(f0) < o.fTol) return done(true);
+  let x1 = clamp(x0 * (1 + (f0 > 0 ? -1 : 1) * (o.firstStep ?? 0.03)));
+  let f1 = at(x1);
+  while (f0 > 0 === f1 > 0) {
+    if (Math.abs(f1) < o.fTol) return done(true);
+    if (steps.length >= o.maxEvaluations || f1 === f0) return done(false);
+    const x2 = clamp(x1 - (f1 * (x1 - x0)) / (f1 - f0));
+    if (Math.abs(x2 - x1) < o.xTol) return done(Math.abs(f1) < 5 * o.fTol);
+    x0 = x1;
+    f0 = f1;
+    x1 = x2;
+    f1 = at(x1);
+  }
+  bracketed = true;
+  if (Math.abs(f1) < o.fTol) return done(true);
+  const left = o.maxEvaluations - steps.length;
+  if (left <= 0) return done(false);
+  const [a, b, fa, fb] = x0 < x1 ? [x0, x1, f0, f1] : [x1, x0, f1, f0];
+  const r = brentRoot(at, a, b, o.xTol, left, fa, fb, o.fTol);
+  // Inside a bracket the answer is where Brent's method ended: at a pole its |f| stays large.
+  return { steps, resonant: Math.abs(r.fx) < 5 * o.fTol, bracketed, x: r.x, fx: r.fx };
 }
 
 export interface MinResult {

@@ -11,6 +11,7 @@
  */
 import { XMLParser } from 'fast-xml-parser';
 import { kinks, polygon as turfPolygon } from '@turf/turf';
+import { ringProblems } from './validity.ts';
 import type { LonLat, Polygon } from './schema.ts';
 
 export const MAX_IMPORT_BYTES = 20 * 1024 * 1024;
@@ -109,6 +110,8 @@ function finishPolygon(
       `${path}[0]`,
       `the boundary crosses itself (${crossings} crossing${crossings > 1 ? 's' : ''}); trace it again without crossing`,
     );
+  const flat = ringProblems(ring, `${path}[0]`, 'boundary');
+  if (flat.length > 0) return { ok: false, errors: flat };
   return { ok: true, boundary: { type: 'Polygon', coordinates: [ring] }, format, warnings };
 }
 
@@ -135,6 +138,11 @@ function fromGeometry(g: unknown, path: string, warnings: string[]): BoundaryImp
     `${path}.type`,
     `is "${String(type)}"; a lot boundary must be a Polygon (or a MultiPolygon with one polygon)`,
   );
+}
+
+/** Checks one GeoJSON Polygon (or one-polygon MultiPolygon) as a lot boundary; `path` names it in the errors. */
+export function boundaryFromGeometry(g: unknown, path: string): BoundaryImport {
+  return fromGeometry(g, path, []);
 }
 
 function importGeoJson(doc: unknown): BoundaryImport {

@@ -9,7 +9,9 @@
  * documents forward before validation.
  */
 import { z } from 'zod';
+import { isOnTimeFraction, isPowerW, MAX_POWER_W, STATION_DEFAULTS } from './station.ts';
 import { SOIL_CLASS_IDS } from '../em/soils.ts';
+import { flattenIssues, projectValidity } from './validity.ts';
 
 export const PROJECT_SCHEMA_VERSION = 2;
 
@@ -17,6 +19,7 @@ export const PROJECT_SCHEMA_VERSION = 2;
 function plainMessage(issue: { code: string; input?: unknown; expected?: unknown }): string | undefined {
   if (issue.code === 'invalid_type') {
     if (issue.input === undefined) return 'is required';
+    if (typeof issue.input === 'number' && issue.expected === 'number') return 'must be a finite number'; // 1e309, NaN
     const got = issue.input === null ? 'null' : Array.isArray(issue.input) ? 'a list' : typeof issue.input;
     return `must be ${article(String(issue.expected))}, not ${got === 'object' ? 'an object' : got}`;
   }
@@ -189,40 +192,52 @@ export const KeepOutSchema = z
   });
 export type KeepOut = z.infer<typeof KeepOutSchema>;
 
-export const SoilSchema = z.union([
-  z.object({
-    classId: z.enum(SOIL_CLASS_IDS as [string, ...string[]], {
-      message: `must be one of the soil classes: ${SOIL_CLASS_IDS.join(', ')}`,
+export const SoilSchema = z.union(
+  [
+    z.object({
+      classId: z.enum(SOIL_CLASS_IDS as [string, ...string[]], {
+        message: `must be one of the soil classes: ${SOIL_CLASS_IDS.join(', ')}`,
+      }),
     }),
-  }),
-  z.object({
-    permittivity: finite.refine((v) => v >= 1 && v <= 100, 'relative permittivity must be between 1 and 100'),
-    conductivitySPerM: finite.refine((v) => v >= 0 && v <= 10, 'conductivity must be between 0 and 10 S/m'),
-  }),
-]);
+    z.object({
+      permittivity: finite.refine(
+        (v) => v >= 1 && v <= 100,
+        'relative permittivity must be between 1 and 100',
+      ),
+      conductivitySPerM: finite.refine((v) => v >= 0 && v <= 10, 'conductivity must be between 0 and 10 S/m'),
+    }),
+  ],
+  { message: 'must be { "classId": … } or { "permittivity": …, "conductivitySPerM": … }' },
+);
 export type Soil = z.infer<typeof SoilSchema>;
 
 export const BANDS = ['160m', '80m', '40m'] as const;
 export type Band = (typeof BANDS)[number];
 
-export const TargetSchema = z.union([
-  z.object({
-    regionId: idSchema,
-    weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
-  }),
-  z.object({
-    id: idSchema,
-    name: nameSchema,
-    weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
-    area: z.union([
-      z.object({
-        center: LonLatSchema,
-        radiusKm: finite.refine((v) => v > 0 && v <= 5000, 'radius must be between 0 and 5000 km'),
-      }),
-      PolygonSchema,
-    ]),
-  }),
-]);
+export const TargetSchema = z.union(
+  [
+    z.object({
+      regionId: idSchema,
+      weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
+    }),
+    z.object({
+      id: idSchema,
+      name: nameSchema,
+      weight: finite.refine((v) => v >= 0 && v <= 100, 'weight must be between 0 and 100').default(1),
+      area: z.union(
+        [
+          z.object({
+            center: LonLatSchema,
+            radiusKm: finite.refine((v) => v > 0 && v <= 5000, 'radius must be between 0 and 5000 km'),
+          }),
+          PolygonSchema,
+        ],
+        { message: 'must be { "center": [lon, lat], "radiusKm": … } or a Polygon' },
+      ),
+    }),
+  ],
+  { message: 'must be { "regionId": … } or an own area { "id", "name", "area" }' },
+);
 export type Target = z.infer<typeof TargetSchema>;
 
 /** Emission modes for the exposure estimate (duty factors in core/report/exposure.ts). */
@@ -233,11 +248,17 @@ export const COAX_TYPES = ['RG-58', 'RG-8X', 'RG-213', 'low-loss 10 mm foam'] as
 /** The station's transmitter and feed line, for the build sheet and the RF-exposure estimate. */
 export const StationSettingsSchema = z.object({
   /** Peak envelope power at the transmitter, watts. */
-  powerW: finite.refine((v) => v > 0 && v <= 100_000, 'must be between 0 and 100000 W').default(100),
-  mode: z.enum(STATION_MODES, { message: `must be one of ${STATION_MODES.join(', ')}` }).default('ssb'),
+  powerW: finite.refine(isPowerW, `must be between 0 and ${MAX_POWER_W} W`).default(STATION_DEFAULTS.powerW),
+  mode: z
+    .enum(STATION_MODES, { message: `must be one of ${STATION_MODES.join(', ')}` })
+    .default(STATION_DEFAULTS.mode),
   /** Fraction of the averaging time spent transmitting, 0…1. */
-  onTimeFraction: finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1').default(0.5),
-  coax: z.enum(COAX_TYPES, { message: `must be one of ${COAX_TYPES.join(', ')}` }).default('RG-213'),
+  onTimeFraction: finite
+    .refine(isOnTimeFraction, 'must be between 0 and 1')
+    .default(STATION_DEFAULTS.onTimeFraction),
+  coax: z
+    .enum(COAX_TYPES, { message: `must be one of ${COAX_TYPES.join(', ')}` })
+    .default(STATION_DEFAULTS.coax),
 });
 export type StationSettings = z.infer<typeof StationSettingsSchema>;
 
@@ -252,6 +273,8 @@ export const SettingsSchema = z.object({
   minEndHeightM: finite.refine((v) => v >= 0 && v <= 30, 'must be between 0 and 30 m').default(2.5),
   /** Tallest self-supporting vertical the user would put up, metres. */
   maxVerticalHeightM: finite.refine((v) => v >= 0 && v <= 60, 'must be between 0 and 60 m').default(12),
+  /** Longest rope from a wire end to its support or anchor, metres (was a fixed 40 m). */
+  maxRopeM: finite.refine((v) => v >= 1 && v <= 200, 'must be between 1 and 200 m').default(40),
   /** Number of radials the user would lay. */
   radialCount: z
     .number()
@@ -300,7 +323,9 @@ export const ProjectSchema = z.object({
   targets: z.array(TargetSchema).max(100).default([]),
   bands: z
     .array(z.enum(BANDS, { message: `must be one of ${BANDS.join(', ')}` }))
+    .min(1, 'give at least one band')
     .max(3, 'at most 3 bands')
+    .refine((b) => new Set(b).size === b.length, 'lists a band twice')
     .default(['80m']),
   settings: SettingsSchema.default(SettingsSchema.parse({})),
   /**
@@ -360,15 +385,19 @@ export function parseProject(doc: unknown): ParseResult<Project> {
       ],
     };
   }
-  const result = ProjectSchema.safeParse(migrateProjectDocument(doc));
+  const migrated = migrateProjectDocument(doc);
+  const result = ProjectSchema.safeParse(migrated);
   if (result.success) {
-    const dup = duplicateIds(result.data);
+    const dup = [...duplicateIds(result.data), ...projectValidity(result.data)];
     if (dup.length > 0) return { ok: false, errors: dup };
     return { ok: true, value: result.data };
   }
   return {
     ok: false,
-    errors: result.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })),
+    errors: flattenIssues(result.error.issues, migrated).map((i) => ({
+      path: formatPath(i.path),
+      message: i.message,
+    })),
   };
 }
 

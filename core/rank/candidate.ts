@@ -5,6 +5,7 @@
  * (shortlist, map, detail, tuning note, exposure zones, build sheet, exports, command line) reads
  * the result and rebuilds none of it.
  */
+import type { SupportConductor } from '../antennas/conductors.ts';
 import type { Placement, WireModel } from '../antennas/types.ts';
 import type { LonLat } from '../project/schema.ts';
 import { cautionsFor, type Caution } from '../report/cautions.ts';
@@ -15,14 +16,25 @@ import type { Site } from '../site/site.ts';
 
 /** What a placed element is for. */
 export type ElementRole =
-  'radiator' | 'top-wire' | 'radial' | 'rope' | 'end' | 'anchor' | 'support' | 'mast' | 'feed-line';
+  | 'radiator'
+  | 'top-wire'
+  | 'radial'
+  | 'rope'
+  | 'end'
+  | 'anchor'
+  | 'support'
+  | 'mast'
+  | 'feed-line'
+  | 'conducting-support';
 
 /** One element of the candidate in the site frame (x east, y north, z up, metres). */
 export type PlacedElement =
   | { role: 'radiator' | 'top-wire' | 'radial' | 'rope' | 'feed-line'; label: string; from: XYZ; to: XYZ }
   | { role: 'end' | 'anchor'; label: string; at: XYZ }
   | { role: 'support'; label: string; supportId: string; at: XY; heightM: number }
-  | { role: 'mast'; label: string; at: XY; heightM: number };
+  | { role: 'mast'; label: string; at: XY; heightM: number }
+  /** A metal support in the candidate's model: its axis as modelled (after any stand-off move). */
+  | { role: 'conducting-support'; label: string; supportId: string; from: XYZ; to: XYZ };
 
 export interface FeedPoint {
   /** Site frame, metres. */
@@ -46,6 +58,23 @@ export type GroundSystem =
     };
 
 const r2 = (v: number): number => Math.round(v * 100) / 100;
+
+/**
+ * The conducting supports of a candidate's model (core/antennas/conductors.ts) as placed
+ * elements: each a vertical axis from its modelled base to its top, in the site frame.
+ */
+export function conductingSupportElements(
+  conductors: readonly SupportConductor[],
+  placement: Placement,
+): PlacedElement[] {
+  return conductors.map((c) => ({
+    role: 'conducting-support',
+    label: `${c.name} (${c.material}, ${c.grounded ? 'grounded' : 'insulated base'})`,
+    supportId: c.supportId,
+    from: placeXYZ([c.xy[0], c.xy[1], 0], placement.rotationDeg, placement.originXY),
+    to: placeXYZ([c.xy[0], c.xy[1], c.heightM], placement.rotationDeg, placement.originXY),
+  }));
+}
 
 /** Placed builder elements with their roles (the builder's element kinds carry them). */
 export function elementsWithRoles(elements: readonly Element[]): PlacedElement[] {

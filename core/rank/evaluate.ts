@@ -2,17 +2,22 @@
  * One design through the solver: trim to resonance at the design frequency, a three-point
  * impedance sweep for the 2:1 SWR bandwidth, and the pattern on the canonical grid.
  *
- * Trim: secant iterations on the feed reactance X(trim dimension) until |X| < TRIM_TOL_X_OHM or
- * the step is under TRIM_TOL_M; the trim value stays inside the design's limits. When no zero is
- * found inside the limits, the evaluated value of lowest SWR is kept and `resonant` is false.
+ * Trim: the one trim routine (trimToResonance, core/numeric/roots.ts) on the feed reactance
+ * X(trim dimension) until |X| < TRIM_TOL_X_OHM or the step is under TRIM_TOL_M; the trim value
+ * stays inside the design's limits. When no zero is found inside the limits, the evaluated value
+ * of lowest SWR is kept and `resonant` is false.
  *
  * Bandwidth: R(f) and X(f) are fitted by quadratics through f0·(1 − δ), f0, f0·(1 + δ) with
- * δ = SWEEP_FRACTION, and the fitted SWR is followed outward from f0 in steps of 0.05 % up to
- * ±2δ. Beyond ±δ it is an extrapolation; the result says so when an edge lies there.
+ * δ = SWEEP_FRACTION; the 2:1 edges of the fitted SWR are found from f0 outward up to ±2δ by the
+ * one SWR-edge routine (swrEdges, core/em/swr.ts). Beyond ±δ it is an extrapolation; the result
+ * says so when an edge lies there.
  */
 import { evaluationModel } from '../antennas/conductors.ts';
+import { ModelError } from '../em/errors.ts';
 import type { Design } from '../antennas/types.ts';
-import { Z0_OHM, swrOf, type EvalGround, type EvalFrequency, type Evaluator } from './evaluator.ts';
+import { swrEdges, swrOf } from '../em/swr.ts';
+import { trimToResonance } from '../numeric/roots.ts';
+import { Z0_OHM, type EvalGround, type EvalFrequency, type Evaluator } from './evaluator.ts';
 import { PATTERN_GRID } from './pattern.ts';
 
 export const TRIM_TOL_X_OHM = 0.5;
@@ -51,6 +56,30 @@ export interface EvaluationRecord {
    * soil: gain on PATTERN_GRID, one entry per class asked for. Absent when none was asked.
    */
   soilRange?: { soilId: string; gainDbi: number[] }[];
+  /**
+   * Set when the field solver refused the design (core/em ModelError: coincident wires from
+   * supports at one place, a wire on the ground, …): the reason. The plan rejects the placement
+   * with it instead of failing; every other field then holds a neutral value.
+   */
+  unsolvable?: string;
+}
+
+/** The record of a design the solver cannot solve: the reason, and neutral values elsewhere. */
+export function unsolvableRecord(design: Design, reason: string): EvaluationRecord {
+  return {
+    trimM: design.trim.nominalM,
+    resonant: false,
+    trimSteps: [],
+    freqHz: design.designFreqHz,
+    zOhm: [0, 0],
+    swr: 0,
+    power: { inputW: 0, radiatedW: 0, conductorLossW: 0, groundLossW: 0, efficiency: 0 },
+    bandwidth: { lowHz: null, highHz: null, widthHz: 0, extrapolated: false },
+    gainDbi: [],
+    peak: { gainDbi: -150, elevationDeg: 0, azimuthDeg: 0 },
+    diagnostics: [reason],
+    unsolvable: reason,
+  };
 }
 
 function fitQuadratic(xs: readonly number[], ys: readonly number[]): (x: number) => number {
@@ -125,37 +154,45 @@ export function evaluateDesign(
   soilRange: readonly string[] = [],
   soilOnly?: { trimM: number },
 ): EvaluationRecord {
+  try {
+    return evaluateDesignOrThrow(design, ground, evaluator, soilRange, soilOnly);
+  } catch (e) {
+    // One design the solver refuses is a rejected placement, never the end of the plan.
+    if (e instanceof ModelError) return unsolvableRecord(design, e.message);
+    throw e;
+  }
+}
+
+function evaluateDesignOrThrow(
+  design: Design,
+  ground: EvalGround,
+  evaluator: Evaluator,
+  soilRange: readonly string[],
+  soilOnly: { trimM: number } | undefined,
+): EvaluationRecord {
   const f0 = design.designFreqHz;
   if (soilOnly) return soilRangeRecord(design, evaluator, soilRange, soilOnly.trimM);
   const { minM, maxM, nominalM } = design.trim;
-  const clamp = (v: number): number => Math.min(maxM, Math.max(minM, v));
   const steps: { trimM: number; zOhm: [number, number] }[] = [];
-  const at = (p: number): number => {
-    const r = one(evaluator, design, p, ground, [f0], false)[0];
-    steps.push({ trimM: p, zOhm: r.zOhm });
-    return r.zOhm[1];
-  };
-  let p0 = clamp(nominalM);
-  let x0 = at(p0);
-  let p1 = clamp(p0 * (x0 > 0 ? 0.97 : 1.03));
-  let x1 = at(p1);
-  let resonant = Math.abs(x1) < TRIM_TOL_X_OHM || Math.abs(x0) < TRIM_TOL_X_OHM;
-  while (!resonant && steps.length < TRIM_MAX_EVALUATIONS) {
-    if (x1 === x0) break;
-    const p2 = clamp(p1 - (x1 * (p1 - p0)) / (x1 - x0));
-    if (Math.abs(p2 - p1) < TRIM_TOL_M) {
-      resonant = Math.abs(x1) < 5 * TRIM_TOL_X_OHM;
-      break;
-    }
-    p0 = p1;
-    x0 = x1;
-    p1 = p2;
-    x1 = at(p1);
-    if (Math.abs(x1) < TRIM_TOL_X_OHM) resonant = true;
-  }
+  const { resonant } = trimToResonance(
+    (p) => {
+      const r = one(evaluator, design, p, ground, [f0], false)[0];
+      steps.push({ trimM: p, zOhm: r.zOhm });
+      return r.zOhm[1];
+    },
+    {
+      start: nominalM,
+      min: minM,
+      max: maxM,
+      fTol: TRIM_TOL_X_OHM,
+      xTol: TRIM_TOL_M,
+      maxEvaluations: TRIM_MAX_EVALUATIONS,
+    },
+  );
+  const swr = (z: readonly [number, number]): number => swrOf(z[0], z[1], Z0_OHM);
   let best = steps[0];
   for (const s of steps) {
-    if (resonant ? Math.abs(s.zOhm[1]) < Math.abs(best.zOhm[1]) : swrOf(s.zOhm) < swrOf(best.zOhm)) best = s;
+    if (resonant ? Math.abs(s.zOhm[1]) < Math.abs(best.zOhm[1]) : swr(s.zOhm) < swr(best.zOhm)) best = s;
   }
   const trimM = best.trimM;
   const diagnostics: string[] = [];
@@ -181,26 +218,12 @@ export function evaluateDesign(
   const fs = [fl, f0, fh];
   const R = fitQuadratic(fs, [sweep[0].zOhm[0], main.zOhm[0], sweep[1].zOhm[0]]);
   const X = fitQuadratic(fs, [sweep[0].zOhm[1], main.zOhm[1], sweep[1].zOhm[1]]);
-  const swrAt = (f: number): number => swrOf([R(f), X(f)], Z0_OHM);
-  const edge = (dir: 1 | -1): number | null => {
-    if (swrAt(f0) > 2) return null;
-    let prev = f0;
-    for (let k = 1; k <= 800; k++) {
-      const f = f0 * (1 + dir * k * 0.0005);
-      if (Math.abs(f - f0) > 2 * SWEEP_FRACTION * f0) return null;
-      if (swrAt(f) > 2) {
-        // Linear interpolation of SWR between prev and f.
-        const s0 = swrAt(prev);
-        const s1 = swrAt(f);
-        return prev + ((2 - s0) / (s1 - s0)) * (f - prev);
-      }
-      prev = f;
-    }
-    return null;
-  };
-  const lowHz = edge(-1);
-  const highHz = edge(1);
-  const swr0 = swrOf(main.zOhm);
+  const swrAt = (f: number): number => swrOf(R(f), X(f), Z0_OHM);
+  // The fitted curve sampled every 0.05 % out to ±2δ, its 2:1 edges found from f0 outward.
+  const fsFit = Array.from({ length: 161 }, (_, k) => f0 * (1 + (k - 80) * 0.0005));
+  const edges = swrEdges(swrAt, fsFit, fsFit.map(swrAt), 2, 1e-6 * f0, f0);
+  const { lowerHz: lowHz, upperHz: highHz } = edges;
+  const swr0 = swr(main.zOhm);
   const widthHz =
     swr0 > 2 ? 0 : (highHz ?? f0 * (1 + 2 * SWEEP_FRACTION)) - (lowHz ?? f0 * (1 - 2 * SWEEP_FRACTION));
   const extrapolated = [lowHz, highHz].some((f) => f === null || Math.abs(f - f0) > SWEEP_FRACTION * f0);

@@ -48,11 +48,3 @@ export type Evaluator = (request: EvalRequest) => EvalFrequency[];
 
 /** Reference impedance of the feed line for SWR, ohms (50 Ω coax). */
 export const Z0_OHM = 50;
-
-/** SWR of impedance z on a line of impedance z0. */
-export function swrOf([r, x]: readonly [number, number], z0 = Z0_OHM): number {
-  const nr = r - z0;
-  const dr = r + z0;
-  const g = Math.sqrt((nr * nr + x * x) / (dr * dr + x * x));
-  return g >= 1 ? Infinity : (1 + g) / (1 - g);
-}

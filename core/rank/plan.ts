@@ -27,6 +27,7 @@ import type { AntennaTypeId, CutKind, Design, Placement, Proposal, Rejection } f
 import type { Caution } from '../report/cautions.ts';
 import {
   candidateCautions,
+  conductingSupportElements,
   elementsWithRoles,
   feedLineElement,
   feedPointsOf,
@@ -424,6 +425,7 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
       if (!q.withConductors) return;
       const rec = cache.get(q.key);
       if (!rec) throw new Error(`conductorJobs: evaluation ${q.key} missing from the cache`);
+      if (rec.unsolvable !== undefined) return;
       if (!checkPlacement(setup.prepared, placedElements(q.proposal, rec.trimM)).ok) return;
       const { score } = scoreOf(rec.gainDbi, q.proposal.placement.rotationDeg);
       const prev = best.get(q.proposal.groupKey);
@@ -540,6 +542,14 @@ export function rankPlan(
       }
       const rec = cache.get(key);
       if (!rec) throw new Error(`rankPlan: evaluation ${key} missing from the cache`);
+      if (rec.unsolvable !== undefined) {
+        if (!postTrimFail.has(p.groupKey))
+          postTrimFail.set(p.groupKey, {
+            p,
+            reasons: [`the field solver cannot solve it: ${rec.unsolvable}`],
+          });
+        continue;
+      }
       const elements = placedElements(p, rec.trimM);
       const check = checkPlacement(prepared, elements);
       if (!check.ok) {
@@ -620,7 +630,11 @@ export function rankPlan(
       ]);
       const model = builder.model(p.design, rec.trimM);
       const feedPoints = feedPointsOf(model, p.placement, site.frame);
-      const placed = [...elementsWithRoles(elements), ...feedLineElement(site.station, feedPoints[0])];
+      const placed = [
+        ...elementsWithRoles(elements),
+        ...feedLineElement(site.station, feedPoints[0]),
+        ...conductingSupportElements(p.design.conductors ?? [], p.placement),
+      ];
       const peakAz = (rec.peak.azimuthDeg + p.placement.rotationDeg + 360) % 360;
       const bw = rec.bandwidth;
       candidates.push({

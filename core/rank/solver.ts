@@ -4,7 +4,7 @@
  */
 import { evaluateAntenna } from '../em/evaluate.ts';
 import { sweepImpedance } from '../em/sweep.ts';
-import { soilById } from '../em/soils.ts';
+import { soilGround } from '../em/soils.ts';
 import type { AntennaModel, GroundSpec } from '../em/types.ts';
 import type { EvalGround, Evaluator } from './evaluator.ts';
 
@@ -15,17 +15,9 @@ export class UnknownSoilError extends Error {
 export function groundSpec(g: EvalGround): GroundSpec {
   if (g === 'perfect') return { kind: 'perfect' };
   if (g === 'free-space') return { kind: 'free-space' };
-  if ('classId' in g) {
-    const s = soilById(g.classId);
-    if (!s) throw new UnknownSoilError(`unknown soil class "${g.classId}"`);
-    return {
-      kind: 'soil',
-      permittivity: s.permittivity,
-      conductivitySPerM: s.conductivitySPerM,
-      label: s.label,
-    };
-  }
-  return { kind: 'soil', permittivity: g.permittivity, conductivitySPerM: g.conductivitySPerM };
+  const spec = soilGround(g);
+  if (!spec) throw new UnknownSoilError(`unknown soil class "${'classId' in g ? g.classId : ''}"`);
+  return spec;
 }
 
 /**

@@ -22,6 +22,7 @@
  * 80 m), where the far-field formula is only a screening estimate: local rules and a professional
  * evaluation govern.
  */
+import { isOnTimeFraction, isPowerW, MAX_POWER_W } from '../project/station.ts';
 import { ETA0_OHM } from '../units/index.ts';
 
 /** Free-space wave impedance, Ω (μ0 c, from core/units). */
@@ -141,9 +142,8 @@ export function estimateExposure(
   ],
 ): ExposureEstimate {
   const { peakEnvelopePowerW: pep, onTimeFraction: onTime } = input;
-  if (!(pep > 0 && pep <= 100_000))
-    throw new RangeError('peakEnvelopePowerW must be between 0 and 100 000 W');
-  if (!(onTime >= 0 && onTime <= 1)) throw new RangeError('onTimeFraction must be between 0 and 1');
+  if (!isPowerW(pep)) throw new RangeError(`peakEnvelopePowerW must be between 0 and ${MAX_POWER_W} W`);
+  if (!isOnTimeFraction(onTime)) throw new RangeError('onTimeFraction must be between 0 and 1');
   if (!(input.feedLossDb >= 0 && input.feedLossDb < 30))
     throw new RangeError('feedLossDb must be between 0 and 30 dB');
   if (!Number.isFinite(input.gainDbi)) throw new RangeError('gainDbi must be a finite number');

@@ -6,17 +6,14 @@
  */
 import { PLACE_WORD } from './exposureZones.ts';
 import type { BuildSheet } from './buildSheet.ts';
-import type { XY } from '../site/frame.ts';
+import { escapeHtml, planSvg, polarSvg } from './drawings.ts';
+import { sheetLengths } from './format.ts';
+import { tuningText } from './tuning.ts';
+import { matchingText } from '../match/matchText.ts';
+import { TUNING_STEP, TUNING_STEP_TEXT } from './tuningMeasure.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
 
-export function escapeHtml(s: string): string {
-  return s
-    .replace(/&/g, '&amp;')
-    .replace(/</g, '&lt;')
-    .replace(/>/g, '&gt;')
-    .replace(/"/g, '&quot;')
-    .replace(/'/g, '&#39;');
-}
+export { escapeHtml };
 
 const e = escapeHtml;
 const f1 = (v: number): string => v.toFixed(1);
@@ -30,6 +27,7 @@ export const REPORT_SECTIONS = [
   'Bill of materials',
   'Feed line',
   'Tuning',
+  'Matching',
   'Patterns',
   'Gain per target region',
   'SWR and bandwidth',
@@ -54,306 +52,6 @@ function table(head: string[], rows: Cell[][]): string {
 }
 
 /* ---------------------------------------------------------------------------------------------- */
-
-/**
- * A plan drawing in the site frame: 'lot' shows the whole lot with the antenna, its feed route
- * and zones; 'detail' zooms on the antenna, with every wire length, end height and rope.
- */
-function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
-  const { lot, candidate: c, feedLine } = s;
-  const detail = view === 'detail';
-  const pts: XY[] = [];
-  for (const w of c.wires) pts.push([w.from[0], w.from[1]], [w.to[0], w.to[1]]);
-  for (const r of lot.ropes) pts.push([r.from[0], r.from[1]], [r.to[0], r.to[1]]);
-  for (const sp of lot.supports) if (sp.used) pts.push(sp.xy);
-  if (detail) {
-    pts.push([feedLine.feedXYZ[0], feedLine.feedXYZ[1]]);
-    for (const z of s.exposureOnLot.zones) for (const r of z.rings) pts.push(...r);
-  } else {
-    pts.push(...lot.boundary, lot.station);
-    for (const sp of lot.supports) pts.push(sp.xy);
-  }
-  const xs = pts.map((p) => p[0]);
-  const ys = pts.map((p) => p[1]);
-  const pad = detail ? 5 : 8;
-  let minX = Math.min(...xs) - pad;
-  let maxX = Math.max(...xs) + pad;
-  let minY = Math.min(...ys) - pad;
-  let maxY = Math.max(...ys) + pad;
-  // A detail view at least 24 m across, so that a vertical is not drawn metres wide.
-  const minSpan = detail ? 24 : 0;
-  if (maxX - minX < minSpan) {
-    const m = (maxX + minX) / 2;
-    minX = m - minSpan / 2;
-    maxX = m + minSpan / 2;
-  }
-  if (maxY - minY < minSpan * 0.5) {
-    const m = (maxY + minY) / 2;
-    minY = m - minSpan / 4;
-    maxY = m + minSpan / 4;
-  }
-  const W = 700;
-  const scale = W / (maxX - minX);
-  const H = Math.max(200, Math.min(900, Math.round((maxY - minY) * scale)));
-  const X = (x: number): string => ((x - minX) * scale).toFixed(1);
-  const Y = (y: number): string => ((maxY - y) * scale).toFixed(1);
-  const inView = (p: readonly number[]): boolean =>
-    p[0]! >= minX && p[0]! <= maxX && p[1]! >= minY && p[1]! <= maxY;
-  const path = (ring: readonly XY[], close: boolean): string =>
-    ring.map((p, i) => `${i ? 'L' : 'M'}${X(p[0])},${Y(p[1])}`).join('') + (close ? 'Z' : '');
-  const out: string[] = [];
-  // Labels are placed greedily: the first of the offered offsets whose box overlaps no label
-  // placed before (the text width is estimated at 5.6 px a character for the 10 px font, 6.3 bold), kept
-  // inside the drawing.
-  // The north arrow and the scale bar are there from the start.
-  const boxes: { x0: number; y0: number; x1: number; y1: number }[] = [
-    { x0: W - 30, y0: 4, x1: W, y1: 58 },
-    { x0: 0, y0: H - 34, x1: 140, y1: H },
-  ];
-  const text = (
-    ax: number,
-    ay: number,
-    s: string,
-    cls: string,
-    offsets: readonly [number, number][],
-  ): void => {
-    const w = s.length * (cls === 'wlabel' || cls === 'flabel' ? 6.3 : 5.6);
-    let best: { x: number; y: number } | null = null;
-    for (const [dx, dy] of offsets) {
-      let x = ax + dx - (dx < 0 ? w : 0);
-      x = Math.min(Math.max(x, 2), W - 2 - w);
-      const y = Math.min(Math.max(ay + dy, 11), H - 3);
-      const b = { x0: x, y0: y - 10, x1: x + w, y1: y + 2 };
-      if (!best) best = { x, y };
-      if (!boxes.some((o) => b.x0 < o.x1 && b.x1 > o.x0 && b.y0 < o.y1 && b.y1 > o.y0)) {
-        best = { x, y };
-        break;
-      }
-    }
-    const at = best!;
-    boxes.push({ x0: at.x, y0: at.y - 10, x1: at.x + w, y1: at.y + 2 });
-    out.push(`<text x="${at.x.toFixed(1)}" y="${at.y.toFixed(1)}" class="${cls}">${e(s)}</text>`);
-  };
-  const AROUND: [number, number][] = [
-    [8, -8],
-    [8, 16],
-    [-8, -8],
-    [-8, 16],
-    [8, 30],
-    [-8, 30],
-    [8, -22],
-    [-8, -22],
-    [8, 44],
-    [-8, 44],
-  ];
-  const label = detail ? `Antenna detail of ${c.typeLabel}` : `Lot plan of ${s.projectName}`;
-  out.push(
-    `<svg class="lot ${view}" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="${e(label)}" xmlns="http://www.w3.org/2000/svg">`,
-    `<defs><clipPath id="clip-${view}"><rect x="0" y="0" width="${W}" height="${H}"/></clipPath></defs><g clip-path="url(#clip-${view})">`,
-  );
-  out.push(`<path d="${path(lot.boundary, true)}" class="boundary"/>`);
-  // Keep-out names are placed last, after the antenna's own labels.
-  const klabels: (() => void)[] = [];
-  for (const k of lot.keepOuts) {
-    const cls = k.kind === 'power-line' ? 'keepout power' : k.kind === 'path' ? 'keepout path' : 'keepout';
-    if (k.shape.type === 'polygon')
-      out.push(`<path d="${path(k.shape.ring, true)}" class="${cls}"><title>${e(k.name)}</title></path>`);
-    else
-      out.push(
-        `<path d="${path(k.shape.line, false)}" class="${cls} line"><title>${e(k.name)}</title></path>`,
-      );
-    const line = k.shape.type === 'polygon' ? k.shape.ring : k.shape.line;
-    const at = line.find(inView);
-    if (!at) continue;
-    klabels.push(() => text(Number(X(at[0])), Number(Y(at[1])), k.name, 'klabel', AROUND));
-  }
-  if (lot.radialBase) {
-    const n = lot.radialLengthsM.length;
-    lot.radialLengthsM.forEach((L, k) => {
-      const b = ((lot.radialRotationDeg + (k * 360) / n) * Math.PI) / 180;
-      const [x0, y0] = lot.radialBase!;
-      out.push(
-        `<line x1="${X(x0)}" y1="${Y(y0)}" x2="${X(x0 + L * Math.sin(b))}" y2="${Y(y0 + L * Math.cos(b))}" class="radial"/>`,
-      );
-    });
-  }
-  out.push(`<path d="${path(feedLine.routeXY, false)}" class="coax"><title>feed line</title></path>`);
-  for (const z of s.exposureOnLot.zones) {
-    if (!z.rings.length) continue;
-    const d = z.rings.map((r) => path(r, true)).join('');
-    out.push(
-      `<path d="${d}" class="zone ${z.limitId}"><title>${e(`${z.label}: ${f2(z.radiusM)} m with ground reflection`)}</title></path>`,
-    );
-  }
-  for (const r of lot.ropes)
-    out.push(
-      `<line x1="${X(r.from[0])}" y1="${Y(r.from[1])}" x2="${X(r.to[0])}" y2="${Y(r.to[1])}" class="rope"><title>${e(r.label)}</title></line>`,
-    );
-  // Labels spread outward from the antenna's middle, so those at one point do not sit on each other.
-  const cx = c.wires.reduce((a, w) => a + w.from[0] + w.to[0], 0) / Math.max(1, 2 * c.wires.length);
-  const verticalTops: XY[] = [];
-  const vLabels: (() => void)[] = [];
-  const hLabels: (() => void)[] = [];
-  for (const w of c.wires) {
-    const L = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
-    const mx = (w.from[0] + w.to[0]) / 2;
-    const my = (w.from[1] + w.to[1]) / 2;
-    const vertical = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1]) < 0.5;
-    if (vertical) {
-      verticalTops.push([mx, my]);
-      out.push(
-        `<circle cx="${X(mx)}" cy="${Y(my)}" r="4" class="wire vertical"><title>${e(w.label)}</title></circle>`,
-      );
-      if (!detail) continue;
-      const left = mx < cx - 0.5;
-      const t = `${w.label}: ${f2(L)} m, ${f1(Math.min(w.from[2], w.to[2]))}→${f1(Math.max(w.from[2], w.to[2]))} m high`;
-      vLabels.push(() =>
-        text(
-          Number(X(mx)),
-          Number(Y(my)),
-          t,
-          'wlabel',
-          left
-            ? [
-                [-8, 16],
-                [-8, 30],
-                [-8, 44],
-                [8, 16],
-                [8, 30],
-              ]
-            : [
-                [8, 16],
-                [8, 30],
-                [8, 44],
-                [-8, 16],
-                [-8, 30],
-              ],
-        ),
-      );
-    } else {
-      out.push(
-        `<line x1="${X(w.from[0])}" y1="${Y(w.from[1])}" x2="${X(w.to[0])}" y2="${Y(w.to[1])}" class="wire"><title>${e(w.label)}</title></line>`,
-      );
-      if (!detail) continue;
-      const t = `${w.label}: ${f2(L)} m`;
-      const x = Number(X(mx)) - t.length * 2.8;
-      hLabels.push(() =>
-        text(x, Number(Y(my)), t, 'wlabel', [
-          [0, -8],
-          [0, 16],
-          [0, -22],
-          [0, 30],
-        ]),
-      );
-    }
-  }
-  if (detail) {
-    for (const f of [...hLabels, ...vLabels]) f();
-    // End heights of the sloping and horizontal wires, except where a vertical wire's label says it.
-    const seen: XY[] = [];
-    for (const w of c.wires) {
-      if (Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1]) < 0.5) continue;
-      for (const p of [w.from, w.to]) {
-        const q: XY = [p[0], p[1]];
-        if ([...seen, ...verticalTops].some((o) => Math.hypot(o[0] - q[0], o[1] - q[1]) < 0.5)) continue;
-        seen.push(q);
-        text(Number(X(p[0])), Number(Y(p[1])), `h ${f1(p[2])} m`, 'hlabel', AROUND);
-      }
-    }
-    const f = feedLine.feedXYZ;
-    out.push(`<circle cx="${X(f[0])}" cy="${Y(f[1])}" r="5" class="feed"><title>feed point</title></circle>`);
-    text(Number(X(f[0])), Number(Y(f[1])), `feed, ${f1(f[2])} m up`, 'flabel', AROUND);
-  }
-  for (const sp of lot.supports) {
-    if (detail && !sp.used && !inView(sp.xy)) continue;
-    out.push(
-      `<circle cx="${X(sp.xy[0])}" cy="${Y(sp.xy[1])}" r="${sp.used ? 5 : 3.5}" class="${sp.used ? 'support used' : 'support'}"/>`,
-    );
-    text(Number(X(sp.xy[0])), Number(Y(sp.xy[1])), `${sp.name} (${f1(sp.heightM)} m)`, 'slabel', AROUND);
-  }
-  if (inView(lot.station)) {
-    out.push(
-      `<rect x="${(Number(X(lot.station[0])) - 5).toFixed(1)}" y="${(Number(Y(lot.station[1])) - 5).toFixed(1)}" width="10" height="10" class="station"/>`,
-    );
-    text(Number(X(lot.station[0])), Number(Y(lot.station[1])), 'station', 'slabel', AROUND);
-  }
-  for (const f of klabels) f();
-  out.push('</g>');
-  // North arrow and a scale bar of a round length.
-  const barM = [1, 2, 5, 10, 20, 50].find((m) => m * scale >= 60) ?? 100;
-  const bar = barM * scale;
-  out.push(
-    `<g class="north"><line x1="${W - 20}" y1="40" x2="${W - 20}" y2="12"/><path d="M${W - 25},18L${W - 20},8L${W - 15},18Z"/><text x="${W - 20}" y="54" text-anchor="middle">N</text></g>`,
-    `<g class="scale"><line x1="12" y1="${H - 14}" x2="${(12 + bar).toFixed(1)}" y2="${H - 14}"/><text x="12" y="${H - 20}">${barM} m</text></g>`,
-  );
-  out.push('</svg>');
-  return out.join('');
-}
-
-function polarSvg(
-  title: string,
-  pts: { deg: number; gainDbi: number }[],
-  kind: 'elevation' | 'azimuth',
-): string {
-  const peak = Math.max(...pts.map((p) => p.gainDbi));
-  const range = 30;
-  const R = 130;
-  const W = kind === 'elevation' ? 2 * R + 40 : 2 * R + 40;
-  const H = kind === 'elevation' ? R + 40 : 2 * R + 40;
-  const cx = W / 2;
-  const cy = kind === 'elevation' ? R + 20 : R + 20;
-  const rOf = (g: number): number => (R * Math.max(0, g - peak + range)) / range;
-  const xy = (deg: number, r: number): [number, number] => {
-    const a = (deg * Math.PI) / 180;
-    return kind === 'elevation'
-      ? [cx + r * Math.cos(a), cy - r * Math.sin(a)]
-      : [cx + r * Math.sin(a), cy - r * Math.cos(a)];
-  };
-  const out: string[] = [
-    `<figure><svg viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="${e(title)}" xmlns="http://www.w3.org/2000/svg">`,
-  ];
-  for (const db of [0, 10, 20]) {
-    const r = (R * (range - db)) / range;
-    out.push(
-      kind === 'elevation'
-        ? `<path d="M${cx - r},${cy}A${r},${r} 0 0 1 ${cx + r},${cy}" class="grid"/>`
-        : `<circle cx="${cx}" cy="${cy}" r="${r}" class="grid"/>`,
-    );
-    out.push(
-      `<text x="${cx + 3}" y="${cy - r + 11}" class="tick">${db ? `−${db} dB` : `${f1(peak)} dBi`}</text>`,
-    );
-  }
-  const spokes = kind === 'elevation' ? [0, 15, 30, 45, 60, 90] : [0, 45, 90, 135, 180, 225, 270, 315];
-  for (const d of spokes) {
-    const [x, y] = xy(d, R);
-    out.push(`<line x1="${cx}" y1="${cy}" x2="${x.toFixed(1)}" y2="${y.toFixed(1)}" class="grid"/>`);
-    const [tx, ty] = xy(d, R + 10);
-    out.push(
-      `<text x="${tx.toFixed(1)}" y="${ty.toFixed(1)}" class="tick" text-anchor="middle">${d}°</text>`,
-    );
-  }
-  const seq =
-    kind === 'elevation'
-      ? [...pts, ...pts.map((p) => ({ deg: 180 - p.deg, gainDbi: p.gainDbi })).reverse()]
-      : pts;
-  const d =
-    kind === 'elevation'
-      ? seq
-          .map((p, i) => {
-            const [x, y] = xy(p.deg, rOf(p.gainDbi));
-            return `${i ? 'L' : 'M'}${x.toFixed(1)},${y.toFixed(1)}`;
-          })
-          .join('')
-      : seq
-          .map((p, i) => {
-            const [x, y] = xy(p.deg, rOf(p.gainDbi));
-            return `${i ? 'L' : 'M'}${x.toFixed(1)},${y.toFixed(1)}`;
-          })
-          .join('') + 'Z';
-  out.push(`<path d="${d}" class="trace"/>`);
-  out.push(`</svg><figcaption>${e(title)}</figcaption></figure>`);
-  return out.join('');
-}
 
 /* ---------------------------------------------------------------------------------------------- */
 
@@ -415,14 +113,15 @@ figcaption { font-size: 12px; color: #5a6570; }
 
 /** Which places of the lot each zone reaches, and how close a person can come in each. */
 function exposureReachHtml(s: BuildSheet): string {
+  const U = sheetLengths(s.units);
   const lot = s.exposureOnLot;
   const zoneRows = lot.zones.map((z): Cell[] => [
     z.label,
-    `${f2(z.radiusM)} m`,
+    U.len(z.radiusM, 2),
     z.reached.length
       ? {
           cls: 'reach',
-          text: `Reaches ${z.reached.map((p) => `${p.name} (${PLACE_WORD[p.kind]}, ${f1(p.closestM)} m)`).join('; ')}`,
+          text: `Reaches ${z.reached.map((p) => `${p.name} (${PLACE_WORD[p.kind]}, ${U.len(p.closestM)})`).join('; ')}`,
         }
       : 'reaches no house, path, property line or the operating position',
     z.reachedFreeSpace.length ? z.reachedFreeSpace.map((p) => p.name).join('; ') : 'none',
@@ -433,7 +132,7 @@ function exposureReachHtml(s: BuildSheet): string {
   );
   const places = table(
     ['Place', 'Kind', 'Closest a standing person comes to a wire'],
-    lot.places.map((p) => [p.name, PLACE_WORD[p.kind], `${f1(p.closestM)} m`]),
+    lot.places.map((p) => [p.name, PLACE_WORD[p.kind], U.len(p.closestM)]),
   );
   return (
     `<h3>Where the zones reach on the lot</h3>${zones}${places}` +
@@ -441,8 +140,28 @@ function exposureReachHtml(s: BuildSheet): string {
   );
 }
 
+/** The designed match, or why none is needed (core/match through the sheet). */
+function matchingHtml(s: BuildSheet): string {
+  const c = s.candidate;
+  if (!s.matching)
+    return `<p>${e(`None needed: the SWR is ${c.feed.swr.toFixed(2)} on ${c.feed.z0Ohm} Ω at ${c.feed.freqMHz.toFixed(3)} MHz; the coax connects at the feed point.`)}</p>`;
+  const t = matchingText(s.matching, c.feed);
+  const rows = s.matching.components.map((k) => [
+    k.kind === 'inductor' ? 'Coil' : 'Capacitor',
+    k.position === 'series' ? 'in series' : 'across the line',
+    `${k.value} ${k.unit}`,
+  ]);
+  return (
+    `<p>${e(t.summary)}</p>` +
+    table(['Part (transmitter side first)', 'Where', 'Value'], rows) +
+    `<ul>${[...t.arrangements, ...t.alternatives].map((a) => `<li>${e(a)}</li>`).join('')}</ul>` +
+    `<p class="note">${e(t.adjust)}</p>`
+  );
+}
+
 export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): string {
   const c = s.candidate;
+  const U = sheetLengths(s.units);
   const fl = s.feedLine;
   const bw = c.bandwidth2to1;
   const [r, x] = c.feed.zOhm;
@@ -452,14 +171,14 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
     section(
       'Summary',
       `<dl>${[
-        ['Antenna', `#${c.rank} ${c.band} ${c.typeLabel}`],
+        ['Antenna', `${c.typeLabel}, #${c.rank} on the ${c.band.replace('m', ' m')} band`],
         ['Where', c.where],
         [
           'Supports',
-          c.supports.map((p) => `${p.name} (${f1(p.usableHeightM)} m)`).join(', ') ||
+          c.supports.map((p) => `${p.name} (${U.len(p.usableHeightM)})`).join(', ') ||
             'none (self-supporting)',
         ],
-        ['Heights', c.heights.map((h) => `${h.label} ${f2(h.heightM)} m`).join(', ')],
+        ['Heights', c.heights.map((h) => `${h.label} ${U.len(h.heightM, 2)}`).join(', ')],
         ['Score', `${f2(c.score)} dBi (weighted mean of the region gains)`],
         [
           'Peak gain',
@@ -480,7 +199,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
     section(
       'Lot plan',
       `${planSvg(s, 'lot')}<p class="note">${e(
-        'Site frame: x east, y north, metres. Red: antenna wires. Filled circles: supports used. Dashed grey: feed line from the station along its route. Thin brown: radials. Red shading and dashed red: keep-outs; dotted brown: paths. Violet shading: where a standing person would be inside the FCC general-population distance (with ground reflection); dashed teal: the same for the ICNIRP 2020 public level.',
+        `Site frame: x east, y north, ${U.units === 'imperial' ? 'feet' : 'metres'}. Red: antenna wires. Filled circles: supports used. Dashed grey: feed line from the station along its route. Thin brown: radials. Red shading and dashed red: keep-outs; dotted brown: paths. Violet shading: where a standing person would be inside the FCC general-population distance (with ground reflection); dashed teal: the same for the ICNIRP 2020 public level.`,
       )}</p><h3>Antenna detail</h3>${planSvg(s, 'detail')}<p class="note">${e(
         'The same plan, closer: every wire with its length, the heights of the wire ends (h), the ropes (dotted grey) to their supports or ground anchors, and the feed point (yellow).',
       )}</p>`,
@@ -491,7 +210,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       'Cut list',
       table(
         ['Piece', 'Count', 'Length as modelled', 'Cut length'],
-        s.cutList.map((i) => [i.label, String(i.count), `${f2(i.lengthM)} m`, `${f2(i.cutLengthM)} m`]),
+        s.cutList.map((i) => [i.label, String(i.count), U.len(i.lengthM, 2), U.cut(i.cutLengthM)]),
       ) + `<p class="note">${e(s.cutAllowance)}</p>`,
     ),
   );
@@ -500,12 +219,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       'Bill of materials',
       table(
         ['Item', 'Quantity', 'Detail', 'Basis'],
-        s.bom.map((b) => [
-          b.item,
-          b.unit === 'm' ? `${f1(b.quantity)} m` : `${b.quantity}`,
-          b.detail,
-          b.source,
-        ]),
+        s.bom.map((b) => [b.item, b.unit === 'm' ? U.len(b.quantity) : `${b.quantity}`, b.detail, b.source]),
       ),
     ),
   );
@@ -520,12 +234,12 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
             ? `drawn by you: ${fl.routeXY.length - 2} bend point${fl.routeXY.length === 3 ? '' : 's'}`
             : 'straight from the station point (draw your real route in the app)',
         ],
-        ['Plan distance, station to feed point', `${f1(fl.planDistanceM)} m`],
-        ['Feed point height', `${f1(fl.feedXYZ[2])} m`],
-        ['Length to buy', `${f1(fl.lengthM)} m`],
+        ['Plan distance, station to feed point', U.len(fl.planDistanceM)],
+        ['Feed point height', U.len(fl.feedXYZ[2])],
+        ['Length to buy', U.len(fl.lengthM)],
         [
           'Matched loss',
-          `${f2(fl.lossDbPer100m)} dB/100 m at ${fl.freqMHz.toFixed(2)} MHz → ${f2(fl.lossDb)} dB over the run`,
+          `${U.per100(fl.lossDbPer100m)} at ${fl.freqMHz.toFixed(2)} MHz → ${f2(fl.lossDb)} dB over the run`,
         ],
         [
           'Feed impedance',
@@ -546,20 +260,21 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       `<p>${e(s.tuning.instruction)}</p>` +
         (t
           ? `<dl>${[
-              ['Trim dimension', `${t.dimension}, ${f2(t.trimM)} m as designed`],
+              ['Trim dimension', `${t.dimension}, ${U.cut(t.trimM)} as designed`],
               [
                 'Solver check',
-                `resonance ${t.resonanceMHz.shorter.toFixed(4)} MHz at ${f2(t.trimM * 0.995)} m, ${t.resonanceMHz.longer.toFixed(4)} MHz at ${f2(t.trimM * 1.005)} m`,
+                `resonance ${t.resonanceMHz.shorter.toFixed(4)} MHz at ${U.cut(t.trimM * (1 - TUNING_STEP))}, ${t.resonanceMHz.longer.toFixed(4)} MHz at ${U.cut(t.trimM * (1 + TUNING_STEP))}`,
               ],
-              ['Rate', `${f2(Math.abs(t.kHzPerCm))} kHz per cm of the ${t.dimension} (longer → lower)`],
+              ['Rate', `${tuningText(t, s.units).rate} of the ${t.dimension} (longer → lower)`],
             ]
               .map(([k, v]) => `<dt>${e(k)}</dt><dd>${e(v)}</dd>`)
               .join(
                 '',
-              )}</dl><p class="note">${e('Measured from the field solver with the trim dimension at ±0.5 % of its designed value; real surroundings shift resonance, so measure first.')}</p>`
+              )}</dl><p class="note">${e(`Measured from the field solver with the trim dimension at ${TUNING_STEP_TEXT} of its designed value; real surroundings shift resonance, so measure first.`)}</p>`
           : `<p class="note">${e('The solver rate was not measured for this report.')}</p>`),
     ),
   );
+  parts.push(section('Matching', matchingHtml(s)));
   parts.push(
     section(
       'Patterns',
@@ -622,8 +337,8 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
           ex.distances.map((d) => [
             d.limit.label,
             `${d.limit.averagingMinutes} min`,
-            `${f2(d.freeSpaceM)} m`,
-            `${f2(d.withGroundReflectionM)} m`,
+            U.len(d.freeSpaceM, 2),
+            U.len(d.withGroundReflectionM, 2),
             d.limit.source,
           ]),
         ) +
@@ -645,7 +360,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">
 <title>${e(title)}</title><style>${STYLE}</style></head>
-<body><header><h1>${e(title)}</h1><p class="sub">${e(`Yardwire station report · candidate ${c.id}${generatedAt ? ` · ${generatedAt}` : ''}`)}</p></header>
+<body><header><h1>${e(title)}</h1><p class="sub">${e(`Yardwire station report · ${c.band.replace('m', ' m')} band, #${c.rank}${generatedAt ? ` · ${generatedAt}` : ''}`)}</p></header>
 ${parts.join('\n')}
 </body></html>
 `;

@@ -1,6 +1,6 @@
 /**
  * How to tune a built antenna, in words and in the user's units: which wire to change and at
- * which end(s), and the tuning rate that measureTuning (./buildSheet.ts) takes from the field
+ * which end(s), and the tuning rate that measureTuning (./tuningMeasure.ts) takes from the field
  * solver, as kHz per centimetre (or per inch) and centimetres (or inches) per 10 kHz. Pure: the
  * renderer and the build sheet can both use it.
  *
@@ -8,7 +8,7 @@
  */
 import type { AntennaTypeId } from '../antennas/types.ts';
 import { feetToM, type UnitSystem } from '../units/index.ts';
-import type { TuningMeasurement } from './buildSheet.ts';
+import type { TuningMeasurement } from './tuningMeasure.ts';
 
 /** Where to cut or add wire for each antenna type (common practice, no source). */
 export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {

@@ -17,6 +17,7 @@
  * within half a step of the worst approach).
  */
 import { booleanPointInPolygon } from '@turf/boolean-point-in-polygon';
+import { whereToChange } from '../project/settingLimits.ts';
 import { polygon as turfPolygon } from '@turf/helpers';
 import type { XY } from './frame.ts';
 import { distanceToRingEdges, pointPolylineDistance, sampleSegment, type XYZ } from './geometry.ts';
@@ -150,7 +151,7 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
           code: 'end-height',
           element: e.label,
           byM: by,
-          message: `${e.label} is ${f1(e.at[2])} m above ground, ${f1(by)} m below the ${f1(minEnd)} m end-height limit`,
+          message: `${e.label} is ${f1(e.at[2])} m above ground, ${f1(by)} m below the ${f1(minEnd)} m end-height limit${whereToChange('minEndHeightM')}`,
         });
       }
     }
@@ -160,7 +161,7 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
         code: 'mast-height',
         element: e.label,
         byM: by,
-        message: `${e.label} would be ${f1(e.heightM)} m tall, ${f1(by)} m over the ${f1(site.settings.maxVerticalHeightM)} m self-supporting limit`,
+        message: `${e.label} would be ${f1(e.heightM)} m tall, ${f1(by)} m over the ${f1(site.settings.maxVerticalHeightM)} m self-supporting limit${whereToChange('maxVerticalHeightM')}`,
       });
     }
     for (const s of samplesOf(e)) {
@@ -180,7 +181,7 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
             code: 'setback',
             element: s.element,
             byM: setback - bd,
-            message: `${s.element} comes ${f1(bd)} m from the boundary, inside the ${f1(setback)} m setback by ${f1(setback - bd)} m`,
+            message: `${s.element} comes ${f1(bd)} m from the boundary, inside the ${f1(setback)} m setback by ${f1(setback - bd)} m${whereToChange('setbackM')}`,
           });
         }
       }

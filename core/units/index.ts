@@ -44,3 +44,23 @@ export function lengthFromDisplay(value: number, units: UnitSystem): number {
 export function lengthToDisplay(m: number, units: UnitSystem): number {
   return units === 'metric' ? m : mToFeet(m);
 }
+
+/**
+ * A sentence made in core with metre lengths in it ("span 12.3 m", "limits (24.57–54.06 m)",
+ * "over the 40 m rope limit"), in the user's unit system: each "N m" or "N–M m" becomes feet with
+ * the same number of decimals (at least one for values under 10 ft). Band names ("160 m band",
+ * "80 m #2") are left alone. Metric text comes back unchanged.
+ */
+export function lengthsInText(text: string, units: UnitSystem): string {
+  if (units === 'metric') return text;
+  const ft = (v: string): string => {
+    const d = (v.split('.')[1] ?? '').length;
+    const f = mToFeet(Number(v));
+    return f.toFixed(f < 10 ? Math.max(1, d) : d);
+  };
+  return text.replace(
+    /(\d+(?:\.\d+)?)(?:\s?(–|-|to)\s?(\d+(?:\.\d+)?))?\s?m\b(?!\s*(?:band|#|²))/g,
+    (_all, a: string, sep: string | undefined, b: string | undefined) =>
+      b ? `${ft(a)}${sep === 'to' ? ' to ' : sep}${ft(b)} ft` : `${ft(a)} ft`,
+  );
+}

@@ -22,7 +22,7 @@
  */
 import { gaussLegendre01 } from '../../numeric/quadrature.ts';
 import type { GroundAtFrequency, GroundModel } from '../ground.ts';
-import { pairMoments } from '../kernel.ts';
+import { imagePairMoments } from '../kernel.ts';
 import type { Mesh } from '../mesh.ts';
 import { remainderCylindrical } from './index.ts';
 import { halfSpace, type HalfSpace } from './medium.ts';
@@ -178,28 +178,7 @@ export class ExactGroundAt implements GroundAtFrequency {
   private exactPair(mesh: Mesh, p: number, q: number, a2: number, k: number, out: Float64Array): void {
     const hs = this.hs;
     // K × perfect-ground image (as the solver's perfect model builds it)
-    img.fill(0);
-    pairMoments(
-      mesh.sx[p],
-      mesh.sy[p],
-      mesh.sz[p],
-      mesh.tx[p],
-      mesh.ty[p],
-      mesh.tz[p],
-      mesh.len[p],
-      mesh.sx[q],
-      mesh.sy[q],
-      -mesh.sz[q],
-      mesh.tx[q],
-      mesh.ty[q],
-      -mesh.tz[q],
-      mesh.len[q],
-      a2,
-      k,
-      false,
-      img,
-      0,
-    );
+    imagePairMoments(mesh, p, q, a2, k, img);
     const w = -(mesh.tx[p] * mesh.tx[q] + mesh.ty[p] * mesh.ty[q] - mesh.tz[p] * mesh.tz[q]);
     const Kr = hs.kRe;
     const Ki = hs.kIm;

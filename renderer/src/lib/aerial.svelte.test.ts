@@ -25,7 +25,7 @@ describe('demo aerial', () => {
     const a = await decodeGeoTiff(buf(demoAerialTiff()));
     const [west, south] = lonLatOf(EXTENT.west, EXTENT.south);
     const [east, north] = lonLatOf(EXTENT.east, EXTENT.north);
-    expect(a.crs).toBe('EPSG:4326');
+    expect(a.crs).toMatch(/^EPSG:4326 /);
     expect(a.width).toBe(460);
     expect(Math.abs(a.bounds[0][0] - south)).toBeLessThan(DEG_TOL);
     expect(Math.abs(a.bounds[0][1] - west)).toBeLessThan(DEG_TOL);
@@ -94,7 +94,7 @@ describe('decodeGeoTiff errors and projections', () => {
       geoKeys: geoKeysProjected(3857),
     });
     const a = await decodeGeoTiff(buf(tiff));
-    expect(a.crs).toBe('EPSG:3857');
+    expect(a.crs).toMatch(/^EPSG:3857 /);
     expect(a.bounds[1][0]).toBeCloseTo(50, 6);
     expect(a.bounds[0][1]).toBeCloseTo(10, 6);
     // 100 m of mercator at 50° N is 100·cos 50° ≈ 64.3 m on the ground: 100 m / R in longitude.
@@ -102,13 +102,22 @@ describe('decodeGeoTiff errors and projections', () => {
     expect(webMercatorToLonLat(0, 0)).toEqual([0, 0]);
   });
 
-  it('names a projection it does not read', async () => {
+  it('reads a UTM image (its placement is checked in test/reference/project/reprojection.test.ts)', async () => {
     const tiff = encodeRgbTiff(4, 4, plain(4, 4), {
       tiepoint: [500_000, 4_970_000],
       pixelScale: [1, 1],
       geoKeys: geoKeysProjected(32615),
     });
-    await expect(decodeGeoTiff(buf(tiff))).rejects.toThrow(/EPSG:32615/);
+    expect((await decodeGeoTiff(buf(tiff))).crs).toBe('EPSG:32615 (metre)');
+  });
+
+  it('names the GeoKey holding a system it does not know', async () => {
+    const tiff = encodeRgbTiff(4, 4, plain(4, 4), {
+      tiepoint: [500_000, 4_970_000],
+      pixelScale: [1, 1],
+      geoKeys: geoKeysProjected(30000),
+    });
+    await expect(decodeGeoTiff(buf(tiff))).rejects.toThrow(/ProjectedCSTypeGeoKey.*30000/);
   });
 
   it('refuses metres that pose as degrees', async () => {
@@ -127,7 +136,9 @@ describe('decodeGeoTiff errors and projections', () => {
       geoKeys: GEOKEYS_4326,
     });
     const a = await decodeGeoTiff(buf(tiff), 50);
-    expect([a.width, a.height]).toEqual([50, 25]);
-    expect(a.rgba.length).toBe(50 * 25 * 4);
+    // On the map's web-mercator grid, 1e-3° of latitude at 50° N spans 1/cos 50° ≈ 1.556 times the
+    // same longitude: 25 · 1.556 ≈ 39 px (spherical mercator, EPSG guidance note 7-2).
+    expect([a.width, a.height]).toEqual([50, Math.round(25 / Math.cos((50 * Math.PI) / 180))]);
+    expect(a.rgba.length).toBe(a.width * a.height * 4);
   });
 });

@@ -170,12 +170,13 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       return () => tiles.remove();
     });
 
-    // The imported aerial, under the drawing.
+    // The imported aerial, under the drawing: an embedded image, or the part of a referenced
+    // file that is in view, rendered again when the view changes.
     let image: L.ImageOverlay | null = null;
     $effect(() => {
-      const o = overlay.overlay;
-      if (!o) return;
-      image = L.imageOverlay(o.pngDataUrl, o.bounds, {
+      const d = overlay.display;
+      if (!d) return;
+      image = L.imageOverlay(d.url, d.bounds, {
         pane: 'aerial',
         opacity: untrack(() => overlay.opacity),
         interactive: false,
@@ -185,6 +186,30 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
         image?.remove();
         image = null;
       };
+    });
+    const renderView = (): void => {
+      const src = untrack(() => overlay.live);
+      if (!src) return;
+      const view = map.getBounds();
+      const s = Math.max(view.getSouth(), src.bounds[0][0]);
+      const w = Math.max(view.getWest(), src.bounds[0][1]);
+      const n = Math.min(view.getNorth(), src.bounds[1][0]);
+      const e = Math.min(view.getEast(), src.bounds[1][1]);
+      if (!(s < n && w < e)) return;
+      const p1 = map.latLngToContainerPoint([s, w]);
+      const p2 = map.latLngToContainerPoint([n, e]);
+      void overlay.showView(
+        [
+          [s, w],
+          [n, e],
+        ],
+        Math.abs(p2.x - p1.x),
+        Math.abs(p1.y - p2.y),
+      );
+    };
+    map.on('moveend', renderView);
+    $effect(() => {
+      if (overlay.live) untrack(renderView);
     });
     $effect(() => {
       const opacity = overlay.opacity; // read first, so the effect tracks it even before an image exists

@@ -4,6 +4,7 @@
  * regions. Everything comes in the site frame (metres) from the planning core and goes back to
  * [lon, lat] through the same frame (core/site/frame.ts) the core built it in.
  */
+import { unitPreference } from '../state/unitPreference.svelte.ts';
 import L from '../map/leaflet.ts';
 import type { Candidate } from '../../../core/rank/plan.ts';
 import type { Project } from '../../../core/project/schema.ts';
@@ -69,7 +70,7 @@ function tip(layer: L.Layer, text: string, permanent = false): void {
 export function drawCandidate(map: L.Map, candidate: DrawnCandidate, project: Project): () => void {
   const frame = frameOf(project);
   if (!frame) return () => {};
-  const units: UnitSystem = project.settings.units;
+  const units: UnitSystem = unitPreference.units;
   const len = (m: number): string => formatLength(m, units);
   const g = L.layerGroup();
   const ring = candidate.footprint.ringXY;

@@ -9,7 +9,7 @@ import type { Design } from '../../../core/antennas/types.ts';
 import type { EvalGround } from '../../../core/rank/evaluator.ts';
 import type { Candidate } from '../../../core/rank/plan.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { TUNING_STEP, resolveProposal, type TuningMeasurement } from '../../../core/report/buildSheet.ts';
+import { TUNING_STEP, type TuningMeasurement } from '../../../core/report/buildSheet.ts';
 import { createPlanHost } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import type { FromWorker, ToWorker } from '../workers/protocol.ts';
@@ -98,7 +98,7 @@ describe('the tuning rate from the lead worker', () => {
     expect(t.cmPer10kHzUp * t.kHzPerCm).toBeCloseTo(-10, 9);
 
     // Independent: the same design (found again by the core, not through the worker) swept in full.
-    const proposal = resolveProposal(project, dipole)!;
+    const proposal = { design: dipole.design };
     const lo = dipole.trim.valueM * (1 - TUNING_STEP);
     const hi = dipole.trim.valueM * (1 + TUNING_STEP);
     const fShortHz = resonanceBySweepHz(proposal.design, lo, project.soil);

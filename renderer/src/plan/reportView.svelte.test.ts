@@ -7,8 +7,8 @@ import { flushSync, mount, unmount } from 'svelte';
 import { REPORT_BODY_CLASS, renderReport, scopeReportCss, scopeSelector } from './reportHtml.ts';
 import { closeReport, reportView, showBuildSheet } from './reportView.svelte.ts';
 import ReportView from './ReportView.svelte';
-import { buildSheet, resolveProposal } from '../../../core/report/buildSheet.ts';
-import { REPORT_SECTIONS, renderBuildSheetHtml } from '../../../core/report/html.ts';
+import { REPORT_SECTIONS } from '../../../core/report/html.ts';
+import { stationReport } from '../../../core/report/stationReport.ts';
 import { demoPlanProject, demoShortlist } from './testShortlist.ts';
 import type { DesktopBridge } from '../lib/api.ts';
 import type { YardwireDesktop } from '../../../electron/desktopBridge.ts';
@@ -19,8 +19,7 @@ function demoSheetHtml(): string {
   const project = demoPlanProject();
   const shortlist = demoShortlist();
   const c = shortlist.candidates[0]!;
-  const sheet = buildSheet({ project, shortlist, candidate: c, proposal: resolveProposal(project, c) });
-  return renderBuildSheetHtml(sheet, '2024-01-01');
+  return stationReport({ project, shortlist, candidate: c, generatedAt: '2024-01-01' }).html;
 }
 
 describe('report stylesheet in a shadow root', () => {

@@ -7,6 +7,7 @@
 import type { ApiResponse } from '../../../core/api/contract.ts';
 import { ProjectSchema, formatPath, type Project } from '../../../core/project/schema.ts';
 import type { UnitSystem } from '../../../core/units/index.ts';
+import { unitPreference } from './unitPreference.svelte.ts';
 
 export type SaveState =
   | { status: 'idle' }
@@ -34,7 +35,8 @@ export class ProjectHistory {
   /** What the last edit, undo or redo did, in words. */
   lastAction = $state<string>('');
 
-  units: UnitSystem = $derived(this.project?.settings.units ?? 'metric');
+  /** The user's unit preference (kept across projects; not part of the undo history). */
+  units: UnitSystem = $derived(unitPreference.units);
   canUndo = $derived(this.past.length > 0);
   canRedo = $derived(this.future.length > 0);
 
@@ -48,6 +50,7 @@ export class ProjectHistory {
 
   /** Show a project freshly opened from the store: no history, nothing to save. */
   open(project: Project): void {
+    unitPreference.adoptDefault(project.settings.units);
     this.project = project;
     this.past = [];
     this.future = [];

@@ -1,4 +1,5 @@
 // The project state: edits, validation, undo/redo over snapshots, save queue, unit display.
+import { unitPreference } from './unitPreference.svelte.ts';
 import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import type { Project } from '../../../core/project/schema.ts';
@@ -181,13 +182,22 @@ describe('ProjectState saving', () => {
 });
 
 describe('ProjectState units', () => {
-  it('follows the project setting, undoably', () => {
+  it('is the user preference: kept across projects, not an edit that undo reverts', () => {
+    unitPreference.reset();
     const { state } = opened();
     expect(state.units).toBe('metric');
+    state.rename('Renamed');
+    const before = state.project;
     state.setUnits('imperial');
     expect(state.units).toBe('imperial');
-    expect(state.project!.settings.units).toBe('imperial');
+    // Not an edit: the project is untouched, and undo reverts the last edit (the rename), not the units.
+    expect(state.project).toBe(before);
     state.undo();
-    expect(state.units).toBe('metric');
+    expect(state.project!.name).not.toBe('Renamed');
+    expect(state.units).toBe('imperial');
+    // Another project opened afterwards keeps the choice.
+    const { state: other } = opened();
+    expect(other.units).toBe('imperial');
+    unitPreference.reset();
   });
 });

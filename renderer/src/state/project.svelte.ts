@@ -3,6 +3,7 @@
  * selection and the edits the lot editor offers (supports, boundary, keep-outs, station,
  * settings), each one validated, undoable step.
  */
+import { unitPreference } from './unitPreference.svelte.ts';
 import type {
   KeepOut,
   LonLat,
@@ -218,8 +219,11 @@ export class ProjectState extends ProjectHistory {
     });
   }
 
+  /** The user's unit preference: kept across projects, not an edit (undo does not revert it). */
   setUnits(units: UnitSystem): boolean {
-    return this.updateSettings({ units }, units === 'metric' ? 'show metric units' : 'show imperial units');
+    if (unitPreference.units === units) return false;
+    unitPreference.set(units);
+    return true;
   }
 
   setSoilClass(classId: string): boolean {

@@ -7,7 +7,8 @@ import { builderFor } from '../../../core/antennas/registry.ts';
 import type { Design } from '../../../core/antennas/types.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { evaluationModel } from '../../../core/antennas/conductors.ts';
-import { swrOf, type EvalGround, type Evaluator } from '../../../core/rank/evaluator.ts';
+import { Z0_OHM, type EvalGround, type Evaluator } from '../../../core/rank/evaluator.ts';
+import { swrOf } from '../../../core/em/swr.ts';
 import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import { placeElements } from '../../../core/antennas/common.ts';
 import { enumeratePlan, planFromSetup, type PlanSetup, type Shortlist } from '../../../core/rank/plan.ts';
@@ -134,7 +135,11 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
         try {
           const model = evaluationModel(d.design, msg.trimM);
           const out = evaluator({ model, ground: d.ground, frequenciesHz: msg.freqsHz, pattern: null });
-          const points = out.map((r) => ({ freqHz: r.freqHz, zOhm: r.zOhm, swr: swrOf(r.zOhm) }));
+          const points = out.map((r) => ({
+            freqHz: r.freqHz,
+            zOhm: r.zOhm,
+            swr: swrOf(r.zOhm[0], r.zOhm[1], Z0_OHM),
+          }));
           return [{ type: 'swept', reqId: msg.reqId, points }];
         } catch (e) {
           return [{ type: 'error', reqId: msg.reqId, message: message(e) }];

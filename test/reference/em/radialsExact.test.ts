@@ -1,6 +1,6 @@
 // The radial ground-system model against a second method inside the solver: the same quarter-wave
 // vertical with its radials as wires 5 cm above the soil over the exact half-space (Sommerfeld;
-// core/REFERENCES.md §11, checked against an independent fixture in halfspace/fixture.test.ts),
+// core/REFERENCES.md §13, checked against an independent fixture in halfspace/fixture.test.ts),
 // with no ground-system model. Both share the far field, so the efficiency difference in dB is the
 // difference in near-field soil loss. Full grid (90 cases) and its figures: test/bench/radials.ts.
 import { describe, expect, it } from 'vitest';

@@ -34,6 +34,7 @@ describe('cli report: arguments', () => {
       ['--coax', 'RG-999'],
       ['--mode', 'am'],
       ['--on-time', '1.5'],
+      ['--units', 'cubits'],
     ]) {
       const t = io();
       expect(await runCli(['report', '--demo', '--out', 'r.html', ...bad], t.io)).toBe(2);

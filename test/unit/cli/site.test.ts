@@ -1,24 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../core/cli/main.ts';
 import { parseProject } from '../../../core/project/schema.ts';
+import { cliIo } from '../../helpers/cliIo.ts';
 
-function io(files: Record<string, string> = {}) {
-  const out: string[] = [];
-  const err: string[] = [];
-  return {
-    out,
-    err,
-    io: {
-      stdout: (s: string) => out.push(s),
-      stderr: (s: string) => err.push(s),
-      readFile: async (p: string) => {
-        const f = files[p];
-        if (f === undefined) throw new Error('ENOENT: no such file');
-        return f;
-      },
-    },
-  };
-}
+const io = (files: Record<string, string> = {}) => cliIo(files);
 
 describe('cli site', () => {
   it('prints the demo project as JSON in the project schema', async () => {

@@ -3,23 +3,9 @@ import { describe, it, expect } from 'vitest';
 import { readFile } from 'node:fs/promises';
 import { parseAntennaInput, antennaInputSchema } from '../../../core/em/input.ts';
 import { runEvaluate } from '../../../core/cli/evaluate.ts';
+import { cliIo } from '../../helpers/cliIo.ts';
 
-function io(files: Record<string, string> = {}) {
-  const out: string[] = [];
-  const err: string[] = [];
-  return {
-    out,
-    err,
-    io: {
-      stdout: (s: string) => out.push(s),
-      stderr: (s: string) => err.push(s),
-      readFile: async (p: string) => {
-        if (p in files) return files[p];
-        return readFile(p, 'utf8');
-      },
-    },
-  };
-}
+const io = (files: Record<string, string> = {}) => cliIo(files, { disk: true });
 
 const good = {
   frequenciesMHz: [7.1],

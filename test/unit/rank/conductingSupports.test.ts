@@ -110,6 +110,20 @@ describe('metal supports in the plan', () => {
         expect(t.heightM).toBe(tower.usableHeightM);
         expect(t.grounded).toBe(true);
       }
+      // The candidate's placed elements carry each modelled support as a vertical axis, at the
+      // support (or STANDOFF_M from it, on a stand-off arm), as tall as the support.
+      const axes = c.elements.filter((e) => e.role === 'conducting-support');
+      expect(axes.length, c.id).toBe(c.conductingSupports.length);
+      for (const e of axes) {
+        if (e.role !== 'conducting-support') continue;
+        const own = c.conductingSupports.find((x) => x.id === e.supportId)!;
+        expect(e.to[2] - e.from[2]).toBeCloseTo(own.heightM, 6);
+        expect(e.from[0]).toBeCloseTo(e.to[0], 9);
+        if (e.supportId === tower.id)
+          expect(Math.hypot(e.from[0] - towerXY[0], e.from[1] - towerXY[1])).toBeLessThanOrEqual(
+            (own.standoff ? STANDOFF_M : 0) + 1e-3, // within 1 mm
+          );
+      }
     }
     expect(s.candidates.some((c) => c.conductingSupports.length > 0)).toBe(true);
   });

@@ -10,10 +10,12 @@ import {
   coaxLossDbPer100m,
   measureTuning,
   nearestAwg,
-  resolveProposal,
   type BuildSheet,
 } from '../../../core/report/buildSheet.ts';
 import { REPORT_SECTIONS, escapeHtml, renderBuildSheetHtml } from '../../../core/report/html.ts';
+import { stationReport } from '../../../core/report/stationReport.ts';
+import { feetInches } from '../../../core/report/format.ts';
+import { lengthsInText } from '../../../core/units/index.ts';
 import type { Project } from '../../../core/project/schema.ts';
 import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
 
@@ -31,7 +33,6 @@ function sheetFor(project: Project, s: Shortlist, c: Candidate): BuildSheet {
     project,
     shortlist: s,
     candidate: c,
-    proposal: resolveProposal(project, c),
     gainAt: (az, el) => candidateGainAt(s, c.id, az, el),
   });
 }
@@ -55,7 +56,7 @@ describe('build sheet', () => {
       const s = sheetFor(project, shortlist, c);
       const wires = c.wires.reduce((a, w) => a + len(w), 0);
       const allowance = c.cutList
-        .filter((i) => !/rope|radial/i.test(i.label))
+        .filter((i) => i.kind === 'wire')
         .reduce((a, i) => a + i.count * (i.cutLengthM - i.lengthM), 0);
       expect(allowance).toBeGreaterThan(0);
       expect(s.wire.totalM).toBeCloseTo(wires + allowance, 9);
@@ -79,7 +80,7 @@ describe('build sheet', () => {
     const c = byType('vertical');
     const s = sheetFor(project, shortlist, c);
     expect(s.radials).not.toBeNull();
-    const fromCuts = c.cutList.filter((i) => /radial/i.test(i.label));
+    const fromCuts = c.cutList.filter((i) => i.kind === 'radial');
     const count = fromCuts.reduce((a, i) => a + i.count, 0);
     const total = fromCuts.reduce((a, i) => a + i.count * i.lengthM, 0);
     expect(s.radials!.count).toBe(count);
@@ -95,17 +96,17 @@ describe('build sheet', () => {
     expect(sheetFor(project, shortlist, byType('half-square')).insulators.count).toBe(4);
   });
 
-  it('rebuilds the feed point of a centre-fed dipole at the middle of its wire', () => {
+  it('takes the feed point of a centre-fed dipole from the candidate, at the middle of its wire', () => {
     const c = byType('dipole');
     const s = sheetFor(project, shortlist, c);
     const w = c.wires[0];
-    for (let k = 0; k < 3; k++) expect(s.feedLine.feedXYZ[k]).toBeCloseTo((w.from[k] + w.to[k]) / 2, 6);
+    // The candidate's feed points are rounded to the centimetre.
+    for (let k = 0; k < 3; k++) expect(s.feedLine.feedXYZ[k]).toBeCloseTo((w.from[k] + w.to[k]) / 2, 2);
   });
 
   it('measures a tuning rate through the evaluator', () => {
     const c = byType('dipole');
-    const p = resolveProposal(project, c)!;
-    const t = measureTuning(p.design, c.trim.valueM, project.soil, ev);
+    const t = measureTuning(c.design, c.trim.valueM, project.soil, ev);
     // The fake's reactance is linear in length: longer wire, lower resonance, f_res ∝ 1/L.
     expect(t.kHzPerCm).toBeLessThan(0);
     expect(t.resonanceMHz.shorter).toBeGreaterThan(t.resonanceMHz.longer);
@@ -139,6 +140,56 @@ describe('build sheet', () => {
     expect(html).toMatch(/near field/);
     // Standalone: no scripts and nothing loaded from elsewhere.
     expect(html).not.toMatch(/<script|<link|\ssrc="|\shref="/i);
+  });
+});
+
+describe('imperial build sheet', () => {
+  const project = buildDemoProject();
+  const shortlist = planSite(project, { evaluator: ev, bands: ['160m', '80m'] });
+  /** Visible text: tags and the stylesheet removed. */
+  const text = (html: string): string =>
+    html
+      .replace(/<style>[\s\S]*?<\/style>/, '')
+      .replace(/<title>[\s\S]*?<\/title>/g, ' ')
+      .replace(/<[^>]+>/g, ' ');
+  /** A metric length: a number then m, cm, mm or metre(s); band names ("80 m band") aside. */
+  const METRIC = /\d\s?(?:m|cm|mm|metres?)\b(?!\s*band)/;
+
+  it('holds no metre lengths for any type, and says feet', () => {
+    const seen = new Set<string>();
+    for (const c of shortlist.candidates) {
+      if (seen.has(c.type)) continue;
+      seen.add(c.type);
+      const { html, sheet } = stationReport({ project, shortlist, candidate: c, units: 'imperial' });
+      expect(sheet.units).toBe('imperial');
+      const t = text(html);
+      expect(
+        t.match(METRIC)?.[0] ?? null,
+        `${c.type}: ${t.slice(Math.max(0, t.search(METRIC) - 60), t.search(METRIC) + 20)}`,
+      ).toBeNull();
+      expect(t).toMatch(/\d ft \d+(?:¼|½|¾)? in/); // cut lengths in feet and inches
+      expect(t).toMatch(/dB\/100 ft/);
+    }
+    expect(seen.size).toBeGreaterThanOrEqual(5);
+  });
+
+  it('the metric sheet of the same candidate does print metres (the check can fail)', () => {
+    const c = shortlist.candidates[0]!;
+    const t = text(stationReport({ project, shortlist, candidate: c, units: 'metric' }).html);
+    expect(t).toMatch(METRIC);
+  });
+
+  it('converts lengths in sentences made in core, leaving band names', () => {
+    expect(lengthsInText('over the 40 m rope limit', 'imperial')).toBe('over the 131 ft rope limit');
+    expect(lengthsInText('limits (24.57–54.06 m)', 'imperial')).toBe('limits (80.61–177.36 ft)');
+    expect(lengthsInText('the 160 m band', 'imperial')).toBe('the 160 m band');
+    expect(lengthsInText('span 12.3 m', 'metric')).toBe('span 12.3 m');
+  });
+
+  it('prints cut lengths to the nearest quarter inch', () => {
+    // 20 m = 65.6168 ft = 65 ft 7.40 in → 7½ in to the nearest quarter.
+    expect(feetInches(20)).toBe('65 ft 7½ in');
+    expect(feetInches(0.2)).toBe('7¾ in'); // 7.874 in
   });
 });
 

@@ -14,7 +14,7 @@ import {
 } from '../../../core/report/exposureZones.ts';
 import { estimateExposure } from '../../../core/report/exposure.ts';
 import { buildSite } from '../../../core/site/site.ts';
-import { ring, testLot } from '../site/lot.ts';
+import { ring, testLot, box } from '../site/lot.ts';
 
 const area = (rings: [number, number][][]): number => rings.reduce((s, r) => s + Math.abs(ringArea(r)), 0);
 
@@ -75,17 +75,7 @@ describe('places a zone reaches', () => {
         id: 'house',
         name: 'House',
         kind: 'building',
-        geometry: {
-          type: 'Polygon',
-          coordinates: [
-            ring([
-              [8, -5],
-              [18, -5],
-              [18, 5],
-              [8, 5],
-            ]),
-          ],
-        },
+        geometry: box(8, -5, 18, 5),
       },
       {
         id: 'walk',

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import { BUILDERS } from '../../../core/antennas/registry.ts';
 import { planSite } from '../../../core/rank/plan.ts';
-import { buildSheet, resolveProposal, type TuningMeasurement } from '../../../core/report/buildSheet.ts';
+import { buildSheet, type TuningMeasurement } from '../../../core/report/buildSheet.ts';
 import { CM_PER_INCH, TRIM_HOW, trimHow, tuningProblem, tuningText } from '../../../core/report/tuning.ts';
 import { wavelengthM } from '../../../core/units/index.ts';
 import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
@@ -51,7 +51,6 @@ describe('tuning text', () => {
         project,
         shortlist: s,
         candidate: c,
-        proposal: resolveProposal(project, c),
       });
       expect(sheet.tuning.instruction, t).toContain(trimHow(t));
     }

@@ -8,7 +8,7 @@ import {
   type Element,
 } from '../../../core/site/feasibility.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { ll, ring, testLot } from './lot.ts';
+import { box, ll, testLot } from './lot.ts';
 
 // The site frame's origin is the centre of the boundary's box; a symmetric lot puts it at (0, 0)
 // to within the projection's millimetres, so metre-level test geometry can be written directly.
@@ -108,17 +108,7 @@ describe('placement feasibility', () => {
         id: 'house',
         name: 'House',
         kind: 'building',
-        geometry: {
-          type: 'Polygon',
-          coordinates: [
-            ring([
-              [-5, -5],
-              [5, -5],
-              [5, 5],
-              [-5, 5],
-            ]),
-          ],
-        },
+        geometry: box(-5, -5, 5, 5),
         clearanceM: 2,
         heightM: 8,
       },
@@ -151,17 +141,7 @@ describe('radial clipping', () => {
         id: 'shed',
         name: 'Shed',
         kind: 'building',
-        geometry: {
-          type: 'Polygon',
-          coordinates: [
-            ring([
-              [10, -3],
-              [14, -3],
-              [14, 3],
-              [10, 3],
-            ]),
-          ],
-        },
+        geometry: box(10, -3, 14, 3),
         clearanceM: 1,
         heightM: 3,
       },

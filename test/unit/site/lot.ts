@@ -15,6 +15,19 @@ export const ring = (pts: [number, number][]): [number, number][] => {
   return [...r, r[0]];
 };
 
+/** An axis-aligned rectangle from (x0, y0) to (x1, y1), metres, as a GeoJSON polygon. */
+export const box = (x0: number, y0: number, x1: number, y1: number) => ({
+  type: 'Polygon' as const,
+  coordinates: [
+    ring([
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+    ]),
+  ],
+});
+
 export interface LotSpec {
   /** Rectangle half-widths around the origin, metres. */
   halfX?: number;
@@ -35,17 +48,7 @@ export function testLot(spec: LotSpec): Project {
     schemaVersion: PROJECT_SCHEMA_VERSION,
     id: 'test-lot',
     name: 'Test lot',
-    boundary: {
-      type: 'Polygon',
-      coordinates: [
-        ring([
-          [-hx, -hy],
-          [hx, -hy],
-          [hx, hy],
-          [-hx, hy],
-        ]),
-      ],
-    },
+    boundary: box(-hx, -hy, hx, hy),
     supports: (spec.supports ?? []).map((s) => ({
       id: s.id,
       name: s.id,

@@ -1,7 +1,7 @@
 // The exact half-space against values computed once by a separate method:
 // test/fixtures/em/halfspace-reference.json, written by test/fixtures/em/halfspace_reference.py
 // (a complex-plane detour and QUADPACK on the real axis, with a perfect-conductor self-check;
-// method in the script's header; formulas of core/REFERENCES.md §11).
+// method in the script's header; formulas of core/REFERENCES.md §13).
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { halfSpace } from '../../../../core/em/halfspace/medium.ts';
@@ -23,7 +23,7 @@ const rows = (
     rows: Row[];
   }
 ).rows;
-const SOURCE = 'independent fixture test/fixtures/em/halfspace-reference.json (core/REFERENCES.md §11)';
+const SOURCE = 'independent fixture test/fixtures/em/halfspace-reference.json (core/REFERENCES.md §13)';
 /** Relative to the largest component (measured: 2e-10 at worst; QUADPACK asked for 1e-11, the solver for 1e-10). */
 const TOL = 1e-8;
 

@@ -1,13 +1,14 @@
 /**
- * Golden shortlist for the demo lot on 80 m: the planner over the project's field solver,
- * compared with the reviewed fixture test/fixtures/plan/demo-80m.json (see its README). To
- * regenerate on purpose after a reviewed change: YARDWIRE_UPDATE_GOLDEN=1 npx vitest run test/reference/plan/golden.test.ts
+ * Regression guard, not a reference check: the golden shortlist for the demo lot on 80 m, the
+ * planner over the project's field solver compared with the reviewed fixture
+ * test/fixtures/plan/demo-80m.json (see its README). Regenerate on purpose after a reviewed
+ * change, the one way every golden file is regenerated: YARDWIRE_UPDATE_GOLDEN=1 npx vitest run test/regression
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { planSite, type Shortlist } from '../../../core/rank/plan.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { buildDemoProject } from '../../../data/demo/demoProject.ts';
+import { buildDemoProject } from '../../../core/demo/demoProject.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
 const FIXTURE = new URL('../../fixtures/plan/demo-80m.json', import.meta.url);
@@ -56,7 +57,7 @@ function summarise(s: Shortlist): Golden {
   };
 }
 
-describe('golden shortlist of the demo lot (80 m)', () => {
+describe('golden shortlist of the demo lot (80 m, regression guard)', () => {
   const got = summarise(planSite(buildDemoProject(), { evaluator: solverEvaluator, bands: ['80m'] }));
   if (process.env.YARDWIRE_UPDATE_GOLDEN) writeFileSync(FIXTURE, JSON.stringify(got, null, 2) + '\n');
   const want = JSON.parse(readFileSync(FIXTURE, 'utf8')) as Golden;
