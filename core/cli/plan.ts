@@ -27,6 +27,7 @@ import {
 } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
 import { candidateMatching } from '../match/candidateMatch.ts';
+import { efficiencySummary } from '../rank/lossSplit.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
 
 export interface PlanIo {
@@ -301,9 +302,7 @@ function describe(c: Candidate): string {
     `    2:1 SWR ${bw.widthKHz > 0 ? `${bw.lowMHz?.toFixed(3) ?? '?'}–${bw.highMHz?.toFixed(3) ?? '?'} MHz (${bw.widthKHz.toFixed(0)} kHz)` : 'none'}: ${bw.note}`,
   );
   const e = c.efficiency;
-  lines.push(
-    `    efficiency ${f1(e.percent)} % (ground loss ${f2(e.groundLossDb)} dB, conductor loss ${f2(e.conductorLossDb)} dB)`,
-  );
+  lines.push(`    efficiency ${f1(e.percent)} % radiated (${efficiencySummary(e)})`);
   lines.push(
     `    trim: ${c.trim.dimension} ${f2(c.trim.valueM)} m${c.trim.resonant ? ' (resonant)' : ' (not resonant: lowest SWR kept)'}`,
   );

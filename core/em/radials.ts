@@ -16,8 +16,9 @@
  * (Wait & Pope 1954). The solver itself uses Hφ computed from the moment-method currents.
  *
  * Integration limits (stated, since the bare-soil tail grows with the outer limit):
- *  - outer ρmax = max(`RADIAL_LIMIT_WAVELENGTHS` λ, the longest radial); beyond it the solver's
- *    reflection-coefficient ground takes over;
+ *  - outer ρmax = `NEAR_FIELD_WAVELENGTHS` λ, whatever the radials' length (its note says why);
+ *    beyond it the solver's ground models and the far-field reflection loss take over. Radials
+ *    longer than the disc count inside it at full number;
  *  - inner ρmin = the vertical's wire radius with radials (the integrand vanishes there), and
  *    `BARE_CONTACT_RADIUS_M` (a 12.7 mm ground stake) for a bare-soil connection (N = 0), where
  *    the integrand falls as 1/ρ and the loss depends on that radius logarithmically.
@@ -44,7 +45,24 @@ import { gaussLegendre01 } from '../numeric/quadrature.ts';
 import { MU0 } from './constants.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
-export const RADIAL_LIMIT_WAVELENGTHS = 0.5;
+/**
+ * Radius of the near-field disc, in wavelengths, over which the radial-field loss is integrated.
+ *
+ * Why a fixed disc and not the radial field or 0.5 λ: the solver's far field is the space wave
+ * reflected with the plane-wave (Fresnel) coefficients of the soil, so the power that wave loses
+ * in the soil, everywhere beyond the antenna, is already counted as reflection loss. Only the
+ * induction field close to the base, which the plane-wave picture does not describe, needs the
+ * surface-impedance integral; |Hφ|² there falls as 1/ρ² and its tail beyond a fraction of a
+ * wavelength is the radiated field the reflection loss covers (integrating it too counted the
+ * soil twice: 32 quarter-wave radials on 80 m over average soil lost 3.75 Ω inside the radials and
+ * another 10.1 Ω on bare soil out to 0.5 λ). The disc does not grow with the radials: a longer
+ * or denser screen can then only lower the surface impedance inside a fixed area, so the loss
+ * falls monotonically with radial length and count (a disc that grew with the longest radial
+ * would add soil under the screen for longer radials). The value is a choice, checked against
+ * the exact half-space solver with the radials as wires just above the soil
+ * (test/bench/radials.ts, test/reference/em/radialsExact.test.ts).
+ */
+export const NEAR_FIELD_WAVELENGTHS = 0.25;
 export const BARE_CONTACT_RADIUS_M = 0.0127;
 export const RADIAL_PANELS = 12;
 

@@ -30,7 +30,7 @@ import { createExactGroundModel } from './halfspace/ground.ts';
 import { buildMesh, nodeAt, type GroundContact, type Mesh, type MeshOptions } from './mesh.ts';
 import {
   BARE_CONTACT_RADIUS_M,
-  RADIAL_LIMIT_WAVELENGTHS,
+  NEAR_FIELD_WAVELENGTHS,
   groundLossResistance,
   type RadialScreen,
 } from './radials.ts';
@@ -197,10 +197,9 @@ export function prepareModel(
   };
 }
 
-/** Outer limit of the radial-system integration: max(0.5 λ, longest radial). */
-export function zoneRadius(pc: PreparedContact, freqHz: number): number {
-  const lam = SPEED_OF_LIGHT_M_PER_S / freqHz;
-  return Math.max(RADIAL_LIMIT_WAVELENGTHS * lam, ...pc.screen.lengthsM);
+/** Outer limit of the radial-system integration: the near-field disc (radials.ts). */
+export function zoneRadius(_pc: PreparedContact, freqHz: number): number {
+  return (NEAR_FIELD_WAVELENGTHS * SPEED_OF_LIGHT_M_PER_S) / freqHz;
 }
 
 export function loadImpedance(spec: LoadSpec, freqHz: number): Complex {

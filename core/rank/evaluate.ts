@@ -31,6 +31,10 @@ export interface PowerSplit {
   radiatedW: number;
   conductorLossW: number;
   groundLossW: number;
+  /** Loss in the radial field(s) near the base; absent when no wire with radials touches the soil. */
+  groundSystemLossW?: number;
+  /** Loss where wires without radials (a grounded tower, a bare stake) meet the soil. */
+  bareContactLossW?: number;
   /** radiated / input. */
   efficiency: number;
 }
@@ -239,6 +243,8 @@ function evaluateDesignOrThrow(
       radiatedW: radiatedPowerW,
       conductorLossW,
       groundLossW,
+      ...(main.groundSystemLossW !== undefined ? { groundSystemLossW: main.groundSystemLossW } : {}),
+      ...(main.bareContactLossW !== undefined ? { bareContactLossW: main.bareContactLossW } : {}),
       efficiency: inputPowerW > 0 ? radiatedPowerW / inputPowerW : 0,
     },
     bandwidth: { lowHz, highHz, widthHz, extrapolated: swr0 <= 2 && extrapolated },

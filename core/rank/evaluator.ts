@@ -34,6 +34,10 @@ export interface EvalFrequency {
   radiatedPowerW?: number;
   conductorLossW?: number;
   groundLossW?: number;
+  /** Loss in the radial field(s) near the base; absent when no wire with radials touches the soil. */
+  groundSystemLossW?: number;
+  /** Loss where wires without radials (a grounded tower, a bare stake) meet the soil; absent when none do. */
+  bareContactLossW?: number;
   /** Total gain, dBi, on the requested grid: elevation-major (index = iEl·nAz + iAz). */
   gainDbi: Float64Array | null;
   diagnostics: string[];

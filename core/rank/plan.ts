@@ -45,6 +45,7 @@ import { buildSite, type Site } from '../site/site.ts';
 import { evaluateDesign, type EvaluationRecord } from './evaluate.ts';
 import type { EvalGround, Evaluator } from './evaluator.ts';
 import { fnv1a64 } from './hash.ts';
+import { efficiencySplit, type EfficiencySplit } from './lossSplit.ts';
 import {
   PATTERN_GRID,
   averageGainDbi,
@@ -167,15 +168,8 @@ export interface Candidate {
   peak: { gainDbi: number; elevationDeg: number; azimuthDeg: number };
   feed: { zOhm: [number, number]; swr: number; z0Ohm: number; freqMHz: number };
   bandwidth2to1: { lowMHz: number | null; highMHz: number | null; widthKHz: number; note: string };
-  efficiency: {
-    percent: number;
-    radiatedW: number;
-    inputW: number;
-    conductorLossW: number;
-    groundLossW: number;
-    conductorLossDb: number;
-    groundLossDb: number;
-  };
+  /** Power split with the ground-system (radial) loss apart from the reflection loss (lossSplit.ts). */
+  efficiency: EfficiencySplit;
   trim: { dimension: string; valueM: number; resonant: boolean };
   cutList: { kind: CutKind; label: string; count: number; lengthM: number; cutLengthM: number }[];
   cutAllowance: string;
@@ -410,11 +404,6 @@ const LOW_ANGLE_DIRECTIONS = (() => {
     for (let az = 0; az < 360; az += 10) out.push({ azimuthDeg: az, elevationDeg: el });
   return out;
 })();
-
-function lossDb(lossW: number, inputW: number): number {
-  // dB lost to one mechanism: 10·log10(input / (input − loss)).
-  return inputW > 0 && lossW < inputW ? 10 * Math.log10(inputW / (inputW - lossW)) : Infinity;
-}
 
 type Scorer = (gainDbi: readonly number[], rot: number) => { score: number; regionGains: number[] };
 
@@ -716,15 +705,7 @@ export function rankPlan(
                 ? 'an edge lies beyond the ±2 % sweep: extrapolated from the quadratic fit, or wider than shown'
                 : 'from a quadratic fit of the feed impedance at f0 and f0 ± 2 %',
         },
-        efficiency: {
-          percent: rec.power.efficiency * 100,
-          radiatedW: rec.power.radiatedW,
-          inputW: rec.power.inputW,
-          conductorLossW: rec.power.conductorLossW,
-          groundLossW: rec.power.groundLossW,
-          conductorLossDb: lossDb(rec.power.conductorLossW, rec.power.inputW),
-          groundLossDb: lossDb(rec.power.groundLossW, rec.power.inputW),
-        },
+        efficiency: efficiencySplit(rec.power),
         trim: {
           dimension: p.design.trim.name,
           valueM: Math.round(rec.trimM * 1000) / 1000,

@@ -73,6 +73,12 @@ export const solverEvaluator: Evaluator = (req) => {
       radiatedPowerW: f.radiatedPowerW,
       conductorLossW: f.conductorLossW,
       groundLossW: f.groundLossW,
+      ...(f.groundSystems.some((g) => g.radials > 0)
+        ? { groundSystemLossW: f.groundSystems.reduce((s, g) => s + (g.radials > 0 ? g.lossW : 0), 0) }
+        : {}),
+      ...(f.groundSystems.some((g) => g.radials === 0)
+        ? { bareContactLossW: f.groundSystems.reduce((s, g) => s + (g.radials === 0 ? g.lossW : 0), 0) }
+        : {}),
       gainDbi: gain,
       diagnostics,
     };

@@ -11,6 +11,7 @@ import { sheetLengths } from './format.ts';
 import { tuningText } from './tuning.ts';
 import { matchingText } from '../match/matchText.ts';
 import { TUNING_STEP, TUNING_STEP_TEXT } from './tuningMeasure.ts';
+import { efficiencySummary } from '../rank/lossSplit.ts';
 
 export { escapeHtml };
 
@@ -183,7 +184,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
           'Peak gain',
           `${f1(c.peak.gainDbi)} dBi at ${f1(c.peak.elevationDeg)}° elevation, bearing ${f1(c.peak.azimuthDeg)}°`,
         ],
-        ['Efficiency', `${f1(c.efficiency.percent)} % (ground loss ${f2(c.efficiency.groundLossDb)} dB)`],
+        ['Efficiency', `${f1(c.efficiency.percent)} % radiated (${efficiencySummary(c.efficiency)})`],
         ['Design frequency', `${fl.freqMHz.toFixed(3)} MHz`],
         [
           'Station',

@@ -47,6 +47,26 @@ describe('exports', () => {
     expect(csvField('a, "b"')).toBe('"a, ""b"""');
     expect(csvField(Infinity)).toBe('');
   });
+  it('gives the radial field efficiency apart from the soil loss beyond (empty where no radials)', () => {
+    const s = demoShortlist();
+    // split one CSV line, honouring quoted fields
+    const cellsOf = (line: string): string[] =>
+      [...line.matchAll(/("(?:[^"]|"")*"|[^,]*)(,|$)/g)]
+        .filter((m, i, all) => !(m[0] === '' && i === all.length - 1))
+        .map((m) => m[1]!.replace(/^"|"$/g, '').replace(/""/g, '"'));
+    const lines = shortlistCsv(s).trimEnd().split('\r\n');
+    const head = cellsOf(lines[0]!);
+    const col = head.indexOf('radial field efficiency %');
+    const beyond = head.findIndex((h) => h.startsWith('soil loss beyond dB'));
+    expect(col).toBeGreaterThan(0);
+    expect(beyond).toBeGreaterThan(0);
+    s.candidates.forEach((c, i) => {
+      const cells = cellsOf(lines[i + 1]!);
+      expect(cells).toHaveLength(head.length);
+      if (c.groundSystem.kind === 'radials') expect(Number(cells[col])).toBeGreaterThan(50);
+      else expect(cells[col]).toBe('');
+    });
+  });
 
   it('writes the lot, supports, keep-outs and station as GeoJSON', () => {
     const p = demoPlanProject();
