@@ -35,6 +35,7 @@ import {
   type RadialScreen,
 } from './radials.ts';
 import type { AntennaModel, LoadSpec } from './types.ts';
+import { bondedGroundLoss } from './bondedRadials.ts';
 import {
   OPEN_PORT_IMPEDANCE_OHM,
   prepareNetwork,
@@ -387,7 +388,10 @@ export function solveFrequency(
   const contacts: ContactResult[] = [];
   if (pm.contacts.length > 0 && groundAt?.zg) {
     const nodeI = nodeCurrentsOf(mesh, x);
-    const rg = pm.contacts.map((pc) => contactLoss(pm, pc, freqHz, k, nodeI, x, groundAt.zg!));
+    const rg =
+      pm.model.radialsBonded && pm.contacts.length > 1
+        ? bondedContactLoss(pm, freqHz, k, nodeI, x, groundAt.zg)
+        : pm.contacts.map((pc) => contactLoss(pm, pc, freqHz, k, nodeI, x, groundAt.zg!));
     const rgOhm = rg.map((r) => r.lossResistanceOhm);
     if (pm.network) {
       // the loss resistances change the wires' port admittance: update W, solve the network again
@@ -601,6 +605,54 @@ export function surfaceMagneticField(
   out[3] = f * hyi;
 }
 
+/** Inner limit of a connection's integration: the wire radius with radials, the stake without. */
+function innerLimit(pc: PreparedContact): number {
+  return pc.screen.lengthsM.length > 0 ? pc.wireRadiusM : Math.max(BARE_CONTACT_RADIUS_M, pc.wireRadiusM);
+}
+
+/** Bonded radial fields of several connections (bondedRadials.ts), with the solved currents' field. */
+function bondedContactLoss(
+  pm: PreparedModel,
+  freqHz: number,
+  k: number,
+  nodeI: Float64Array,
+  x: Float64Array,
+  zg: Complex,
+): Omit<ContactResult, 'current'>[] {
+  const h = new Float64Array(4);
+  const connections = pm.contacts.map((pc) => {
+    let re = 0;
+    let im = 0;
+    for (const b of pc.contact.basis) {
+      re += x[2 * b];
+      im += x[2 * b + 1];
+    }
+    return {
+      x: pc.contact.x,
+      y: pc.contact.y,
+      screen: pc.screen,
+      rhoMinM: innerLimit(pc),
+      rhoMaxM: zoneRadius(pc, freqHz),
+      current: c(re, im),
+    };
+  });
+  const loss = bondedGroundLoss({
+    freqHz,
+    zg,
+    connections,
+    hAbs2: (px, py) => {
+      surfaceMagneticField(pm.mesh, nodeI, k, px, py, h);
+      return h[0] * h[0] + h[1] * h[1] + h[2] * h[2] + h[3] * h[3];
+    },
+  });
+  return pm.contacts.map((pc, i) => ({
+    lossResistanceOhm: loss.lossResistanceOhm[i],
+    integrationLimitM: connections[i].rhoMaxM,
+    innerLimitM: connections[i].rhoMinM,
+    radials: pc.screen.lengthsM.length,
+  }));
+}
+
 function contactLoss(
   pm: PreparedModel,
   pc: PreparedContact,
@@ -619,8 +671,7 @@ function contactLoss(
   }
   const i02 = i0r * i0r + i0i * i0i;
   const rhoMaxM = zoneRadius(pc, freqHz);
-  const rhoMinM =
-    pc.screen.lengthsM.length > 0 ? pc.wireRadiusM : Math.max(BARE_CONTACT_RADIUS_M, pc.wireRadiusM);
+  const rhoMinM = innerLimit(pc);
   // Azimuthally symmetric when every current-carrying wire is vertical through the contact.
   let symmetric = true;
   for (let s = 0; s < mesh.nSeg; s++) {

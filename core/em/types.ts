@@ -57,4 +57,10 @@ export interface AntennaModel {
    * and its own sources. With a network every feed is one of its ports and takes no voltage.
    */
   network?: NetworkSpec;
+  /**
+   * Several ground connections with radials: their radial fields meet and are bonded along the
+   * lines halfway between, and the ground loss is integrated once over the union with the total
+   * field (core/em/bondedRadials.ts). Default false: each connection's own disk.
+   */
+  radialsBonded?: boolean;
 }
