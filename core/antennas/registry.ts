@@ -8,6 +8,7 @@ import { invertedLBuilder } from './invertedL.ts';
 import { invertedVBuilder } from './invertedV.ts';
 import type { AntennaTypeId, Builder } from './types.ts';
 import { verticalBuilder } from './vertical.ts';
+import { verticalPairBuilder } from './verticalPair.ts';
 
 export const BUILDERS: readonly Builder[] = [
   dipoleBuilder,
@@ -15,6 +16,7 @@ export const BUILDERS: readonly Builder[] = [
   halfSquareBuilder,
   verticalBuilder,
   invertedLBuilder,
+  verticalPairBuilder,
 ];
 
 export function builderFor(type: AntennaTypeId): Builder {

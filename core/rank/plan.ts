@@ -69,8 +69,10 @@ export interface PlanOptions {
   /** Number of placements in the shortlist per band before the best of each missing type is added (default 10). */
   shortlistSize?: number;
   layerHeightsM?: readonly number[];
-  /** Only these antenna types (default: every registered type). */
+  /** Only these antenna types (default: every registered type, arrays only with `arrays`). */
   types?: readonly AntennaTypeId[];
+  /** Also plan the array types (several elements; slower). Default false. */
+  arrays?: boolean;
   onProgress?: (p: PlanProgress) => void;
 }
 
@@ -292,6 +294,7 @@ export function designKey(design: Design, ground: EvalGround): string {
       geom,
       feeds: model.feeds,
       radials: model.radials,
+      ...(model.network ? { net: model.network, bonded: model.radialsBonded === true } : {}),
       ground,
       ...(design.conductors?.length ? { sc: design.conductors } : {}),
       f: design.designFreqHz,
@@ -318,7 +321,9 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
   const metalSupports: NearbySupport[] = site.supports
     .filter((s) => s.conducts !== false && s.conducts !== undefined)
     .map((s) => ({ id: s.id, name: s.name, xy: s.xy, metal: s.metal ?? null }));
-  const builders = BUILDERS.filter((b) => !options.types || options.types.includes(b.type));
+  const builders = BUILDERS.filter((b) =>
+    options.types ? options.types.includes(b.type) : !b.array || options.arrays === true,
+  );
   const jobs = new Map<string, Job>();
   const bands = (options.bands ?? project.bands).map((band) => {
     const ctx = { site: prepared, band: bandPlan(band) };

@@ -53,6 +53,8 @@ export const solverEvaluator: Evaluator = (req) => {
       radiusM: r.radiusM,
     })),
     ground: groundSpec(req.ground),
+    ...(req.model.network ? { network: req.model.network } : {}),
+    ...(req.model.radialsBonded ? { radialsBonded: true } : {}),
   };
   if (req.pattern === null) {
     // Feed only: the solver's sweep meshes once and skips the far field.
@@ -71,7 +73,8 @@ export const solverEvaluator: Evaluator = (req) => {
   });
   const diagnostics = res.diagnostics.filter((d) => d.level === 'warning').map((d) => d.message);
   return res.frequencies.map((f) => {
-    const feed = f.feeds[0];
+    // an array is fed through its network: the impedance at the feed is its first source's
+    const feed = f.sources.length ? f.sources[0] : f.feeds[0];
     const gain = new Float64Array(f.pattern.length);
     for (let i = 0; i < f.pattern.length; i++) gain[i] = f.pattern[i].gainDbi;
     return {
