@@ -15,6 +15,7 @@
  * azimuths at 5–25° elevation.
  */
 import { BUILDERS, builderFor } from '../antennas/registry.ts';
+import { scoreStates, type StateResult } from './states.ts';
 import {
   conductorsNear,
   NEARBY_WAVELENGTHS,
@@ -154,7 +155,12 @@ export interface Candidate {
   rotationDeg: number;
   heights: { label: string; heightM: number }[];
   score: number;
+  /** Per region the gain of the best state (a switched array) or of the one fixed pattern. */
   regions: RegionResult[];
+  /** Radiating elements, driven and parasitic (1 for a single antenna). */
+  elementCount: number;
+  /** Switchable directions (relay states); one state, 'fixed', for a fixed antenna. */
+  states: { name: string; beamDeg: number; regions: { id: string; gainDbi: number }[] }[];
   peak: { gainDbi: number; elevationDeg: number; azimuthDeg: number };
   feed: { zOhm: [number, number]; swr: number; z0Ohm: number; freqMHz: number };
   bandwidth2to1: { lowMHz: number | null; highMHz: number | null; widthKHz: number; note: string };
@@ -441,7 +447,13 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
       const rec = cache.get(q.key);
       if (!rec) throw new Error(`conductorJobs: evaluation ${q.key} missing from the cache`);
       if (!checkPlacement(setup.prepared, placedElements(q.proposal, rec.trimM)).ok) return;
-      const { score } = scoreOf(rec.gainDbi, q.proposal.placement.rotationDeg);
+      const { score } = scoreStates(
+        scoreOf,
+        setup.paths.map((path) => path.weight),
+        rec.gainDbi,
+        q.proposal.placement.rotationDeg,
+        q.proposal.design,
+      );
       const prev = best.get(q.proposal.groupKey);
       if (!prev || score > prev.score) best.set(q.proposal.groupKey, { i, score });
     });
@@ -514,6 +526,7 @@ export function rankPlan(
   const rejected: RejectedPlacement[] = [];
   const patterns: Record<string, number[]> = {};
   const scoreOf = scorerFor(paths);
+  const pathWeights = paths.map((path) => path.weight);
   const ownSoil = projectSoilId(project);
   const rangeSoils = soilRangeOf(project);
   for (const b of setup.bands) {
@@ -524,6 +537,7 @@ export function rankPlan(
       rec: EvaluationRecord;
       score: number;
       regionGains: number[];
+      states: StateResult[];
       fits: string[];
       elements: Element[];
       unknownMetal: string[];
@@ -570,13 +584,21 @@ export function rankPlan(
         continue;
       }
       const rot = p.placement.rotationDeg;
-      const { score, regionGains } = scoreOf(rec.gainDbi, rot);
+      const { score, regionGains, states } = scoreStates(
+        scoreOf,
+        pathWeights,
+        rec.gainDbi,
+        rot,
+        p.design,
+        rec.peak.azimuthDeg,
+      );
       const s: Scored = {
         p,
         key,
         rec,
         score,
         regionGains,
+        states,
         fits: check.fits,
         elements,
         unknownMetal: unknownMetal ?? [],
@@ -611,11 +633,15 @@ export function rankPlan(
     const bandStart = candidates.length;
     const soilScores: Map<string, number>[] = [];
     [...chosen, ...extra].forEach((g, i) => {
-      const { p, rec, key, regionGains, fits, elements, unknownMetal } = g.best;
+      const { p, rec, key, regionGains, states, fits, elements, unknownMetal } = g.best;
       const perSoil = new Map<string, number>([[ownSoil, g.best.score]]);
       for (const id of rangeSoils) {
         const alt = cache.get(soilRangeKey(key, rangeSoils))?.soilRange?.find((r) => r.soilId === id);
-        if (alt && alt.gainDbi.length) perSoil.set(id, scoreOf(alt.gainDbi, p.placement.rotationDeg).score);
+        if (alt && alt.gainDbi.length)
+          perSoil.set(
+            id,
+            scoreStates(scoreOf, pathWeights, alt.gainDbi, p.placement.rotationDeg, p.design).score,
+          );
       }
       soilScores.push(perSoil);
       const nAntennaWires = builderFor(p.design.type).model(p.design, rec.trimM).wires.length;
@@ -673,6 +699,12 @@ export function rankPlan(
           distanceKm: path.distanceKm,
           elevationWindowDeg: path.elevationWindowDeg,
           hops: path.hopRange,
+        })),
+        elementCount: builder.elementCount ?? 1,
+        states: states.map((st) => ({
+          name: st.name,
+          beamDeg: st.beamDeg,
+          regions: paths.map((path, k) => ({ id: path.id, gainDbi: st.regionGains[k] })),
         })),
         peak: { gainDbi: rec.peak.gainDbi, elevationDeg: rec.peak.elevationDeg, azimuthDeg: peakAz },
         feed: { zOhm: rec.zOhm, swr: rec.swr, z0Ohm: Z0_OHM, freqMHz: rec.freqHz / 1e6 },
