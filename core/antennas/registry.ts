@@ -9,6 +9,7 @@ import { invertedVBuilder } from './invertedV.ts';
 import type { AntennaTypeId, Builder } from './types.ts';
 import { verticalBuilder } from './vertical.ts';
 import { verticalPairBuilder } from './verticalPair.ts';
+import { fourSquareBuilder } from './fourSquare.ts';
 
 export const BUILDERS: readonly Builder[] = [
   dipoleBuilder,
@@ -17,6 +18,7 @@ export const BUILDERS: readonly Builder[] = [
   verticalBuilder,
   invertedLBuilder,
   verticalPairBuilder,
+  fourSquareBuilder,
 ];
 
 export function builderFor(type: AntennaTypeId): Builder {

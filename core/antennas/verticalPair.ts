@@ -111,29 +111,6 @@ function pairModel(d: Design, H: number): WireModel {
   };
 }
 
-/**
- * Radial lengths at one base: a quarter wave unless the lot clips it, and cut where it meets the
- * line midway to the partner (bonded there). `towardDeg` is the site bearing of the partner.
- */
-function pairRadials(
-  clip: (bearingDeg: number, nominalM: number) => number,
-  rotationDeg: number,
-  towardCanonicalDeg: number,
-  count: number,
-  nominalM: number,
-  spacingM: number,
-): number[] {
-  const out: number[] = [];
-  for (let k = 0; k < count; k++) {
-    const b = (k * 360) / count;
-    const rel = ((b - towardCanonicalDeg) * Math.PI) / 180;
-    const meet = Math.cos(rel) > 1e-9 ? spacingM / 2 / Math.cos(rel) : Infinity;
-    const len = Math.min(clip(rotationDeg + b, nominalM), meet);
-    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
-  }
-  return out;
-}
-
 export const verticalPairBuilder: Builder = {
   type: 'vertical-pair',
   label: 'Two switched quarter-wave verticals (driven + reflector)',
@@ -219,21 +196,21 @@ export const verticalPairBuilder: Builder = {
             spacingM: round(s, 2),
             lineLengthM: round(halfWaveCoaxM(band.designFreqHz), 2),
             stubLengthM: round(stubLengthM(REFLECTOR_REACTANCE_OHM, band.designFreqHz), 2),
-            radialLengthsAM: pairRadials(
+            radialLengthsAM: radialsCutAtMidlines(
               (bg, n) => clipRadial(site, a, bg, n),
               rot,
-              180,
+              [0, s / 2],
+              [[0, -s / 2]],
               st.radialCount,
               radialM,
-              s,
             ),
-            radialLengthsBM: pairRadials(
+            radialLengthsBM: radialsCutAtMidlines(
               (bg, n) => clipRadial(site, bb, bg, n),
               rot,
-              0,
+              [0, -s / 2],
+              [[0, s / 2]],
               st.radialCount,
               radialM,
-              s,
             ),
           },
           trim: { ...trim, maxM: Math.min(trim.maxM, st.maxVerticalHeightM) },
@@ -298,3 +275,34 @@ export const verticalPairBuilder: Builder = {
     return items;
   },
 };
+
+/**
+ * Radial lengths at one base (canonical `base`), in canonical bearing order k·360°/N: a quarter
+ * wave unless the lot clips it (`clip` takes the site bearing), and cut where it meets the line
+ * midway to any other element (`others`, canonical), where the fields are bonded.
+ */
+export function radialsCutAtMidlines(
+  clip: (bearingDeg: number, nominalM: number) => number,
+  rotationDeg: number,
+  base: XY,
+  others: readonly XY[],
+  count: number,
+  nominalM: number,
+): number[] {
+  const out: number[] = [];
+  for (let k = 0; k < count; k++) {
+    const b = (2 * Math.PI * k) / count;
+    const ux = Math.sin(b);
+    const uy = Math.cos(b);
+    let meet = Infinity;
+    for (const o of others) {
+      const dx = o[0] - base[0];
+      const dy = o[1] - base[1];
+      const along = ux * dx + uy * dy;
+      if (along > 1e-9) meet = Math.min(meet, (dx * dx + dy * dy) / (2 * along));
+    }
+    const len = Math.min(clip(rotationDeg + (k * 360) / count, nominalM), meet);
+    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
+  }
+  return out;
+}
