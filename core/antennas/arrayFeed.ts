@@ -17,6 +17,30 @@ export interface ElementFeed {
   currentPhaseDeg: number;
 }
 
+/** What the planner keeps of it (EvaluationRecord.arrayFeed, Candidate.arrayFeed). */
+export interface ArrayFeed {
+  elements: ElementFeed[];
+  networkLossShare: number;
+}
+
+/** Drive impedances and current ratios of the feeds, relative to feed `reference`. */
+export function feedRatios(
+  labels: readonly string[],
+  ports: readonly { zOhm: readonly [number, number]; currentA: readonly [number, number] }[],
+  reference: number,
+): ElementFeed[] {
+  const ref = ports[reference].currentA;
+  const refAbs = Math.hypot(ref[0], ref[1]);
+  const refArg = Math.atan2(ref[1], ref[0]);
+  return ports.map((p, i) => ({
+    label: labels[i],
+    driveImpedanceOhm: [p.zOhm[0], p.zOhm[1]],
+    currentRatio: refAbs > 0 ? Math.hypot(p.currentA[0], p.currentA[1]) / refAbs : 0,
+    currentPhaseDeg:
+      ((((Math.atan2(p.currentA[1], p.currentA[0]) - refArg) * 180) / Math.PI + 540) % 360) - 180,
+  }));
+}
+
 export interface ArrayFeedReport {
   elements: ElementFeed[];
   /** The impedance the station's line sees (the network's first source). */
@@ -27,12 +51,12 @@ export interface ArrayFeedReport {
   groundLossShare: number;
 }
 
-/** The feed report of a wire model with a network; `reference` is the element the ratios refer to. */
+/** The feed report of a wire model with a network; `reference` (default the model's) is the element the ratios refer to. */
 export function arrayFeedReport(
   model: WireModel,
   ground: GroundSpec,
   freqHz: number,
-  reference = 0,
+  reference?: number,
 ): ArrayFeedReport {
   if (!model.network) throw new Error('arrayFeedReport: the model has no feed network');
   const am: AntennaModel = {
@@ -51,18 +75,11 @@ export function arrayFeedReport(
   };
   const r = evaluateAntenna(am, { frequenciesHz: [freqHz], pattern: { elevationsDeg: [], azimuthsDeg: [] } })
     .frequencies[0];
-  const ref = r.feeds[reference].currentA;
-  const refAbs = Math.hypot(ref[0], ref[1]);
-  const refArg = Math.atan2(ref[1], ref[0]);
-  const elements = r.feeds.map((f, i) => {
-    const d = ((((Math.atan2(f.currentA[1], f.currentA[0]) - refArg) * 180) / Math.PI + 540) % 360) - 180;
-    return {
-      label: model.wires[model.feeds[i].wire].label,
-      driveImpedanceOhm: [f.impedanceOhm[0], f.impedanceOhm[1]] as [number, number],
-      currentRatio: refAbs > 0 ? Math.hypot(f.currentA[0], f.currentA[1]) / refAbs : 0,
-      currentPhaseDeg: d,
-    };
-  });
+  const elements = feedRatios(
+    model.feeds.map((f) => model.wires[f.wire].label),
+    r.feeds.map((f) => ({ zOhm: f.impedanceOhm, currentA: f.currentA })),
+    reference ?? model.referenceFeed ?? 0,
+  );
   const p = r.inputPowerW;
   return {
     elements,

@@ -101,6 +101,7 @@ function fourSquareModel(d: Design, H: number): WireModel {
     radials,
     network: fourSquareNetwork(d),
     radialsBonded: true,
+    referenceFeed: 2,
   };
 }
 

@@ -50,6 +50,8 @@ export interface WireModel {
   network?: NetworkSpec;
   /** Arrays of verticals: the radial fields meet and are bonded (core/em/bondedRadials.ts). */
   radialsBonded?: boolean;
+  /** Arrays: the feed whose current the achieved current ratios refer to (default 0). */
+  referenceFeed?: number;
 }
 
 export type DesignParams = Record<string, number | number[]>;

@@ -14,6 +14,7 @@ import { evaluationModel } from '../antennas/conductors.ts';
 import type { Design } from '../antennas/types.ts';
 import { Z0_OHM, swrOf, type EvalGround, type EvalFrequency, type Evaluator } from './evaluator.ts';
 import { PATTERN_GRID } from './pattern.ts';
+import { feedRatios, type ArrayFeed } from '../antennas/arrayFeed.ts';
 
 export const TRIM_TOL_X_OHM = 0.5;
 export const TRIM_TOL_M = 0.001;
@@ -47,6 +48,26 @@ export interface EvaluationRecord {
    * soil: gain on PATTERN_GRID, one entry per class asked for. Absent when none was asked.
    */
   soilRange?: { soilId: string; gainDbi: number[] }[];
+  /** Arrays: what the feed network achieves at f0 (core/antennas/arrayFeed.ts). */
+  arrayFeed?: ArrayFeed;
+}
+
+function arrayFeedOf(
+  design: Design,
+  trimM: number,
+  ports: NonNullable<EvalFrequency['ports']>,
+  networkLossW: number,
+  inputW: number,
+): ArrayFeed {
+  const model = evaluationModel(design, trimM);
+  return {
+    elements: feedRatios(
+      model.feeds.map((f) => model.wires[f.wire].label),
+      ports,
+      model.referenceFeed ?? 0,
+    ),
+    networkLossShare: inputW > 0 ? networkLossW / inputW : 0,
+  };
 }
 
 function fitQuadratic(xs: readonly number[], ys: readonly number[]): (x: number) => number {
@@ -236,5 +257,8 @@ export function evaluateDesign(
     },
     diagnostics: [...new Set(diagnostics)],
     ...(range.length ? { soilRange: range } : {}),
+    ...(main.ports
+      ? { arrayFeed: arrayFeedOf(design, trimM, main.ports, main.networkLossW ?? 0, inputPowerW) }
+      : {}),
   };
 }

@@ -34,6 +34,10 @@ export interface EvalFrequency {
   radiatedPowerW?: number;
   conductorLossW?: number;
   groundLossW?: number;
+  /** Arrays (a model with a feed network), full requests: each feed's drive impedance and current. */
+  ports?: { zOhm: [number, number]; currentA: [number, number] }[];
+  /** Arrays, full requests: power dissipated in the feed network, watts. */
+  networkLossW?: number;
   /** Total gain, dBi, on the requested grid: elevation-major (index = iEl·nAz + iAz). */
   gainDbi: Float64Array | null;
   diagnostics: string[];

@@ -16,6 +16,7 @@
  */
 import { BUILDERS, builderFor } from '../antennas/registry.ts';
 import { scoreStates, type StateResult } from './states.ts';
+import type { ArrayFeed } from '../antennas/arrayFeed.ts';
 import {
   conductorsNear,
   NEARBY_WAVELENGTHS,
@@ -159,6 +160,8 @@ export interface Candidate {
   regions: RegionResult[];
   /** Radiating elements, driven and parasitic (1 for a single antenna). */
   elementCount: number;
+  /** Arrays: each element's drive impedance and the current ratios the feed network achieves. */
+  arrayFeed?: ArrayFeed;
   /** Switchable directions (relay states); one state, 'fixed', for a fixed antenna. */
   states: { name: string; beamDeg: number; regions: { id: string; gainDbi: number }[] }[];
   peak: { gainDbi: number; elevationDeg: number; azimuthDeg: number };
@@ -701,6 +704,7 @@ export function rankPlan(
           hops: path.hopRange,
         })),
         elementCount: builder.elementCount ?? 1,
+        ...(rec.arrayFeed ? { arrayFeed: rec.arrayFeed } : {}),
         states: states.map((st) => ({
           name: st.name,
           beamDeg: st.beamDeg,

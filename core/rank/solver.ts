@@ -84,6 +84,15 @@ export const solverEvaluator: Evaluator = (req) => {
       radiatedPowerW: f.radiatedPowerW,
       conductorLossW: f.conductorLossW,
       groundLossW: f.groundLossW,
+      ...(model.network
+        ? {
+            ports: f.feeds.map((p) => ({
+              zOhm: [p.impedanceOhm[0], p.impedanceOhm[1]] as [number, number],
+              currentA: [p.currentA[0], p.currentA[1]] as [number, number],
+            })),
+            networkLossW: f.networkLossW,
+          }
+        : {}),
       gainDbi: gain,
       diagnostics,
     };

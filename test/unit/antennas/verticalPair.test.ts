@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { builderFor } from '../../../core/antennas/registry.ts';
 import { bandPlan } from '../../../core/antennas/common.ts';
 import {
+  COAX_LOSS_DB_PER_100M,
   COAX_VELOCITY_FACTOR,
   COAX_Z0_OHM,
   REFLECTOR_REACTANCE_OHM,
@@ -111,6 +112,20 @@ describe('two switched verticals', () => {
     expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeGreaterThan(1.5);
     expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeLessThan(4);
     expect(fwd - back).toBeGreaterThan(4);
+    // what the network achieves: the reflector's current, relative to the driven element's
+    const feed = pair.arrayFeed!;
+    expect(feed.elements.map((e) => e.label)).toEqual(['vertical A', 'vertical B']);
+    expect(feed.elements[1].currentRatio).toBeGreaterThan(0.3);
+    expect(feed.elements[1].currentRatio).toBeLessThan(1.2);
+    // the network's loss: at least the matched loss of the driven element's half-wave line
+    // (1 − 10^(−αℓ/10), Pozar §2.7; mismatch only adds to it), and the reflector's line and stub on top
+    const lineDb =
+      (COAX_LOSS_DB_PER_100M *
+        Math.sqrt(p.design.designFreqHz / 3.6e6) *
+        (p.design.params.lineLengthM as number)) /
+      100;
+    expect(feed.networkLossShare).toBeGreaterThan(1 - 10 ** (-lineDb / 10));
+    expect(feed.networkLossShare).toBeLessThan(0.3);
     // the driven element's resistance drops with the close reflector (mutual coupling): below one vertical's
     expect(pair.zOhm[0]).toBeLessThan(one.zOhm[0]);
   });
