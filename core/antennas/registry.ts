@@ -8,6 +8,8 @@ import { invertedLBuilder } from './invertedL.ts';
 import { invertedVBuilder } from './invertedV.ts';
 import type { AntennaTypeId, Builder } from './types.ts';
 import { verticalBuilder } from './vertical.ts';
+import { verticalPairBuilder } from './verticalPair.ts';
+import { fourSquareBuilder } from './fourSquare.ts';
 
 export const BUILDERS: readonly Builder[] = [
   dipoleBuilder,
@@ -15,6 +17,8 @@ export const BUILDERS: readonly Builder[] = [
   halfSquareBuilder,
   verticalBuilder,
   invertedLBuilder,
+  verticalPairBuilder,
+  fourSquareBuilder,
 ];
 
 export function builderFor(type: AntennaTypeId): Builder {

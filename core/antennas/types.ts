@@ -10,6 +10,7 @@ import type { XY } from '../site/frame.ts';
 import type { Element, PreparedSite } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
 import type { SupportConductor } from './conductors.ts';
+import type { NetworkSpec } from '../em/network.ts';
 
 export type AntennaTypeId =
   'dipole' | 'inverted-v' | 'half-square' | 'vertical' | 'inverted-l' | (string & {});
@@ -45,6 +46,12 @@ export interface WireModel {
   wires: ModelWire[];
   feeds: ModelFeed[];
   radials: ModelRadials[];
+  /** Arrays: the feed network between the feeds (core/em/network.ts); its first source is the feed the trim reads. */
+  network?: NetworkSpec;
+  /** Arrays of verticals: the radial fields meet and are bonded (core/em/bondedRadials.ts). */
+  radialsBonded?: boolean;
+  /** Arrays: the feed whose current the achieved current ratios refer to (default 0). */
+  referenceFeed?: number;
 }
 
 export type DesignParams = Record<string, number | number[]>;
@@ -62,6 +69,11 @@ export interface Design {
    * set by the planner, not by a builder. They go into the solver's model after the antenna's wires.
    */
   conductors?: SupportConductor[];
+  /**
+   * Switchable directions of an array (relay states). Each state's pattern is the evaluated
+   * (state 1) pattern turned by `rotationDeg` in the canonical frame; a fixed antenna has none.
+   */
+  states?: { name: string; rotationDeg: number }[];
 }
 
 /** Canonical frame → site: rotate clockwise (compass sense) by rotationDeg about the origin, then translate. */
@@ -104,7 +116,7 @@ export interface BuildContext {
 }
 
 /** What a cut-list piece is, so that no consumer has to read it from the label. */
-export type CutKind = 'wire' | 'radial' | 'rope';
+export type CutKind = 'wire' | 'radial' | 'rope' | 'coax';
 
 export interface CutItem {
   kind: CutKind;
@@ -124,6 +136,10 @@ export interface HeightItem {
 export interface Builder {
   type: AntennaTypeId;
   label: string;
+  /** An array (several elements): planned only when the caller asks for arrays. */
+  array?: boolean;
+  /** Radiating elements, driven and parasitic (1 when absent). */
+  elementCount?: number;
   /** Proposals (before solver work) and the reasons some were not proposed. */
   propose(ctx: BuildContext): { proposals: Proposal[]; rejections: Rejection[] };
   /** Wire model at the trim value, canonical frame. */

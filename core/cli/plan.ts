@@ -3,7 +3,8 @@
  *
  * Options: --json (machine-readable, schema in core/rank/README.md), --band 160m|80m|40m (repeatable;
  * default the project's bands), --top N (placements per band, default 10), --workers N (default and
- * most: the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON).
+ * most: the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON),
+ * --arrays (also plan the array types; slower).
  * A progress line goes to stderr while designs are evaluated.
  */
 import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
@@ -37,13 +38,14 @@ export interface PlanIo {
 }
 
 const USAGE =
-  'usage: plan (FILE.json | --demo) [--json] [--band 160m|80m|40m]... [--top N] [--workers N] [--patterns]\n';
+  'usage: plan (FILE.json | --demo) [--json] [--band 160m|80m|40m]... [--top N] [--workers N] [--patterns] [--arrays]\n';
 
 interface Args {
   file: string | null;
   demo: boolean;
   json: boolean;
   patterns: boolean;
+  arrays: boolean;
   bands: Band[];
   top: number;
   workers: number;
@@ -55,6 +57,7 @@ function parseArgs(argv: string[]): Args | string {
     demo: false,
     json: false,
     patterns: false,
+    arrays: false,
     bands: [],
     top: 10,
     workers: availableParallelism(),
@@ -65,6 +68,7 @@ function parseArgs(argv: string[]): Args | string {
     if (v === '--demo') a.demo = true;
     else if (v === '--json') a.json = true;
     else if (v === '--patterns') a.patterns = true;
+    else if (v === '--arrays') a.arrays = true;
     else if (v === '--band') {
       const b = next();
       if (!b || !(BANDS as readonly string[]).includes(b)) return `--band needs one of ${BANDS.join(', ')}`;
@@ -385,7 +389,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
   let setup: ReturnType<typeof enumeratePlan>;
   try {
-    setup = enumeratePlan(project, { bands });
+    setup = enumeratePlan(project, { bands, arrays: args.arrays });
   } catch (e) {
     await pool?.close();
     throw e;

@@ -2,7 +2,8 @@
  * `report FILE.json --candidate ID --out report.html | report --demo [--candidate ID] --out FILE`:
  * the station report (build sheet) of one shortlisted candidate as a standalone printable HTML
  * file. Options: --power W (PEP, default 100), --mode ssb|cw|ft8 (default ssb), --on-time 0…1
- * (default 0.5), --units imperial|metric (default: the project's choice), --coax RG-58|RG-8X|RG-213|"low-loss 10 mm foam" (default RG-213), --workers N.
+ * (default 0.5), --units imperial|metric (default: the project's choice), --coax RG-58|RG-8X|RG-213|"low-loss 10 mm foam" (default RG-213), --workers N,
+ * --arrays (the plan includes the array types, so an array candidate can be given).
  * Options not given come from the project's station settings (whose defaults are the ones above).
  * The plan is computed for the candidate's band (default candidate: the first of the first band).
  */
@@ -27,7 +28,7 @@ export interface ReportIo {
 }
 
 const MODES = ['ssb', 'cw', 'ft8'] as const;
-const USAGE = `usage: report (FILE.json | --demo) [--candidate ID] --out FILE.html [--units imperial|metric] [--power W] [--mode ${MODES.join('|')}] [--on-time 0..1] [--coax ${COAX_TYPES.join('|')}] [--workers N]\n`;
+const USAGE = `usage: report (FILE.json | --demo) [--candidate ID] --out FILE.html [--units imperial|metric] [--power W] [--mode ${MODES.join('|')}] [--on-time 0..1] [--coax ${COAX_TYPES.join('|')}] [--workers N] [--arrays]\n`;
 
 interface Args {
   file: string | null;
@@ -39,6 +40,7 @@ interface Args {
   workers: number;
   /** Null: the project's choice. */
   units: UnitSystem | null;
+  arrays: boolean;
 }
 
 function parseArgs(argv: string[]): Args | string {
@@ -50,11 +52,13 @@ function parseArgs(argv: string[]): Args | string {
     station: {},
     workers: availableParallelism(),
     units: null,
+    arrays: false,
   };
   for (let i = 0; i < argv.length; i++) {
     const v = argv[i];
     const next = (): string | undefined => argv[++i];
     if (v === '--demo') a.demo = true;
+    else if (v === '--arrays') a.arrays = true;
     else if (v === '--candidate' || v === '--out') {
       const s = next();
       if (!s) return `${v} needs a value`;
@@ -130,7 +134,7 @@ export async function runReport(argv: string[], io: ReportIo): Promise<number> {
     io.stderr('the project has no bands to plan\n');
     return 1;
   }
-  const setup = enumeratePlan(project, { bands: [band] });
+  const setup = enumeratePlan(project, { bands: [band], arrays: args.arrays });
   const cache = memoryCache();
   io.stderr(`report: planning ${band} (${setup.jobs.length} designs)\n`);
   if (args.workers > 0) {

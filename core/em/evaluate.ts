@@ -9,7 +9,7 @@
  * for a lossless antenna it is 1 and 2 respectively (power conservation), so
  *     averageGain = P_rad/P_in (free space),  2·P_rad/P_in (over ground).
  * Over lossy ground the ground loss is the input power not radiated into the upper half-space
- * and not lost in wires or loads: P_in − P_rad − P_cond − P_load; its part in a radial system
+ * and not lost in wires, loads or a feed network: P_in − P_rad − P_cond − P_load − P_net; its part in a radial system
  * (Wait–Pope) is reported separately. In free space and over perfect ground the same difference
  * should vanish; it is reported as a diagnostic when above 0.5 %. Over the exact ground, with
  * `groundPowerCheck`, the power into the ground is also computed on its own from the plane-wave
@@ -81,7 +81,19 @@ export interface FeedOutput {
   position: number;
   impedanceOhm: ComplexPair;
   currentA: ComplexPair;
+  /** The gap voltage: the source voltage, or with a feed network the voltage it delivers. */
+  voltageV: ComplexPair;
   swr: number;
+}
+
+export interface SourceOutput {
+  node: string;
+  kind: 'voltage' | 'current';
+  voltageV: ComplexPair;
+  currentA: ComplexPair;
+  impedanceOhm: ComplexPair;
+  swr: number;
+  powerW: number;
 }
 
 export interface GroundSystemOutput {
@@ -100,6 +112,10 @@ export interface FrequencyResult {
   radiatedPowerW: number;
   conductorLossW: number;
   loadLossW: number;
+  /** Dissipated in the feed network's lines and impedances (core/em/network.ts); 0 without one. */
+  networkLossW: number;
+  /** The feed network's sources (the input power is theirs); empty without a network. */
+  sources: SourceOutput[];
   /** All ground loss (radial system included); 0 in free space and over perfect ground. */
   groundLossW: number;
   groundSystems: GroundSystemOutput[];
@@ -234,7 +250,7 @@ export function frequencyResult(
     );
   const prad = integrateRadiatedPower(src, ETA0).watts;
   const hasGround = pm.ground.hasGround;
-  const losses = sol.conductorLossW + sol.loadLossW;
+  const losses = sol.conductorLossW + sol.loadLossW + sol.networkLossW;
   const soil = pm.ground.soil !== null;
   const groundLossW = soil ? pin - prad - losses : 0;
   let groundAbsorbedW: number | null = null;
@@ -276,6 +292,7 @@ export function frequencyResult(
         position: f.position,
         impedanceOhm: [fr.impedance.re, fr.impedance.im],
         currentA: [fr.current.re, fr.current.im],
+        voltageV: [fr.voltage.re, fr.voltage.im],
         swr: swrOf(fr.impedance.re, fr.impedance.im, z0),
       };
     }),
@@ -283,6 +300,16 @@ export function frequencyResult(
     radiatedPowerW: prad,
     conductorLossW: sol.conductorLossW,
     loadLossW: sol.loadLossW,
+    networkLossW: sol.networkLossW,
+    sources: (sol.network?.sources ?? []).map((s) => ({
+      node: s.node,
+      kind: s.kind,
+      voltageV: [s.voltage.re, s.voltage.im],
+      currentA: [s.current.re, s.current.im],
+      impedanceOhm: [s.impedance.re, s.impedance.im],
+      swr: swrOf(s.impedance.re, s.impedance.im, z0),
+      powerW: s.powerW,
+    })),
     groundLossW,
     groundAbsorbedW,
     groundSystems: sol.contacts.map((cr, i) => ({

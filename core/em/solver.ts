@@ -35,6 +35,14 @@ import {
   type RadialScreen,
 } from './radials.ts';
 import type { AntennaModel, LoadSpec } from './types.ts';
+import { bondedGroundLoss } from './bondedRadials.ts';
+import {
+  OPEN_PORT_IMPEDANCE_OHM,
+  prepareNetwork,
+  solveNetwork,
+  type NetworkSolution,
+  type PreparedNetwork,
+} from './network.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
 export interface Port {
@@ -69,6 +77,8 @@ export interface PreparedModel {
   feeds: PreparedFeed[];
   loads: PreparedLoad[];
   contacts: PreparedContact[];
+  /** The feed network, when the model has one (network.ts); its ports are the feeds. */
+  network: PreparedNetwork | null;
   diagnostics: Diagnostic[];
 }
 
@@ -127,8 +137,14 @@ export function prepareModel(
         message: `feed ${i} moved from ${f.position} to ${port.position.toFixed(4)} along wire ${f.wire} (nearest segment end)`,
         field: `feeds[${i}].position`,
       });
+    if (model.network && f.voltage !== undefined)
+      throw new ModelError(
+        `feeds[${i}].voltage`,
+        'a feed connected to the network takes its voltage from the network: remove the voltage',
+      );
     return { ...port, voltage: c(v[0], v[1]) };
   });
+  const network = model.network ? prepareNetwork(model.network, feeds.length) : null;
   const loads: PreparedLoad[] = (model.loads ?? []).map((l, i) => {
     const port = resolvePort(mesh, l.wire, l.position, `loads[${i}]`, nW);
     if (l.kind === 'parallel-rlc' && l.rOhm === undefined && l.lH === undefined && l.cF === undefined)
@@ -192,6 +208,7 @@ export function prepareModel(
     feeds,
     loads,
     contacts,
+    network,
     // the approximation's warning about low wires does not apply to the exact model
     diagnostics: exact ? diagnostics.filter((d) => !APPROXIMATION_ONLY.has(d.code)) : diagnostics,
   };
@@ -248,6 +265,9 @@ export interface FrequencySolution {
   conductorLossW: number;
   loadLossW: number;
   groundSystemLossW: number;
+  /** The feed network's solution (sources, port voltages, its own loss); null without one. */
+  network: NetworkSolution | null;
+  networkLossW: number;
   groundAt: GroundAtFrequency | null;
 }
 
@@ -324,12 +344,6 @@ export function solveFrequency(
         z[idx + 1] += w * zl.im;
       }
   });
-  const rhs = new Float64Array(n2);
-  for (const f of pm.feeds)
-    for (let t = 0; t < f.basis.length; t++) {
-      rhs[2 * f.basis[t]] += f.coef[t] * f.voltage.re;
-      rhs[2 * f.basis[t] + 1] += f.coef[t] * f.voltage.im;
-    }
   let lu: ReturnType<typeof luFactor>;
   try {
     lu = luFactor(n, z, ws.pivots);
@@ -337,19 +351,58 @@ export function solveFrequency(
     if (e instanceof SingularMatrixError) throw singularModelError(mesh, e.column);
     throw e;
   }
-  const x = luSolve(lu, rhs.slice());
+  const portVector = (f: PreparedFeed): Float64Array => {
+    const e = new Float64Array(n2);
+    for (let t = 0; t < f.basis.length; t++) e[2 * f.basis[t]] += f.coef[t];
+    return e;
+  };
+  let x: Float64Array;
+  // With a network: W = Z⁻¹E (one column per port), the wires' port admittance Eᵀ W, the network
+  // solved on it, and x = W V (network.ts). Without: x = Z⁻¹ Σ E_p V_p.
+  let w: Float64Array[] = [];
+  let net: NetworkSolution | null = null;
+  const solveNet = (): Float64Array => {
+    const m = w.length;
+    const yw: Complex[] = [];
+    for (let r = 0; r < m; r++) for (let q = 0; q < m; q++) yw.push(portDot(pm.feeds[r], w[q]));
+    net = solveNetwork(pm.network!, yw, freqHz);
+    const out = new Float64Array(n2);
+    net.portVoltages.forEach((v, q) => {
+      const wq = w[q];
+      for (let i = 0; i < n; i++) {
+        out[2 * i] += wq[2 * i] * v.re - wq[2 * i + 1] * v.im;
+        out[2 * i + 1] += wq[2 * i] * v.im + wq[2 * i + 1] * v.re;
+      }
+    });
+    return out;
+  };
+  if (pm.network) {
+    w = pm.feeds.map((f) => luSolve(lu, portVector(f)));
+    x = solveNet();
+  } else {
+    const rhs = new Float64Array(n2);
+    for (const f of pm.feeds)
+      for (let t = 0; t < f.basis.length; t++) {
+        rhs[2 * f.basis[t]] += f.coef[t] * f.voltage.re;
+        rhs[2 * f.basis[t] + 1] += f.coef[t] * f.voltage.im;
+      }
+    x = luSolve(lu, rhs);
+  }
 
   // Ground connections over lossy ground: Wait–Pope loss in series, Woodbury update.
   const contacts: ContactResult[] = [];
   if (pm.contacts.length > 0 && groundAt?.zg) {
     const nodeI = nodeCurrentsOf(mesh, x);
-    const rg = pm.contacts.map((pc) => contactLoss(pm, pc, freqHz, k, nodeI, x, groundAt.zg!));
-    woodburyUpdate(
-      pm,
-      lu,
-      x,
-      rg.map((r) => r.lossResistanceOhm),
-    );
+    const rg =
+      pm.model.radialsBonded && pm.contacts.length > 1
+        ? bondedContactLoss(pm, freqHz, k, nodeI, x, groundAt.zg)
+        : pm.contacts.map((pc) => contactLoss(pm, pc, freqHz, k, nodeI, x, groundAt.zg!));
+    const rgOhm = rg.map((r) => r.lossResistanceOhm);
+    if (pm.network) {
+      // the loss resistances change the wires' port admittance: update W, solve the network again
+      woodburyUpdate(pm, lu, w, rgOhm);
+      x = solveNet();
+    } else woodburyUpdate(pm, lu, [x], rgOhm);
     pm.contacts.forEach((pc, i) => {
       let re = 0;
       let im = 0;
@@ -362,14 +415,23 @@ export function solveFrequency(
   }
   const nodeCurrents = nodeCurrentsOf(mesh, x);
 
-  const feeds: FeedResult[] = pm.feeds.map((f) => {
+  const netSol = net as NetworkSolution | null;
+  const feeds: FeedResult[] = pm.feeds.map((f, p) => {
     const i = portDot(f, x);
+    if (netSol) {
+      // a network port may be open (an idle element): report a finite stand-in impedance
+      const v = netSol.portVoltages[p];
+      const open = !(Math.hypot(i.re, i.im) > 1e-15 * Math.max(1, Math.hypot(v.re, v.im)));
+      return { voltage: v, current: i, impedance: open ? c(OPEN_PORT_IMPEDANCE_OHM) : cDiv(v, i) };
+    }
     if (!(Math.hypot(i.re, i.im) > 0))
       throw new ModelError('feeds', 'a feed carries no current (the antenna is open-circuited at the feed)');
     return { voltage: f.voltage, current: i, impedance: cDiv(f.voltage, i) };
   });
   let inputPowerW = 0;
-  for (const f of feeds) inputPowerW += 0.5 * (f.voltage.re * f.current.re + f.voltage.im * f.current.im);
+  if (netSol) for (const s of netSol.sources) inputPowerW += s.powerW;
+  else
+    for (const f of feeds) inputPowerW += 0.5 * (f.voltage.re * f.current.re + f.voltage.im * f.current.im);
   let conductorLossW = 0;
   for (let s = 0; s < mesh.nSeg; s++) {
     const zi = zInt[mesh.segWire[s]];
@@ -404,6 +466,8 @@ export function solveFrequency(
     conductorLossW,
     loadLossW,
     groundSystemLossW,
+    network: netSol,
+    networkLossW: netSol?.lossW ?? 0,
     groundAt,
   };
 }
@@ -411,10 +475,10 @@ export function solveFrequency(
 function woodburyUpdate(
   pm: PreparedModel,
   lu: ReturnType<typeof luFactor>,
-  x: Float64Array,
+  xs: Float64Array[],
   rg: number[],
 ): void {
-  // Z' = Z + E R Eᵀ; x' = x − Y R (I + Eᵀ Y R)⁻¹ Eᵀ x, Y = Z⁻¹E.
+  // Z' = Z + E R Eᵀ; x' = x − Y R (I + Eᵀ Y R)⁻¹ Eᵀ x, Y = Z⁻¹E, for each x = Z⁻¹b given.
   const m = rg.length;
   const n = pm.mesh.nBasis;
   const Y: Float64Array[] = pm.contacts.map((pc) => {
@@ -438,20 +502,23 @@ function woodburyUpdate(
       S[2 * (i * m + j)] = (i === j ? 1 : 0) + d.re * rg[j];
       S[2 * (i * m + j) + 1] = d.im * rg[j];
     }
-  const t = new Float64Array(2 * m);
-  for (let i = 0; i < m; i++) {
-    const d = eDot(i, x);
-    t[2 * i] = d.re;
-    t[2 * i + 1] = d.im;
-  }
-  const w = luSolve(luFactor(m, S), t);
-  for (let j = 0; j < m; j++) {
-    const wr = w[2 * j] * rg[j];
-    const wi = w[2 * j + 1] * rg[j];
-    const yj = Y[j];
-    for (let i = 0; i < n; i++) {
-      x[2 * i] -= yj[2 * i] * wr - yj[2 * i + 1] * wi;
-      x[2 * i + 1] -= yj[2 * i] * wi + yj[2 * i + 1] * wr;
+  const sLu = luFactor(m, S);
+  for (const x of xs) {
+    const t = new Float64Array(2 * m);
+    for (let i = 0; i < m; i++) {
+      const d = eDot(i, x);
+      t[2 * i] = d.re;
+      t[2 * i + 1] = d.im;
+    }
+    const w = luSolve(sLu, t);
+    for (let j = 0; j < m; j++) {
+      const wr = w[2 * j] * rg[j];
+      const wi = w[2 * j + 1] * rg[j];
+      const yj = Y[j];
+      for (let i = 0; i < n; i++) {
+        x[2 * i] -= yj[2 * i] * wr - yj[2 * i + 1] * wi;
+        x[2 * i + 1] -= yj[2 * i] * wi + yj[2 * i + 1] * wr;
+      }
     }
   }
 }
@@ -543,6 +610,54 @@ export function surfaceMagneticField(
   out[3] = f * hyi;
 }
 
+/** Inner limit of a connection's integration: the wire radius with radials, the stake without. */
+function innerLimit(pc: PreparedContact): number {
+  return pc.screen.lengthsM.length > 0 ? pc.wireRadiusM : Math.max(BARE_CONTACT_RADIUS_M, pc.wireRadiusM);
+}
+
+/** Bonded radial fields of several connections (bondedRadials.ts), with the solved currents' field. */
+function bondedContactLoss(
+  pm: PreparedModel,
+  freqHz: number,
+  k: number,
+  nodeI: Float64Array,
+  x: Float64Array,
+  zg: Complex,
+): Omit<ContactResult, 'current'>[] {
+  const h = new Float64Array(4);
+  const connections = pm.contacts.map((pc) => {
+    let re = 0;
+    let im = 0;
+    for (const b of pc.contact.basis) {
+      re += x[2 * b];
+      im += x[2 * b + 1];
+    }
+    return {
+      x: pc.contact.x,
+      y: pc.contact.y,
+      screen: pc.screen,
+      rhoMinM: innerLimit(pc),
+      rhoMaxM: zoneRadius(pc, freqHz),
+      current: c(re, im),
+    };
+  });
+  const loss = bondedGroundLoss({
+    freqHz,
+    zg,
+    connections,
+    hAbs2: (px, py) => {
+      surfaceMagneticField(pm.mesh, nodeI, k, px, py, h);
+      return h[0] * h[0] + h[1] * h[1] + h[2] * h[2] + h[3] * h[3];
+    },
+  });
+  return pm.contacts.map((pc, i) => ({
+    lossResistanceOhm: loss.lossResistanceOhm[i],
+    integrationLimitM: connections[i].rhoMaxM,
+    innerLimitM: connections[i].rhoMinM,
+    radials: pc.screen.lengthsM.length,
+  }));
+}
+
 function contactLoss(
   pm: PreparedModel,
   pc: PreparedContact,
@@ -561,8 +676,7 @@ function contactLoss(
   }
   const i02 = i0r * i0r + i0i * i0i;
   const rhoMaxM = zoneRadius(pc, freqHz);
-  const rhoMinM =
-    pc.screen.lengthsM.length > 0 ? pc.wireRadiusM : Math.max(BARE_CONTACT_RADIUS_M, pc.wireRadiusM);
+  const rhoMinM = innerLimit(pc);
   // Azimuthally symmetric when every current-carrying wire is vertical through the contact.
   let symmetric = true;
   for (let s = 0; s < mesh.nSeg; s++) {

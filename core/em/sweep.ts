@@ -34,7 +34,7 @@ export interface SweepOptions {
   groundModel?: GroundModelChoice;
   /** Solve every m-th frequency only and interpolate between (m ≥ 2); default 1 (solve all). */
   anchorEvery?: number;
-  /** Which feed (index) to report; default 0. */
+  /** Which feed (index) to report; default 0. With a feed network: its first source's impedance. */
   feed?: number;
 }
 
@@ -54,6 +54,8 @@ export interface SweepResult {
 
 function feedImpedance(pm: PreparedModel, f: number, ws: SolveWorkspace, feed: number): Complex {
   const sol = solveFrequency(pm, f, ws);
+  // with a feed network the impedance that matters is the one its first source sees
+  if (sol.network && sol.network.sources.length > 0) return sol.network.sources[0].impedance;
   const fr = sol.feeds[feed];
   if (!fr) throw new ModelError('feed', `there is no feed ${feed}`);
   return fr.impedance;

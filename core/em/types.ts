@@ -3,6 +3,7 @@
  * z = 0). The JSON input (core/em/input.ts) converts to these.
  */
 import type { ConductorMaterial, MaterialName } from './conductor.ts';
+import type { NetworkSpec } from './network.ts';
 
 export type Vec3 = readonly [number, number, number];
 /** A complex number as [re, im] in an input or output document. */
@@ -51,4 +52,15 @@ export interface AntennaModel {
   loads?: readonly LoadSpec[];
   radials?: readonly RadialSpec[];
   ground: GroundSpec;
+  /**
+   * A feed network (lines, transformers, hybrids, relays; core/em/network.ts) between the feeds
+   * and its own sources. With a network every feed is one of its ports and takes no voltage.
+   */
+  network?: NetworkSpec;
+  /**
+   * Several ground connections with radials: their radial fields meet and are bonded along the
+   * lines halfway between, and the ground loss is integrated once over the union with the total
+   * field (core/em/bondedRadials.ts). Default false: each connection's own disk.
+   */
+  radialsBonded?: boolean;
 }

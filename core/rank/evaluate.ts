@@ -20,6 +20,7 @@ import { quadraticThrough } from '../numeric/fit.ts';
 import { trimToResonance } from '../numeric/roots.ts';
 import { Z0_OHM, type EvalGround, type EvalFrequency, type Evaluator } from './evaluator.ts';
 import { PATTERN_GRID } from './pattern.ts';
+import { feedRatios, type ArrayFeed } from '../antennas/arrayFeed.ts';
 
 export const TRIM_TOL_X_OHM = 0.5;
 export const TRIM_TOL_M = 0.001;
@@ -63,6 +64,26 @@ export interface EvaluationRecord {
    * with it instead of failing; every other field then holds a neutral value.
    */
   unsolvable?: string;
+  /** Arrays: what the feed network achieves at f0 (core/antennas/arrayFeed.ts). */
+  arrayFeed?: ArrayFeed;
+}
+
+function arrayFeedOf(
+  design: Design,
+  trimM: number,
+  ports: NonNullable<EvalFrequency['ports']>,
+  networkLossW: number,
+  inputW: number,
+): ArrayFeed {
+  const model = evaluationModel(design, trimM);
+  return {
+    elements: feedRatios(
+      model.feeds.map((f) => model.wires[f.wire].label),
+      ports,
+      model.referenceFeed ?? 0,
+    ),
+    networkLossShare: inputW > 0 ? networkLossW / inputW : 0,
+  };
 }
 
 /** The record of a design the solver cannot solve: the reason, and neutral values elsewhere. */
@@ -256,5 +277,8 @@ function evaluateDesignOrThrow(
     },
     diagnostics: [...new Set(diagnostics)],
     ...(range.length ? { soilRange: range } : {}),
+    ...(main.ports
+      ? { arrayFeed: arrayFeedOf(design, trimM, main.ports, main.networkLossW ?? 0, inputPowerW) }
+      : {}),
   };
 }

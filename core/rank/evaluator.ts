@@ -38,6 +38,10 @@ export interface EvalFrequency {
   groundSystemLossW?: number;
   /** Loss where wires without radials (a grounded tower, a bare stake) meet the soil; absent when none do. */
   bareContactLossW?: number;
+  /** Arrays (a model with a feed network), full requests: each feed's drive impedance and current. */
+  ports?: { zOhm: [number, number]; currentA: [number, number] }[];
+  /** Arrays, full requests: power dissipated in the feed network, watts. */
+  networkLossW?: number;
   /** Total gain, dBi, on the requested grid: elevation-major (index = iEl·nAz + iAz). */
   gainDbi: Float64Array | null;
   diagnostics: string[];

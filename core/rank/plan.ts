@@ -15,6 +15,8 @@
  * azimuths at 5–25° elevation.
  */
 import { BUILDERS, builderFor } from '../antennas/registry.ts';
+import { scoreStates, type StateResult } from './states.ts';
+import type { ArrayFeed } from '../antennas/arrayFeed.ts';
 import {
   conductorsNear,
   NEARBY_WAVELENGTHS,
@@ -78,8 +80,10 @@ export interface PlanOptions {
   /** Number of placements in the shortlist per band before the best of each missing type is added (default 10). */
   shortlistSize?: number;
   layerHeightsM?: readonly number[];
-  /** Only these antenna types (default: every registered type). */
+  /** Only these antenna types (default: every registered type, arrays only with `arrays`). */
   types?: readonly AntennaTypeId[];
+  /** Also plan the array types (several elements; slower). Default false. */
+  arrays?: boolean;
   onProgress?: (p: PlanProgress) => void;
 }
 
@@ -164,7 +168,14 @@ export interface Candidate {
   rotationDeg: number;
   heights: { label: string; heightM: number }[];
   score: number;
+  /** Per region the gain of the best state (a switched array) or of the one fixed pattern. */
   regions: RegionResult[];
+  /** Radiating elements, driven and parasitic (1 for a single antenna). */
+  elementCount: number;
+  /** Arrays: each element's drive impedance and the current ratios the feed network achieves. */
+  arrayFeed?: ArrayFeed;
+  /** Switchable directions (relay states); one state, 'fixed', for a fixed antenna. */
+  states: { name: string; beamDeg: number; regions: { id: string; gainDbi: number }[] }[];
   peak: { gainDbi: number; elevationDeg: number; azimuthDeg: number };
   feed: { zOhm: [number, number]; swr: number; z0Ohm: number; freqMHz: number };
   bandwidth2to1: { lowMHz: number | null; highMHz: number | null; widthKHz: number; note: string };
@@ -302,6 +313,7 @@ export function designKey(design: Design, ground: EvalGround): string {
       geom,
       feeds: model.feeds,
       radials: model.radials,
+      ...(model.network ? { net: model.network, bonded: model.radialsBonded === true } : {}),
       ground,
       ...(design.conductors?.length ? { sc: design.conductors } : {}),
       f: design.designFreqHz,
@@ -328,7 +340,9 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
   const metalSupports: NearbySupport[] = site.supports
     .filter((s) => s.conducts !== false && s.conducts !== undefined)
     .map((s) => ({ id: s.id, name: s.name, xy: s.xy, metal: s.metal ?? null }));
-  const builders = BUILDERS.filter((b) => !options.types || options.types.includes(b.type));
+  const builders = BUILDERS.filter((b) =>
+    options.types ? options.types.includes(b.type) : !b.array || options.arrays === true,
+  );
   const jobs = new Map<string, Job>();
   const bands = (options.bands ?? project.bands).map((band) => {
     const ctx = { site: prepared, band: bandPlan(band) };
@@ -446,7 +460,13 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
       if (!rec) throw new Error(`conductorJobs: evaluation ${q.key} missing from the cache`);
       if (rec.unsolvable !== undefined) return;
       if (!checkPlacement(setup.prepared, placedElements(q.proposal, rec.trimM)).ok) return;
-      const { score } = scoreOf(rec.gainDbi, q.proposal.placement.rotationDeg);
+      const { score } = scoreStates(
+        scoreOf,
+        setup.paths.map((path) => path.weight),
+        rec.gainDbi,
+        q.proposal.placement.rotationDeg,
+        q.proposal.design,
+      );
       const prev = best.get(q.proposal.groupKey);
       if (!prev || score > prev.score) best.set(q.proposal.groupKey, { i, score });
     });
@@ -518,6 +538,7 @@ export function rankPlan(
   const candidates: Candidate[] = [];
   const rejected: RejectedPlacement[] = [];
   const patterns: Record<string, number[]> = {};
+  const pathWeights = paths.map((path) => path.weight);
   const ownSoil = projectSoilId(project);
   const rangeSoils = soilRangeOf(project);
   for (const b of setup.bands) {
@@ -529,6 +550,7 @@ export function rankPlan(
       rec: EvaluationRecord;
       score: number;
       regionGains: number[];
+      states: StateResult[];
       fits: string[];
       elements: Element[];
       unknownMetal: string[];
@@ -583,13 +605,21 @@ export function rankPlan(
         continue;
       }
       const rot = p.placement.rotationDeg;
-      const { score, regionGains } = scoreOf(rec.gainDbi, rot);
+      const { score, regionGains, states } = scoreStates(
+        scoreOf,
+        pathWeights,
+        rec.gainDbi,
+        rot,
+        p.design,
+        rec.peak.azimuthDeg,
+      );
       const s: Scored = {
         p,
         key,
         rec,
         score,
         regionGains,
+        states,
         fits: check.fits,
         elements,
         unknownMetal: unknownMetal ?? [],
@@ -624,11 +654,15 @@ export function rankPlan(
     const bandStart = candidates.length;
     const soilScores: Map<string, number>[] = [];
     [...chosen, ...extra].forEach((g, i) => {
-      const { p, rec, key, regionGains, fits, elements, unknownMetal } = g.best;
+      const { p, rec, key, regionGains, states, fits, elements, unknownMetal } = g.best;
       const perSoil = new Map<string, number>([[ownSoil, g.best.score]]);
       for (const id of rangeSoils) {
         const alt = cache.get(soilRangeKey(key, rangeSoils))?.soilRange?.find((r) => r.soilId === id);
-        if (alt && alt.gainDbi.length) perSoil.set(id, scoreOf(alt.gainDbi, p.placement.rotationDeg).score);
+        if (alt && alt.gainDbi.length)
+          perSoil.set(
+            id,
+            scoreStates(scoreOf, pathWeights, alt.gainDbi, p.placement.rotationDeg, p.design).score,
+          );
       }
       soilScores.push(perSoil);
       const nAntennaWires = builderFor(p.design.type).model(p.design, rec.trimM).wires.length;
@@ -691,6 +725,13 @@ export function rankPlan(
           elevationWindowDeg: { min: path.takeoff[b.band].p10Deg, max: path.takeoff[b.band].p90Deg },
           hops: path.hopRange,
           takeoff: takeoffSummary(path.takeoff[b.band]),
+        })),
+        elementCount: builder.elementCount ?? 1,
+        ...(rec.arrayFeed ? { arrayFeed: rec.arrayFeed } : {}),
+        states: states.map((st) => ({
+          name: st.name,
+          beamDeg: st.beamDeg,
+          regions: paths.map((path, k) => ({ id: path.id, gainDbi: st.regionGains[k] })),
         })),
         peak: { gainDbi: rec.peak.gainDbi, elevationDeg: rec.peak.elevationDeg, azimuthDeg: peakAz },
         feed: { zOhm: rec.zOhm, swr: rec.swr, z0Ohm: Z0_OHM, freqMHz: rec.freqHz / 1e6 },

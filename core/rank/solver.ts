@@ -45,6 +45,8 @@ export const solverEvaluator: Evaluator = (req) => {
       radiusM: r.radiusM,
     })),
     ground: groundSpec(req.ground),
+    ...(req.model.network ? { network: req.model.network } : {}),
+    ...(req.model.radialsBonded ? { radialsBonded: true } : {}),
   };
   if (req.pattern === null) {
     // Feed only: the solver's sweep meshes once and skips the far field.
@@ -63,7 +65,8 @@ export const solverEvaluator: Evaluator = (req) => {
   });
   const diagnostics = res.diagnostics.filter((d) => d.level === 'warning').map((d) => d.message);
   return res.frequencies.map((f) => {
-    const feed = f.feeds[0];
+    // an array is fed through its network: the impedance at the feed is its first source's
+    const feed = f.sources.length ? f.sources[0] : f.feeds[0];
     const gain = new Float64Array(f.pattern.length);
     for (let i = 0; i < f.pattern.length; i++) gain[i] = f.pattern[i].gainDbi;
     return {
@@ -78,6 +81,15 @@ export const solverEvaluator: Evaluator = (req) => {
         : {}),
       ...(f.groundSystems.some((g) => g.radials === 0)
         ? { bareContactLossW: f.groundSystems.reduce((s, g) => s + (g.radials === 0 ? g.lossW : 0), 0) }
+        : {}),
+      ...(model.network
+        ? {
+            ports: f.feeds.map((p) => ({
+              zOhm: [p.impedanceOhm[0], p.impedanceOhm[1]] as [number, number],
+              currentA: [p.currentA[0], p.currentA[1]] as [number, number],
+            })),
+            networkLossW: f.networkLossW,
+          }
         : {}),
       gainDbi: gain,
       diagnostics,

@@ -1,0 +1,61 @@
+/**
+ * Switchable directions (relay states) of an array: each state's pattern is the evaluated pattern
+ * turned by the state's rotation (Design.states), each region is served by its best state, and the
+ * score is the weighted mean of those best region gains, as for a fixed antenna.
+ */
+import type { Design } from '../antennas/types.ts';
+
+export type BaseScorer = (
+  gainDbi: readonly number[],
+  rot: number,
+) => { score: number; regionGains: number[] };
+
+export interface StateResult {
+  name: string;
+  /** Beam bearing of the state on the site, degrees (the peak's bearing for a fixed antenna). */
+  beamDeg: number;
+  regionGains: number[];
+  score: number;
+}
+
+export interface StatesScore {
+  score: number;
+  /** Per region: the gain of its best state. */
+  regionGains: number[];
+  states: StateResult[];
+}
+
+const norm = (deg: number): number => Math.round((((deg % 360) + 360) % 360) * 10) / 10;
+
+/**
+ * Score of a design placed with rotation `rot`. `weights` are the regions' weights; with no weight
+ * at all the base scorer's own score is used and the best state's is kept. `peakAzDeg` is the
+ * canonical bearing of the pattern's peak (the beam of a fixed antenna).
+ */
+export function scoreStates(
+  base: BaseScorer,
+  weights: readonly number[],
+  gainDbi: readonly number[],
+  rot: number,
+  design: Pick<Design, 'states'>,
+  peakAzDeg = 0,
+): StatesScore {
+  const states = design.states?.length ? design.states : [{ name: 'fixed', rotationDeg: 0 }];
+  const fixed = !design.states?.length;
+  const results: StateResult[] = states.map((s) => {
+    const r = base(gainDbi, rot + s.rotationDeg);
+    return {
+      name: s.name,
+      beamDeg: norm(fixed ? rot + peakAzDeg : rot + s.rotationDeg),
+      regionGains: r.regionGains,
+      score: r.score,
+    };
+  });
+  const regionGains = weights.map((_, k) => Math.max(...results.map((r) => r.regionGains[k])));
+  const total = weights.reduce((s, w) => s + w, 0);
+  const score =
+    total > 0
+      ? regionGains.reduce((s, g, k) => s + g * weights[k], 0) / total
+      : Math.max(...results.map((r) => r.score));
+  return { score, regionGains, states: results };
+}

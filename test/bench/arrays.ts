@@ -1,0 +1,67 @@
+/**
+ * Cost of one design evaluation per array type (not a timed test):
+ * `npx tsx test/bench/arrays.ts [runs]`. Each type's first proposal on an invented 160 × 120 m lot
+ * (two 24 m supports, 25 m self-supporting limit, 32 radials) on 80 m over average soil goes
+ * through the planner's evaluation (trim, ±2 % sweep, pattern on the planning grid) `runs` times
+ * (default 3) after one warm-up that builds the ground tables; the median wall and CPU times are
+ * printed with the number of solver calls and the load average (the machine may be shared).
+ */
+import { loadavg } from 'node:os';
+import { bandPlan } from '../../core/antennas/common.ts';
+import { builderFor } from '../../core/antennas/registry.ts';
+import { evaluateDesign } from '../../core/rank/evaluate.ts';
+import { solverEvaluator } from '../../core/rank/solver.ts';
+import type { Evaluator } from '../../core/rank/evaluator.ts';
+import { buildSite } from '../../core/site/site.ts';
+import { prepareSite } from '../../core/site/feasibility.ts';
+import { testLot } from '../unit/site/lot.ts';
+
+const runs = Number(process.argv[2] ?? 3);
+const site = prepareSite(
+  buildSite(
+    testLot({
+      halfX: 80,
+      halfY: 60,
+      supports: [
+        { id: 'a', x: -22, y: -40, h: 24 },
+        { id: 'b', x: 22, y: -40, h: 24 },
+      ],
+      settings: { maxVerticalHeightM: 25, radialCount: 32 },
+    }),
+  ),
+);
+const band = bandPlan('80m');
+const ground = { classId: 'average' } as const;
+const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+for (const type of ['vertical', 'half-square', 'vertical-pair', 'four-square']) {
+  const p = builderFor(type).propose({ site, band }).proposals[0];
+  if (!p) {
+    console.log(`${type}: no proposal on the bench lot`);
+    continue;
+  }
+  let calls = 0;
+  const counting: Evaluator = (req) => {
+    calls++;
+    return solverEvaluator(req);
+  };
+  evaluateDesign(p.design, ground, solverEvaluator);
+  const wall: number[] = [];
+  const cpu: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    calls = 0;
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    evaluateDesign(p.design, ground, counting);
+    wall.push(performance.now() - t0);
+    const c = process.cpuUsage(c0);
+    cpu.push((c.user + c.system) / 1000);
+  }
+  console.log(
+    `${type.padEnd(14)} median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU, ${calls} solver calls per evaluation`,
+  );
+}
+console.log(
+  `load average ${loadavg()
+    .map((v) => v.toFixed(1))
+    .join(' ')}`,
+);
