@@ -97,9 +97,19 @@ export interface BuildSheet {
     /** Ropes from the wire ends to their supports or ground anchors (the candidate's rope elements), site frame. */
     ropes: { label: string; from: XYZ; to: XYZ }[];
   };
-  /** Elevation cuts toward each target region's bearing and the azimuth cut at the peak elevation. */
+  /**
+   * Elevation cuts: toward each target region (its centre bearing, with its elevation window),
+   * or toward the peak bearing without targets; and the azimuth cut at the peak elevation.
+   */
   pattern: {
     elevation: { deg: number; gainDbi: number }[];
+    towardTargets: {
+      name: string;
+      bearingDeg: number;
+      windowDeg: { min: number; max: number };
+      gainDbi: number;
+      cut: { deg: number; gainDbi: number }[];
+    }[];
     azimuth: { deg: number; gainDbi: number }[];
   } | null;
   notes: string[];
@@ -177,11 +187,24 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const gain =
     input.gainAt ?? (canonical ? (az: number, el: number) => gainAt(canonical, c.rotationDeg, az, el) : null);
   if (gain) {
-    const elevation: { deg: number; gainDbi: number }[] = [];
-    for (let el = 1; el <= 90; el++) elevation.push({ deg: el, gainDbi: gain(c.peak.azimuthDeg, el) });
+    const cutAt = (azDeg: number): { deg: number; gainDbi: number }[] => {
+      const out: { deg: number; gainDbi: number }[] = [];
+      for (let el = 1; el <= 90; el++) out.push({ deg: el, gainDbi: gain(azDeg, el) });
+      return out;
+    };
     const azimuth: { deg: number; gainDbi: number }[] = [];
     for (let az = 0; az < 360; az += 2) azimuth.push({ deg: az, gainDbi: gain(az, c.peak.elevationDeg) });
-    pattern = { elevation, azimuth };
+    pattern = {
+      elevation: cutAt(c.peak.azimuthDeg),
+      towardTargets: c.regions.map((r) => ({
+        name: r.name,
+        bearingDeg: r.bearingDeg.center,
+        windowDeg: r.elevationWindowDeg,
+        gainDbi: r.gainDbi,
+        cut: cutAt(r.bearingDeg.center),
+      })),
+      azimuth,
+    };
   }
 
   if (!c.trim.resonant)
