@@ -4,6 +4,7 @@
  * adapter to the project's method-of-moments solver lives in ./solver.ts; tests of planning
  * mechanics may pass their own Evaluator.
  */
+import { swrOf as emSwrOf } from '../em/evaluate.ts';
 import type { Soil } from '../project/schema.ts';
 import type { WireModel } from '../antennas/types.ts';
 
@@ -45,10 +46,7 @@ export type Evaluator = (request: EvalRequest) => EvalFrequency[];
 /** Reference impedance of the feed line for SWR, ohms (50 Ω coax). */
 export const Z0_OHM = 50;
 
-/** SWR of impedance z on a line of impedance z0. */
+/** SWR of impedance z on a line of impedance z0: the one SWR function (core/em swrOf), capped at SWR_CAP. */
 export function swrOf([r, x]: readonly [number, number], z0 = Z0_OHM): number {
-  const nr = r - z0;
-  const dr = r + z0;
-  const g = Math.sqrt((nr * nr + x * x) / (dr * dr + x * x));
-  return g >= 1 ? Infinity : (1 + g) / (1 - g);
+  return emSwrOf(r, x, z0);
 }

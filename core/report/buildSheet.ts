@@ -11,6 +11,7 @@
  * function every view calls is ./stationReport.ts.
  */
 import type { Project } from '../project/schema.ts';
+import { operatingSpan } from '../bands.ts';
 import type { Candidate, Shortlist } from '../rank/plan.ts';
 import { gainAt } from '../rank/pattern.ts';
 import { buildSite } from '../site/site.ts';
@@ -62,6 +63,8 @@ export interface BuildSheet {
   station: StationOptions;
   /** The unit system every length on the sheet is printed in. */
   units: UnitSystem;
+  /** The part of the band the user operates in (core/bands.ts) and whether the 2:1 band covers it. */
+  operating: { lowMHz: number; highMHz: number; designMHz: number; label: string; covered: boolean };
   cutList: Candidate['cutList'];
   cutAllowance: string;
   bom: BomItem[];
@@ -216,6 +219,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     candidate: c,
     station,
     units,
+    operating: operatingOf(c, project),
     cutList: c.cutList,
     cutAllowance: `Cut lengths include ${L.small(CUT_ALLOWANCE_PER_END_M, 0)} per end for the loop through an insulator or the connection; trim after a first measurement.`,
     bom: m.bom,
@@ -252,4 +256,15 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     pattern,
     notes,
   };
+}
+
+/** The user's operating span on the candidate's band, and whether the candidate's 2:1 band covers it. */
+function operatingOf(c: Candidate, project: Project): BuildSheet['operating'] {
+  const span = operatingSpan(c.band, project.settings.operating?.[c.band]);
+  const bw = c.bandwidth2to1;
+  const covered =
+    bw.widthKHz > 0 &&
+    (bw.lowMHz === null || bw.lowMHz <= span.lowMHz) &&
+    (bw.highMHz === null || bw.highMHz >= span.highMHz);
+  return { ...span, covered };
 }

@@ -103,7 +103,7 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .radial-layout { display: flex; flex-wrap: wrap; gap: 12px; align-items: flex-start; }
 .radial-layout table { width: auto; min-width: 260px; font-size: 11px; }
 svg.radials { border: 1px solid #c8d0d8; background: #fbfcfd; max-width: 100%; height: auto; }
-figure { display: inline-block; margin: 4px 12px 4px 0; }
+figure { display: inline-block; vertical-align: top; max-width: 300px; margin: 4px 12px 4px 0; }
 figcaption { font-size: 12px; color: #5a6570; }
 @media print {
   body { margin: 0; max-width: none; font-size: 11px; }
@@ -342,6 +342,10 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       'SWR and bandwidth',
       `<dl>${[
         ['SWR at the design frequency', `${f2(c.feed.swr)} on ${c.feed.z0Ohm} Ω`],
+        [
+          'Where you operate',
+          `${s.operating.label} (${s.operating.lowMHz.toFixed(3)}–${s.operating.highMHz.toFixed(3)} MHz): ${s.operating.covered ? 'inside the 2:1 band' : 'not all inside the 2:1 band; retune, or use the matching network or an antenna tuner at the band edges'}`,
+        ],
         [
           '2:1 SWR band',
           bw.widthKHz > 0
