@@ -112,6 +112,8 @@ export interface BuildSheet {
       windowDeg: { min: number; max: number };
       gainDbi: number;
       cut: { deg: number; gainDbi: number }[];
+      /** The same elevations toward the opposite bearing (drawn on the left half). */
+      back: { deg: number; gainDbi: number }[];
     }[];
     azimuth: { deg: number; gainDbi: number }[];
   } | null;
@@ -205,6 +207,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
         windowDeg: r.elevationWindowDeg,
         gainDbi: r.gainDbi,
         cut: cutAt(r.bearingDeg.center),
+        back: cutAt((r.bearingDeg.center + 180) % 360),
       })),
       azimuth,
     };

@@ -289,8 +289,10 @@ export function polarSvg(
   kind: 'elevation' | 'azimuth',
   /** Elevation only: the target's elevation window, shaded. */
   windowDeg?: { min: number; max: number },
+  /** Elevation only: the cut toward the opposite bearing, drawn on the left half (else a mirror of pts). */
+  back?: { deg: number; gainDbi: number }[],
 ): string {
-  const peak = Math.max(...pts.map((p) => p.gainDbi));
+  const peak = Math.max(...pts.map((p) => p.gainDbi), ...(back ?? []).map((p) => p.gainDbi));
   const range = 30;
   const R = 130;
   const W = kind === 'elevation' ? 2 * R + 40 : 2 * R + 40;
@@ -336,7 +338,7 @@ export function polarSvg(
   }
   const seq =
     kind === 'elevation'
-      ? [...pts, ...pts.map((p) => ({ deg: 180 - p.deg, gainDbi: p.gainDbi })).reverse()]
+      ? [...pts, ...(back ?? pts).map((p) => ({ deg: 180 - p.deg, gainDbi: p.gainDbi })).reverse()]
       : pts;
   const d =
     kind === 'elevation'

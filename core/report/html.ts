@@ -296,6 +296,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
               t.cut,
               'elevation',
               t.windowDeg,
+              t.back,
             ),
           )
           .join('')
@@ -315,7 +316,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
               pat.azimuth,
               'azimuth',
             ) +
-            `<p class="note">${e('Each elevation cut is drawn on a 30 dB scale from its own peak; the shaded sector is the elevation window of the region’s paths.')}</p>`
+            `<p class="note">${e('Each elevation cut is drawn on a 30 dB scale from its own peak: toward the region on the right, the opposite bearing on the left; the shaded sector is the elevation window of the region’s paths.')}</p>`
         : `<p class="note">${e('The pattern is not in the shortlist; the gain per region follows.')}</p>`,
     ),
   );
