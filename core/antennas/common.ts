@@ -3,19 +3,25 @@
  * allowance and rope limits.
  */
 import type { Band } from '../project/schema.ts';
-import { wavelengthM } from '../units/index.ts';
+import { mhzToHz, wavelengthM } from '../units/index.ts';
+import { BAND_INFO, operatingSpan, type OperatingChoice } from '../bands.ts';
 import type { Element } from '../site/feasibility.ts';
 import { placeXY, placeXYZ, type XYZ } from '../site/geometry.ts';
 import type { BandPlan, CutItem, CutKind, Design, ModelWire, Placement } from './types.ts';
 
 /**
- * Design frequencies, Hz. 160 m: 1.83 MHz, 80 m: 3.55 MHz, 40 m: 7.05 MHz — the centres of the
- * segments where low-band long-distance contacts are mostly made (common practice, no source).
+ * Default design frequencies, Hz (core/bands.ts): 160 m 1.83 MHz, 80 m 3.55 MHz, 40 m 7.05 MHz,
+ * the centres of the CW segments where low-band long-distance contacts are mostly made.
  */
-export const DESIGN_FREQ_HZ: Record<Band, number> = { '160m': 1.83e6, '80m': 3.55e6, '40m': 7.05e6 };
+export const DESIGN_FREQ_HZ: Record<Band, number> = {
+  '160m': mhzToHz(BAND_INFO['160m'].defaultDesignMHz),
+  '80m': mhzToHz(BAND_INFO['80m'].defaultDesignMHz),
+  '40m': mhzToHz(BAND_INFO['40m'].defaultDesignMHz),
+};
 
-export function bandPlan(band: Band): BandPlan {
-  const f = DESIGN_FREQ_HZ[band];
+/** The band as designed for: the centre of the part the user operates in (default: the CW end). */
+export function bandPlan(band: Band, choice?: OperatingChoice): BandPlan {
+  const f = choice ? mhzToHz(operatingSpan(band, choice).designMHz) : DESIGN_FREQ_HZ[band];
   return { band, designFreqHz: f, wavelengthM: wavelengthM(f) };
 }
 

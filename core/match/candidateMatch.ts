@@ -80,6 +80,9 @@ export function candidateMatching(c: MatchInput, q: ComponentQ = DEFAULT_Q): Can
     q,
     arrangements,
     vertical,
-    adjust: MATCH_ADJUST,
+    adjust:
+      best.components.length === 1
+        ? `Build it with a variable ${best.components[0]!.kind === 'inductor' ? 'coil' : 'capacitor'} near the value given, in series at the feed point, and set it for the lowest SWR at your frequency with an antenna analyser; keep it in a weatherproof box (common practice, no source).`
+        : MATCH_ADJUST,
   };
 }

@@ -12,6 +12,7 @@ import { z } from 'zod';
 import { isOnTimeFraction, isPowerW, MAX_POWER_W, STATION_DEFAULTS } from './station.ts';
 import { SOIL_CLASS_IDS } from '../em/soils.ts';
 import { flattenIssues, projectValidity } from './validity.ts';
+import { BAND_INFO } from '../bands.ts';
 
 export const PROJECT_SCHEMA_VERSION = 2;
 
@@ -268,6 +269,33 @@ export const TargetSchema = z.union(
 );
 export type Target = z.infer<typeof TargetSchema>;
 
+const bandChoice = (band: Band) =>
+  z
+    .union([
+      z.object({ part: z.enum(['cw', 'phone']) }),
+      z.object({ part: z.literal('custom'), lowMHz: finite, highMHz: finite }),
+    ])
+    .superRefine((c, ctx) => {
+      if (c.part !== 'custom') return;
+      const [lo, hi] = BAND_INFO[band].edgesMHz;
+      for (const k of ['lowMHz', 'highMHz'] as const)
+        if (!(c[k] >= lo && c[k] <= hi))
+          ctx.addIssue({
+            code: 'custom',
+            path: [k],
+            message: `must be inside the ${band} band, ${lo}–${hi} MHz`,
+          });
+      if (c.lowMHz > c.highMHz)
+        ctx.addIssue({ code: 'custom', path: ['highMHz'], message: 'must not be below lowMHz' });
+    });
+
+/** Per band, the part the user operates in (core/bands.ts). */
+export const OperatingSchema = z.object({
+  '160m': bandChoice('160m').optional(),
+  '80m': bandChoice('80m').optional(),
+  '40m': bandChoice('40m').optional(),
+});
+
 /** Emission modes for the exposure estimate (duty factors in core/report/exposure.ts). */
 export const STATION_MODES = ['ssb', 'cw', 'ft8'] as const;
 /** Coaxial cable types of the feed-line loss table (core/report/buildSheet.ts). */
@@ -303,6 +331,11 @@ export const SettingsSchema = z.object({
   maxVerticalHeightM: finite.refine((v) => v >= 0 && v <= 60, 'must be between 0 and 60 m').default(12),
   /** Longest rope from a wire end to its support or anchor, metres (was a fixed 40 m). */
   maxRopeM: finite.refine((v) => v >= 1 && v <= 200, 'must be between 1 and 200 m').default(40),
+  /**
+   * The part of each band the user operates in (core/bands.ts): 'cw', 'phone', or their own
+   * frequency or span; the planner designs and trims for its centre. Unset: the CW end.
+   */
+  operating: OperatingSchema.optional(),
   /** Number of radials the user would lay. */
   radialCount: z
     .number()

@@ -345,7 +345,7 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
   );
   const jobs = new Map<string, Job>();
   const bands = (options.bands ?? project.bands).map((band) => {
-    const ctx = { site: prepared, band: bandPlan(band) };
+    const ctx = { site: prepared, band: bandPlan(band, project.settings.operating?.[band]) };
     const proposed: Proposed[] = [];
     const rejections: Rejection[] = [];
     for (const b of builders) {

@@ -11,6 +11,7 @@
  * function every view calls is ./stationReport.ts.
  */
 import type { Project } from '../project/schema.ts';
+import { operatingSpan } from '../bands.ts';
 import type { Candidate, Shortlist } from '../rank/plan.ts';
 import { gainAt } from '../rank/pattern.ts';
 import { buildSite } from '../site/site.ts';
@@ -62,6 +63,8 @@ export interface BuildSheet {
   station: StationOptions;
   /** The unit system every length on the sheet is printed in. */
   units: UnitSystem;
+  /** The part of the band the user operates in (core/bands.ts) and whether the 2:1 band covers it. */
+  operating: { lowMHz: number; highMHz: number; designMHz: number; label: string; covered: boolean };
   cutList: Candidate['cutList'];
   cutAllowance: string;
   bom: BomItem[];
@@ -97,9 +100,21 @@ export interface BuildSheet {
     /** Ropes from the wire ends to their supports or ground anchors (the candidate's rope elements), site frame. */
     ropes: { label: string; from: XYZ; to: XYZ }[];
   };
-  /** Elevation cuts toward each target region's bearing and the azimuth cut at the peak elevation. */
+  /**
+   * Elevation cuts: toward each target region (its centre bearing, with its elevation window),
+   * or toward the peak bearing without targets; and the azimuth cut at the peak elevation.
+   */
   pattern: {
     elevation: { deg: number; gainDbi: number }[];
+    towardTargets: {
+      name: string;
+      bearingDeg: number;
+      windowDeg: { min: number; max: number };
+      gainDbi: number;
+      cut: { deg: number; gainDbi: number }[];
+      /** The same elevations toward the opposite bearing (drawn on the left half). */
+      back: { deg: number; gainDbi: number }[];
+    }[];
     azimuth: { deg: number; gainDbi: number }[];
   } | null;
   notes: string[];
@@ -177,11 +192,25 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const gain =
     input.gainAt ?? (canonical ? (az: number, el: number) => gainAt(canonical, c.rotationDeg, az, el) : null);
   if (gain) {
-    const elevation: { deg: number; gainDbi: number }[] = [];
-    for (let el = 1; el <= 90; el++) elevation.push({ deg: el, gainDbi: gain(c.peak.azimuthDeg, el) });
+    const cutAt = (azDeg: number): { deg: number; gainDbi: number }[] => {
+      const out: { deg: number; gainDbi: number }[] = [];
+      for (let el = 1; el <= 90; el++) out.push({ deg: el, gainDbi: gain(azDeg, el) });
+      return out;
+    };
     const azimuth: { deg: number; gainDbi: number }[] = [];
     for (let az = 0; az < 360; az += 2) azimuth.push({ deg: az, gainDbi: gain(az, c.peak.elevationDeg) });
-    pattern = { elevation, azimuth };
+    pattern = {
+      elevation: cutAt(c.peak.azimuthDeg),
+      towardTargets: c.regions.map((r) => ({
+        name: r.name,
+        bearingDeg: r.bearingDeg.center,
+        windowDeg: r.elevationWindowDeg,
+        gainDbi: r.gainDbi,
+        cut: cutAt(r.bearingDeg.center),
+        back: cutAt((r.bearingDeg.center + 180) % 360),
+      })),
+      azimuth,
+    };
   }
 
   if (!c.trim.resonant)
@@ -193,6 +222,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     candidate: c,
     station,
     units,
+    operating: operatingOf(c, project),
     cutList: c.cutList,
     cutAllowance: `Cut lengths include ${L.small(CUT_ALLOWANCE_PER_END_M, 0)} per end for the loop through an insulator or the connection; trim after a first measurement.`,
     bom: m.bom,
@@ -229,4 +259,15 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     pattern,
     notes,
   };
+}
+
+/** The user's operating span on the candidate's band, and whether the candidate's 2:1 band covers it. */
+function operatingOf(c: Candidate, project: Project): BuildSheet['operating'] {
+  const span = operatingSpan(c.band, project.settings.operating?.[c.band]);
+  const bw = c.bandwidth2to1;
+  const covered =
+    bw.widthKHz > 0 &&
+    (bw.lowMHz === null || bw.lowMHz <= span.lowMHz) &&
+    (bw.highMHz === null || bw.highMHz >= span.highMHz);
+  return { ...span, covered };
 }

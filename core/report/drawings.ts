@@ -72,7 +72,8 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
   // placed before (the text width is estimated at 5.6 px a character for the 10 px font, 6.3 bold), kept
   // inside the drawing.
   // The north arrow and the scale bar are there from the start.
-  const boxes: { x0: number; y0: number; x1: number; y1: number }[] = [
+  type Box = { x0: number; y0: number; x1: number; y1: number };
+  const boxes: Box[] = [
     { x0: W - 30, y0: 4, x1: W, y1: 58 },
     { x0: 0, y0: H - 34, x1: 140, y1: H },
   ];
@@ -84,21 +85,46 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
     offsets: readonly [number, number][],
   ): void => {
     const w = s.length * (cls === 'wlabel' || cls === 'flabel' ? 6.3 : 5.6);
-    let best: { x: number; y: number } | null = null;
-    for (const [dx, dy] of offsets) {
+    const boxAt = (dx: number, dy: number): { x: number; y: number; b: Box } => {
       let x = ax + dx - (dx < 0 ? w : 0);
       x = Math.min(Math.max(x, 2), W - 2 - w);
       const y = Math.min(Math.max(ay + dy, 11), H - 3);
-      const b = { x0: x, y0: y - 10, x1: x + w, y1: y + 2 };
-      if (!best) best = { x, y };
-      if (!boxes.some((o) => b.x0 < o.x1 && b.x1 > o.x0 && b.y0 < o.y1 && b.y1 > o.y0)) {
-        best = { x, y };
+      return { x, y, b: { x0: x, y0: y - 10, x1: x + w, y1: y + 2 } };
+    };
+    const free = (b: Box): boolean =>
+      !boxes.some((o) => b.x0 < o.x1 && b.x1 > o.x0 && b.y0 < o.y1 && b.y1 > o.y0);
+    let at: { x: number; y: number; b: Box } | null = null;
+    for (const [dx, dy] of offsets) {
+      const c = boxAt(dx, dy);
+      if (free(c.b)) {
+        at = c;
         break;
       }
     }
-    const at = best!;
-    boxes.push({ x0: at.x, y0: at.y - 10, x1: at.x + w, y1: at.y + 2 });
-    out.push(`<text x="${at.x.toFixed(1)}" y="${at.y.toFixed(1)}" class="${cls}">${e(s)}</text>`);
+    // None of the offered places is free: look further out in widening rings, with a leader line
+    // back to the point; only when nothing is free anywhere near does the first offer stand.
+    let leader = false;
+    if (!at)
+      search: for (const r of [28, 42, 56, 72, 90, 110])
+        for (let k = 0; k < 12; k++) {
+          const a = (k * Math.PI) / 6;
+          const c = boxAt(r * Math.cos(a), r * Math.sin(a));
+          if (free(c.b)) {
+            at = c;
+            leader = true;
+            break search;
+          }
+        }
+    const pick = at ?? boxAt(offsets[0]![0], offsets[0]![1]);
+    boxes.push(pick.b);
+    if (leader) {
+      const lx = Math.min(Math.max(ax, pick.b.x0), pick.b.x1);
+      const ly = Math.min(Math.max(ay, pick.b.y0), pick.b.y1);
+      out.push(
+        `<line x1="${ax.toFixed(1)}" y1="${ay.toFixed(1)}" x2="${lx.toFixed(1)}" y2="${ly.toFixed(1)}" class="leader"/>`,
+      );
+    }
+    out.push(`<text x="${pick.x.toFixed(1)}" y="${pick.y.toFixed(1)}" class="${cls}">${e(s)}</text>`);
   };
   const AROUND: [number, number][] = [
     [8, -8],
@@ -261,8 +287,12 @@ export function polarSvg(
   title: string,
   pts: { deg: number; gainDbi: number }[],
   kind: 'elevation' | 'azimuth',
+  /** Elevation only: the target's elevation window, shaded. */
+  windowDeg?: { min: number; max: number },
+  /** Elevation only: the cut toward the opposite bearing, drawn on the left half (else a mirror of pts). */
+  back?: { deg: number; gainDbi: number }[],
 ): string {
-  const peak = Math.max(...pts.map((p) => p.gainDbi));
+  const peak = Math.max(...pts.map((p) => p.gainDbi), ...(back ?? []).map((p) => p.gainDbi));
   const range = 30;
   const R = 130;
   const W = kind === 'elevation' ? 2 * R + 40 : 2 * R + 40;
@@ -290,6 +320,13 @@ export function polarSvg(
       `<text x="${cx + 3}" y="${cy - r + 11}" class="tick">${db ? `−${db} dB` : `${f1(peak)} dBi`}</text>`,
     );
   }
+  if (kind === 'elevation' && windowDeg) {
+    const [x0, y0] = xy(windowDeg.min, R);
+    const [x1, y1] = xy(windowDeg.max, R);
+    out.push(
+      `<path d="M${cx},${cy}L${x0.toFixed(1)},${y0.toFixed(1)}A${R},${R} 0 0 0 ${x1.toFixed(1)},${y1.toFixed(1)}Z" class="window"><title>${e(`elevation window ${f1(windowDeg.min)}–${f1(windowDeg.max)}°`)}</title></path>`,
+    );
+  }
   const spokes = kind === 'elevation' ? [0, 15, 30, 45, 60, 90] : [0, 45, 90, 135, 180, 225, 270, 315];
   for (const d of spokes) {
     const [x, y] = xy(d, R);
@@ -301,7 +338,7 @@ export function polarSvg(
   }
   const seq =
     kind === 'elevation'
-      ? [...pts, ...pts.map((p) => ({ deg: 180 - p.deg, gainDbi: p.gainDbi })).reverse()]
+      ? [...pts, ...(back ?? pts).map((p) => ({ deg: 180 - p.deg, gainDbi: p.gainDbi })).reverse()]
       : pts;
   const d =
     kind === 'elevation'
@@ -319,5 +356,46 @@ export function polarSvg(
           .join('') + 'Z';
   out.push(`<path d="${d}" class="trace"/>`);
   out.push(`</svg><figcaption>${e(title)}</figcaption></figure>`);
+  return out.join('');
+}
+
+/**
+ * The radials as laid, seen from above: each radial from the base at its compass bearing and to
+ * scale, numbered at its far end as in the radial table (north up). Numbers are placed on a ring
+ * just beyond the longest radial, so they never sit on each other or on a wire.
+ */
+export function radialSvg(s: BuildSheet): string {
+  const rows = s.radialTable;
+  if (!rows.length) return '';
+  const U = sheetLengths(s.units);
+  const W = 420;
+  const cx = W / 2;
+  const cy = W / 2;
+  const maxL = Math.max(...rows.map((r) => r.lengthM));
+  const R = W / 2 - 34;
+  const k = R / maxL;
+  const out: string[] = [
+    `<svg class="radials" viewBox="0 0 ${W} ${W}" width="${W}" height="${W}" role="img" aria-label="Radial layout" xmlns="http://www.w3.org/2000/svg">`,
+    `<circle cx="${cx}" cy="${cy}" r="${R}" class="grid"/>`,
+  ];
+  for (const r of rows) {
+    const b = (r.bearingDeg * Math.PI) / 180;
+    const x = cx + r.lengthM * k * Math.sin(b);
+    const y = cy - r.lengthM * k * Math.cos(b);
+    out.push(
+      `<line x1="${cx}" y1="${cy}" x2="${x.toFixed(1)}" y2="${y.toFixed(1)}" class="radial"><title>${e(`${r.n}: ${f1(r.bearingDeg)}°, ${U.len(r.lengthM)}`)}</title></line>`,
+    );
+    const tx = cx + (R + 14) * Math.sin(b);
+    const ty = cy - (R + 14) * Math.cos(b) + 3.5;
+    out.push(
+      `<text x="${tx.toFixed(1)}" y="${ty.toFixed(1)}" text-anchor="middle" class="tick">${r.n}</text>`,
+    );
+  }
+  out.push(`<circle cx="${cx}" cy="${cy}" r="4" class="feed"/>`);
+  out.push(`<text x="${W - 16}" y="16" text-anchor="middle">N ↑</text>`);
+  out.push(
+    `<text x="8" y="${W - 8}" class="tick">${e(`circle: ${U.len(maxL)} (the longest radial)`)}</text>`,
+  );
+  out.push('</svg>');
   return out.join('');
 }

@@ -6,7 +6,7 @@
  */
 import { PLACE_WORD } from './exposureZones.ts';
 import type { BuildSheet } from './buildSheet.ts';
-import { escapeHtml, planSvg, polarSvg } from './drawings.ts';
+import { escapeHtml, planSvg, polarSvg, radialSvg } from './drawings.ts';
 import { sheetLengths } from './format.ts';
 import { tuningText } from './tuning.ts';
 import { matchingText } from '../match/matchText.ts';
@@ -99,7 +99,12 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .grid { fill: none; stroke: #c8d0d8; stroke-width: 0.8; }
 .trace { fill: rgba(192, 57, 43, 0.12); stroke: #c0392b; stroke-width: 1.6; }
 .tick { fill: #5a6570; font-size: 9px; }
-figure { display: inline-block; margin: 4px 12px 4px 0; }
+.leader { stroke: #8a949c; stroke-width: 0.6; }
+.window { fill: rgba(47, 93, 124, 0.12); stroke: none; }
+.radial-layout { display: flex; flex-wrap: wrap; gap: 12px; align-items: flex-start; }
+.radial-layout table { width: auto; min-width: 260px; font-size: 11px; }
+svg.radials { border: 1px solid #c8d0d8; background: #fbfcfd; max-width: 100%; height: auto; }
+figure { display: inline-block; vertical-align: top; max-width: 300px; margin: 4px 12px 4px 0; }
 figcaption { font-size: 12px; color: #5a6570; }
 @media print {
   body { margin: 0; max-width: none; font-size: 11px; }
@@ -211,7 +216,14 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       table(
         ['Piece', 'Count', 'Length as modelled', 'Cut length'],
         s.cutList.map((i) => [i.label, String(i.count), U.len(i.lengthM, 2), U.cut(i.cutLengthM)]),
-      ) + `<p class="note">${e(s.cutAllowance)}</p>`,
+      ) +
+        `<p class="note">${e(s.cutAllowance)}</p>` +
+        (s.radialTable.length
+          ? `<h3>Radials: bearing and length of each</h3><div class="radial-layout">${radialSvg(s)}${table(
+              ['Radial', 'Bearing from the base', 'Length'],
+              s.radialTable.map((r) => [String(r.n), `${f1(r.bearingDeg)}°`, U.len(r.lengthM, 2)]),
+            )}</div><p class="note">${e('Bearings are compass bearings (clockwise from true north) from the feed point at the base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.')}</p>`
+          : ''),
     ),
   );
   parts.push(
@@ -275,20 +287,37 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
     ),
   );
   parts.push(section('Matching', matchingHtml(s)));
+  const pat = s.pattern;
+  const towardTargets = pat
+    ? pat.towardTargets.length
+      ? pat.towardTargets
+          .map((t) =>
+            polarSvg(
+              `Elevation toward ${t.name}, bearing ${f1(t.bearingDeg)}°: ${f1(t.gainDbi)} dBi over its window ${f1(t.windowDeg.min)}–${f1(t.windowDeg.max)}° (shaded)`,
+              t.cut,
+              'elevation',
+              t.windowDeg,
+              t.back,
+            ),
+          )
+          .join('')
+      : polarSvg(
+          `Elevation pattern at bearing ${f1(c.peak.azimuthDeg)}° (the peak; no target regions)`,
+          pat.elevation,
+          'elevation',
+        )
+    : '';
   parts.push(
     section(
       'Patterns',
-      s.pattern
-        ? polarSvg(
-            `Elevation pattern at bearing ${f1(c.peak.azimuthDeg)}° (dBi, 30 dB scale)`,
-            s.pattern.elevation,
-            'elevation',
-          ) +
+      pat
+        ? towardTargets +
             polarSvg(
               `Azimuth pattern at ${f1(c.peak.elevationDeg)}° elevation (dBi, 30 dB scale)`,
-              s.pattern.azimuth,
+              pat.azimuth,
               'azimuth',
-            )
+            ) +
+            `<p class="note">${e('Each elevation cut is drawn on a 30 dB scale from its own peak: toward the region on the right, the opposite bearing on the left; the shaded sector is the elevation window of the region’s paths.')}</p>`
         : `<p class="note">${e('The pattern is not in the shortlist; the gain per region follows.')}</p>`,
     ),
   );
@@ -315,6 +344,10 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       'SWR and bandwidth',
       `<dl>${[
         ['SWR at the design frequency', `${f2(c.feed.swr)} on ${c.feed.z0Ohm} Ω`],
+        [
+          'Where you operate',
+          `${s.operating.label} (${s.operating.lowMHz.toFixed(3)}–${s.operating.highMHz.toFixed(3)} MHz): ${s.operating.covered ? 'inside the 2:1 band' : 'not all inside the 2:1 band; retune, or use the matching network or an antenna tuner at the band edges'}`,
+        ],
         [
           '2:1 SWR band',
           bw.widthKHz > 0
@@ -343,10 +376,12 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
           ]),
         ) +
         exposureReachHtml(s) +
-        `<p><strong>${e(
-          'At low-band frequencies these distances fall in the antenna’s near field: the figures are estimates for compliance screening; local rules and a professional evaluation govern.',
-        )}</strong></p>` +
-        ex.notes.map((n) => `<p class="note">${e(n)}</p>`).join(''),
+        // The one near-field statement of the sheet (core/report/exposure.ts), in bold.
+        ex.notes
+          .map((n) =>
+            /near field/.test(n) ? `<p><strong>${e(n)}</strong></p>` : `<p class="note">${e(n)}</p>`,
+          )
+          .join(''),
     ),
   );
   parts.push(

@@ -52,7 +52,7 @@ test('the demo build sheet opens standalone with every section', async ({ page, 
     await expect(detail).toBeVisible();
     await expect(detail.locator('.wire').first()).toBeVisible();
     await expect(detail.locator('.feed')).toHaveCount(1);
-    await expect(page.getByText(/fall in the antenna’s near field/)).toBeVisible();
+    await expect(page.getByText(/reactive near field reaches about/)).toBeVisible();
     await expect(page.getByText(/kHz per cm/)).toBeVisible();
     await page.setViewportSize({ width: 900, height: 860 });
     await page.screenshot({ path: join('test-results', 'screenshots', 'report.png'), fullPage: true });
@@ -91,4 +91,41 @@ test.describe('build sheet from the app', () => {
       await shot(page, 'report-button');
     },
   );
+});
+
+test.describe('imperial build sheet', () => {
+  appTest('with feet chosen, the build sheet from the app holds no metre lengths', async ({ page, host }) => {
+    appTest.setTimeout(240_000);
+    await page.setViewportSize({ width: 1280, height: 720 });
+    await openApp(page, host);
+    await page.getByRole('button', { name: 'Imperial units (feet)' }).click();
+    await planAndSelectFirst(page, '40 m');
+    const detail = page.getByTestId('candidate-detail');
+    await detail.getByRole('button', { name: 'Build sheet…' }).click();
+    const view = page.getByTestId('report-view');
+    await expect(view).toBeVisible();
+    await shot(page, 'report-imperial-1280');
+    const download = page.waitForEvent('download');
+    await view.getByRole('button', { name: 'Save HTML' }).click();
+    const html = Buffer.concat(await (await (await download).createReadStream()).toArray()).toString('utf8');
+    const text = html
+      .replace(/<style>[\s\S]*?<\/style>/, '')
+      .replace(/<title>[\s\S]*?<\/title>/g, ' ')
+      .replace(/<[^>]+>/g, ' ');
+    // A metric length: a number then m, cm, mm or metres; band names ("40 m band") aside.
+    const metric = text.match(/.{0,40}\d\s?(?:m|cm|mm|metres?)\b(?!\s*band).{0,10}/);
+    expect(metric?.[0] ?? null, 'a metric length on the imperial sheet').toBeNull();
+    expect(text).toMatch(/\d+ ft \d+(?:¼|½|¾)? in/);
+    expect(text).toMatch(/dB\/100 ft/);
+    // The whole sheet as it prints, at 1280 wide, for a person to look at.
+    const sheet = await page.context().newPage();
+    await sheet.route('**/*', (r) => (r.request().url().startsWith('data:') ? r.continue() : r.abort()));
+    await sheet.setViewportSize({ width: 1280, height: 720 });
+    await sheet.setContent(html);
+    await sheet.screenshot({
+      path: join('test-results', 'screenshots', 'report-imperial-full.png'),
+      fullPage: true,
+    });
+    await sheet.close();
+  });
 });

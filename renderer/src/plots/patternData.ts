@@ -3,6 +3,7 @@
  * the core's own interpolation (gainAt on the canonical grid, rotated by the placement), the
  * band the SWR plot spans, and the degrees of azimuth where each of two candidates wins.
  */
+import { BAND_INFO } from '../../../core/bands.ts';
 import { PATTERN_GRID, azimuthAdvantage, gainAt } from '../../../core/rank/pattern.ts';
 import type { Candidate, Shortlist } from '../../../core/rank/plan.ts';
 import type { Band } from '../../../core/project/schema.ts';
@@ -48,13 +49,13 @@ export function azimuthWins(a: PlacedPattern, b: PlacedPattern, elevationDeg: nu
 }
 
 /**
- * The span of the SWR plot for each band, MHz: the widest amateur allocation among the three
- * IARU regions (160 m 1.8–2.0, 80 m 3.5–4.0, 40 m 7.0–7.3). Your own licence may allow less.
+ * The span of the SWR plot for each band, MHz: the band's edges from core/bands.ts (the widest
+ * amateur allocation among the three IARU regions). Your own licence may allow less.
  */
 export const BAND_SPAN_MHZ: Record<Band, [number, number]> = {
-  '160m': [1.8, 2.0],
-  '80m': [3.5, 4.0],
-  '40m': [7.0, 7.3],
+  '160m': BAND_INFO['160m'].edgesMHz,
+  '80m': BAND_INFO['80m'].edgesMHz,
+  '40m': BAND_INFO['40m'].edgesMHz,
 };
 
 /** Frequencies for an SWR sweep across a band, Hz: `count` evenly spaced, edges included. */

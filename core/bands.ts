@@ -1,0 +1,78 @@
+/**
+ * The amateur low bands, the one place for them: each band's edges, its default design
+ * frequency, and its segments (the CW end and the phone part). The planner designs for the part
+ * of each band the user chooses (settings.operating; the default is the CW end's centre as
+ * before), the SWR plot spans the band's edges and the build sheet states the part.
+ *
+ * Edges: the widest allocation among the three IARU regions (160 m 1.8–2.0, 80 m 3.5–4.0, 40 m
+ * 7.0–7.3 MHz); segments: common band-plan practice (IARU Region 2 and the US), from memory; your
+ * own licence and band plan may allow less.
+ */
+import type { Band } from './project/schema.ts';
+
+export type BandPart = 'cw' | 'phone';
+
+export interface BandInfo {
+  band: Band;
+  /** Band edges, MHz. */
+  edgesMHz: [number, number];
+  /** The design frequency used when the user has chosen nothing, MHz (the CW segment's centre). */
+  defaultDesignMHz: number;
+  /** Segments with the frequency a design for them is made at, MHz. */
+  segments: Record<BandPart, { lowMHz: number; highMHz: number; designMHz: number; label: string }>;
+}
+
+export const BAND_INFO: Record<Band, BandInfo> = {
+  '160m': {
+    band: '160m',
+    edgesMHz: [1.8, 2.0],
+    defaultDesignMHz: 1.83,
+    segments: {
+      cw: { lowMHz: 1.8, highMHz: 1.86, designMHz: 1.83, label: 'CW end' },
+      phone: { lowMHz: 1.84, highMHz: 2.0, designMHz: 1.9, label: 'phone' },
+    },
+  },
+  '80m': {
+    band: '80m',
+    edgesMHz: [3.5, 4.0],
+    defaultDesignMHz: 3.55,
+    segments: {
+      cw: { lowMHz: 3.5, highMHz: 3.6, designMHz: 3.55, label: 'CW end' },
+      phone: { lowMHz: 3.6, highMHz: 4.0, designMHz: 3.8, label: 'phone' },
+    },
+  },
+  '40m': {
+    band: '40m',
+    edgesMHz: [7.0, 7.3],
+    defaultDesignMHz: 7.05,
+    segments: {
+      cw: { lowMHz: 7.0, highMHz: 7.1, designMHz: 7.05, label: 'CW end' },
+      phone: { lowMHz: 7.1, highMHz: 7.3, designMHz: 7.2, label: 'phone' },
+    },
+  },
+};
+
+/** The user's choice for one band: a segment, or their own frequency or span (MHz, inside the band). */
+export type OperatingChoice = { part: BandPart } | { part: 'custom'; lowMHz: number; highMHz: number };
+
+/** The span the user operates in on a band and the frequency designs are made at (its centre), MHz. */
+export function operatingSpan(
+  band: Band,
+  choice: OperatingChoice | undefined,
+): { lowMHz: number; highMHz: number; designMHz: number; label: string } {
+  const info = BAND_INFO[band];
+  if (!choice) return { ...info.segments.cw, designMHz: info.defaultDesignMHz };
+  if (choice.part === 'custom') {
+    const designMHz = (choice.lowMHz + choice.highMHz) / 2;
+    return {
+      lowMHz: choice.lowMHz,
+      highMHz: choice.highMHz,
+      designMHz,
+      label:
+        choice.lowMHz === choice.highMHz
+          ? `${choice.lowMHz.toFixed(3)} MHz`
+          : `${choice.lowMHz.toFixed(3)}–${choice.highMHz.toFixed(3)} MHz`,
+    };
+  }
+  return info.segments[choice.part];
+}
