@@ -390,7 +390,7 @@ function readStored(row: Row): StoredRead {
 
 /**
  * Check an existing file's SQLite header before opening it (the file format, "The Database
- * Header", sqlite.org/fileformat2.html §1.3): a 0-byte file, a file that does not start with
+ * Header", sqlite.org/fileformat2.html §1.3; core/REFERENCES.md §12): a 0-byte file, a file that does not start with
  * the magic string, or one shorter than its header's page count says is refused without
  * touching it (opening would create -wal and -shm files beside it). Returns the reason, or null.
  */
