@@ -24,6 +24,13 @@ export interface ProjectSummary {
   name: string;
   updatedAt: string;
   supportCount: number;
+  /**
+   * False when the stored document cannot be opened by this version (written by a newer one,
+   * or not valid): it is listed, kept byte for byte, and can be exported (`exportProject`).
+   */
+  readable: boolean;
+  /** Why it cannot be opened (readable false). */
+  problem?: string;
 }
 
 export interface ImageOverlay {
@@ -66,7 +73,15 @@ export const API = {
   openInitialProject: { request: z.object({}).strict() },
   openProject: { request: z.object({ id: projectId }).strict() },
   /** Saves the whole document in one transaction; returns the stored timestamp. */
-  saveProject: { request: z.object({ project: z.unknown() }).strict() },
+  /**
+   * `baseUpdatedAt`: the stored timestamp the edit started from (the last save's, or the list's
+   * at opening); when the stored project has changed since, nothing is saved ('conflict').
+   */
+  saveProject: {
+    request: z.object({ project: z.unknown(), baseUpdatedAt: z.string().max(40).optional() }).strict(),
+  },
+  /** The stored document exactly as kept (also one that cannot be opened), to save as a file. */
+  exportProject: { request: z.object({ id: projectId }).strict() },
   createProject: { request: z.object({ name: z.string().trim().min(1).max(200) }).strict() },
   duplicateProject: { request: z.object({ id: projectId }).strict() },
   deleteProject: { request: z.object({ id: projectId }).strict() },
@@ -90,6 +105,7 @@ export interface ApiResults {
   openInitialProject: Project;
   openProject: Project;
   saveProject: { updatedAt: string };
+  exportProject: { fileName: string; text: string };
   createProject: Project;
   duplicateProject: Project;
   deleteProject: { deleted: true };
@@ -103,7 +119,19 @@ export type ApiRequest<K extends ApiName> = z.input<(typeof API)[K]['request']>;
 
 export interface ApiError {
   /** Stable machine-readable code. */
-  code: 'invalid-request' | 'invalid-project' | 'not-found' | 'storage' | 'too-large' | 'internal';
+  code:
+    | 'invalid-request'
+    | 'invalid-project'
+    | 'not-found'
+    | 'storage'
+    | 'too-large'
+    | 'internal'
+    /** The stored project changed since the edit began (another window): reopen it. */
+    | 'conflict'
+    /** Another program holds the database's write lock: try again in a moment. */
+    | 'busy'
+    /** The stored project cannot be opened by this version; it can be exported. */
+    | 'unreadable';
   message: string;
   /** Field-level problems, each with a JSON path. */
   fields?: FieldError[];

@@ -389,6 +389,10 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
   let setup: ReturnType<typeof enumeratePlan>;
   try {
+    // Say something from the start: enumeration of a lot with many supports takes seconds.
+    io.stderr(
+      `plan: placing ${project.supports.length} supports' antennas for ${bands.join(', ')} (enumerating)\n`,
+    );
     setup = enumeratePlan(project, { bands, arrays: args.arrays });
   } catch (e) {
     await pool?.close();

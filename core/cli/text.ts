@@ -1,6 +1,6 @@
 /**
  * Reading an input file as text: UTF-8 only (RFC 8259 §8.1 requires UTF-8 for JSON exchanged
- * between systems). A UTF-8 byte-order mark is accepted and dropped (§8.1 allows a parser to
+ * between systems; core/REFERENCES.md §16). A UTF-8 byte-order mark is accepted and dropped (§8.1 allows a parser to
  * ignore it); a UTF-16 or UTF-32 file (with or without its mark) and bytes that are not valid
  * UTF-8 are refused with the reason and where, instead of turning into U+FFFD or a JSON error.
  */

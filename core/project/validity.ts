@@ -15,7 +15,7 @@ export const MAX_DISTANCE_FROM_LOT_M = 1000;
 /** A ring enclosing less than this (m²) encloses no usable area. */
 export const MIN_RING_AREA_M2 = 1;
 
-const EARTH_RADIUS_M = 6_371_008.8; // mean radius (IUGG), value from memory
+const EARTH_RADIUS_M = 6_371_008.8; // mean radius R1 of GRS80, value from memory (core/REFERENCES.md §18)
 const D2R = Math.PI / 180;
 
 /** Haversine distance between two [lon, lat] points, metres. */

@@ -350,7 +350,7 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
     const rejections: Rejection[] = [];
     for (const b of builders) {
       const out = b.propose(ctx);
-      rejections.push(...out.rejections);
+      for (const r of out.rejections) rejections.push(r); // no spread: a large lot has 1e5+ of them
       const failedByGroup = new Map<string, { p: Proposal; reasons: string[]; worst: number }>();
       const okGroups = new Set<string>();
       for (const p of out.proposals) {
@@ -543,7 +543,7 @@ export function rankPlan(
   const rangeSoils = soilRangeOf(project);
   for (const b of setup.bands) {
     const scoreOf = scorerFor(paths, b.band);
-    rejected.push(...b.rejections.map((r) => ({ ...r })));
+    for (const r of b.rejections) rejected.push({ ...r });
     type Scored = {
       p: Proposal;
       key: string;

@@ -29,8 +29,14 @@ function fail(
 
 function fromError(e: unknown): { ok: false; error: ApiError } {
   if (e instanceof StoreError) {
-    const code =
-      e.code === 'not-found' ? 'not-found' : e.code === 'invalid-project' ? 'invalid-project' : 'storage';
+    const code: ApiError['code'] =
+      e.code === 'not-found' ||
+      e.code === 'invalid-project' ||
+      e.code === 'conflict' ||
+      e.code === 'busy' ||
+      e.code === 'unreadable'
+        ? e.code
+        : 'storage';
     return fail(code, e.message, e.fields.length > 0 ? e.fields : undefined);
   }
   return fail('internal', e instanceof Error ? e.message : String(e));
@@ -51,29 +57,60 @@ export function messageTooLarge(request: unknown): boolean {
 }
 
 export function createHandlers(store: ProjectStore, host: Omit<HostInfo, 'dataFile'>): HandlerTable {
+  /** Remember the opened project; best effort (a busy database must not stop an open). */
+  function markOpened(id: string): void {
+    try {
+      store.markOpened(id);
+    } catch (e) {
+      if (!(e instanceof StoreError && e.code === 'busy')) throw e;
+    }
+  }
+
   function ensureDemo(): Project {
     if (store.hasProject(DEMO_PROJECT_ID)) return store.getProject(DEMO_PROJECT_ID);
     return store.saveProject(buildDemoProject()).project;
+  }
+
+  /**
+   * The project to open at start-up: the last opened if this version can read it, else the most
+   * recent readable one, else the demo (created when missing), else a new empty project. A stored
+   * project that cannot be read never blocks the start; it stays listed as unreadable.
+   */
+  function initialProject(): Project {
+    const last = store.lastOpenedId();
+    const list = store.listProjects();
+    const readable = (id: string) => list.some((s) => s.id === id && s.readable);
+    if (last && readable(last)) return store.getProject(last);
+    const other = list.find((s) => s.readable);
+    if (other) return store.getProject(other.id);
+    if (!store.hasProject(DEMO_PROJECT_ID)) return ensureDemo();
+    return store.saveProject(emptyProject(newProjectId(), 'New project')).project;
   }
 
   const impl: { [K in ApiName]: (req: never) => ApiResults[K] } = {
     hostInfo: () => ({ ...host, dataFile: store.file }),
     listProjects: () => store.listProjects(),
     openInitialProject: () => {
-      const last = store.lastOpenedId();
-      const project = last && store.hasProject(last) ? store.getProject(last) : ensureDemo();
-      store.markOpened(project.id);
+      const project = initialProject();
+      markOpened(project.id);
       return project;
     },
     openProject: (req: { id: string }) => {
       const p = store.getProject(req.id);
-      store.markOpened(p.id);
+      markOpened(p.id);
       return p;
     },
-    saveProject: (req: { project: unknown }) => ({ updatedAt: store.saveProject(req.project).updatedAt }),
+    saveProject: (req: { project: unknown; baseUpdatedAt?: string }) => ({
+      updatedAt: store.saveProject(req.project, req.baseUpdatedAt).updatedAt,
+    }),
+    exportProject: (req: { id: string }) => {
+      const raw = store.rawDocument(req.id);
+      const base = raw.name.replace(/[^A-Za-z0-9_-]+/g, '-').replace(/^-+|-+$/g, '') || req.id;
+      return { fileName: `${base}.yardwire.json`, text: raw.doc };
+    },
     createProject: (req: { name: string }) => {
       const p = store.saveProject(emptyProject(newProjectId(), req.name)).project;
-      store.markOpened(p.id);
+      markOpened(p.id);
       return p;
     },
     duplicateProject: (req: { id: string }) => {
@@ -85,7 +122,7 @@ export function createHandlers(store: ProjectStore, host: Omit<HostInfo, 'dataFi
       }).project;
       const overlay = store.getOverlay(src.id);
       if (overlay) store.setOverlay({ ...overlay, projectId: copy.id });
-      store.markOpened(copy.id);
+      markOpened(copy.id);
       return copy;
     },
     deleteProject: (req: { id: string }) => {
@@ -94,7 +131,7 @@ export function createHandlers(store: ProjectStore, host: Omit<HostInfo, 'dataFi
     },
     resetDemoProject: () => {
       const p = store.saveProject(buildDemoProject()).project;
-      store.markOpened(p.id);
+      markOpened(p.id);
       return p;
     },
     getOverlay: (req: { projectId: string }) => store.getOverlay(req.projectId),

@@ -8,12 +8,24 @@ import { fileURLToPath } from 'node:url';
 import { createHandlers } from '../api/handlers.ts';
 import { openStoreWithRecovery, type ProjectStore, StoreError } from '../../data/store.ts';
 import { databasePath, defaultDataDir } from './dataDir.ts';
+import { portFromEnv, startupMessage } from './startup.ts';
 import { startBrowserServer } from './server.ts';
 
 const here = dirname(fileURLToPath(import.meta.url));
 
 async function main(): Promise<void> {
-  const file = databasePath(defaultDataDir());
+  const port = portFromEnv(process.env.YARDWIRE_PORT);
+  if (typeof port === 'string') {
+    process.stderr.write(`Yardwire cannot start: ${port}\n`);
+    process.exit(2);
+  }
+  let file: string;
+  try {
+    file = databasePath(defaultDataDir());
+  } catch (e) {
+    process.stderr.write(`Yardwire cannot start: ${startupMessage(e)}\n`);
+    process.exit(2);
+  }
   let store: ProjectStore;
   try {
     // YARDWIRE_RECOVER=copy-out: keep a copy of a damaged or newer database and start a fresh one.
@@ -21,7 +33,9 @@ async function main(): Promise<void> {
     store = opened.store;
     if (opened.keptCopy) process.stderr.write(`The old project database was kept as ${opened.keptCopy}\n`);
   } catch (e) {
-    process.stderr.write(`Yardwire cannot start: ${e instanceof StoreError ? e.message : String(e)}\n`);
+    process.stderr.write(
+      `Yardwire cannot start: ${e instanceof StoreError ? e.message : startupMessage(e)}\n`,
+    );
     if (e instanceof StoreError && (e.code === 'corrupt' || e.code === 'newer-schema')) {
       process.stderr.write(
         'To keep a copy of it and start with a fresh database, run again with YARDWIRE_RECOVER=copy-out,\n' +
@@ -32,9 +46,15 @@ async function main(): Promise<void> {
   }
   const version = process.env.npm_package_version ?? '0.1.0';
   const handlers = createHandlers(store, { shell: 'browser', version });
-  const port = process.env.YARDWIRE_PORT === undefined ? 5719 : Number(process.env.YARDWIRE_PORT);
   const staticDir = process.env.YARDWIRE_RENDERER_DIR ?? join(here, '..', 'renderer');
-  const srv = await startBrowserServer({ handlers, staticDir, port });
+  let srv: Awaited<ReturnType<typeof startBrowserServer>>;
+  try {
+    srv = await startBrowserServer({ handlers, staticDir, port });
+  } catch (e) {
+    store.close();
+    process.stderr.write(`Yardwire cannot start: ${startupMessage(e)}\n`);
+    process.exit(2);
+  }
   process.stdout.write(`Yardwire is running at ${srv.url}\n`);
   process.stderr.write(
     `Project database: ${file}\nOpen the address above in a browser; press Ctrl+C to stop.\n`,
@@ -49,4 +69,7 @@ async function main(): Promise<void> {
   process.on('SIGTERM', stop);
 }
 
-void main();
+main().catch((e: unknown) => {
+  process.stderr.write(`Yardwire cannot start: ${startupMessage(e)}\n`);
+  process.exit(2);
+});

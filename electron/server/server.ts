@@ -31,6 +31,10 @@ const MIME: Record<string, string> = {
   '.ico': 'image/x-icon',
 };
 
+/** Time allowed for a request's headers, and for the whole request (body included), ms. */
+export const HEADERS_TIMEOUT_MS = 10_000;
+export const REQUEST_TIMEOUT_MS = 20_000;
+
 export interface BrowserServer {
   server: Server;
   port: number;
@@ -172,6 +176,10 @@ export async function startBrowserServer(options: BrowserServerOptions): Promise
     });
   });
 
+  // A request whose body trickles in is bounded like an idle connection: headers within
+  // HEADERS_TIMEOUT_MS, the whole request within REQUEST_TIMEOUT_MS (Node's default is 300 s).
+  server.headersTimeout = HEADERS_TIMEOUT_MS;
+  server.requestTimeout = REQUEST_TIMEOUT_MS;
   await new Promise<void>((ok, bad) => {
     server.once('error', bad);
     server.listen(options.port ?? 0, '127.0.0.1', () => ok());

@@ -7,6 +7,7 @@ import type { Project } from '../../../core/project/schema.ts';
 import { OverlayState } from './overlay.svelte.ts';
 import { ProjectState } from './project.svelte.ts';
 import { UiState } from './ui.svelte.ts';
+import { downloadText } from '../plan/download.ts';
 
 export class Session {
   doc: ProjectState;
@@ -18,10 +19,36 @@ export class Session {
   startError = $state<string | null>(null);
   #api: () => YardwireApi;
 
+  /** Stored timestamp the open project's edits build on (conflict check of saveProject). */
+  #base: string | undefined;
+
   constructor(client: () => YardwireApi) {
     this.#api = client;
-    this.doc = new ProjectState((project) => client().saveProject({ project }));
+    this.doc = new ProjectState((project) => this.#save(project));
     this.overlay = new OverlayState(client);
+  }
+
+  /**
+   * Save with the conflict check: a 'busy' database is retried a few times off the request path
+   * (the host answers at once); a 'conflict' (another window saved first) is told to the user.
+   */
+  async #save(project: Project): Promise<ApiResponse<{ updatedAt: string }>> {
+    let r = await this.#api().saveProject({ project, baseUpdatedAt: this.#base });
+    for (let i = 0; i < 4 && !r.ok && r.error.code === 'busy'; i++) {
+      await new Promise((res) => setTimeout(res, 250 * (i + 1)));
+      r = await this.#api().saveProject({ project, baseUpdatedAt: this.#base });
+    }
+    if (r.ok) this.#base = r.value.updatedAt;
+    else if (r.error.code === 'conflict') this.ui.notify('error', r.error.message);
+    return r;
+  }
+
+  /** Save the stored document of a project as a file, exactly as kept (also one that cannot be opened). */
+  async exportProject(id: string): Promise<void> {
+    const r = await this.#api().exportProject({ id });
+    if (!r.ok) return this.ui.notify('error', `Cannot export: ${r.error.message}`);
+    downloadText(r.value.text, r.value.fileName, 'application/json');
+    this.ui.notify('info', `Exported as ${r.value.fileName}.`);
   }
 
   async start(): Promise<void> {
@@ -79,9 +106,11 @@ export class Session {
   }
 
   async #show(p: Project): Promise<void> {
+    this.#base = undefined;
     this.doc.open(p);
     this.ui.setTool('select');
     this.ui.fitRequest++;
     await Promise.all([this.overlay.load(p.id), this.refreshList()]);
+    if (this.#base === undefined) this.#base = this.projects.find((s) => s.id === p.id)?.updatedAt;
   }
 }

@@ -1,4 +1,4 @@
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
@@ -14,9 +14,16 @@ beforeEach(() => {
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('project store on a real SQLite file', () => {
-  it('migrates an empty file to the latest version, in WAL mode, and re-running migrations is a no-op', () => {
+  it('refuses a 0-byte file (a truncated store) and leaves it alone, creating nothing beside it', () => {
+    const file = join(dir, 'empty.sqlite');
+    writeFileSync(file, '');
+    expect(() => new ProjectStore(file)).toThrow(/empty \(0 bytes\)/);
+    expect(readFileSync(file).length).toBe(0);
+    expect(existsSync(`${file}-wal`) || existsSync(`${file}-shm`)).toBe(false);
+  });
+
+  it('creates a missing file at the latest version, in WAL mode, and re-running migrations is a no-op', () => {
     const file = join(dir, 'a.sqlite');
-    writeFileSync(file, ''); // an empty file is a valid, empty database
     const s = new ProjectStore(file);
     expect(s.storeVersion).toBe(LATEST_STORE_VERSION);
     expect(s.migrate()).toBe(0);
