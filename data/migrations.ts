@@ -37,6 +37,20 @@ export const MIGRATIONS: readonly Migration[] = [
       );
     `,
   },
+  {
+    version: 2,
+    description: "each project's last plan: its inputs' hash, the plan itself and what the views showed",
+    sql: `
+      CREATE TABLE plans (
+        project_id TEXT PRIMARY KEY REFERENCES projects (id) ON DELETE CASCADE,
+        inputs_hash TEXT NOT NULL,
+        doc TEXT NOT NULL,
+        selected_id TEXT,
+        compare_id TEXT,
+        updated_at TEXT NOT NULL
+      );
+    `,
+  },
 ];
 
 export const LATEST_STORE_VERSION = MIGRATIONS.reduce((v, m) => Math.max(v, m.version), 0);
