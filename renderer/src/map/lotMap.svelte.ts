@@ -1,13 +1,15 @@
 /**
  * The one attach function for the map: it creates the Leaflet map on its element, keeps the
- * layers in step with the session through effects, turns the drawing tools on and off, and
- * removes everything when the element goes away.
+ * layers in step with the session through effects (the lot, and the planning overlays the
+ * session's `mapOverlays` describes), turns the drawing tools on and off, and removes everything
+ * when the element goes away. Nothing else reaches the map.
  */
 import { untrack } from 'svelte';
 import type { Attachment } from 'svelte/attachments';
 import './geoman.ts';
 import L from './leaflet.ts';
 import { COLOURS, buildLayers, declutterLabels, toLatLng, toLonLat, type Shape } from './layers.ts';
+import { drawOverlays } from './overlayLayers.svelte.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
 import type { Session } from '../state/session.svelte.ts';
 import type { ToolId } from '../state/ui.svelte.ts';
@@ -118,6 +120,9 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
         });
       }
     });
+
+    // The planning overlays: candidates, exposure zones, the feed route.
+    drawOverlays(map, session.mapOverlays, () => declutterLabels(el));
 
     // Drawing tools.
     $effect(() => {
