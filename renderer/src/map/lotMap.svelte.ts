@@ -8,7 +8,8 @@ import { untrack } from 'svelte';
 import type { Attachment } from 'svelte/attachments';
 import './geoman.ts';
 import L from './leaflet.ts';
-import { COLOURS, buildLayers, declutterLabels, toLatLng, toLonLat, type Shape } from './layers.ts';
+import { declutterLabels } from './declutter.ts';
+import { COLOURS, buildLayers, toLatLng, toLonLat, type Shape } from './layers.ts';
 import { drawOverlays } from './overlayLayers.svelte.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
 import type { Session } from '../state/session.svelte.ts';
@@ -142,12 +143,32 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       else if (tool === 'path') map.pm.enableDraw('Line', { ...opts, pathOptions: { color: COLOURS.path } });
     });
 
-    // Fit the project into view when one is opened (or asked to).
-    $effect(() => {
-      void ui.fitRequest;
+    // Fit the project into view when one is opened (or asked to), and a control that does it.
+    const fitLot = (): void => {
       const b = untrack(() => (doc.project ? projectBounds(doc.project) : null));
       if (b) map.fitBounds(b, { padding: [40, 40], maxZoom: 20, animate: false });
+    };
+    $effect(() => {
+      void ui.fitRequest;
+      fitLot();
     });
+    const fitControl = new L.Control({ position: 'topleft' });
+    fitControl.onAdd = () => {
+      const bar = L.DomUtil.create('div', 'leaflet-bar yw-fit-lot');
+      const a = L.DomUtil.create('a', '', bar);
+      a.href = '#';
+      a.role = 'button';
+      a.title = 'Zoom to the lot';
+      a.setAttribute('aria-label', 'Zoom to the lot');
+      a.textContent = '⤢';
+      L.DomEvent.disableClickPropagation(bar);
+      L.DomEvent.on(a, 'click', (e) => {
+        L.DomEvent.preventDefault(e);
+        fitLot();
+      });
+      return bar;
+    };
+    fitControl.addTo(map);
     $effect(() => {
       const r = ui.reveal;
       if (r && !map.getBounds().pad(-0.05).contains(toLatLng(r.at))) map.panTo(toLatLng(r.at));

@@ -101,6 +101,7 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
   const centre = hub(candidate);
 
   // Lines toward the targets, then the broadside bearings, under the antenna itself.
+  const bearingTips: [L.Tooltip, number][] = [];
   if (!compared) {
     candidate.regions.forEach((r, i) => {
       const pts = ray(frame, centre, r.bearingDeg.center, span * 0.9);
@@ -114,10 +115,13 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
       }).addTo(g);
       // The label sits out on the line, past the lot's labels and the antenna (see declutter).
       const at = ray(frame, centre, r.bearingDeg.center, span * 0.75)[1]!;
-      L.tooltip({ permanent: true, direction: 'center', className: 'yw-tip yw-bearing-label' })
-        .setLatLng(at)
-        .setContent(textContent(`${r.name} ${Math.round(r.bearingDeg.center)}°`))
-        .addTo(g);
+      bearingTips.push([
+        L.tooltip({ permanent: true, direction: 'center', className: 'yw-tip yw-bearing-label' })
+          .setLatLng(at)
+          .setContent(textContent(`${r.name} ${Math.round(r.bearingDeg.center)}°`))
+          .addTo(g),
+        r.bearingDeg.center,
+      ]);
     });
     candidate.broadsideDeg.forEach((b) => {
       const line = L.polyline(ray(frame, centre, b, span * 0.6), {
@@ -194,5 +198,10 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
       .addTo(g);
   }
   g.addTo(map);
+  // The map's declutter slides each bearing label along its own line (map/declutter.ts).
+  for (const [t, deg] of bearingTips) {
+    const el = t.getElement();
+    if (el) el.dataset.bearing = String(deg);
+  }
   return () => g.remove();
 }
