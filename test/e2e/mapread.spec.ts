@@ -61,6 +61,25 @@ async function clashes(page: Page): Promise<{ wires: number; clashes: Clash[] }>
   });
 }
 
+/** The shortlist needs no horizontal scrolling; its headers carry their units; the score is explained. */
+async function expectTableFits(page: Page): Promise<void> {
+  const table = page.getByTestId('shortlist');
+  const wrap = table.locator('xpath=..');
+  const { scroll, client } = await wrap.evaluate((el) => ({
+    scroll: el.scrollWidth,
+    client: el.clientWidth,
+  }));
+  expect(scroll, 'no horizontal scrolling').toBeLessThanOrEqual(client);
+  const heads = await table.locator('thead th').allTextContents();
+  expect(heads.find((h) => h.startsWith('Score'))).toContain('dBi');
+  expect(heads.find((h) => h.startsWith('Top'))).toMatch(/Top\s*m/);
+  expect(heads.find((h) => h.startsWith('SWR'))).toContain('50 Ω');
+  await expect(page.getByTestId('score-explained')).toBeVisible();
+  await expect(page.getByTestId('score-explained')).toContainText('weighted mean of the gains');
+  // Type names in proper case, never an internal id.
+  await expect(table.getByText(/best (vertical|inverted-l|half-square|dipole|inverted-v)\b/)).toHaveCount(0);
+}
+
 test('labels keep clear of the selected antenna and of one another; the lot comes back to view', async ({
   page,
   host,
@@ -79,12 +98,14 @@ test('labels keep clear of the selected antenna and of one another; the lot come
     expect(r.clashes, `candidate ${i + 1}`).toEqual([]);
   }
   await rows.first().click();
+  await expectTableFits(page);
   await shot(page, 'shortlist-1440x900');
 
   await page.setViewportSize({ width: 1280, height: 720 });
   await expect(page.locator('path.yw-cand-selected.yw-cand-wire')).not.toHaveCount(0);
   await page.waitForTimeout(300); // the map's resize, then its declutter
   expect((await clashes(page)).clashes).toEqual([]);
+  await expectTableFits(page);
   await shot(page, 'shortlist-1280x720');
 
   // Zoom out, then back to the lot with the control.
