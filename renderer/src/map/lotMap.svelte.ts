@@ -173,9 +173,31 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       const r = ui.reveal;
       if (r && !map.getBounds().pad(-0.05).contains(toLatLng(r.at))) map.panTo(toLatLng(r.at));
     });
+    // Go to a place: centre there, close in, and mark it (offline the map is grey: the mark and
+    // the scale show that it moved).
     $effect(() => {
       const g = ui.goTo;
-      if (g) map.setView(toLatLng(g.at), Math.max(map.getZoom(), 17), { animate: false });
+      if (!g) return;
+      map.setView(toLatLng(g.at), Math.max(map.getZoom(), 18), { animate: false });
+      const mark = L.circleMarker(toLatLng(g.at), {
+        radius: 9,
+        color: '#0f6b73',
+        weight: 3,
+        fill: false,
+        className: 'yw-goto',
+        interactive: false,
+      })
+        .bindTooltip(`You went to ${g.at[1].toFixed(5)}, ${g.at[0].toFixed(5)}`, {
+          permanent: true,
+          direction: 'top',
+          className: 'yw-tip yw-goto-label',
+        })
+        .addTo(map);
+      return () => mark.remove();
+    });
+    map.on('moveend', () => {
+      const c = map.getCenter();
+      ui.mapCentre = [c.lng, c.lat];
     });
 
     // Scale bar in the chosen units.
