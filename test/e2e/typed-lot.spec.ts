@@ -1,7 +1,8 @@
 // Setting up a lot without imagery (issue 14 point 6): the empty state says how to add imagery;
 // Go visibly moves the map and marks the place; the boundary is typed as width × depth at a
 // bearing, and then as sides from a corner, with errors next to their fields.
-import { expect, openApp, shot, test } from './fixtures.ts';
+import geodesic from 'geographiclib-geodesic';
+import { clickMap, expect, openApp, shot, test } from './fixtures.ts';
 
 test('types a 45 × 30 m lot after going to its place, without imagery', async ({ page, host }) => {
   await openApp(page, host);
@@ -39,4 +40,17 @@ test('types a 45 × 30 m lot after going to its place, without imagery', async (
   expect((await sides.allTextContents()).sort()).toEqual(['30.0 m', '30.0 m', '45.0 m', '45.0 m']);
   await expect(page.getByTestId('lot-summary')).toContainText('perimeter 150.0 m');
   await shot(page, 'typed-lot-rectangle');
+
+  // A support placed 10 m from the first corner at a bearing of 90°: where the geodesic puts it
+  // (GeographicLib's direct problem on WGS84, core/REFERENCES.md §10), to the six decimals shown.
+  await page.keyboard.press('s');
+  await clickMap(page, 0.5, 0.6);
+  const offset = page.getByTestId('support-offset');
+  await page.getByText('Place by distance and bearing').click();
+  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 1' });
+  await offset.getByRole('spinbutton', { name: 'Distance, m' }).fill('10');
+  await offset.getByRole('spinbutton', { name: 'Bearing, degrees' }).fill('90');
+  await offset.getByRole('button', { name: 'Place here' }).click();
+  const d = geodesic.Geodesic.WGS84.Direct(45.12, -93.4, 90, 10);
+  await expect(page.getByText(`${d.lat2!.toFixed(6)}, ${d.lon2!.toFixed(6)}`)).toBeVisible();
 });
