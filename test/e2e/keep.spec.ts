@@ -97,7 +97,9 @@ test('keeps the plan with its project through a reload, a switch and a host rest
     .getByRole('button', { name: /^West oak/ })
     .click();
   await page.getByRole('button', { name: 'Delete support' }).click();
-  await expect(page.getByTestId('plan-stale')).toContainText('Out of date: the supports changed since this plan');
+  await expect(page.getByTestId('plan-stale')).toContainText(
+    'Out of date: the supports changed since this plan',
+  );
   await expect(page.locator('.yw-stale-label')).toContainText('Out of date');
   await shot(page, 'keep-stale');
 });
