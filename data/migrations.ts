@@ -37,8 +37,20 @@ export const MIGRATIONS: readonly Migration[] = [
       );
     `,
   },
-  // Number 3, not 2: migration 2 (the plans table) is being added on another branch. This one is
-  // self-contained (it touches only the overlays table), so the two apply in either order.
+  {
+    version: 2,
+    description: "each project's last plan: its inputs' hash, the plan itself and what the views showed",
+    sql: `
+      CREATE TABLE plans (
+        project_id TEXT PRIMARY KEY REFERENCES projects (id) ON DELETE CASCADE,
+        inputs_hash TEXT NOT NULL,
+        doc TEXT NOT NULL,
+        selected_id TEXT,
+        compare_id TEXT,
+        updated_at TEXT NOT NULL
+      );
+    `,
+  },
   {
     version: 3,
     description: 'overlays keep a reference to the image file and its georeference; the PNG becomes optional',

@@ -17,7 +17,7 @@ import {
 } from 'node:fs';
 import Database from 'better-sqlite3';
 import { parseProject, type FieldError, type Project } from '../core/project/schema.ts';
-import type { ImageOverlay, ProjectSummary } from '../core/api/contract.ts';
+import type { ImageOverlay, PlanRecord, PlanView, ProjectSummary, StoredPlan } from '../core/api/contract.ts';
 import { LATEST_STORE_VERSION, MIGRATIONS } from './migrations.ts';
 
 export type StoreErrorCode =
@@ -325,6 +325,84 @@ export class ProjectStore {
 
   clearOverlay(projectId: string): void {
     this.db.prepare('DELETE FROM overlays WHERE project_id = ?').run(projectId);
+  }
+
+  /**
+   * The project's last plan, or null when it has none. A stored plan that cannot be read (or that
+   * belongs to another project) is reported as none, never shown; it stays in the file untouched
+   * until the next plan of the project replaces it.
+   */
+  getPlan(projectId: string): StoredPlan | null {
+    const row = this.db
+      .prepare('SELECT doc, selected_id, compare_id, updated_at FROM plans WHERE project_id = ?')
+      .get(projectId) as
+      { doc: string; selected_id: string | null; compare_id: string | null; updated_at: string } | undefined;
+    if (!row) return null;
+    let plan: PlanRecord;
+    try {
+      plan = JSON.parse(row.doc) as PlanRecord;
+    } catch {
+      return null;
+    }
+    if (plan?.shortlist?.projectId !== projectId || plan.madeFor?.id !== projectId) return null;
+    return {
+      projectId,
+      plan,
+      selectedId: row.selected_id,
+      compareId: row.compare_id,
+      savedAt: row.updated_at,
+    };
+  }
+
+  /**
+   * Keeps a plan as the project's last, in one transaction, replacing the one before. The plan
+   * must be the project's own: its shortlist and the project it was made for carry the same id,
+   * and that project document validates.
+   */
+  savePlan(projectId: string, plan: PlanRecord, view: PlanView): { savedAt: string } {
+    if (!this.hasProject(projectId)) throw new StoreError('not-found', `no project with id "${projectId}"`);
+    const parsed = parseProject(plan.madeFor);
+    if (!parsed.ok)
+      throw new StoreError(
+        'invalid-project',
+        'the project the plan was made for does not validate; the plan was not kept',
+        parsed.errors.map((e) => ({ ...e, path: `plan.madeFor${e.path ? `.${e.path}` : ''}` })),
+      );
+    for (const [path, id] of [
+      ['plan.madeFor.id', parsed.value.id],
+      ['plan.shortlist.projectId', plan.shortlist.projectId],
+    ] as const) {
+      if (id !== projectId)
+        throw new StoreError('invalid-project', `the plan belongs to another project; it was not kept`, [
+          { path, message: `must be "${projectId}" (the project it is kept for), not "${id}"` },
+        ]);
+    }
+    const ids = new Set(plan.shortlist.candidates.map((c) => c.id));
+    const now = new Date().toISOString();
+    this.db
+      .prepare(
+        `INSERT INTO plans (project_id, inputs_hash, doc, selected_id, compare_id, updated_at)
+         VALUES (@projectId, @hash, @doc, @selected, @compare, @now)
+         ON CONFLICT (project_id) DO UPDATE SET inputs_hash = excluded.inputs_hash, doc = excluded.doc,
+           selected_id = excluded.selected_id, compare_id = excluded.compare_id, updated_at = excluded.updated_at`,
+      )
+      .run({
+        projectId,
+        hash: plan.inputs.hash,
+        doc: JSON.stringify({ ...plan, madeFor: parsed.value }),
+        selected: view.selectedId !== null && ids.has(view.selectedId) ? view.selectedId : null,
+        compare: view.compareId !== null && ids.has(view.compareId) ? view.compareId : null,
+        now,
+      });
+    return { savedAt: now };
+  }
+
+  /** Keeps which candidates the views show; false when the project has no plan kept. */
+  setPlanView(projectId: string, view: PlanView): boolean {
+    const info = this.db
+      .prepare('UPDATE plans SET selected_id = ?, compare_id = ? WHERE project_id = ?')
+      .run(view.selectedId, view.compareId, projectId);
+    return info.changes > 0;
   }
 
   private getState(key: string): string | null {

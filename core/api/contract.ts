@@ -7,7 +7,9 @@
  * Every call answers `{ ok: true, value } | { ok: false, error }` (one error policy, STYLE §8).
  */
 import { z } from 'zod';
-import { ProjectSchema, type FieldError, type Project } from '../project/schema.ts';
+import { BANDS, ProjectSchema, type Band, type FieldError, type Project } from '../project/schema.ts';
+import type { Shortlist } from '../rank/plan.ts';
+import { PLAN_INPUT_PARTS, type PlanInputsHash } from '../rank/planInputs.ts';
 import { AerialReferenceSchema, type AerialReference } from '../project/aerialReference.ts';
 
 /** Largest message the host accepts, in bytes of JSON (an overlay image is the biggest payload). */
@@ -49,6 +51,63 @@ export interface HostInfo {
   version: string;
   dataFile: string;
 }
+
+/** What the shortlist and compare views showed of a plan: restored with it. */
+export interface PlanView {
+  selectedId: string | null;
+  compareId: string | null;
+}
+
+/** A project's last plan as kept by the store (core/rank/planInputs.ts for the hash). */
+export interface PlanRecord {
+  /** The hash of the inputs that made the plan, whole and per part. */
+  inputs: PlanInputsHash;
+  bands: Band[];
+  /** The project as it was when planned: the frame the candidates' metres are in. */
+  madeFor: Project;
+  shortlist: Shortlist;
+}
+
+export interface StoredPlan extends PlanView {
+  projectId: string;
+  plan: PlanRecord;
+  savedAt: string;
+}
+
+const hash16 = z.string().regex(/^[0-9a-f]{16}$/, 'must be 16 hex digits');
+const candidateId = z.string().min(1).max(200);
+
+/** The largest shortlist the host keeps (the planner shortlists far fewer). */
+export const MAX_STORED_CANDIDATES = 500;
+
+export const PlanRecordSchema = z.object({
+  inputs: z.object({
+    hash: hash16,
+    parts: z.object(
+      Object.fromEntries(PLAN_INPUT_PARTS.map((k) => [k, hash16])) as Record<
+        (typeof PLAN_INPUT_PARTS)[number],
+        typeof hash16
+      >,
+    ),
+  }),
+  bands: z.array(z.enum(BANDS)).min(1, 'give at least one band'),
+  // Checked with the project schema by the host (it must be the same project).
+  madeFor: z.unknown(),
+  shortlist: z
+    .object({
+      projectId,
+      candidates: z
+        .array(z.object({ id: candidateId }).passthrough())
+        .max(MAX_STORED_CANDIDATES, `at most ${MAX_STORED_CANDIDATES} candidates`),
+      rejected: z.array(z.unknown()),
+    })
+    .passthrough(),
+});
+
+const planView = {
+  selectedId: candidateId.nullable(),
+  compareId: candidateId.nullable(),
+};
 
 export const ImageOverlaySchema = z.object({
   projectId,
@@ -94,6 +153,12 @@ export const API = {
     }),
   },
   clearOverlay: { request: z.object({ projectId }).strict() },
+  /** The project's last plan, or null when it has none. */
+  getPlan: { request: z.object({ projectId }).strict() },
+  /** Keep a plan as the project's last (replacing the one before), with what the views show. */
+  savePlan: { request: z.object({ projectId, plan: PlanRecordSchema, ...planView }).strict() },
+  /** Keep which candidates the views show, for the project's last plan. */
+  setPlanView: { request: z.object({ projectId, ...planView }).strict() },
 } as const;
 
 export type ApiName = keyof typeof API;
@@ -113,6 +178,9 @@ export interface ApiResults {
   getOverlay: ImageOverlay | null;
   setOverlay: { saved: true };
   clearOverlay: { cleared: true };
+  getPlan: StoredPlan | null;
+  savePlan: { savedAt: string };
+  setPlanView: { saved: boolean };
 }
 
 export type ApiRequest<K extends ApiName> = z.input<(typeof API)[K]['request']>;

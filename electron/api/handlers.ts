@@ -12,6 +12,7 @@ import {
   type ApiResponse,
   type ApiResults,
   type HostInfo,
+  type PlanRecord,
 } from '../../core/api/contract.ts';
 import { emptyProject, formatPath, type Project } from '../../core/project/schema.ts';
 import { buildDemoProject, DEMO_PROJECT_ID } from '../../data/demo/demoProject.ts';
@@ -143,6 +144,20 @@ export function createHandlers(store: ProjectStore, host: Omit<HostInfo, 'dataFi
       store.clearOverlay(req.projectId);
       return { cleared: true as const };
     },
+    getPlan: (req: { projectId: string }) => store.getPlan(req.projectId),
+    savePlan: (req: {
+      projectId: string;
+      plan: unknown;
+      selectedId: string | null;
+      compareId: string | null;
+    }) =>
+      store.savePlan(req.projectId, req.plan as PlanRecord, {
+        selectedId: req.selectedId,
+        compareId: req.compareId,
+      }),
+    setPlanView: (req: { projectId: string; selectedId: string | null; compareId: string | null }) => ({
+      saved: store.setPlanView(req.projectId, { selectedId: req.selectedId, compareId: req.compareId }),
+    }),
   };
 
   const table = {} as Record<ApiName, (request: unknown) => ApiResponse<unknown>>;

@@ -7,17 +7,20 @@ import {
   area as turfArea,
   booleanPointInPolygon,
   buffer as turfBuffer,
-  distance as turfDistance,
   pointToLineDistance,
 } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon as GeoPolygon } from 'geojson';
 import type { KeepOut, LonLat, Polygon, Project, Support } from '../../../core/project/schema.ts';
+import { bearingDistance } from '../../../core/paths/geodesy.ts';
 import { fromLocator, toLocator } from '../../../core/paths/maidenhead.ts';
 import { formatLength, mToFeet, type UnitSystem } from '../../../core/units/index.ts';
 
-/** Great-circle distance in metres (turf's haversine on the mean Earth radius; < 0.5 % off geodesic). */
+/**
+ * Geodesic distance on WGS84, metres (core/paths/geodesy.ts, GeographicLib). Not a sphere: a
+ * spherical distance is off by up to 0.3 % (a 30 m east–west side read as 29.9 m at 45°).
+ */
 export function distanceM(a: LonLat, b: LonLat): number {
-  return turfDistance(a, b, { units: 'meters' });
+  return bearingDistance(a, b).distanceM;
 }
 
 export interface Side {

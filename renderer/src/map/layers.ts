@@ -169,7 +169,7 @@ function supportMarker(
     title: `${s.name} (${s.kind})${hazard ? ', near a power line' : ''}; drag to move`,
     alt: s.name,
   });
-  // Name and height; where labels crowd, the map shows the height alone (see declutterLabels).
+  // Name and height; where labels crowd, the map shows the height alone (see declutter.ts).
   const html = `<span class="n">${escapeHtml(s.name)} · </span><span class="h">${formatLength(s.usableHeightM, o.units)}</span>`;
   m.bindTooltip(html, {
     permanent: true,
@@ -180,37 +180,6 @@ function supportMarker(
   m.on('click', (e) => (stop(e), h.select({ kind: 'support', id: s.id })));
   m.on('dragend', () => h.moveSupport(s.id, toLonLat(m.getLatLng())));
   return m;
-}
-
-const overlaps = (a: DOMRect, b: DOMRect): boolean =>
-  a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
-
-/**
- * Keep support labels readable when they crowd: a label that would overlap a marker or a label
- * already placed shows the height alone (the full name stays in the marker's title and the list).
- * The selected support's label is placed first and always in full.
- */
-export function declutterLabels(container: HTMLElement): void {
-  // Tooltips of a replaced layer fade out for a moment (opacity 0): they no longer count.
-  const tips = [...container.querySelectorAll<HTMLElement>('.yw-support-tip')].filter(
-    (t) => t.style.opacity !== '0',
-  );
-  tips.sort(
-    (a, b) => Number(b.classList.contains('is-selected')) - Number(a.classList.contains('is-selected')),
-  );
-  for (const t of tips) t.classList.remove('is-compact');
-  const markers = [...container.querySelectorAll<HTMLElement>('.yw-support, .yw-station')].map((m) => ({
-    rect: m.getBoundingClientRect(),
-    tip: m.getAttribute('aria-describedby'),
-  }));
-  const placed: DOMRect[] = [];
-  for (const t of tips) {
-    const full = t.getBoundingClientRect();
-    const others = markers.filter((m) => m.tip !== t.id).map((m) => m.rect);
-    const crowded = [...placed, ...others].some((r) => overlaps(full, r));
-    if (crowded && !t.classList.contains('is-selected')) t.classList.add('is-compact');
-    placed.push(t.getBoundingClientRect());
-  }
 }
 
 function keepOutLayer(k: KeepOut, selected: boolean, o: LayerOptions, group: L.LayerGroup): Shape {

@@ -1,13 +1,16 @@
 /**
  * The one attach function for the map: it creates the Leaflet map on its element, keeps the
- * layers in step with the session through effects, turns the drawing tools on and off, and
- * removes everything when the element goes away.
+ * layers in step with the session through effects (the lot, and the planning overlays the
+ * session's `mapOverlays` describes), turns the drawing tools on and off, and removes everything
+ * when the element goes away. Nothing else reaches the map.
  */
 import { untrack } from 'svelte';
 import type { Attachment } from 'svelte/attachments';
 import './geoman.ts';
 import L from './leaflet.ts';
-import { COLOURS, buildLayers, declutterLabels, toLatLng, toLonLat, type Shape } from './layers.ts';
+import { declutterLabels } from './declutter.ts';
+import { COLOURS, buildLayers, toLatLng, toLonLat, type Shape } from './layers.ts';
+import { drawOverlays } from './overlayLayers.svelte.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
 import { footprintOf } from '../lib/aerial.ts';
 import type { Session } from '../state/session.svelte.ts';
@@ -120,6 +123,9 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       }
     });
 
+    // The planning overlays: candidates, exposure zones, the feed route.
+    drawOverlays(map, session.mapOverlays, () => declutterLabels(el));
+
     // Drawing tools.
     $effect(() => {
       const tool: ToolId = ui.tool;
@@ -138,19 +144,61 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       else if (tool === 'path') map.pm.enableDraw('Line', { ...opts, pathOptions: { color: COLOURS.path } });
     });
 
-    // Fit the project into view when one is opened (or asked to).
-    $effect(() => {
-      void ui.fitRequest;
+    // Fit the project into view when one is opened (or asked to), and a control that does it.
+    const fitLot = (): void => {
       const b = untrack(() => (doc.project ? projectBounds(doc.project) : null));
       if (b) map.fitBounds(b, { padding: [40, 40], maxZoom: 20, animate: false });
+    };
+    $effect(() => {
+      void ui.fitRequest;
+      fitLot();
     });
+    const fitControl = new L.Control({ position: 'topleft' });
+    fitControl.onAdd = () => {
+      const bar = L.DomUtil.create('div', 'leaflet-bar yw-fit-lot');
+      const a = L.DomUtil.create('a', '', bar);
+      a.href = '#';
+      a.role = 'button';
+      a.title = 'Zoom to the lot';
+      a.setAttribute('aria-label', 'Zoom to the lot');
+      a.textContent = '⤢';
+      L.DomEvent.disableClickPropagation(bar);
+      L.DomEvent.on(a, 'click', (e) => {
+        L.DomEvent.preventDefault(e);
+        fitLot();
+      });
+      return bar;
+    };
+    fitControl.addTo(map);
     $effect(() => {
       const r = ui.reveal;
       if (r && !map.getBounds().pad(-0.05).contains(toLatLng(r.at))) map.panTo(toLatLng(r.at));
     });
+    // Go to a place: centre there, close in, and mark it (offline the map is grey: the mark and
+    // the scale show that it moved).
     $effect(() => {
       const g = ui.goTo;
-      if (g) map.setView(toLatLng(g.at), Math.max(map.getZoom(), 17), { animate: false });
+      if (!g) return;
+      map.setView(toLatLng(g.at), Math.max(map.getZoom(), 18), { animate: false });
+      const mark = L.circleMarker(toLatLng(g.at), {
+        radius: 9,
+        color: '#0f6b73',
+        weight: 3,
+        fill: false,
+        className: 'yw-goto',
+        interactive: false,
+      })
+        .bindTooltip(`You went to ${g.at[1].toFixed(5)}, ${g.at[0].toFixed(5)}`, {
+          permanent: true,
+          direction: 'top',
+          className: 'yw-tip yw-goto-label',
+        })
+        .addTo(map);
+      return () => mark.remove();
+    });
+    map.on('moveend', () => {
+      const c = map.getCenter();
+      ui.mapCentre = [c.lng, c.lat];
     });
 
     // Scale bar in the chosen units.

@@ -16,7 +16,6 @@ import { buildSite } from '../../../core/site/site.ts';
 import { coaxLossDbPer100m, feedRun } from '../../../core/report/buildSheet.ts';
 import type { LonLat } from '../../../core/project/schema.ts';
 import type { XY } from '../../../core/site/frame.ts';
-import type { DrawnCandidate } from './mapDraw.ts';
 
 export interface CandidateFeedRun {
   stationXY: XY;
@@ -27,14 +26,14 @@ export interface CandidateFeedRun {
   per100: number;
 }
 
-/** The feed-line run of a drawn candidate along the user's bends, and its matched loss; null without a feed point. */
+/** The feed-line run of a candidate along the user's bends, and its matched loss; null without a feed point. */
 export function candidateFeedRun(
   madeFor: Project,
   bends: readonly LonLat[],
   coax: StationSettings['coax'],
-  c: DrawnCandidate,
+  c: Candidate,
 ): CandidateFeedRun | null {
-  const feed = c.drawing?.feedXYZ;
+  const feed = c.feedPoints[0]?.xyz;
   if (!feed) return null;
   const site = buildSite(madeFor);
   const r = feedRun(

@@ -4,17 +4,13 @@
 import { describe, expect, it } from 'vitest';
 import L from 'leaflet';
 import { buildSite } from '../../../core/site/site.ts';
-import { enumeratePlan } from '../../../core/rank/plan.ts';
-import { drawingsOf } from '../workers/planHost.ts';
-import { drawCandidate, frameOf } from './mapDraw.ts';
+import { candidateFrame, drawCandidate } from './mapDraw.ts';
 import { demoPlanProject, demoShortlist } from './testShortlist.ts';
 
 describe('drawCandidate', () => {
   it('draws wires at the lon/lat the core frame gives and removes every layer on teardown', () => {
     const project = demoPlanProject();
     const shortlist = demoShortlist();
-    const setup = enumeratePlan(project, { bands: ['80m'], types: ['inverted-v', 'vertical', 'dipole'] });
-    const drawings = drawingsOf(setup, shortlist);
     const el = document.createElement('div');
     Object.defineProperty(el, 'clientWidth', { value: 800 });
     Object.defineProperty(el, 'clientHeight', { value: 600 });
@@ -28,13 +24,14 @@ describe('drawCandidate', () => {
     };
     const before = drawn();
     const c = shortlist.candidates.find((x) => x.type !== 'vertical')!;
-    expect(drawings[c.id]?.feedXYZ).not.toBeNull();
-    const teardown = drawCandidate(map, { ...c, drawing: drawings[c.id] }, project);
+    expect(c.feedPoints[0]).toBeDefined();
+    const lotRing = project.boundary!.coordinates[0];
+    const teardown = drawCandidate(map, c, { units: 'metric', lotRing });
     const lines: L.Polyline[] = [];
     map.eachLayer((l) => {
       if (l instanceof L.Polyline && !(l instanceof L.Polygon)) lines.push(l);
     });
-    const frame = frameOf(project)!;
+    const frame = candidateFrame(c);
     expect(frame.origin).toEqual(buildSite(project).frame.origin);
     // The first wire of the candidate appears with both ends where the frame puts them.
     const w = c.wires[0]!;
@@ -65,9 +62,9 @@ describe('drawCandidate', () => {
     const evil = {
       ...c,
       regions: c.regions.map((r) => ({ ...r, name: hostile })),
-      wires: c.wires.map((w) => ({ ...w, label: hostile })),
+      elements: c.elements.map((e) => ({ ...e, label: hostile })),
     };
-    const teardown = drawCandidate(map, evil, project);
+    const teardown = drawCandidate(map, evil, { units: 'metric', lotRing: null });
     expect(el.querySelector('img[src="x"]')).toBeNull();
     expect(el.textContent).toContain('<img src=x');
     teardown();

@@ -1,17 +1,15 @@
 /**
  * Drawing a shortlisted candidate on the lot map: its footprint, wires, ropes, radials, ends,
- * anchors and supports, the feed point, its broadside bearings and lines toward the target
- * regions. Everything comes in the site frame (metres) from the planning core and goes back to
- * [lon, lat] through the same frame (core/site/frame.ts) the core built it in.
+ * anchors and masts, the feed point, its broadside bearings and lines toward the target regions.
+ * Everything is the candidate's own (its `elements` with their roles and its `feedPoints`, in the
+ * site frame, metres) and goes back to [lon, lat] through the frame whose origin the candidate
+ * carries (`placement.frameOriginLonLat`; core/site/frame.ts).
  */
-import { unitPreference } from '../state/unitPreference.svelte.ts';
 import L from '../map/leaflet.ts';
 import type { Candidate } from '../../../core/rank/plan.ts';
-import type { Project } from '../../../core/project/schema.ts';
-import { makeSiteFrame, ringReferencePoint, type SiteFrame, type XY } from '../../../core/site/frame.ts';
+import { makeSiteFrame, type SiteFrame, type XY } from '../../../core/site/frame.ts';
 import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
 import { targetColour } from '../plots/colours.ts';
-import type { CandidateDrawing } from '../workers/protocol.ts';
 
 export const DRAW_COLOURS = {
   wire: '#173f5f',
@@ -23,12 +21,9 @@ export const DRAW_COLOURS = {
   end: '#c2410c',
 };
 
-/** A shortlisted candidate with the drawing the planning worker made of it. */
-export type DrawnCandidate = Candidate & { drawing?: CandidateDrawing };
-
-/** The frame the core builds a project's site in: centred on the lot boundary's bounding box. */
-export function frameOf(project: Project): SiteFrame | null {
-  return project.boundary ? makeSiteFrame(ringReferencePoint(project.boundary.coordinates[0])) : null;
+/** The site frame the candidate's metres are in (the frame the planner placed it in). */
+export function candidateFrame(c: Pick<Candidate, 'placement'>): SiteFrame {
+  return makeSiteFrame(c.placement.frameOriginLonLat);
 }
 
 const ll = (frame: SiteFrame, p: readonly [number, number] | readonly number[]): L.LatLngTuple => {
@@ -37,8 +32,8 @@ const ll = (frame: SiteFrame, p: readonly [number, number] | readonly number[]):
 };
 
 /** The point lines fan out from: the feed point, else the middle of the wires. */
-function hub(c: DrawnCandidate): XY {
-  const f = c.drawing?.feedXYZ;
+function hub(c: Candidate): XY {
+  const f = c.feedPoints[0]?.xyz;
   if (f) return [f[0], f[1]];
   const pts = c.wires.flatMap((w) => [w.from, w.to]);
   const n = Math.max(1, pts.length);
@@ -66,96 +61,147 @@ function tip(layer: L.Layer, text: string, permanent = false): void {
   });
 }
 
+export interface DrawOptions {
+  units: UnitSystem;
+  /** The lot boundary's corners, [lon, lat] (how far the target lines reach); null without one. */
+  lotRing: readonly (readonly [number, number])[] | null;
+  /**
+   * 'selected' draws everything (target lines, broadside, labels); 'compared' draws the antenna
+   * alone in the compare colour, so that two candidates can be read on one map.
+   */
+  role?: 'selected' | 'compared';
+  /** The plan is out of date: the antenna is drawn faded and dashed, with the reason on it. */
+  stale?: string;
+}
+
+const COMPARE_COLOUR = '#b4387a';
+
 /** Draw the candidate; returns the function that removes the drawing. */
-export function drawCandidate(map: L.Map, candidate: DrawnCandidate, project: Project): () => void {
-  const frame = frameOf(project);
-  if (!frame) return () => {};
-  const units: UnitSystem = unitPreference.units;
-  const len = (m: number): string => formatLength(m, units);
+export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions): () => void {
+  const frame = candidateFrame(candidate);
+  const compared = o.role === 'compared';
+  const len = (m: number): string => formatLength(m, o.units);
   const g = L.layerGroup();
+  const cls = compared ? 'yw-cand yw-cand-compared' : 'yw-cand yw-cand-selected';
   const ring = candidate.footprint.ringXY;
   if (ring.length > 2) {
     L.polygon(
       ring.map((p) => ll(frame, p)),
-      { color: DRAW_COLOURS.footprint, weight: 1, dashArray: '4 4', fillOpacity: 0.06, interactive: false },
+      {
+        color: compared ? COMPARE_COLOUR : DRAW_COLOURS.footprint,
+        weight: 1,
+        dashArray: '4 4',
+        fillOpacity: 0.06,
+        interactive: false,
+      },
     ).addTo(g);
   }
-  const lot = project.boundary ? project.boundary.coordinates[0].map((p) => frame.toLocal(p)) : [];
+  const lot = o.lotRing ? o.lotRing.map((p) => frame.toLocal([p[0], p[1]])) : [];
   const span = Math.max(30, ...lot.map((p) => Math.hypot(p[0], p[1])));
   const centre = hub(candidate);
 
   // Lines toward the targets, then the broadside bearings, under the antenna itself.
-  candidate.regions.forEach((r, i) => {
-    const pts = ray(frame, centre, r.bearingDeg.center, span * 0.9);
-    L.polyline(pts, {
-      color: targetColour(i),
-      weight: 2,
-      opacity: 0.85,
-      dashArray: '1 6',
-      lineCap: 'round',
-      interactive: false,
-    }).addTo(g);
-    // The label sits near the antenna, where it stays in view.
-    const at = ray(frame, centre, r.bearingDeg.center, Math.min(45, span * 0.3))[1]!;
-    L.tooltip({ permanent: true, direction: 'center', className: 'yw-tip' })
-      .setLatLng(at)
-      .setContent(textContent(`${r.name} ${Math.round(r.bearingDeg.center)}°`))
-      .addTo(g);
-  });
-  candidate.broadsideDeg.forEach((b) => {
-    const line = L.polyline(ray(frame, centre, b, span * 0.6), {
-      color: DRAW_COLOURS.broadside,
-      weight: 3,
-      opacity: 0.7,
-      dashArray: '8 5',
-    }).addTo(g);
-    tip(line, `broadside ${Math.round(b)}°`);
-  });
+  const bearingTips: [L.Tooltip, number][] = [];
+  if (!compared) {
+    candidate.regions.forEach((r, i) => {
+      const pts = ray(frame, centre, r.bearingDeg.center, span * 0.9);
+      L.polyline(pts, {
+        color: targetColour(i),
+        weight: 2,
+        opacity: 0.85,
+        dashArray: '1 6',
+        lineCap: 'round',
+        interactive: false,
+      }).addTo(g);
+      // The label sits out on the line, past the lot's labels and the antenna (see declutter).
+      const at = ray(frame, centre, r.bearingDeg.center, span * 0.75)[1]!;
+      bearingTips.push([
+        L.tooltip({ permanent: true, direction: 'center', className: 'yw-tip yw-bearing-label' })
+          .setLatLng(at)
+          .setContent(textContent(`${r.name} ${Math.round(r.bearingDeg.center)}°`))
+          .addTo(g),
+        r.bearingDeg.center,
+      ]);
+    });
+    candidate.broadsideDeg.forEach((b) => {
+      const line = L.polyline(ray(frame, centre, b, span * 0.6), {
+        color: DRAW_COLOURS.broadside,
+        weight: 3,
+        opacity: 0.7,
+        dashArray: '8 5',
+      }).addTo(g);
+      tip(line, `broadside ${Math.round(b)}°`);
+    });
+  }
 
-  const elements =
-    candidate.drawing?.elements ?? candidate.wires.map((w) => ({ kind: 'wire' as const, ...w }));
-  for (const e of elements) {
-    if (e.kind === 'wire' || e.kind === 'rope' || e.kind === 'radial') {
-      const style: L.PolylineOptions =
-        e.kind === 'wire'
-          ? { color: DRAW_COLOURS.wire, weight: 4, opacity: 0.95 }
-          : e.kind === 'radial'
-            ? { color: DRAW_COLOURS.radial, weight: 1.2, opacity: 0.8 }
-            : { color: DRAW_COLOURS.rope, weight: 1.5, dashArray: '3 3' };
+  const faded = o.stale ? { opacity: 0.55, dashArray: '10 6' } : {};
+  for (const e of candidate.elements) {
+    if (e.role === 'support' || e.role === 'feed-line') continue; // drawn by the lot and the feed route
+    if (e.role === 'radiator' || e.role === 'top-wire' || e.role === 'rope' || e.role === 'radial') {
+      const wire = e.role === 'radiator' || e.role === 'top-wire';
+      const style: L.PolylineOptions = wire
+        ? {
+            color: compared ? COMPARE_COLOUR : DRAW_COLOURS.wire,
+            weight: 4,
+            opacity: 0.95,
+            className: `${cls} yw-cand-wire`,
+            ...faded,
+          }
+        : e.role === 'radial'
+          ? { color: DRAW_COLOURS.radial, weight: 1.2, opacity: 0.8, className: cls }
+          : { color: DRAW_COLOURS.rope, weight: 1.5, dashArray: '3 3', className: cls };
       const line = L.polyline([ll(frame, e.from), ll(frame, e.to)], style).addTo(g);
       const h = e.from[2] === e.to[2] ? len(e.from[2]) : `${len(e.from[2])} to ${len(e.to[2])}`;
       const l = Math.hypot(e.to[0] - e.from[0], e.to[1] - e.from[1], e.to[2] - e.from[2]);
-      tip(line, e.kind === 'radial' ? `${e.label}: ${len(l)}` : `${e.label}: ${len(l)}, ${h} above ground`);
-    } else if (e.kind === 'end' || e.kind === 'anchor') {
+      const head = compared ? `#${candidate.rank} ` : '';
+      tip(
+        line,
+        e.role === 'radial' ? `${e.label}: ${len(l)}` : `${head}${e.label}: ${len(l)}, ${h} above ground`,
+      );
+    } else if (e.role === 'end' || e.role === 'anchor') {
       const m = L.circleMarker(ll(frame, e.at), {
-        radius: e.kind === 'end' ? 4 : 3,
-        color: e.kind === 'end' ? DRAW_COLOURS.end : DRAW_COLOURS.rope,
+        radius: e.role === 'end' ? 4 : 3,
+        color: e.role === 'end' ? DRAW_COLOURS.end : DRAW_COLOURS.rope,
         fillColor: '#fff',
         fillOpacity: 1,
         weight: 2,
+        className: cls,
       }).addTo(g);
-      tip(m, e.kind === 'end' ? `${e.label}: ${len(e.at[2])} up, high RF voltage` : `${e.label} at ground`);
-    } else if (e.kind === 'mast') {
+      tip(m, e.role === 'end' ? `${e.label}: ${len(e.at[2])} up, high RF voltage` : `${e.label} at ground`);
+    } else if (e.role === 'mast') {
       const m = L.circleMarker(ll(frame, e.at), {
         radius: 6,
-        color: DRAW_COLOURS.wire,
+        color: compared ? COMPARE_COLOUR : DRAW_COLOURS.wire,
         fillColor: '#fff',
         weight: 3,
+        className: `${cls} yw-cand-wire`,
       });
       tip(m.addTo(g), `${e.label}, ${len(e.heightM)}`);
     }
   }
-  const f = candidate.drawing?.feedXYZ;
+  const f = candidate.feedPoints[0]?.xyz;
   if (f) {
     const m = L.circleMarker(ll(frame, f), {
       radius: 6,
       color: '#1f2528',
       weight: 2,
-      fillColor: DRAW_COLOURS.feed,
+      fillColor: compared ? COMPARE_COLOUR : DRAW_COLOURS.feed,
       fillOpacity: 1,
+      className: `${cls} yw-cand-feed`,
     }).addTo(g);
-    tip(m, `feed point, ${len(f[2])} up`);
+    tip(m, `${compared ? `#${candidate.rank} ` : ''}feed point, ${len(f[2])} up`);
+  }
+  if (o.stale && !compared) {
+    L.tooltip({ permanent: true, direction: 'top', className: 'yw-tip yw-stale-label' })
+      .setLatLng(ll(frame, centre))
+      .setContent(textContent(`Out of date: ${o.stale}`))
+      .addTo(g);
   }
   g.addTo(map);
+  // The map's declutter slides each bearing label along its own line (map/declutter.ts).
+  for (const [t, deg] of bearingTips) {
+    const el = t.getElement();
+    if (el) el.dataset.bearing = String(deg);
+  }
   return () => g.remove();
 }

@@ -1,16 +1,16 @@
 /**
  * The selected candidate's RF-exposure zones and its feed-line route on the lot map. Zones come
- * from the core in the site frame (metres) and go back to [lon, lat] through the same frame; the
+ * from the core in the site frame (metres) and go back to [lon, lat] through the frame the
+ * candidate was placed in (`candidateFrame` in mapDraw.ts); the
  * route is the station point, the user's bend points and the point under the feed, editable with
  * the map's drawing plug-in (drag a bend, drag a middle handle to add one, right-click to remove).
  */
 import L from '../map/leaflet.ts';
-import type { LonLat, Project } from '../../../core/project/schema.ts';
+import type { LonLat } from '../../../core/project/schema.ts';
 import { PLACE_WORD, type ZoneOnLot } from '../../../core/report/exposureZones.ts';
-import type { XY } from '../../../core/site/frame.ts';
+import type { SiteFrame, XY } from '../../../core/site/frame.ts';
 import type { XYZ } from '../../../core/site/geometry.ts';
 import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
-import { frameOf } from './mapDraw.ts';
 
 export const SAFETY_COLOURS = {
   general: '#7c3aed',
@@ -32,12 +32,10 @@ function textContent(text: string): HTMLElement {
  */
 export function drawExposure(
   map: L.Map,
-  project: Project,
+  frame: SiteFrame,
   zones: readonly [ZoneOnLot, ZoneOnLot],
   units: UnitSystem,
 ): () => void {
-  const frame = frameOf(project);
-  if (!frame) return () => {};
   const ll = (p: XY): L.LatLngTuple => {
     const q = frame.toLonLat(p);
     return [q[1], q[0]];
@@ -109,9 +107,7 @@ export interface RouteDrawing {
 }
 
 /** Draw the feed-line route; editable when asked. Returns the function that removes it. */
-export function drawFeedRoute(map: L.Map, project: Project, r: RouteDrawing): () => void {
-  const frame = frameOf(project);
-  if (!frame) return () => {};
+export function drawFeedRoute(map: L.Map, frame: SiteFrame, r: RouteDrawing): () => void {
   const toLL = (p: XY): L.LatLng => {
     const q = frame.toLonLat(p);
     return L.latLng(q[1], q[0]);

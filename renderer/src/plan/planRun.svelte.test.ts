@@ -152,30 +152,44 @@ describe('PlanRunner', () => {
     runner.run(project, ['80m']);
     await until(() => !runner.running);
     const c = runner.shortlist!.candidates[0]!;
-    const pts = await runner.sweep(c.evaluationKey, c.trim.valueM, [3.5e6, 3.6e6, 3.7e6]);
+    const pts = await runner.sweep(c.design, project.soil, c.trim.valueM, [3.5e6, 3.6e6, 3.7e6]);
     expect(pts.map((p) => p.freqHz)).toEqual([3.5e6, 3.6e6, 3.7e6]);
     expect(pts[0]!.zOhm[1]).toBeLessThan(pts[2]!.zOhm[1]);
-    await expect(runner.sweep('no-such-key', 1, [3.5e6])).rejects.toThrow(/older plan/);
+  });
+
+  it('sweeps a kept candidate with a fresh pool that never enumerated it (the candidate carries its design)', async () => {
+    const first = new PlanRunner(fakePool(1, { calls: 0 }));
+    first.run(project, ['80m']);
+    await until(() => !first.running);
+    const kept = JSON.parse(JSON.stringify(first.shortlist)) as typeof first.shortlist;
+    first.dispose();
+    const runner = new PlanRunner(fakePool(1, { calls: 0 }));
+    runner.restore(kept!, { project, bands: ['80m'] });
+    expect(runner.status).toBe('done');
+    const c = runner.shortlist!.candidates[0]!;
+    const pts = await runner.sweep(c.design, project.soil, c.trim.valueM, [3.5e6, 3.7e6]);
+    expect(pts).toHaveLength(2);
+    runner.clear();
+    expect(runner.shortlist).toBeNull();
+    expect(runner.madeFor).toBeNull();
   });
 });
 
-describe('candidate drawings from the builders', () => {
-  it('places every shortlisted candidate with its wires and a feed point on a wire', async () => {
+describe('candidates as drawn: their own elements and feed points', () => {
+  it('every shortlisted candidate has a radiator or top wire and a feed point on one of its wires', async () => {
     const runner = new PlanRunner(fakePool(2, { calls: 0 }));
     runner.run(project, ['80m']);
     await until(() => !runner.running);
     const s = runner.shortlist!;
     for (const c of s.candidates) {
-      const d = runner.drawings[c.id];
-      expect(d, c.id).toBeDefined();
-      expect(d!.elements.some((e) => e.kind === 'wire')).toBe(true);
-      // The feed lies on one of the candidate's placed wires (to a millimetre).
-      const f = d!.feedXYZ!;
+      expect(c.elements.some((e) => e.role === 'radiator' || e.role === 'top-wire')).toBe(true);
+      // The feed lies on one of the candidate's placed wires (to a centimetre: it is rounded to one).
+      const f = c.feedPoints[0]!.xyz;
       const onWire = c.wires.some((w) => {
         const ab = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
         const af = Math.hypot(f[0] - w.from[0], f[1] - w.from[1], f[2] - w.from[2]);
         const fb = Math.hypot(w.to[0] - f[0], w.to[1] - f[1], w.to[2] - f[2]);
-        return Math.abs(af + fb - ab) < 1e-3;
+        return Math.abs(af + fb - ab) < 1e-2;
       });
       expect(onWire, c.id).toBe(true);
     }

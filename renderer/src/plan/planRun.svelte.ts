@@ -11,7 +11,9 @@
 import type { Candidate, Job, Shortlist } from '../../../core/rank/plan.ts';
 import type { TuningMeasurement } from '../../../core/report/buildSheet.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
-import type { CandidateDrawing, FromWorker, SweepPoint, TestFault } from '../workers/protocol.ts';
+import type { Design } from '../../../core/antennas/types.ts';
+import type { EvalGround } from '../../../core/rank/evaluator.ts';
+import type { FromWorker, SweepPoint, TestFault } from '../workers/protocol.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import { takeTestFault } from '../workers/testFault.ts';
 
@@ -23,6 +25,8 @@ export interface RunnerOptions {
   stallMs?: number;
   /** Where a test fault comes from (tests only; see testFault.ts). */
   testFault?: () => TestFault | null;
+  /** Called with every new shortlist a run makes (to keep it), with what it was made for. */
+  onShortlist?: (shortlist: Shortlist, madeFor: { project: Project; bands: Band[] }) => void;
 }
 
 /** The words of a worker failure, as shown in the run bar. */
@@ -62,8 +66,6 @@ export class PlanRunner {
   /** Evaluations this run took from the cache. */
   cached = $state(0);
   shortlist = $state.raw<Shortlist | null>(null);
-  /** How each shortlisted candidate is drawn on the lot, by candidate id. */
-  drawings = $state.raw<Record<string, CandidateDrawing>>({});
   /** The project and bands the shown shortlist was made for. */
   madeFor = $state.raw<{ project: Project; bands: Band[] } | null>(null);
   error = $state<string | null>(null);
@@ -99,6 +101,7 @@ export class PlanRunner {
 
   #stallMs: number;
   #takeFault: () => TestFault | null;
+  #onShortlist: RunnerOptions['onShortlist'];
   #watchdog: ReturnType<typeof setTimeout> | null = null;
 
   constructor(
@@ -110,6 +113,7 @@ export class PlanRunner {
     this.#now = now;
     this.#stallMs = options.stallMs ?? DEFAULT_STALL_MS;
     this.#takeFault = options.testFault ?? (() => takeTestFault());
+    this.#onShortlist = options.onShortlist;
   }
 
   #lead(): PlanWorker {
@@ -164,13 +168,40 @@ export class PlanRunner {
     this.#arm();
   }
 
-  /** Feed impedance of a shortlisted candidate across frequencies, from the lead worker's solver. */
-  sweep(evaluationKey: string, trimM: number, freqsHz: number[]): Promise<SweepPoint[]> {
+  /** Show no plan: a run in progress is cancelled and the shown shortlist dropped. */
+  clear(): void {
+    this.cancel();
+    this.#setShortlist(null, null);
+    this.status = 'idle';
+    this.error = null;
+  }
+
+  /** Show a plan made before (kept in the store): nothing runs. */
+  restore(shortlist: Shortlist, madeFor: { project: Project; bands: Band[] }): void {
+    this.cancel();
+    this.#setShortlist(shortlist, madeFor);
+    this.status = 'done';
+    this.error = null;
+  }
+
+  #setShortlist(shortlist: Shortlist | null, madeFor: { project: Project; bands: Band[] } | null): void {
+    this.shortlist = shortlist;
+    this.#shortlistSeq++;
+    this.#tuneWaits.clear();
+    this.tunings = {};
+    this.madeFor = madeFor;
+  }
+
+  /**
+   * Feed impedance of a shortlisted candidate's design (as it carries it) across frequencies,
+   * over the plan's ground, from the lead worker's solver.
+   */
+  sweep(design: Design, ground: EvalGround, trimM: number, freqsHz: number[]): Promise<SweepPoint[]> {
     const lead = this.#lead();
     const reqId = ++this.#reqSeq;
     return new Promise((resolve, reject) => {
       this.#requests.set(reqId, { kind: 'sweep', resolve, reject });
-      lead.post({ type: 'sweep', reqId, evaluationKey, trimM, freqsHz });
+      lead.post({ type: 'sweep', reqId, design, ground, trimM, freqsHz });
       this.#arm();
     });
   }
@@ -359,14 +390,11 @@ export class PlanRunner {
       }
       case 'ranked': {
         if (!run || m.runId !== run.id) return;
-        this.shortlist = m.shortlist;
-        this.drawings = m.drawings;
-        this.#shortlistSeq++;
-        this.#tuneWaits.clear();
-        this.tunings = {};
-        this.madeFor = { project: run.project, bands: run.bands };
+        const madeFor = { project: run.project, bands: run.bands };
+        this.#setShortlist(m.shortlist, madeFor);
         this.status = 'done';
         this.#run = null;
+        this.#onShortlist?.(m.shortlist, madeFor);
         return;
       }
       case 'swept': {

@@ -237,7 +237,7 @@ describe('PlanRunner with a failing worker', () => {
     const { runner, p } = runnerWith(2);
     await rerunEndsDone(runner);
     const c = runner.shortlist!.candidates[0]!;
-    const sweep = runner.sweep(c.evaluationKey, c.trim.valueM, [3.5e6]);
+    const sweep = runner.sweep(c.design, project.soil, c.trim.valueM, [3.5e6]);
     p.all[0]!.send({ type: 'crashed', message: 'out of memory' });
     await expect(sweep).rejects.toThrow(/a planning worker failed: out of memory/);
     expect(runner.status).toBe('done');

@@ -2,15 +2,28 @@
  * The planning workflow of the open project: its targets, the bands, the runner over the
  * workers, and what the planning views show (open tab, selected and compared candidates, the
  * sort, the elevation of the azimuth plot, the SWR sweeps fetched so far).
+ *
+ * A plan belongs to its project and is kept: each finished plan goes to the store with the hash
+ * of the inputs that made it (core/rank/planInputs.ts), and opening a project brings its last
+ * plan back with the selected and compared candidates. Nothing of one project's plan is shown
+ * inside another: `candidates` is empty unless the plan is the open project's.
  */
+import type { PlanRecord, PlanView, StoredPlan } from '../../../core/api/contract.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
 import { BANDS } from '../../../core/project/schema.ts';
+import type { Candidate } from '../../../core/rank/plan.ts';
+import {
+  changedPlanInputs,
+  describePlanChanges,
+  planInputsHash,
+  type PlanInputPart,
+  type PlanInputsHash,
+} from '../../../core/rank/planInputs.ts';
 import type { ProjectState } from '../state/project.svelte.ts';
 import { TargetsState } from '../targets/targets.svelte.ts';
 import { sweepFrequenciesHz } from '../plots/patternData.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import type { SweepPoint } from '../workers/protocol.ts';
-import type { DrawnCandidate } from './mapDraw.ts';
 import { PlanRunner } from './planRun.svelte.ts';
 import { sortCandidates, nextSort, type SortKey, type SortState } from './shortlistTable.ts';
 
@@ -19,25 +32,26 @@ export type PlanTab = 'targets' | 'shortlist' | 'compare' | 'rejected';
 export type SweepResult =
   { status: 'loading' } | { status: 'ok'; points: SweepPoint[] } | { status: 'error'; message: string };
 
-/** The parts of a project a plan depends on (names and notes do not change a plan). */
-export function planInputs(p: Project, bands: readonly Band[]): string {
-  return JSON.stringify([
-    p.boundary,
-    p.supports,
-    p.keepOuts,
-    p.station,
-    p.soil,
-    p.targets,
-    // The station's transmitter and coax change the build sheet and the exposure, not the plan.
-    { ...p.settings, station: undefined },
-    bands,
-  ]);
+/** Where plans are kept (the store, through the API); tests give a stand-in or none. */
+export interface PlanKeeper {
+  load(projectId: string): Promise<StoredPlan | null>;
+  save(projectId: string, plan: PlanRecord, view: PlanView): Promise<void>;
+  setView(projectId: string, view: PlanView): Promise<void>;
 }
 
 export class Planning {
   readonly targets: TargetsState;
   readonly runner: PlanRunner;
   #doc: ProjectState;
+  #keeper: PlanKeeper | null;
+  /** Counts project switches, so that a plan loaded late for a project no longer open is dropped. */
+  #openSeq = 0;
+  /** The hash of the inputs of the shown plan. */
+  madeWith = $state.raw<PlanInputsHash | null>(null);
+  /** When the shown plan was kept, if it was brought back from the store (null for a plan run now). */
+  keptAt = $state<string | null>(null);
+  /** While the open project's kept plan is being read. */
+  restoring = $state(false);
 
   tab = $state<PlanTab>('targets');
   open = $state(true);
@@ -50,31 +64,105 @@ export class Planning {
   cutToward = $state<string>('');
   sweeps = $state.raw<Record<string, SweepResult>>({});
 
-  constructor(doc: ProjectState, start: () => PlanWorker[]) {
+  constructor(doc: ProjectState, start: () => PlanWorker[], keeper: PlanKeeper | null = null) {
     this.#doc = doc;
+    this.#keeper = keeper;
     this.targets = new TargetsState(doc);
-    this.runner = new PlanRunner(start);
+    this.runner = new PlanRunner(start, undefined, {
+      onShortlist: (shortlist, madeFor) => {
+        const inputs = planInputsHash(madeFor.project, madeFor.bands);
+        this.madeWith = inputs;
+        this.keptAt = null;
+        const id = madeFor.project.id;
+        void this.#keeper
+          ?.save(id, { inputs, bands: madeFor.bands, madeFor: madeFor.project, shortlist }, this.#view())
+          .catch(() => {});
+      },
+    });
   }
 
   bands: Band[] = $derived.by(() => this.#doc.project?.bands ?? ['80m']);
-  candidates: DrawnCandidate[] = $derived.by(() => {
+  /** The shown plan, when it is the open project's (never another project's). */
+  shortlist = $derived.by(() => {
     const s = this.runner.shortlist;
-    if (!s) return [];
-    const d = this.runner.drawings;
-    return sortCandidates(s.candidates, this.sort).map((c) => ({ ...c, drawing: d[c.id] }));
+    return s && s.projectId === this.#doc.project?.id ? s : null;
   });
-  selected: DrawnCandidate | null = $derived.by(
+  /** The project the shown plan was made for (the frame of its candidates), when it is the open one's. */
+  madeFor: Project | null = $derived.by(() =>
+    this.shortlist ? (this.runner.madeFor?.project ?? null) : null,
+  );
+  candidates: Candidate[] = $derived.by(() => {
+    const s = this.shortlist;
+    return s ? sortCandidates(s.candidates, this.sort) : [];
+  });
+  selected: Candidate | null = $derived.by(
     () => this.candidates.find((c) => c.id === this.selectedId) ?? null,
   );
-  compared: DrawnCandidate | null = $derived.by(
+  compared: Candidate | null = $derived.by(
     () => this.candidates.find((c) => c.id === this.compareId && c.id !== this.selectedId) ?? null,
   );
-  /** True when the lot, targets or bands changed since the shown shortlist was made. */
-  stale = $derived.by(() => {
-    const m = this.runner.madeFor;
+  /** What changed since the shown plan was made, part by part; [] while it is current. */
+  changes: PlanInputPart[] = $derived.by(() => {
+    const m = this.madeWith;
     const p = this.#doc.project;
-    return !!m && !!p && planInputs(m.project, m.bands) !== planInputs(p, this.bands);
+    if (!m || !p || !this.shortlist) return [];
+    return changedPlanInputs(m, planInputsHash(p, this.bands));
   });
+  /** True when something the plan reads changed since the shown shortlist was made. */
+  stale = $derived(this.changes.length > 0);
+  /** "the supports and soil changed since this plan", or ''. */
+  staleText = $derived(describePlanChanges(this.changes));
+
+  #view(): PlanView {
+    return { selectedId: this.selectedId, compareId: this.compareId };
+  }
+
+  #keepView(): void {
+    const id = this.shortlist?.projectId;
+    if (id) void this.#keeper?.setView(id, this.#view()).catch(() => {});
+  }
+
+  /**
+   * The open project changed: drop what was shown (a run in progress is cancelled: its plan would
+   * be another project's), then bring back the project's kept plan with its view.
+   */
+  async openProject(projectId: string): Promise<void> {
+    const seq = ++this.#openSeq;
+    this.runner.clear();
+    this.madeWith = null;
+    this.keptAt = null;
+    this.selectedId = null;
+    this.compareId = null;
+    this.elevationDeg = null;
+    this.cutToward = '';
+    this.sweeps = {};
+    if (!this.#keeper) return;
+    this.restoring = true;
+    let kept: StoredPlan | null = null;
+    try {
+      kept = await this.#keeper.load(projectId);
+    } catch {
+      kept = null;
+    }
+    if (seq !== this.#openSeq) return;
+    this.restoring = false;
+    if (!kept || kept.plan.shortlist.projectId !== projectId || this.runner.running) {
+      if (this.tab !== 'targets' && !this.runner.running) this.tab = 'targets';
+      return;
+    }
+    this.runner.restore(kept.plan.shortlist, { project: kept.plan.madeFor, bands: kept.plan.bands });
+    this.madeWith = kept.plan.inputs;
+    this.keptAt = kept.savedAt;
+    this.selectedId = kept.selectedId;
+    this.compareId = kept.compareId;
+    if (this.tab === 'targets') this.tab = 'shortlist';
+  }
+
+  /** Compare the selected candidate with this one (null: no comparison). */
+  setCompare(id: string | null): void {
+    this.compareId = id;
+    this.#keepView();
+  }
 
   toggleBand(b: Band): boolean {
     const has = this.bands.includes(b);
@@ -96,6 +184,7 @@ export class Planning {
     this.elevationDeg = null;
     this.cutToward = '';
     if (id === this.compareId) this.compareId = null;
+    this.#keepView();
   }
 
   sortBy(key: SortKey): void {
@@ -103,17 +192,18 @@ export class Planning {
   }
 
   /** Ask the lead worker for the SWR curve of a candidate across its band (once per candidate). */
-  requestSweep(c: DrawnCandidate): void {
+  requestSweep(c: Candidate): void {
     const key = `${c.id}:${c.evaluationKey}`;
-    if (this.sweeps[key]) return;
+    const madeFor = this.madeFor;
+    if (this.sweeps[key] || !madeFor) return;
     this.sweeps = { ...this.sweeps, [key]: { status: 'loading' } };
-    this.runner.sweep(c.evaluationKey, c.trim.valueM, sweepFrequenciesHz(c.band)).then(
+    this.runner.sweep(c.design, madeFor.soil, c.trim.valueM, sweepFrequenciesHz(c.band)).then(
       (points) => (this.sweeps = { ...this.sweeps, [key]: { status: 'ok', points } }),
       (e: Error) => (this.sweeps = { ...this.sweeps, [key]: { status: 'error', message: e.message } }),
     );
   }
 
-  sweepOf(c: DrawnCandidate): SweepResult | null {
+  sweepOf(c: Candidate): SweepResult | null {
     return this.sweeps[`${c.id}:${c.evaluationKey}`] ?? null;
   }
 

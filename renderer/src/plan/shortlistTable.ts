@@ -2,6 +2,7 @@
  * The shortlist as rows and columns: the figures each column shows (all from the planning
  * core's Candidate), how each column sorts, and the plain-text forms used by the CSV export.
  */
+import { typeName } from '../../../core/antennas/typeName.ts';
 import type { Candidate } from '../../../core/rank/plan.ts';
 import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
 
@@ -105,12 +106,6 @@ export const fmtBearings = (b: readonly number[]): string =>
   b.length === 0 ? 'all round' : b.map((x) => `${Math.round(x)}°`).join(' / ');
 export const fmtLen = (m: number, units: UnitSystem): string => formatLength(m, units);
 
-/** Short names of the antenna types for table cells (the core's full label is in the detail). */
-const SHORT_TYPE: Record<string, string> = {
-  dipole: 'Dipole',
-  'inverted-v': 'Inverted-V',
-  'half-square': 'Half-square',
-  vertical: 'Vertical, radials',
-  'inverted-l': 'Inverted-L',
-};
-export const shortType = (c: Candidate): string => SHORT_TYPE[c.type] ?? c.typeLabel;
+/** The type's short name for table cells (core/antennas/typeName.ts; the full label is in the detail). */
+export const shortType = (c: Candidate): string =>
+  c.type === 'vertical' ? 'Vertical, radials' : typeName(c.type);

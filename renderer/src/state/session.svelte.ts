@@ -1,9 +1,15 @@
 /**
- * The editing session: the open project, the editor state, the aerial overlay and the list of
- * recent projects, and the project-level commands (open, new, duplicate, delete, reset demo).
+ * The editing session: the open project, the editor state, the aerial overlay, the planning
+ * state (targets, runs, the shortlist and what its views show, kept per project in the store)
+ * with what the map draws of it, the list of recent projects, and the project-level commands
+ * (open, new, duplicate, delete, reset demo).
  */
 import type { ApiResponse, ProjectSummary, YardwireApi } from '../../../core/api/contract.ts';
 import type { Project } from '../../../core/project/schema.ts';
+import { Planning, type PlanKeeper } from '../plan/planning.svelte.ts';
+import { closeReport } from '../plan/reportView.svelte.ts';
+import { startPool, type PlanWorker } from '../workers/pool.ts';
+import { MapOverlays } from './mapOverlays.svelte.ts';
 import { OverlayState } from './overlay.svelte.ts';
 import { ProjectState } from './project.svelte.ts';
 import { UiState } from './ui.svelte.ts';
@@ -13,19 +19,29 @@ export class Session {
   doc: ProjectState;
   ui = new UiState();
   overlay: OverlayState;
+  planning: Planning;
+  /** What the lot map draws of the planning state. */
+  mapOverlays: MapOverlays;
   projects = $state.raw<ProjectSummary[]>([]);
-  /** null while starting; an error message if the host could not be reached. */
+  /** False while starting, true once the first project is open. */
   started = $state(false);
+  /** Why the host could not be reached (the first project could not be opened), or null. */
   startError = $state<string | null>(null);
   #api: () => YardwireApi;
 
   /** Stored timestamp the open project's edits build on (conflict check of saveProject). */
   #base: string | undefined;
 
-  constructor(client: () => YardwireApi) {
+  constructor(client: () => YardwireApi, startWorkers: () => PlanWorker[] = startPool) {
     this.#api = client;
     this.doc = new ProjectState((project) => this.#save(project));
     this.overlay = new OverlayState(client);
+    this.planning = new Planning(this.doc, startWorkers, apiKeeper(client));
+    this.mapOverlays = new MapOverlays(this.doc, this.planning);
+  }
+
+  dispose(): void {
+    this.planning.dispose();
   }
 
   /**
@@ -107,10 +123,31 @@ export class Session {
 
   async #show(p: Project): Promise<void> {
     this.#base = undefined;
+    // Nothing of the project shown before stays on screen: its print view closes with it.
+    closeReport();
     this.doc.open(p);
     this.ui.setTool('select');
     this.ui.fitRequest++;
-    await Promise.all([this.overlay.load(p.id), this.refreshList()]);
+    await Promise.all([this.overlay.load(p.id), this.refreshList(), this.planning.openProject(p.id)]);
     if (this.#base === undefined) this.#base = this.projects.find((s) => s.id === p.id)?.updatedAt;
   }
+}
+
+/** Plans kept in the store through the API; a failure to keep one is reported, never thrown. */
+function apiKeeper(client: () => YardwireApi): PlanKeeper {
+  const must = async <T>(r: Promise<{ ok: true; value: T } | { ok: false; error: { message: string } }>) => {
+    const x = await r;
+    if (!x.ok) throw new Error(x.error.message);
+    return x.value;
+  };
+  return {
+    load: (projectId) => must(client().getPlan({ projectId })),
+    save: async (projectId, plan, view) => {
+      // The request schema checks the plan at the host; its TypeScript input type is looser than PlanRecord.
+      await must(client().savePlan({ projectId, plan: plan as never, ...view }));
+    },
+    setView: async (projectId, view) => {
+      await must(client().setPlanView({ projectId, ...view }));
+    },
+  };
 }

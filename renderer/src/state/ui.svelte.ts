@@ -79,6 +79,8 @@ export class UiState {
   fitRequest = $state(0);
   /** A place the map should centre on (from "Go to"). */
   goTo = $state.raw<{ at: LonLat; seq: number } | null>(null);
+  /** The centre of the lot map as last moved (where a typed boundary starts without a Go). */
+  mapCentre = $state.raw<LonLat | null>(null);
 
   toolInfo = $derived(toolById(this.tool));
 

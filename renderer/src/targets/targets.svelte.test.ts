@@ -112,3 +112,17 @@ describe('parsing places', () => {
     expect(parseCorners('FN20; nowhere; EN61').error).toMatch(/"nowhere"/);
   });
 });
+
+describe('clampWeight', () => {
+  it('says when a weight is clamped or rounded, and refuses what is not a number', async () => {
+    const { clampWeight } = await import('./targets.svelte.ts');
+    expect(clampWeight(1e6)).toEqual({
+      weight: 100,
+      note: '1000000 is more than the largest weight: set to 100',
+    });
+    expect(clampWeight(-2)).toEqual({ weight: 0, note: 'a weight cannot be negative: -2 set to 0' });
+    expect(clampWeight(2.25)).toEqual({ weight: 2.3, note: 'rounded to 2.3' });
+    expect(clampWeight(3)).toEqual({ weight: 3, note: '' });
+    expect(clampWeight(Number.NaN)).toBeNull();
+  });
+});

@@ -22,6 +22,24 @@ export const MAX_TARGETS = 100;
 export const DEFAULT_WEIGHT = 1;
 export const MAX_WEIGHT = 100;
 
+/**
+ * The weight a typed value becomes (0…100, to a tenth) and, when that is not what was typed, a
+ * note that says so; null for a value that is not a number.
+ */
+export function clampWeight(typed: number): { weight: number; note: string } | null {
+  if (!Number.isFinite(typed)) return null;
+  const weight = Math.min(MAX_WEIGHT, Math.max(0, Math.round(typed * 10) / 10));
+  const note =
+    typed > MAX_WEIGHT
+      ? `${typed} is more than the largest weight: set to ${MAX_WEIGHT}`
+      : typed < 0
+        ? `a weight cannot be negative: ${typed} set to 0`
+        : weight !== typed
+          ? `rounded to ${weight}`
+          : '';
+  return { weight, note };
+}
+
 /** The key of a target: its region id for a built-in region, its own id otherwise. */
 export const targetKey = (t: Target): string => ('regionId' in t ? t.regionId : t.id);
 
@@ -155,8 +173,9 @@ export class TargetsState {
   }
 
   setWeight(key: string, weight: number): boolean {
-    if (!Number.isFinite(weight)) return false;
-    const w = Math.min(MAX_WEIGHT, Math.max(0, Math.round(weight * 10) / 10));
+    const c = clampWeight(weight);
+    if (!c) return false;
+    const w = c.weight;
     const row = this.rows.find((r) => r.key === key);
     if (!row || row.weight === w) return false;
     return this.#doc.edit(`weight of ${row.name}: ${w}`, (q) => ({

@@ -8,16 +8,8 @@ import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import type { Candidate, Job, Shortlist } from '../../../core/rank/plan.ts';
 import type { TuningMeasurement } from '../../../core/report/buildSheet.ts';
 import type { Band, Project } from '../../../core/project/schema.ts';
-import type { Element } from '../../../core/site/feasibility.ts';
-import type { XYZ } from '../../../core/site/geometry.ts';
-
-/** Everything of a shortlisted placement that is drawn on the lot, in the site frame (metres), from the builder. */
-export interface CandidateDrawing {
-  /** Wires, ropes, radials, ends, anchors, supports and masts, placed and at the trimmed dimensions. */
-  elements: Element[];
-  /** The feed point. */
-  feedXYZ: XYZ | null;
-}
+import type { Design } from '../../../core/antennas/types.ts';
+import type { EvalGround } from '../../../core/rank/evaluator.ts';
 
 export type ToWorker =
   /** Lead: build the site and the jobs; answer with the jobs missing from the cache. */
@@ -31,8 +23,11 @@ export type ToWorker =
   | { type: 'store'; key: string; record: EvaluationRecord }
   /** Lead: rank with every job in the cache (planSite evaluates nothing then). */
   | { type: 'rank'; runId: number; project: Project; bands: Band[]; evaluations: number; cacheHits: number }
-  /** Lead: feed impedance of a shortlisted design at these frequencies (for the SWR curve). */
-  | { type: 'sweep'; reqId: number; evaluationKey: string; trimM: number; freqsHz: number[] }
+  /**
+   * Lead: feed impedance of a shortlisted candidate's design (as the candidate carries it) over
+   * the plan's ground at these frequencies (for the SWR curve).
+   */
+  | { type: 'sweep'; reqId: number; design: Design; ground: EvalGround; trimM: number; freqsHz: number[] }
   /**
    * Lead: the tuning rate of a shortlisted candidate (measureTuning at its trimmed length, over
    * the ground its plan used). `project` is the one the shortlist was made for: with it the lead
@@ -61,14 +56,7 @@ export interface SweepPoint {
 export type FromWorker =
   | { type: 'enumerated'; runId: number; missing: Job[]; cached: number; total: number }
   | { type: 'evaluated'; runId: number; key: string; record: EvaluationRecord; ms: number }
-  | {
-      type: 'ranked';
-      runId: number;
-      shortlist: Shortlist;
-      /** By candidate id. */
-      drawings: Record<string, CandidateDrawing>;
-      ms: number;
-    }
+  | { type: 'ranked'; runId: number; shortlist: Shortlist; ms: number }
   | { type: 'swept'; reqId: number; points: SweepPoint[] }
   | { type: 'tuned'; reqId: number; tuning: TuningMeasurement }
   | { type: 'error'; runId?: number; reqId?: number; key?: string; message: string }

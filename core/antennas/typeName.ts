@@ -1,0 +1,23 @@
+/**
+ * The one display name of each antenna type in proper case ("Inverted-L", never the internal id),
+ * for every view: the shortlist, the detail, the plots' legends, the rejected list, the exports.
+ * The builder's `label` is the longer description ("Ground-mounted quarter-wave vertical with
+ * radials"); this is the short name.
+ */
+import type { AntennaTypeId } from './types.ts';
+
+const TYPE_NAMES: Record<string, string> = {
+  dipole: 'Dipole',
+  'inverted-v': 'Inverted-V',
+  'half-square': 'Half-square',
+  vertical: 'Vertical',
+  'inverted-l': 'Inverted-L',
+};
+
+/** The short display name of a type; an id this version does not know reads as its words, capitalised. */
+export function typeName(type: AntennaTypeId): string {
+  const known = TYPE_NAMES[type];
+  if (known) return known;
+  const words = type.replace(/[-_]+/g, ' ').trim();
+  return words ? words[0]!.toUpperCase() + words.slice(1) : 'Antenna';
+}

@@ -1,0 +1,56 @@
+// Setting up a lot without imagery (issue 14 point 6): the empty state says how to add imagery;
+// Go visibly moves the map and marks the place; the boundary is typed as width × depth at a
+// bearing, and then as sides from a corner, with errors next to their fields.
+import geodesic from 'geographiclib-geodesic';
+import { clickMap, expect, openApp, shot, test } from './fixtures.ts';
+
+test('types a 45 × 30 m lot after going to its place, without imagery', async ({ page, host }) => {
+  await openApp(page, host);
+  await page.getByRole('tab', { name: 'Project' }).click();
+  await page.getByRole('button', { name: 'New…' }).click();
+  await page.getByLabel('Name of the new project').fill('Typed lot');
+  await page.getByRole('button', { name: 'Create' }).click();
+  await expect(page.getByTestId('project-name')).toHaveValue('Typed lot');
+
+  const card = page.getByTestId('empty-lot');
+  await expect(card.getByTestId('imagery-help')).toContainText('GeoTIFF');
+  await expect(card.getByTestId('imagery-help')).toContainText('your own tile address in Settings');
+
+  // Go: the map moves there and the place is marked, in the middle of the map.
+  const goTo = page.getByRole('textbox', { name: 'Go to a locator or coordinates' });
+  await goTo.fill('45.12, -93.40');
+  await goTo.press('Enter');
+  await expect(page.locator('.yw-goto-label')).toContainText('You went to 45.12000, -93.40000');
+  const mark = (await page.locator('path.yw-goto').boundingBox())!;
+  const map = (await page.getByTestId('map').boundingBox())!;
+  expect(Math.abs(mark.x + mark.width / 2 - (map.x + map.width / 2))).toBeLessThan(3);
+  expect(Math.abs(mark.y + mark.height / 2 - (map.y + map.height / 2))).toBeLessThan(3);
+
+  // A missing width is refused next to the field.
+  const typed = page.getByTestId('typed-boundary');
+  await typed.getByRole('spinbutton', { name: 'Depth, m' }).fill('30');
+  await typed.getByRole('button', { name: 'Set boundary' }).click();
+  await expect(typed.getByTestId('typed-lot-error')).toContainText('width must be a length');
+
+  await typed.getByRole('spinbutton', { name: 'Width, m' }).fill('45');
+  await typed.getByRole('spinbutton', { name: 'Bearing of the front side, degrees' }).fill('0');
+  await typed.getByRole('button', { name: 'Set boundary' }).click();
+  const sides = page.locator('.yw-side-label span');
+  await expect(sides).toHaveCount(4);
+  expect((await sides.allTextContents()).sort()).toEqual(['30.0 m', '30.0 m', '45.0 m', '45.0 m']);
+  await expect(page.getByTestId('lot-summary')).toContainText('perimeter 150.0 m');
+  await shot(page, 'typed-lot-rectangle');
+
+  // A support placed 10 m from the first corner at a bearing of 90°: where the geodesic puts it
+  // (GeographicLib's direct problem on WGS84, core/REFERENCES.md §10), to the six decimals shown.
+  await page.keyboard.press('s');
+  await clickMap(page, 0.5, 0.6);
+  const offset = page.getByTestId('support-offset');
+  await page.getByText('Place by distance and bearing').click();
+  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 1' });
+  await offset.getByRole('spinbutton', { name: 'Distance, m' }).fill('10');
+  await offset.getByRole('spinbutton', { name: 'Bearing, degrees' }).fill('90');
+  await offset.getByRole('button', { name: 'Place here' }).click();
+  const d = geodesic.Geodesic.WGS84.Direct(45.12, -93.4, 90, 10);
+  await expect(page.getByText(`${d.lat2!.toFixed(6)}, ${d.lon2!.toFixed(6)}`)).toBeVisible();
+});
