@@ -12,6 +12,8 @@ const TYPE_NAMES: Record<string, string> = {
   'half-square': 'Half-square',
   vertical: 'Vertical',
   'inverted-l': 'Inverted-L',
+  'vertical-pair': 'Switched vertical pair',
+  'four-square': 'Four-square',
 };
 
 /** The short display name of a type; an id this version does not know reads as its words, capitalised. */

@@ -13,7 +13,14 @@ import type { SupportConductor } from './conductors.ts';
 import type { NetworkSpec } from '../em/network.ts';
 
 export type AntennaTypeId =
-  'dipole' | 'inverted-v' | 'half-square' | 'vertical' | 'inverted-l' | (string & {});
+  | 'dipole'
+  | 'inverted-v'
+  | 'half-square'
+  | 'vertical'
+  | 'inverted-l'
+  | 'vertical-pair'
+  | 'four-square'
+  | (string & {});
 
 /** One straight conductor of the model. */
 export interface ModelWire {

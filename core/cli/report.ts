@@ -18,6 +18,7 @@ import { stationReport } from '../report/stationReport.ts';
 import type { UnitSystem } from '../units/index.ts';
 import type { Mode } from '../report/exposure.ts';
 import { createWorkerPool } from './plan.ts';
+import { isOnTimeFraction, isPowerW, MAX_POWER_W } from '../project/station.ts';
 
 export interface ReportIo {
   stdout: (s: string) => void;
@@ -66,7 +67,7 @@ function parseArgs(argv: string[]): Args | string {
       else a.out = s;
     } else if (v === '--power') {
       const n = Number(next());
-      if (!(n > 0 && n <= 100_000)) return '--power needs watts between 0 and 100000';
+      if (!isPowerW(n)) return `--power needs watts between 0 and ${MAX_POWER_W}`;
       a.station.powerW = n;
     } else if (v === '--mode') {
       const m = next();
@@ -74,7 +75,7 @@ function parseArgs(argv: string[]): Args | string {
       a.station.mode = m as Mode;
     } else if (v === '--on-time') {
       const n = Number(next());
-      if (!(n >= 0 && n <= 1)) return '--on-time needs a fraction from 0 to 1';
+      if (!isOnTimeFraction(n)) return '--on-time needs a fraction from 0 to 1';
       a.station.onTimeFraction = n;
     } else if (v === '--coax') {
       const c = next();

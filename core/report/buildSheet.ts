@@ -29,6 +29,7 @@ import { sheetLengths } from './format.ts';
 import type { CoaxType } from './materials.ts';
 import { trimHow } from './tuning.ts';
 import type { TuningMeasurement } from './tuningMeasure.ts';
+import { isOnTimeFraction, STATION_DEFAULTS } from '../project/station.ts';
 
 // The subjects' exports, for callers that take them from here.
 export * from './materials.ts';
@@ -43,12 +44,8 @@ export interface StationOptions {
   coax: CoaxType;
 }
 
-export const DEFAULT_STATION: StationOptions = {
-  powerW: 100,
-  mode: 'ssb',
-  onTimeFraction: 0.5,
-  coax: 'RG-213',
-};
+/** A new project's station (core/project/station.ts, the one place of these defaults). */
+export const DEFAULT_STATION: StationOptions = STATION_DEFAULTS;
 
 /** One radial as laid: its compass bearing from the base and its length. */
 export interface RadialRow {
@@ -136,8 +133,7 @@ export interface BuildSheetInput {
 export function buildSheet(input: BuildSheetInput): BuildSheet {
   const { project, candidate: c } = input;
   const station: StationOptions = { ...DEFAULT_STATION, ...project.settings.station, ...input.station };
-  if (!(station.onTimeFraction >= 0 && station.onTimeFraction <= 1))
-    throw new RangeError('on-time must be between 0 and 1');
+  if (!isOnTimeFraction(station.onTimeFraction)) throw new RangeError('on-time must be between 0 and 1');
   const units: UnitSystem = input.units ?? project.settings.units;
   const L = sheetLengths(units);
   const site = buildSite(project);

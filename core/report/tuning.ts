@@ -17,6 +17,10 @@ export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {
   'half-square': 'Change both drops by the same amount (at their lower ends).',
   vertical: 'Change the length of the vertical wire at its top end.',
   'inverted-l': 'Change the wire at its far (top) end.',
+  'vertical-pair':
+    'Change both verticals by the same amount at their top ends; they stay identical (the relay box makes one the reflector).',
+  'four-square':
+    'Cut all four verticals alike and trim each one alone at its base before the feed box is connected (the box hides their reactance).',
 };
 
 /** The trim text of a type; a general one for a type the table does not know. */
