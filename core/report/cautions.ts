@@ -64,6 +64,8 @@ export interface CautionContext {
 export function highVoltageEndsText(type: string): string | null {
   switch (type) {
     case 'vertical':
+    case 'vertical-pair':
+    case 'four-square':
       return null;
     case 'half-square':
       return 'The lower ends of the two drops carry high RF voltage when you transmit.';
