@@ -146,7 +146,12 @@ export async function startPlan(page: Page, band: '160 m' | '80 m' | '40 m'): Pr
 export async function planAndSelectFirst(page: Page, band: '160 m' | '80 m' | '40 m'): Promise<void> {
   await startPlan(page, band);
   await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 200_000 });
-  await page.getByTestId('candidate-row').first().click();
+  // A plan of several bands is grouped by band: take the first row of the band asked for.
+  const group = page
+    .locator('tbody')
+    .filter({ has: page.getByTestId('band-group').filter({ hasText: band }) });
+  const rows = (await group.count()) ? group.getByTestId('candidate-row') : page.getByTestId('candidate-row');
+  await rows.first().click();
 }
 
 export async function waitSaved(page: Page): Promise<void> {

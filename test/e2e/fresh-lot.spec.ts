@@ -174,7 +174,7 @@ test('plans a fresh lot end to end, exports the shortlist, and keeps it all over
   // The run status is cut short in the bar; its whole text is in the tooltip.
   await expect(page.getByTestId('run-status')).toHaveAttribute(
     'title',
-    /^\d+ candidates · [\d.]+ s · \d+ solved/,
+    /^\d+ candidates · [\d.]+ s \(\d+ designs solved, \d+ reused\)/,
   );
   expect(await expectNamedButtons(page)).toBeGreaterThan(30);
   await shot(page, 'fresh-selected');
