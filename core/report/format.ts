@@ -38,7 +38,9 @@ export function sheetLengths(units: UnitSystem): SheetLengths {
   if (units === 'imperial')
     return {
       units,
-      len: (m, digits = 1) => `${mToFeet(m).toFixed(digits)} ft`,
+      // A foot is about three decimetres: a centimetre figure (2 digits in metres) reads as
+      // tenths of a foot, not hundredths.
+      len: (m, digits = 1) => `${mToFeet(m).toFixed(digits >= 2 ? digits - 1 : digits)} ft`,
       cut: feetInches,
       small: (m, digits = 1) => `${((m * 100) / CM_PER_INCH).toFixed(digits)} in`,
       unit: 'ft',
