@@ -12,24 +12,10 @@ import { builderFor } from '../../core/antennas/registry.ts';
 import { evaluateDesign } from '../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../core/rank/solver.ts';
 import type { Evaluator } from '../../core/rank/evaluator.ts';
-import { buildSite } from '../../core/site/site.ts';
-import { prepareSite } from '../../core/site/feasibility.ts';
-import { testLot } from '../unit/site/lot.ts';
+import { twoSupportSite } from '../unit/site/lot.ts';
 
 const runs = Number(process.argv[2] ?? 3);
-const site = prepareSite(
-  buildSite(
-    testLot({
-      halfX: 80,
-      halfY: 60,
-      supports: [
-        { id: 'a', x: -22, y: -40, h: 24 },
-        { id: 'b', x: 22, y: -40, h: 24 },
-      ],
-      settings: { maxVerticalHeightM: 25, radialCount: 32 },
-    }),
-  ),
-);
+const site = twoSupportSite({ maxVerticalHeightM: 25, radialCount: 32 });
 const band = bandPlan('80m');
 const ground = { classId: 'average' } as const;
 const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];

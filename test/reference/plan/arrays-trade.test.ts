@@ -11,28 +11,15 @@ import { bandPlan } from '../../../core/antennas/common.ts';
 import { evaluateAntenna } from '../../../core/em/evaluate.ts';
 import type { AntennaModel, Vec3 } from '../../../core/em/types.ts';
 import { soilById } from '../../../core/em/soils.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
-import { testLot } from '../../unit/site/lot.ts';
+import { twoSupportSite } from '../../unit/site/lot.ts';
 
 const TRADE =
   'common practice, no source: reflector behind a half-square ≈ +3 dB at 15° over very good ground';
 
 describe('half-square with a parasitic reflector (loose trade check)', () => {
   it('gains roughly 3 dB at 15° over the half-square alone', () => {
-    const site = prepareSite(
-      buildSite(
-        testLot({
-          halfX: 80,
-          halfY: 60,
-          supports: [
-            { id: 'a', x: -22, y: -40, h: 24 },
-            { id: 'b', x: 22, y: -40, h: 24 },
-          ],
-        }),
-      ),
-    );
+    const site = twoSupportSite();
     const band = bandPlan('80m');
     const f = band.designFreqHz;
     const p = halfSquareBuilder.propose({ site, band }).proposals[0];

@@ -9,24 +9,10 @@ import { arrayFeedReport } from '../../../core/antennas/arrayFeed.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { groundSpec, solverEvaluator } from '../../../core/rank/solver.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
-import { testLot } from '../site/lot.ts';
+import { twoSupportSite } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
-const site = prepareSite(
-  buildSite(
-    testLot({
-      halfX: 80,
-      halfY: 60,
-      supports: [
-        { id: 'a', x: -22, y: -40, h: 24 },
-        { id: 'b', x: 22, y: -40, h: 24 },
-      ],
-      settings: { maxVerticalHeightM: 25, radialCount: 32 },
-    }),
-  ),
-);
+const site = twoSupportSite({ maxVerticalHeightM: 25, radialCount: 32 });
 const band = bandPlan('80m');
 const g15 = (g: number[], az: number) =>
   g[
@@ -57,9 +43,7 @@ describe('four-square', () => {
   });
 
   it('rejects the square when the verticals exceed the self-supporting limit', () => {
-    const low = prepareSite(
-      buildSite(testLot({ halfX: 80, halfY: 60, settings: { maxVerticalHeightM: 12 } })),
-    );
+    const low = twoSupportSite({ maxVerticalHeightM: 12 });
     const r = fourSquareBuilder.propose({ site: low, band });
     expect(r.proposals).toHaveLength(0);
     expect(r.rejections[0].reasons[0]).toMatch(/self-supporting limit/);

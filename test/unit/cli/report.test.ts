@@ -1,26 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../core/cli/main.ts';
+import { cliIo } from '../../helpers/cliIo.ts';
 
-function io() {
-  const out: string[] = [];
-  const err: string[] = [];
-  const written: Record<string, string> = {};
-  return {
-    out,
-    err,
-    written,
-    io: {
-      stdout: (s: string) => out.push(s),
-      stderr: (s: string) => err.push(s),
-      readFile: async () => {
-        throw new Error('ENOENT: no such file');
-      },
-      writeFile: async (p: string, d: string) => {
-        written[p] = d;
-      },
-    },
-  };
-}
+const io = () => cliIo();
 
 describe('cli report: arguments', () => {
   it('needs --out', async () => {

@@ -6,6 +6,8 @@ import {
   type ProjectInput,
 } from '../../../core/project/schema.ts';
 import { makeSiteFrame } from '../../../core/site/frame.ts';
+import { prepareSite } from '../../../core/site/feasibility.ts';
+import { buildSite } from '../../../core/site/site.ts';
 
 export const TEST_ORIGIN: [number, number] = [5.5, 47.25];
 const frame = makeSiteFrame(TEST_ORIGIN);
@@ -63,4 +65,24 @@ export function testLot(spec: LotSpec): Project {
     bands: spec.bands ?? ['80m'],
     settings: { ...ProjectSchema.shape.settings.parse(undefined), ...spec.settings },
   });
+}
+
+/**
+ * An invented open lot of 160 × 120 m with two 24 m supports 44 m apart on its south side,
+ * prepared for placing antennas (the array tests and the array benchmark share it).
+ */
+export function twoSupportSite(settings: Partial<Project['settings']> = {}) {
+  return prepareSite(
+    buildSite(
+      testLot({
+        halfX: 80,
+        halfY: 60,
+        supports: [
+          { id: 'a', x: -22, y: -40, h: 24 },
+          { id: 'b', x: 22, y: -40, h: 24 },
+        ],
+        settings,
+      }),
+    ),
+  );
 }
