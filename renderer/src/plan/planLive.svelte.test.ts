@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import type { PlanRecord } from '../../../core/api/contract.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
 import { demoLonLat } from '../../../data/demo/demoProject.ts';
-import { toyEvaluator } from '../../../test/helpers/toyEvaluator.ts';
+import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 import { ProjectState } from '../state/project.svelte.ts';
 import { createPlanHost } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
@@ -58,7 +58,7 @@ function pumpedWorker(): {
   pump(n?: number): number;
   inject(m: FromWorker): void;
 } {
-  const host = createPlanHost(toyEvaluator({ pattern: 'directional' }), () => 0);
+  const host = createPlanHost(testEvaluator({ pattern: 'directional' }), () => 0);
   const inbox: ToWorker[] = [];
   let handler: ((m: FromWorker) => void) | null = null;
   const w: PlanWorker = {
