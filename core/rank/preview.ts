@@ -131,13 +131,8 @@ export function previewPlan(
     });
     return { ...b, proposed };
   });
-  const copy: PlanSetup = {
-    site: setup.site,
-    prepared: setup.prepared,
-    paths: setup.paths,
-    bands,
-    jobs: setup.jobs,
-  };
+  // The setup with these placements only; the conducting-support step is chosen again over them.
+  const copy: PlanSetup = { ...setup, bands, conductorJobs: undefined, conductorChoice: undefined };
   // With a metal support near: the model with it where evaluated, else the record without it.
   for (const b of copy.bands)
     for (const q of b.proposed) {
