@@ -79,7 +79,8 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
         try {
           const setup = enumeratePlan(msg.project, { bands: msg.bands });
           const out = previewPlan(setup, msg.project, cache, designs);
-          return [{ type: 'previewed', liveId: msg.liveId, ...out, ms: now() - t0 }];
+          const missing = setup.jobs.filter((j) => !cache.has(j.key));
+          return [{ type: 'previewed', liveId: msg.liveId, ...out, missing, ms: now() - t0 }];
         } catch (e) {
           return [{ type: 'error', liveId: msg.liveId, message: message(e) }];
         }
