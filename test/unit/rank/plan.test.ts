@@ -142,14 +142,11 @@ describe('planSite mechanics', () => {
 
 describe('rejections through the whole plan', () => {
   it('rejects a dipole whose wire would cross a power-line clearance, with the reason', async () => {
-    const { testLot, ll } = await import('../site/lot.ts');
+    const { testLot, ll, supportPair } = await import('../site/lot.ts');
     const project = testLot({
       halfX: 60,
       halfY: 40,
-      supports: [
-        { id: 'a', x: -25, y: -20, h: 14 },
-        { id: 'b', x: 25, y: -20, h: 14 },
-      ],
+      supports: supportPair(50, 14, 14, -20),
       keepOuts: [
         {
           id: 'line',

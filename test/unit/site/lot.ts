@@ -43,6 +43,12 @@ export interface LotSpec {
   station?: [number, number];
 }
 
+/** Two supports 'a' (west) and 'b' (east), spanM apart, centred on x = 0 at y, heights hA and hB. */
+export const supportPair = (spanM: number, hA: number, hB = hA, y = 0): NonNullable<LotSpec['supports']> => [
+  { id: 'a', x: -spanM / 2, y, h: hA },
+  { id: 'b', x: spanM / 2, y, h: hB },
+];
+
 export function testLot(spec: LotSpec): Project {
   const hx = spec.halfX ?? 50;
   const hy = spec.halfY ?? 30;
@@ -77,10 +83,7 @@ export function twoSupportSite(settings: Partial<Project['settings']> = {}) {
       testLot({
         halfX: 80,
         halfY: 60,
-        supports: [
-          { id: 'a', x: -22, y: -40, h: 24 },
-          { id: 'b', x: 22, y: -40, h: 24 },
-        ],
+        supports: supportPair(44, 24, 24, -40),
         settings,
       }),
     ),
