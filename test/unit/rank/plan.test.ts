@@ -10,28 +10,22 @@ import { expectClose } from '../../helpers/expectClose.ts';
 import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
 describe('trim loop', () => {
+  /** The demo's first dipole trimmed over the test evaluator resonant at L0 = `wavelengths`·λ (design frequency). */
+  const trimAt = (wavelengths: number) => {
+    const job = enumeratePlan(buildDemoProject(), { types: ['dipole'] }).jobs[0];
+    const L0 = wavelengths * wavelengthM(job.design.designFreqHz);
+    return { L0, rec: evaluateDesign(job.design, job.ground, testEvaluator({ resonantM: () => L0 })) };
+  };
+
   it('lands on the length where the reactance is zero', () => {
-    const p = buildDemoProject();
-    const setup = enumeratePlan(p, { types: ['dipole'] });
-    const job = setup.jobs[0];
-    const ev = testEvaluator({ resonantM: () => 0.471 * wavelengthM(job.design.designFreqHz) });
-    const rec = evaluateDesign(job.design, job.ground, ev);
+    const { L0, rec } = trimAt(0.471);
     expect(rec.resonant).toBe(true);
     expect(Math.abs(rec.zOhm[1])).toBeLessThan(0.5);
-    expectClose(
-      rec.trimM,
-      0.471 * wavelengthM(job.design.designFreqHz),
-      0.5 / 20,
-      'X = 20 Ω/m·(L − L0) by construction',
-    );
+    expectClose(rec.trimM, L0, 0.5 / 20, 'X = 20 Ω/m·(L − L0) by construction');
   });
 
   it('says so when no resonance lies inside the limits', () => {
-    const p = buildDemoProject();
-    const setup = enumeratePlan(p, { types: ['dipole'] });
-    const job = setup.jobs[0];
-    const ev = testEvaluator({ resonantM: () => 10 * wavelengthM(job.design.designFreqHz) });
-    const rec = evaluateDesign(job.design, job.ground, ev);
+    const { rec } = trimAt(10);
     expect(rec.resonant).toBe(false);
     expect(rec.diagnostics.join(' ')).toMatch(/no resonance within/);
   });
