@@ -136,20 +136,12 @@ describe('planSite mechanics', () => {
 
 describe('rejections through the whole plan', () => {
   it('rejects a dipole whose wire would cross a power-line clearance, with the reason', async () => {
-    const { testLot, ll, supportPair } = await import('../site/lot.ts');
+    const { testLot, powerLine, supportPair } = await import('../site/lot.ts');
     const project = testLot({
       halfX: 60,
       halfY: 40,
       supports: supportPair(50, 14, 14, -20),
-      keepOuts: [
-        {
-          id: 'line',
-          name: 'Line',
-          kind: 'power-line',
-          geometry: { type: 'LineString', coordinates: [ll(-80, -35), ll(80, -35)] },
-          clearanceM: 10,
-        },
-      ],
+      keepOuts: [powerLine('Line', -35, 10, 80)],
     });
     const ev = testEvaluator({ resonantM: resonantAt(0.47) });
     const s = planSite(project, { evaluator: ev, types: ['dipole'] });

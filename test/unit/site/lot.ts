@@ -49,6 +49,15 @@ export const supportPair = (spanM: number, hA: number, hB = hA, y = 0): NonNulla
   { id: 'b', x: spanM / 2, y, h: hB },
 ];
 
+/** A power line running east–west along y from x = −halfLengthM to +halfLengthM, as a keep-out. */
+export const powerLine = (name: string, y: number, clearanceM: number, halfLengthM = 60) => ({
+  id: 'line',
+  name,
+  kind: 'power-line' as const,
+  geometry: { type: 'LineString' as const, coordinates: [ll(-halfLengthM, y), ll(halfLengthM, y)] },
+  clearanceM,
+});
+
 export function testLot(spec: LotSpec): Project {
   const hx = spec.halfX ?? 50;
   const hy = spec.halfY ?? 30;
