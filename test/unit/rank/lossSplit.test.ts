@@ -41,15 +41,20 @@ const splitOf = (r: FrequencyResult) =>
     groundSystemLossW: r.groundSystems.reduce((s, g) => s + g.lossW, 0),
   });
 
+/** The bar shows these parts, in this order, and they fill it. */
+function expectParts(e: ReturnType<typeof efficiencySplit>, keys: string[]): void {
+  const parts = lossParts(e);
+  expect(parts.map((p) => p.key)).toEqual(keys);
+  expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 10);
+}
+
 describe('efficiency split', () => {
   it('the parts add up to the input power and the bar shows four parts with radials', () => {
     const e = oneWatt(0.4, 0.02, 0.58, { groundSystemLossW: 0.1 });
     expect(e.radiatedW + e.conductorLossW + e.groundSystemLossW + e.reflectionLossW).toBeCloseTo(1, 12);
     expect(e.groundSystemEfficiencyPercent).toBeCloseTo(90, 12);
     expect(e.percent).toBeCloseTo(40, 12);
-    const parts = lossParts(e);
-    expect(parts.map((p) => p.key)).toEqual(['radiated', 'ground-system', 'soil-beyond', 'conductor']);
-    expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 10);
+    expectParts(e, ['radiated', 'ground-system', 'soil-beyond', 'conductor']);
     expect(efficiencySummary(e)).toContain('radial field efficiency 90 %');
     expect(efficiencySummary(e)).toContain('lost in the soil beyond, as for every antenna over this soil');
   });
@@ -57,7 +62,7 @@ describe('efficiency split', () => {
     const e = oneWatt(0.7, 0.05, 0.25);
     expect(e.groundSystemEfficiencyPercent).toBeNull();
     expect(e.reflectionLossW).toBeCloseTo(0.25, 12);
-    expect(lossParts(e).map((p) => p.key)).toEqual(['radiated', 'soil-beyond', 'conductor']);
+    expectParts(e, ['radiated', 'soil-beyond', 'conductor']);
     expect(efficiencySummary(e)).not.toContain('radial');
   });
   it('a grounded tower without radials near a dipole: its loss is apart, and no radial efficiency is claimed', () => {
@@ -65,9 +70,7 @@ describe('efficiency split', () => {
     expect(e.groundSystemEfficiencyPercent).toBeNull();
     expect(e.bareContactLossW).toBeCloseTo(0.08, 12);
     expect(e.reflectionLossW).toBeCloseTo(0.3, 12);
-    const parts = lossParts(e);
-    expect(parts.map((p) => p.key)).toEqual(['radiated', 'bare-contact', 'soil-beyond', 'conductor']);
-    expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 10);
+    expectParts(e, ['radiated', 'bare-contact', 'soil-beyond', 'conductor']);
     expect(efficiencySummary(e)).toContain('lost where grounded supports meet bare soil');
   });
   it('a quarter-wave vertical with 32 radials: radial efficiency as hams compute it, Rr/(Rr + Rg)', () => {

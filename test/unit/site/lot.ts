@@ -58,6 +58,14 @@ export const powerLine = (name: string, y: number, clearanceM: number, halfLengt
   clearanceM,
 });
 
+/** A path where people walk, north–south along x from y = −halfLengthM to +halfLengthM, as a keep-out. */
+export const walkway = (name: string, x: number, halfLengthM = 20) => ({
+  id: 'walk',
+  name,
+  kind: 'path' as const,
+  geometry: { type: 'LineString' as const, coordinates: [ll(x, -halfLengthM), ll(x, halfLengthM)] },
+});
+
 export function testLot(spec: LotSpec): Project {
   const hx = spec.halfX ?? 50;
   const hy = spec.halfY ?? 30;
