@@ -7,17 +7,14 @@ import { compareCandidates, enumeratePlan, memoryCache, planSite } from '../../.
 import { wavelengthM } from '../../../core/units/index.ts';
 import { buildDemoProject, demoLonLat } from '../../../data/demo/demoProject.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { fakeEvaluator } from './fakeEvaluator.ts';
-
-const resonantAt = (fraction: number) => (req: { frequenciesHz: readonly number[] }) =>
-  fraction * wavelengthM(req.frequenciesHz[0]);
+import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
 describe('trim loop', () => {
   it('lands on the length where the reactance is zero', () => {
     const p = buildDemoProject();
     const setup = enumeratePlan(p, { types: ['dipole'] });
     const job = setup.jobs[0];
-    const ev = fakeEvaluator({ resonantM: () => 0.471 * wavelengthM(job.design.designFreqHz) });
+    const ev = testEvaluator({ resonantM: () => 0.471 * wavelengthM(job.design.designFreqHz) });
     const rec = evaluateDesign(job.design, job.ground, ev);
     expect(rec.resonant).toBe(true);
     expect(Math.abs(rec.zOhm[1])).toBeLessThan(0.5);
@@ -33,7 +30,7 @@ describe('trim loop', () => {
     const p = buildDemoProject();
     const setup = enumeratePlan(p, { types: ['dipole'] });
     const job = setup.jobs[0];
-    const ev = fakeEvaluator({ resonantM: () => 10 * wavelengthM(job.design.designFreqHz) });
+    const ev = testEvaluator({ resonantM: () => 10 * wavelengthM(job.design.designFreqHz) });
     const rec = evaluateDesign(job.design, job.ground, ev);
     expect(rec.resonant).toBe(false);
     expect(rec.diagnostics.join(' ')).toMatch(/no resonance within/);
@@ -45,7 +42,7 @@ describe('planSite mechanics', () => {
   const types = ['dipole', 'inverted-v', 'half-square'] as const;
 
   it('ranks distinct placements, one per group, and keeps rejections with reasons', () => {
-    const ev = fakeEvaluator({ resonantM: resonantAt(0.47) });
+    const ev = testEvaluator({ resonantM: resonantAt(0.47) });
     const s = planSite(project, { evaluator: ev, types });
     expect(s.candidates.length).toBeGreaterThan(3);
     const groups = s.candidates.map((c) => c.id);
@@ -71,7 +68,7 @@ describe('planSite mechanics', () => {
   });
 
   it('serves a second plan from the cache and re-evaluates only what moved', () => {
-    const ev = fakeEvaluator({ resonantM: resonantAt(0.47) });
+    const ev = testEvaluator({ resonantM: resonantAt(0.47) });
     const cache = memoryCache();
     const a = planSite(project, { evaluator: ev, cache, types });
     const calls = ev.calls;
@@ -91,7 +88,7 @@ describe('planSite mechanics', () => {
   });
 
   it("reads a placed antenna's gain from its rotated canonical pattern", () => {
-    const ev = fakeEvaluator({ resonantM: resonantAt(0.47) });
+    const ev = testEvaluator({ resonantM: resonantAt(0.47) });
     const setup = enumeratePlan(project, { types: ['inverted-v'] });
     const prop = setup.bands[0].proposed.find((p) => p.proposal.placement.rotationDeg === 35);
     if (!prop) throw new Error('no inverted-V at 35°');
@@ -133,7 +130,7 @@ describe('planSite mechanics', () => {
   });
 
   it('compares two candidates over the whole circle', () => {
-    const ev = fakeEvaluator({ resonantM: resonantAt(0.47) });
+    const ev = testEvaluator({ resonantM: resonantAt(0.47) });
     const s = planSite(project, { evaluator: ev, types });
     const [a, b] = s.candidates;
     const r = compareCandidates(s, a.id, b.id, 15);
@@ -163,7 +160,7 @@ describe('rejections through the whole plan', () => {
         },
       ],
     });
-    const ev = fakeEvaluator({ resonantM: resonantAt(0.47) });
+    const ev = testEvaluator({ resonantM: resonantAt(0.47) });
     const s = planSite(project, { evaluator: ev, types: ['dipole'] });
     expect(s.candidates).toHaveLength(0);
     const r = s.rejected.find((x) => x.type === 'dipole');
