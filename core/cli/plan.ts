@@ -21,7 +21,9 @@ import {
   enumeratePlan,
   memoryCache,
   planFromSetup,
+  PLAN_BOUNDS,
   type EvaluationCache,
+  type PlanCut,
   type Job,
   type Shortlist,
   type Candidate,
@@ -319,11 +321,24 @@ function describe(c: Candidate): string {
   return lines.join('\n');
 }
 
+/** A bound of the enumeration that left placements out, in words. */
+export function cutText(c: PlanCut): string {
+  const from =
+    c.supportsUsed < c.supportsTotal
+      ? ` from the ${c.supportsUsed} most promising of ${c.supportsTotal} supports`
+      : '';
+  return (
+    `${c.band} ${c.type}: considered ${c.considered} of ${c.proposed} placements${from}, ` +
+    `${c.designs} designs evaluated (at most ${PLAN_BOUNDS.placements} placements and ${PLAN_BOUNDS.designs} designs per type; most promising first: the longest radial field, the highest wires, then facing the targets)`
+  );
+}
+
 function humanReport(project: Project, s: Shortlist, seconds: number): string {
   const out: string[] = [];
   out.push(
     `${project.name} — ${s.candidates.length} placements shortlisted, ${s.rejected.length} rejected (${seconds.toFixed(1)} s)`,
   );
+  for (const c of s.stats.cuts) out.push(`  ${cutText(c)}`);
   for (const p of s.paths) {
     out.push(
       `  target ${p.name} (weight ${p.weight}): bearing ${f1(p.bearingDeg.from)}–${f1(p.bearingDeg.to)}°, ` +
@@ -394,6 +409,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
       `plan: placing ${project.supports.length} supports' antennas for ${bands.join(', ')} (enumerating)\n`,
     );
     setup = enumeratePlan(project, { bands, arrays: args.arrays });
+    for (const c of setup.cuts) io.stderr(`plan: ${cutText(c)}\n`);
   } catch (e) {
     await pool?.close();
     throw e;

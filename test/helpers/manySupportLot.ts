@@ -1,5 +1,6 @@
 /**
- * Invented lots with many supports for the planning benchmarks and the bounded-enumeration test:
+ * Invented lots with many supports for the planning benchmarks (test/bench/plan.ts) and the
+ * bounded-enumeration test (test/unit/rank/planBounds.test.ts):
  * a 300 m × 200 m lot with `n` trees at seeded pseudo-random positions and heights (10–24 m),
  * the station on the south side, Europe (weight 3) and Japan (weight 1) as targets, 80 m only.
  * Deterministic: the same `n` gives the same project on every machine.
