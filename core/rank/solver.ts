@@ -62,13 +62,14 @@ export const solverEvaluator: Evaluator = (req) => {
     frequenciesHz: req.frequenciesHz,
     pattern: req.pattern,
     groundModel: PLAN_GROUND_MODEL,
+    // The planner reads the total gain on its grid and finds its own peak there (evaluate.ts).
+    gainGridOnly: true,
   });
   const diagnostics = res.diagnostics.filter((d) => d.level === 'warning').map((d) => d.message);
   return res.frequencies.map((f) => {
     // an array is fed through its network: the impedance at the feed is its first source's
     const feed = f.sources.length ? f.sources[0] : f.feeds[0];
-    const gain = new Float64Array(f.pattern.length);
-    for (let i = 0; i < f.pattern.length; i++) gain[i] = f.pattern[i].gainDbi;
+    const gain = f.gainGridDbi ?? new Float64Array(f.pattern.map((p) => p.gainDbi));
     return {
       freqHz: f.frequencyHz,
       zOhm: [feed.impedanceOhm[0], feed.impedanceOhm[1]],
