@@ -7,11 +7,10 @@
  * --arrays (also plan the array types; slower).
  * A progress line goes to stderr while designs are evaluated.
  */
-import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { availableParallelism } from 'node:os';
-import { join, resolve as resolvePath } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { freshBundle, ROOT } from './bundle.mjs';
 import { Worker } from 'node:worker_threads';
 import { buildDemoProject } from '../demo/demoProject.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
@@ -109,83 +108,19 @@ async function loadProject(args: Args, io: PlanIo): Promise<Project | null> {
 }
 
 /** Where the worker bundle is kept between runs (git-ignored). */
-const BUNDLE_DIR = fileURLToPath(new URL('../../.cache/plan-worker/', import.meta.url));
-const WORKER_SOURCE = fileURLToPath(new URL('./plan-worker.ts', import.meta.url));
-
-interface BundleManifest {
-  /** Each input of the bundle with its size and modification time when it was built. */
-  inputs: Record<string, [number, number]>;
-}
-
-function stamp(path: string): [number, number] | null {
-  try {
-    const st = statSync(path);
-    return [st.size, st.mtimeMs];
-  } catch {
-    return null;
-  }
-}
-
-function bundleIsFresh(dir: string): boolean {
-  try {
-    const m = JSON.parse(readFileSync(join(dir, 'manifest.json'), 'utf8')) as BundleManifest;
-    if (!existsSync(join(dir, 'plan-worker.mjs'))) return false;
-    for (const [path, want] of Object.entries(m.inputs)) {
-      const got = stamp(path);
-      if (!got || got[0] !== want[0] || got[1] !== want[1]) return false;
-    }
-    return Object.keys(m.inputs).length > 0;
-  } catch {
-    return false;
-  }
-}
-
-interface EsbuildLike {
-  buildSync(o: Record<string, unknown>): { metafile?: { inputs: Record<string, unknown> } };
-}
+const BUNDLE_DIR = join(ROOT, '.cache', 'plan-worker');
+const WORKER_SOURCE = join(ROOT, 'core', 'cli', 'plan-worker.ts');
 
 let bundlePath: string | null | undefined;
 
 /**
- * The worker as one plain ES module, bundled with esbuild at first use and rebuilt when any of
- * its inputs changes (size or modification time), so that a worker starts without a TypeScript
- * loader. Null when esbuild is not available; the caller then falls back to the loader.
+ * The worker as one plain ES module (bundle.mjs: bundled with esbuild at first use and rebuilt
+ * when any of its inputs changes), so that a worker starts without a TypeScript loader. Null when
+ * esbuild is not available; the caller then falls back to the loader.
  */
 export function workerBundle(dir = BUNDLE_DIR): string | null {
   if (bundlePath !== undefined && dir === BUNDLE_DIR) return bundlePath;
-  let out: string | null = join(dir, 'plan-worker.mjs');
-  if (!bundleIsFresh(dir)) {
-    try {
-      const esbuild = createRequire(import.meta.url)('esbuild') as EsbuildLike;
-      mkdirSync(dir, { recursive: true });
-      // Build next to the final file, then rename: concurrent plans never read a partial bundle.
-      const tmp = join(dir, `plan-worker.${process.pid}.${Date.now()}.mjs`);
-      const res = esbuild.buildSync({
-        entryPoints: [WORKER_SOURCE],
-        bundle: true,
-        platform: 'node',
-        format: 'esm',
-        target: 'node20',
-        outfile: tmp,
-        metafile: true,
-        absWorkingDir: fileURLToPath(new URL('../../', import.meta.url)),
-        logLevel: 'silent',
-      });
-      const base = fileURLToPath(new URL('../../', import.meta.url));
-      const inputs: BundleManifest['inputs'] = {};
-      for (const rel of Object.keys(res.metafile?.inputs ?? {})) {
-        const abs = resolvePath(base, rel);
-        const st = stamp(abs);
-        if (st) inputs[abs] = st;
-      }
-      renameSync(tmp, out);
-      const mtmp = join(dir, `manifest.${process.pid}.json`);
-      writeFileSync(mtmp, JSON.stringify({ inputs } satisfies BundleManifest));
-      renameSync(mtmp, join(dir, 'manifest.json'));
-    } catch {
-      out = null;
-    }
-  }
+  const out = freshBundle('core/cli/plan-worker.ts', dir, 'plan-worker');
   if (dir === BUNDLE_DIR) bundlePath = out;
   return out;
 }
