@@ -21,6 +21,7 @@ import {
   memoryCache,
   planFromSetup,
   PLAN_BOUNDS,
+  soilRangeOf,
   type EvaluationCache,
   type PlanCut,
   type Job,
@@ -28,6 +29,10 @@ import {
   type Candidate,
 } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
+import { SWEEP_FRACTION } from '../rank/evaluate.ts';
+import type { EvalGround } from '../rank/evaluator.ts';
+import { bandPlan } from '../antennas/common.ts';
+import type { WarmMessage } from './plan-worker.ts';
 import { candidateMatching } from '../match/candidateMatch.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
@@ -148,6 +153,8 @@ export interface WorkerPool {
     cache: EvaluationCache,
     onDone?: (done: number, total: number) => void,
   ): Promise<number>;
+  /** Each worker builds the ground's tables for these frequencies now, before any job (no answer). */
+  warm(ground: EvalGround, frequenciesHz: number[]): void;
   close(): Promise<void>;
 }
 
@@ -194,6 +201,10 @@ export function createWorkerPool(size: number): WorkerPool {
       );
       if (errors.length) throw new Error(`the solver failed on ${errors.length} design(s): ${errors[0]}`);
       return todo.length;
+    },
+    warm(ground, frequenciesHz) {
+      const msg: WarmMessage = { warm: { ground, frequenciesHz } };
+      for (const w of workers) w.postMessage(msg);
     },
     async close() {
       await Promise.all(workers.map((w) => w.terminate()));
@@ -337,6 +348,16 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   const bands = args.bands.length ? args.bands : project.bands;
   // Workers start (load the solver) while this thread enumerates the proposals.
   const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
+  if (pool) {
+    // While this thread enumerates, the workers build the ground's tables every evaluation reuses:
+    // the design frequency and the bandwidth points of each band, and the soil range at f0.
+    const f0s = bands.map((b) => bandPlan(b, project.settings.operating?.[b]).designFreqHz);
+    pool.warm(
+      project.soil,
+      f0s.flatMap((f0) => [f0, f0 * (1 - SWEEP_FRACTION), f0 * (1 + SWEEP_FRACTION)]),
+    );
+    for (const soilId of soilRangeOf(project)) pool.warm({ classId: soilId }, f0s);
+  }
   let setup: ReturnType<typeof enumeratePlan>;
   try {
     // Say something from the start: enumeration of a lot with many supports takes seconds.
