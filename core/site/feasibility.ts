@@ -286,36 +286,26 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
         keepOut: -1,
       });
     }
-    switch (e.kind) {
-      case 'wire':
-      case 'rope':
-      case 'radial': {
-        // The points of sampleSegment(e.from, e.to, SAMPLE_STEP_M) (geometry.ts), same arithmetic.
-        const a = e.from;
-        const b = e.to;
-        const len = Math.hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
-        const n = Math.max(1, Math.ceil(len / SAMPLE_STEP_M));
-        for (let i = 0; i <= n; i++) {
-          const t = i / n;
-          checkPoint(
-            e.label,
-            e.kind,
-            a[0] + t * (b[0] - a[0]),
-            a[1] + t * (b[1] - a[1]),
-            a[2] + t * (b[2] - a[2]),
-          );
-        }
-        break;
+    if ('from' in e) {
+      // A line element (wire, rope, radial, …): the points of sampleSegment(e.from, e.to,
+      // SAMPLE_STEP_M) (geometry.ts), with the same arithmetic.
+      const a = e.from;
+      const b = e.to;
+      const len = Math.hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
+      const n = Math.max(1, Math.ceil(len / SAMPLE_STEP_M));
+      for (let i = 0; i <= n; i++) {
+        const t = i / n;
+        checkPoint(
+          e.label,
+          e.kind,
+          a[0] + t * (b[0] - a[0]),
+          a[1] + t * (b[1] - a[1]),
+          a[2] + t * (b[2] - a[2]),
+        );
       }
-      case 'end':
-      case 'anchor':
-        checkPoint(e.label, e.kind, e.at[0], e.at[1], e.at[2]);
-        break;
-      case 'support':
-      case 'mast':
-        checkPoint(e.label, e.kind, e.at[0], e.at[1], e.heightM);
-        break;
-    }
+    } else if (e.kind === 'support' || e.kind === 'mast')
+      checkPoint(e.label, e.kind, e.at[0], e.at[1], e.heightM);
+    else checkPoint(e.label, e.kind, e.at[0], e.at[1], e.at[2]);
   }
   // A part that leaves the lot needs no separate setback message.
   for (const [k, v] of worst) {
