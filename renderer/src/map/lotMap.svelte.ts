@@ -12,7 +12,9 @@ import { declutterLabels } from './declutter.ts';
 import { COLOURS, buildLayers, toLatLng, toLonLat, type Shape } from './layers.ts';
 import { drawOverlays } from './overlayLayers.svelte.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
+import { escapeHtml } from '../../../core/report/drawings.ts';
 import { footprintOf } from '../lib/aerial.ts';
+import { presetOfTemplate } from '../lib/imageryPresets.ts';
 import type { Session } from '../state/session.svelte.ts';
 import type { ToolId } from '../state/ui.svelte.ts';
 import { withMove, type DragMove } from '../plan/liveMove.ts';
@@ -219,6 +221,9 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       const g = ui.goTo;
       if (!g) return;
       map.setView(toLatLng(g.at), Math.max(map.getZoom(), 18), { animate: false });
+      // Centre the place in the part of the map no panel covers.
+      const cover = untrack(() => ui.mapCoverLeftPx);
+      if (cover > 0 && cover < map.getSize().x - 200) map.panBy([-cover / 2, 0], { animate: false });
       const mark = L.circleMarker(toLatLng(g.at), {
         radius: 9,
         color: '#0f6b73',
@@ -249,12 +254,14 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       return () => scale.remove();
     });
 
-    // The user's own imagery tiles, only when a template is set (offline otherwise).
+    // Imagery tiles (the user's own server or a public service they chose), only when a template
+    // is set (offline otherwise). The credit is plain text: Leaflet would read it as HTML.
     $effect(() => {
       const url = doc.project?.settings.tileUrlTemplate ?? '';
-      const attribution = doc.project?.settings.tileAttribution ?? '';
+      const attribution = escapeHtml(doc.project?.settings.tileAttribution ?? '');
       if (!url) return;
-      const tiles = L.tileLayer(url, { attribution, maxZoom: 22, maxNativeZoom: 19 }).addTo(map);
+      const maxNativeZoom = presetOfTemplate(url)?.maxNativeZoom ?? 19;
+      const tiles = L.tileLayer(url, { attribution, maxZoom: 22, maxNativeZoom }).addTo(map);
       return () => tiles.remove();
     });
 
