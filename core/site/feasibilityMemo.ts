@@ -26,7 +26,7 @@ function siteText(ps: PreparedSite): string {
  * A memo of at most `limit` results per site (when full it starts again: the placements of the
  * latest plans are the ones asked again). Results are shared: callers must not change them.
  */
-export function feasibilityMemo(limit = 50_000): FeasibilityMemo {
+export function feasibilityMemo(limit = 10_000): FeasibilityMemo {
   const sites = new WeakMap<PreparedSite, string>();
   let site = '';
   let results = new Map<string, FeasibilityResult>();
