@@ -104,6 +104,7 @@ export function placeElements(elements: readonly Element[], p: Placement): Eleme
     switch (e.kind) {
       case 'wire':
       case 'rope':
+      case 'coax':
       case 'radial':
         return {
           ...e,

@@ -29,14 +29,15 @@ import type { Builder, Design, ModelWire, WireModel } from './types.ts';
 /** Top wire length as a fraction of the wavelength (common practice, no source). */
 export const TOP_FRACTION = 0.5;
 
-interface Side {
+export interface Side {
   corner: XYZ;
   bottom: XYZ;
   end: XYZ;
   bent: boolean;
 }
 
-function sides(d: Design, dropM: number): { top: [XYZ, XYZ]; A: Side; B: Side; s: number } {
+/** The top wire and both sides at drop length `dropM`, centred on the origin along x (also used by the half-square arrays). */
+export function sides(d: Design, dropM: number): { top: [XYZ, XYZ]; A: Side; B: Side; s: number } {
   const s = num(d, 'spanM');
   const T = num(d, 'topM');
   const h = num(d, 'heightM');
