@@ -7,6 +7,7 @@ import { createPlanHost, workerLoop } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import type { FromWorker, TestFault, ToWorker } from '../workers/protocol.ts';
 import { PlanRunner, type RunStatus } from './planRun.svelte.ts';
+import { until } from './testWorkers.ts';
 import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 
 const toyEvaluator = testEvaluator({ pattern: 'flat' });
@@ -72,13 +73,6 @@ function pools(n: number): Pools & { start: () => Fake[] } {
   return p;
 }
 
-async function until(check: () => boolean, ms = 20_000): Promise<void> {
-  const t0 = Date.now();
-  while (!check()) {
-    if (Date.now() - t0 > ms) throw new Error('timed out');
-    await new Promise((r) => setTimeout(r, 1));
-  }
-}
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 const project = (() => {
