@@ -5,7 +5,15 @@
 import type { Page } from '@playwright/test';
 import proj4 from 'proj4';
 import { epsgProjectedKeys, tiledGeoTiffBytes } from '../helpers/geotiffWriter.ts';
-import { clockwiseRect, polygonShp, storedZip, textDbf, type Ring } from '../helpers/shapefileWriter.ts';
+import {
+  clockwiseRect,
+  PARCEL_FIELDS,
+  parcelRows,
+  polygonShp,
+  storedZip,
+  textDbf,
+  type Ring,
+} from '../helpers/shapefileWriter.ts';
 import { expect, openApp, shot, test, waitSaved } from './fixtures.ts';
 
 // An invented spot in farmland inside UTM zone 15; nothing here names a real station or lot.
@@ -42,19 +50,15 @@ function aerial(): Buffer {
 /** Three parcels side by side, 100 m × 80 m each, in UTM metres; ours is in the middle. */
 function parcelsZip(): Buffer {
   const rect = (e: number, n: number): Ring => clockwiseRect(E0 + e - 50, N0 + n - 40, 100, 80);
-  const fields = [
-    { name: 'PIN', length: 14 },
-    { name: 'SITEADDR', length: 32 },
-  ];
-  const rows = [
-    ['15-020-0100', '2100 Invented Prairie Rd'],
-    ['15-020-0101', '2102 Invented Prairie Rd'],
-    ['15-020-0102', '2104 Invented Prairie Rd'],
-  ];
+  // 15-020-0100, 2100 Invented Prairie Rd; then 0101, 2102 and 0102, 2104.
+  const rows = parcelRows(
+    (i) => `15-020-010${i}`,
+    (i) => `${2100 + 2 * i} Invented Prairie Rd`,
+  );
   return Buffer.from(
     storedZip([
       { name: 'parcels/parcels.shp', data: polygonShp([rect(-100, 0), rect(0, 0), rect(100, 0)]) },
-      { name: 'parcels/parcels.dbf', data: textDbf(fields, rows) },
+      { name: 'parcels/parcels.dbf', data: textDbf(PARCEL_FIELDS, rows) },
       { name: 'parcels/parcels.prj', data: new TextEncoder().encode(UTM15_PRJ) },
     ]),
   );
