@@ -103,6 +103,20 @@ export const parcelRows = (
   n = 3,
 ): string[][] => Array.from({ length: n }, (_, i) => [pinOf(i), addressOf(i)]);
 
+/** A parcel layer's files `path`.shp, .dbf (PARCEL_FIELDS, these rows) and .prj (this text). */
+export function parcelLayer(
+  path: string,
+  rings: Ring[],
+  rows: string[][],
+  prj: string,
+): { name: string; data: Uint8Array }[] {
+  return [
+    { name: `${path}.shp`, data: polygonShp(rings) },
+    { name: `${path}.dbf`, data: textDbf(PARCEL_FIELDS, rows) },
+    { name: `${path}.prj`, data: new TextEncoder().encode(prj) },
+  ];
+}
+
 function crc32(data: Uint8Array): number {
   let c = 0xffffffff;
   for (const byte of data) {

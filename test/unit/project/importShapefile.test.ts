@@ -11,6 +11,7 @@ import { expectClose } from '../../helpers/expectClose.ts';
 import {
   clockwiseRect,
   PARCEL_FIELDS,
+  parcelLayer,
   parcelRows,
   polygonShp,
   storedZip,
@@ -43,11 +44,8 @@ const lots = [
 
 const file = (name: string, bytes: Uint8Array): InputFile => ({ name, bytes });
 /** One parcel as loose files `stem`.shp, .dbf (the first row) and .prj. */
-const oneParcel = (stem: string, ring: Ring, prj: string): InputFile[] => [
-  file(`${stem}.shp`, polygonShp([ring])),
-  file(`${stem}.dbf`, textDbf(PARCEL_FIELDS, [ROWS[0]!])),
-  file(`${stem}.prj`, enc(prj)),
-];
+const oneParcel = (stem: string, ring: Ring, prj: string): InputFile[] =>
+  parcelLayer(stem, [ring], [ROWS[0]!], prj).map((f) => file(f.name, f.data));
 
 describe('importShapefile', () => {
   it('imports one parcel from loose files, with its attributes', async () => {
@@ -69,9 +67,7 @@ describe('importShapefile', () => {
 
   it('lists every parcel of a zipped layer, for the chooser', async () => {
     const zip = storedZip([
-      { name: 'county/parcels.shp', data: polygonShp(lots) },
-      { name: 'county/parcels.dbf', data: textDbf(PARCEL_FIELDS, ROWS) },
-      { name: 'county/parcels.prj', data: enc(WGS84_PRJ) },
+      ...parcelLayer('county/parcels', lots, ROWS, WGS84_PRJ),
       { name: '__MACOSX/county/._parcels.shp', data: enc('junk') },
     ]);
     const r = await importShapefile([file('parcels.zip', zip)]);
@@ -84,11 +80,7 @@ describe('importShapefile', () => {
 
   it('unpacks a deflated zip, as most archivers write it', async () => {
     const zip = storedZip(
-      [
-        { name: 'parcels.shp', data: polygonShp(lots) },
-        { name: 'parcels.dbf', data: textDbf(PARCEL_FIELDS, ROWS) },
-        { name: 'parcels.prj', data: enc(WGS84_PRJ) },
-      ],
+      parcelLayer('parcels', lots, ROWS, WGS84_PRJ),
       (d) => new Uint8Array(deflateRawSync(d)),
     );
     const r = await importShapefile([file('parcels.zip', zip)]);
