@@ -2,15 +2,11 @@
 // Go visibly moves the map and marks the place; the boundary is typed as width × depth at a
 // bearing, and then as sides from a corner, with errors next to their fields.
 import geodesic from 'geographiclib-geodesic';
-import { clickMap, expect, expectGoMarkInView, openApp, shot, test } from './fixtures.ts';
+import { clickMap, expect, expectGoMarkInView, newProject, openApp, shot, test } from './fixtures.ts';
 
 test('types a 45 × 30 m lot after going to its place, without imagery', async ({ page, host }) => {
   await openApp(page, host);
-  await page.getByRole('tab', { name: 'Project' }).click();
-  await page.getByRole('button', { name: 'New…' }).click();
-  await page.getByLabel('Name of the new project').fill('Typed lot');
-  await page.getByRole('button', { name: 'Create' }).click();
-  await expect(page.getByTestId('project-name')).toHaveValue('Typed lot');
+  await newProject(page, 'Typed lot');
 
   const card = page.getByTestId('empty-lot');
   await expect(card.getByTestId('imagery-help')).toContainText('GeoTIFF');
