@@ -46,7 +46,12 @@ test('types a 45 × 30 m lot after going to its place, without imagery', async (
   await clickMap(page, 0.5, 0.6);
   const offset = page.getByTestId('support-offset');
   await page.getByText('Place by distance and bearing').click();
-  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 1' });
+  // The first place to start from is shown chosen, and each corner says where it lies.
+  await expect(offset.getByRole('combobox', { name: 'Offset from' }).locator('option:checked')).toHaveText(
+    'lot corner 1 (SW)',
+  );
+  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 3 (NE)' });
+  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 1 (SW)' });
   await offset.getByRole('spinbutton', { name: 'Distance, m' }).fill('10');
   await offset.getByRole('spinbutton', { name: 'Bearing, degrees' }).fill('90');
   await offset.getByRole('button', { name: 'Place here' }).click();
