@@ -17,6 +17,7 @@ import { footprintOf } from '../lib/aerial.ts';
 import { presetOfTemplate } from '../lib/imageryPresets.ts';
 import type { Session } from '../state/session.svelte.ts';
 import type { ToolId } from '../state/ui.svelte.ts';
+import { withMove, type DragMove } from '../plan/liveMove.ts';
 
 const DRAW_STYLE = { color: COLOURS.boundarySelected, weight: 2 };
 
@@ -78,6 +79,23 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       ui.setTool('select');
     });
 
+    // A drag with a plan shown re-ranks live: at most once per frame, the newest position.
+    let frame: { p: Project; move: DragMove } | null = null;
+    const live = (p: Project, move: DragMove): void => {
+      if (!frame)
+        requestAnimationFrame(() => {
+          const f = frame;
+          frame = null;
+          if (f) session.planning.liveMove(withMove(f.p, f.move));
+        });
+      frame = { p, move };
+    };
+
+    const liveEnd = (): void => {
+      frame = null;
+      session.planning.liveEnd();
+    };
+
     // Project layers, rebuilt on every change (a lot holds tens of items, not thousands).
     let current: L.LayerGroup | null = null;
     $effect(() => {
@@ -96,6 +114,8 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
           select: (s) => doc.select(s),
           moveSupport: (id, to) => doc.moveSupport(id, to),
           moveStation: (to) => doc.setStation(to),
+          dragging: (move) => live(p, move),
+          dragEnd: () => liveEnd(),
         },
       );
       current = built.group.addTo(map);
@@ -109,6 +129,25 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       const editable = built.editable.get(key);
       if (selecting && editable) {
         editable.pm.enable({ allowSelfIntersection: false, snappable: true, draggable: false });
+        const moveOf = (corners: LonLat[]): DragMove | null => {
+          if (key === 'boundary') return { kind: 'boundary', corners };
+          const k = doc.selectedKeepOut;
+          if (!k) return null;
+          return {
+            kind: 'keepOut',
+            id: k.id,
+            geometry:
+              k.geometry.type === 'Polygon'
+                ? { type: 'Polygon', coordinates: [[...corners, corners[0]!]] }
+                : { type: 'LineString', coordinates: corners },
+          };
+        };
+        editable.on('pm:markerdrag', () => {
+          const move = moveOf(cornersOf(editable));
+          if (move) live(p, move);
+        });
+        // pm:edit (the edit) comes with the end of a corner's drag; settle once both have run.
+        editable.on('pm:markerdragend', () => setTimeout(liveEnd, 0));
         editable.on('pm:edit', () => {
           const corners = cornersOf(editable);
           if (key === 'boundary') doc.setBoundary(corners, 'move lot corner');
