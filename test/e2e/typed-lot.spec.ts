@@ -35,6 +35,8 @@ test('types a 45 × 30 m lot after going to its place, without imagery', async (
   await typed.getByRole('button', { name: 'Set boundary' }).click();
   const sides = page.locator('.yw-side-label span');
   await expect(sides).toHaveCount(4);
+  // The Go mark goes once the lot is drawn, so that it never covers the lot.
+  await expect(page.locator('path.yw-goto')).toHaveCount(0);
   expect((await sides.allTextContents()).sort()).toEqual(['30.0 m', '30.0 m', '45.0 m', '45.0 m']);
   // One geodesic area everywhere: the chip reads the lot measures' WGS84 area.
   await expect(page.getByTestId('lot-summary')).toContainText('Lot 1350 m² · perimeter 150.0 m');

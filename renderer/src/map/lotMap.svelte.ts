@@ -219,15 +219,16 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
     // the scale show that it moved). The mark goes once the lot's drawing changes or a candidate
     // is drawn, so that it never covers the lot or an antenna.
     let goMark: L.CircleMarker | null = null;
-    let goMarkFor: unknown[] = [];
-    const drawing = (): unknown[] => {
+    let goMarkFor = '';
+    // By value: an edit of anything else (a setting, the station) copies these arrays too.
+    const drawing = (): string => {
       const p = doc.project;
-      return [p?.id, p?.boundary, p?.supports, p?.keepOuts];
+      return JSON.stringify([p?.id, p?.boundary, p?.supports, p?.keepOuts]);
     };
     $effect(() => {
       const now = drawing();
       const shown = session.mapOverlays.candidates.length > 0;
-      if (goMark && (shown || now.some((v, i) => v !== goMarkFor[i]))) {
+      if (goMark && (shown || now !== goMarkFor)) {
         goMark.remove();
         goMark = null;
       }
