@@ -196,12 +196,13 @@ export async function addSupports(
 /** Tick only this band in the run bar (the others off) and start the plan. */
 export async function startPlan(page: Page, band: '160 m' | '80 m' | '40 m'): Promise<void> {
   const bar = page.getByTestId('run-bar');
-  for (const b of ['160 m', '80 m', '40 m'].filter((x) => x !== band)) {
-    const box = bar.getByRole('checkbox', { name: b });
-    if (await box.isChecked()) await box.uncheck();
-  }
+  // The band asked for first: the last ticked band cannot be unticked.
   const box = bar.getByRole('checkbox', { name: band });
   if (!(await box.isChecked())) await box.check();
+  for (const b of ['160 m', '80 m', '40 m'].filter((x) => x !== band)) {
+    const other = bar.getByRole('checkbox', { name: b });
+    if (await other.isChecked()) await other.uncheck();
+  }
   await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
 }
 
