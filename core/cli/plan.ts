@@ -24,6 +24,7 @@ import {
   soilRangeOf,
   type EvaluationCache,
   type PlanCut,
+  type PlanSetup,
   type Job,
   type Shortlist,
   type Candidate,
@@ -336,6 +337,47 @@ export function shortlistJson(shortlist: Shortlist, withPatterns: boolean): obje
   return withPatterns ? { ...out, patterns } : out;
 }
 
+/**
+ * Each worker builds the ground's tables every evaluation of this plan reuses (the design
+ * frequency and the bandwidth points of each band, and the soil range at the design frequency),
+ * so that they are ready when the enumeration is.
+ */
+export function warmPool(pool: WorkerPool, project: Project, bands: readonly Band[]): void {
+  const f0s = bands.map((b) => bandPlan(b, project.settings.operating?.[b]).designFreqHz);
+  pool.warm(
+    project.soil,
+    f0s.flatMap((f0) => [f0, f0 * (1 - SWEEP_FRACTION), f0 * (1 + SWEEP_FRACTION)]),
+  );
+  for (const soilId of soilRangeOf(project)) pool.warm({ classId: soilId }, f0s);
+}
+
+/**
+ * The three evaluation steps of a plan on the workers, filling `cache`: every design alone, the
+ * best orientation of each placement near a metal support again with it, and the shortlisted
+ * designs over the soil range. Then planFromSetup ranks without solver work.
+ */
+export async function evaluateOnPool(
+  pool: WorkerPool,
+  setup: PlanSetup,
+  project: Project,
+  cache: EvaluationCache,
+  shortlistSize: number,
+  onDone?: (done: number, total: number) => void,
+  say: (line: string) => void = () => {},
+): Promise<void> {
+  await pool.evaluate(setup.jobs, cache, onDone);
+  const second = conductorJobs(setup, cache, project);
+  if (second.length) {
+    say(`${second.length} placements again with the metal supports near them`);
+    await pool.evaluate(second, cache, onDone);
+  }
+  const third = soilRangeJobs(setup, cache, project, shortlistSize);
+  if (third.length) {
+    say(`${third.length} shortlisted designs over the soil range`);
+    await pool.evaluate(third, cache, onDone);
+  }
+}
+
 export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   const args = parseArgs(argv);
   if (typeof args === 'string') {
@@ -346,18 +388,9 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   if (!project) return 1;
   const t0 = performance.now();
   const bands = args.bands.length ? args.bands : project.bands;
-  // Workers start (load the solver) while this thread enumerates the proposals.
+  // Workers start (load the solver, build the ground's tables) while this thread enumerates.
   const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
-  if (pool) {
-    // While this thread enumerates, the workers build the ground's tables every evaluation reuses:
-    // the design frequency and the bandwidth points of each band, and the soil range at f0.
-    const f0s = bands.map((b) => bandPlan(b, project.settings.operating?.[b]).designFreqHz);
-    pool.warm(
-      project.soil,
-      f0s.flatMap((f0) => [f0, f0 * (1 - SWEEP_FRACTION), f0 * (1 + SWEEP_FRACTION)]),
-    );
-    for (const soilId of soilRangeOf(project)) pool.warm({ classId: soilId }, f0s);
-  }
+  if (pool) warmPool(pool, project, bands);
   let setup: ReturnType<typeof enumeratePlan>;
   try {
     // Say something from the start: enumeration of a lot with many supports takes seconds.
@@ -386,19 +419,9 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   );
   if (pool) {
     try {
-      await pool.evaluate(setup.jobs, cache, progress);
-      // Step 2: the best orientation of each placement near a metal support, with the support.
-      const second = conductorJobs(setup, cache, project);
-      if (second.length) {
-        io.stderr(`plan: ${second.length} placements again with the metal supports near them\n`);
-        await pool.evaluate(second, cache, progress);
-      }
-      // Step 3: the soil range of the shortlisted candidates only.
-      const third = soilRangeJobs(setup, cache, project, args.top);
-      if (third.length) {
-        io.stderr(`plan: ${third.length} shortlisted designs over the soil range\n`);
-        await pool.evaluate(third, cache, progress);
-      }
+      await evaluateOnPool(pool, setup, project, cache, args.top, progress, (line) =>
+        io.stderr(`plan: ${line}\n`),
+      );
     } finally {
       await pool.close();
     }
