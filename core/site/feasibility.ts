@@ -38,6 +38,8 @@ export type Element =
       role?: 'radiator' | 'top-wire';
     }
   | { kind: 'rope'; label: string; from: XYZ; to: XYZ }
+  /** Coax an array's builder lays between its elements and its relay box (checked like a rope). */
+  | { kind: 'coax'; label: string; from: XYZ; to: XYZ }
   | { kind: 'radial'; label: string; from: XYZ; to: XYZ }
   | { kind: 'end'; label: string; at: XYZ }
   | { kind: 'anchor'; label: string; at: XYZ }
