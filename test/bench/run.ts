@@ -278,6 +278,7 @@ if (asJson) {
     replanMedianS: plan?.replanMedianS ?? null,
     livePreviewMedianS: plan?.livePreviewMedianS ?? null,
     plan40SupportsS: plan?.plan40SupportsS ?? null,
+    plan500SupportsS: plan?.plan500SupportsS ?? null,
     loadAverage: loadavg(),
     cores: availableParallelism(),
   };
