@@ -80,9 +80,9 @@ export interface PlanOptions {
   /** Number of placements in the shortlist per band before the best of each missing type is added (default 10). */
   shortlistSize?: number;
   layerHeightsM?: readonly number[];
-  /** Only these antenna types (default: every registered type, arrays only with `arrays`). */
+  /** Only these antenna types (default: every registered type, arrays only with `arrays`, else the project's `settings.planArrays`). */
   types?: readonly AntennaTypeId[];
-  /** Also plan the array types (several elements; slower). Default false. */
+  /** Also plan the array types (several elements; slower). Default: the project's `settings.planArrays`. */
   arrays?: boolean;
   onProgress?: (p: PlanProgress) => void;
 }
@@ -340,8 +340,9 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
   const metalSupports: NearbySupport[] = site.supports
     .filter((s) => s.conducts !== false && s.conducts !== undefined)
     .map((s) => ({ id: s.id, name: s.name, xy: s.xy, metal: s.metal ?? null }));
+  const arrays = options.arrays ?? project.settings.planArrays === true;
   const builders = BUILDERS.filter((b) =>
-    options.types ? options.types.includes(b.type) : !b.array || options.arrays === true,
+    options.types ? options.types.includes(b.type) : !b.array || arrays,
   );
   const jobs = new Map<string, Job>();
   const bands = (options.bands ?? project.bands).map((band) => {

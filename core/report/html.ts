@@ -53,6 +53,48 @@ function table(head: string[], rows: Cell[][]): string {
 
 /* ---------------------------------------------------------------------------------------------- */
 
+/** An array's relay box, relays, control wiring, directions and achieved feed (./arrayWiring.ts). */
+function arrayHtml(s: BuildSheet): string {
+  const a = s.array;
+  if (!a) return '';
+  const U = sheetLengths(s.units);
+  const st = s.lot.station;
+  const box = a.boxXY
+    ? `${a.boxWhere}: ${U.len(Math.hypot(a.boxXY[0] - st[0], a.boxXY[1] - st[1]))} from the station point, at ${U.len(a.boxXY[0])} E, ${U.len(a.boxXY[1])} N in the site frame. The station's feed line ends at the box.`
+    : a.boxWhere;
+  return (
+    `<h3 id="array-wiring">Array: relay box and control wiring</h3><p>${e(box)}</p>` +
+    (a.relays.length ? `<ul>${a.relays.map((r) => `<li>${e(r)}</li>`).join('')}</ul>` : '') +
+    (a.directions.length
+      ? table(
+          ['Direction', 'Relay coils energised', 'Beam', 'What it does', 'Serves'],
+          a.directions.map((d) => [
+            String(d.n),
+            d.coils,
+            `${Math.round(d.beamDeg)}°`,
+            d.name,
+            d.serves.join(', ') || '—',
+          ]),
+        )
+      : '') +
+    (a.control.length ? `<ul>${a.control.map((r) => `<li>${e(r)}</li>`).join('')}</ul>` : '') +
+    (a.feed.length
+      ? `<h3>What the feed network achieves (direction 1)</h3>` +
+        table(
+          ['Element feed', 'Drive impedance', 'Current (relative, phase)'],
+          a.feed.map((f) => [f.label, f.zText, f.current]),
+        ) +
+        `<p class="note">${e(
+          `Solved with the wires and every line with its loss; currents relative to the element at 1.00.${
+            a.networkLossPercent !== null
+              ? ` The lines and stubs take ${a.networkLossPercent.toFixed(1)} % of the power.`
+              : ''
+          } The relay and control practice is common practice, no source; follow the relay maker's ratings.`,
+        )}</p>`
+      : '')
+  );
+}
+
 /* ---------------------------------------------------------------------------------------------- */
 
 const STYLE = `
@@ -262,7 +304,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
         .map(([k, v]) => `<dt>${e(k)}</dt><dd>${e(v)}</dd>`)
         .join(
           '',
-        )}</dl><p class="note">${e(`Length: ${fl.note}. Loss: ${fl.source}, scaled as √f; extra loss from SWR not included.`)}</p>`,
+        )}</dl><p class="note">${e(`Length: ${fl.note}. Loss: ${fl.source}, scaled as √f; extra loss from SWR not included.`)}</p>${arrayHtml(s)}`,
     ),
   );
   const t = s.tuning.measured;
