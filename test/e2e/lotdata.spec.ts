@@ -5,7 +5,7 @@
 import type { Page } from '@playwright/test';
 import proj4 from 'proj4';
 import { epsgProjectedKeys, tiledGeoTiffBytes } from '../helpers/geotiffWriter.ts';
-import { polygonShp, storedZip, textDbf, type Ring } from '../helpers/shapefileWriter.ts';
+import { clockwiseRect, polygonShp, storedZip, textDbf, type Ring } from '../helpers/shapefileWriter.ts';
 import { expect, openApp, shot, test, waitSaved } from './fixtures.ts';
 
 // An invented spot in farmland inside UTM zone 15; nothing here names a real station or lot.
@@ -41,13 +41,7 @@ function aerial(): Buffer {
 
 /** Three parcels side by side, 100 m × 80 m each, in UTM metres; ours is in the middle. */
 function parcelsZip(): Buffer {
-  const rect = (e: number, n: number): Ring => [
-    [E0 + e - 50, N0 + n - 40],
-    [E0 + e - 50, N0 + n + 40],
-    [E0 + e + 50, N0 + n + 40],
-    [E0 + e + 50, N0 + n - 40],
-    [E0 + e - 50, N0 + n - 40],
-  ];
+  const rect = (e: number, n: number): Ring => clockwiseRect(E0 + e - 50, N0 + n - 40, 100, 80);
   const fields = [
     { name: 'PIN', length: 14 },
     { name: 'SITEADDR', length: 32 },

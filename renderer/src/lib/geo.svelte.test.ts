@@ -1,5 +1,8 @@
 // Geometry helpers of the lot editor.
+import geodesic from 'geographiclib-geodesic';
 import { describe, expect, it } from 'vitest';
+import { lotMeasures } from '../../../core/project/lotMeasures.ts';
+import { expectRelClose } from '../../../test/helpers/expectClose.ts';
 import { buildDemoProject, demoLonLat } from '../../../data/demo/demoProject.ts';
 import {
   fallReachWarnings,
@@ -36,6 +39,26 @@ describe('lot measures', () => {
     expect(formatArea(shoelace, 'imperial')).toBe('4.15 acres');
     expect(formatArea(500, 'metric')).toBe('500 m²');
     expect(formatArea(500, 'imperial')).toBe('5382 ft²');
+  });
+
+  it('reads a 45 × 30 m lot as 1350 m², the area every view shows (one geodesic area)', () => {
+    // Corners laid out by GeographicLib's direct problem (independent of the code under test's
+    // area), 45 m east and 30 m north of 45.12° N, 93.40° W; over 50 m the ellipsoid is flat to
+    // well under 1e-5, so the plane rectangle's area is the reference (Euclid, width × depth).
+    const g = geodesic.Geodesic.WGS84;
+    const at = (lat: number, lon: number, azi: number, s: number): [number, number] => {
+      const d = g.Direct(lat, lon, azi, s);
+      return [d.lon2!, d.lat2!];
+    };
+    const c0: [number, number] = [-93.4, 45.12];
+    const c1 = at(c0[1], c0[0], 90, 45);
+    const c2 = at(c1[1], c1[0], 0, 30);
+    const c3 = at(c0[1], c0[0], 0, 30);
+    const lot = { type: 'Polygon' as const, coordinates: [[c0, c1, c2, c3, c0]] };
+    expectRelClose(polygonAreaM2(lot), 45 * 30, 1e-5, 'plane rectangle, width × depth');
+    expectRelClose(perimeterM(lot), 150, 1e-5, 'plane rectangle, 2 (width + depth)');
+    expect(polygonAreaM2(lot)).toBe(lotMeasures(lot).areaM2);
+    expect(formatArea(polygonAreaM2(lot), 'metric')).toBe('1350 m²');
   });
 
   it('knows which way each side faces, whichever way the ring runs', () => {

@@ -3,15 +3,11 @@
  * around keep-outs, the Maidenhead locator of a point, and new ids. Positions are [lon, lat]
  * (GeoJSON order), lengths metres, areas square metres.
  */
-import {
-  area as turfArea,
-  booleanPointInPolygon,
-  buffer as turfBuffer,
-  pointToLineDistance,
-} from '@turf/turf';
+import { booleanPointInPolygon, buffer as turfBuffer, pointToLineDistance } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon as GeoPolygon } from 'geojson';
 import type { KeepOut, LonLat, Polygon, Project, Support } from '../../../core/project/schema.ts';
 import { bearingDistance } from '../../../core/paths/geodesy.ts';
+import { lotMeasures } from '../../../core/project/lotMeasures.ts';
 import { fromLocator, toLocator } from '../../../core/paths/maidenhead.ts';
 import { formatLength, mToFeet, type UnitSystem } from '../../../core/units/index.ts';
 
@@ -74,12 +70,17 @@ export function ringSides(ring: readonly LonLat[]): Side[] {
   return sides;
 }
 
+/**
+ * Area of a lot or keep-out on the WGS84 ellipsoid: the one geodesic area every view shows
+ * (core/project/lotMeasures.ts). A sphere is off by a few tenths of a percent: it read a
+ * 45 × 30 m lot at 45° N as 1347 m².
+ */
 export function polygonAreaM2(p: Polygon): number {
-  return turfArea({ type: 'Feature', properties: {}, geometry: p });
+  return lotMeasures(p).areaM2;
 }
 
 export function perimeterM(p: Polygon): number {
-  return ringSides(p.coordinates[0] ?? []).reduce((s, side) => s + side.lengthM, 0);
+  return lotMeasures(p).perimeterM;
 }
 
 const M2_PER_HA = 10_000;

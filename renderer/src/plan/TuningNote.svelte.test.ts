@@ -14,9 +14,9 @@ import type { FromWorker, ToWorker } from '../workers/protocol.ts';
 import { Planning } from './planning.svelte.ts';
 import { demoPlanProject } from './testShortlist.ts';
 import TuningNote from './TuningNote.svelte';
-import { toyEvaluator as makeToyEvaluator } from '../../../test/helpers/toyEvaluator.ts';
+import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 
-const toyEvaluator = makeToyEvaluator({ pattern: 'flat' });
+const toyEvaluator = testEvaluator({ pattern: 'flat' });
 
 async function until(check: () => boolean, ms = 20_000): Promise<void> {
   const t0 = Date.now();

@@ -7,9 +7,9 @@ import { createPlanHost } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import type { FromWorker, ToWorker } from '../workers/protocol.ts';
 import { PlanRunner } from './planRun.svelte.ts';
-import { toyEvaluator as makeToyEvaluator } from '../../../test/helpers/toyEvaluator.ts';
+import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 
-const toyEvaluator = makeToyEvaluator({ pattern: 'directional' });
+const toyEvaluator = testEvaluator({ pattern: 'directional' });
 
 interface Fake extends PlanWorker {
   evaluated: number;

@@ -7,9 +7,9 @@ import { createPlanHost, workerLoop } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import type { FromWorker, TestFault, ToWorker } from '../workers/protocol.ts';
 import { PlanRunner, type RunStatus } from './planRun.svelte.ts';
-import { toyEvaluator as makeToyEvaluator } from '../../../test/helpers/toyEvaluator.ts';
+import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 
-const toyEvaluator = makeToyEvaluator({ pattern: 'flat' });
+const toyEvaluator = testEvaluator({ pattern: 'flat' });
 
 interface Fake extends PlanWorker {
   terminated: boolean;

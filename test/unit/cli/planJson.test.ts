@@ -11,12 +11,9 @@ import { shortlistJson } from '../../../core/cli/plan.ts';
 import { planSite, type Candidate } from '../../../core/rank/plan.ts';
 import { buildSite } from '../../../core/site/site.ts';
 import { stationReport } from '../../../core/report/stationReport.ts';
-import { wavelengthM } from '../../../core/units/index.ts';
-import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
+import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
-const ev = fakeEvaluator({
-  resonantM: (req) => (req.model.radials.length ? 0.24 : 0.47) * wavelengthM(req.frequenciesHz[0]!),
-});
+const ev = testEvaluator({ resonantM: resonantAt(0.47, 0.24) });
 const project = buildDemoProject();
 const shortlist = planSite(project, { evaluator: ev, bands: ['160m', '80m'] });
 

@@ -1,6 +1,6 @@
 /**
  * Planning mechanics of metal supports and of the soil range, with the test double of the solver
- * (fakeEvaluator: not physics; the physics of a tower next to a vertical is checked in
+ * (testEvaluator: not physics; the physics of a tower next to a vertical is checked in
  * test/reference/plan/conductingSupport.test.ts).
  */
 import { describe, expect, it } from 'vitest';
@@ -20,13 +20,11 @@ import { placeXY } from '../../../core/site/geometry.ts';
 import { wavelengthM } from '../../../core/units/index.ts';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { fakeEvaluator } from './fakeEvaluator.ts';
-
-const resonantAt = (fraction: number) => (req: EvalRequest) => fraction * wavelengthM(req.frequenciesHz[0]);
+import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
 /** The fake solver, its gain shifted per soil class so that the soil range has something to show. */
 function soilAware(): Evaluator & { calls: number } {
-  const base = fakeEvaluator({ resonantM: resonantAt(0.47) });
+  const base = testEvaluator({ resonantM: resonantAt(0.47) });
   const shift: Record<string, number> = { 'very-good': 2, average: 0, poor: -1.5 };
   const ev = ((req: EvalRequest) => {
     ev.calls++;
@@ -84,7 +82,7 @@ describe('support metal', () => {
 
 describe('metal supports in the plan', () => {
   const project = buildDemoProject();
-  const ev = fakeEvaluator({ resonantM: resonantAt(0.47) });
+  const ev = testEvaluator({ resonantM: resonantAt(0.47) });
   const s = planSite(project, { evaluator: ev, types: ['inverted-v', 'dipole', 'vertical'] });
   const lambda = wavelengthM(3.55e6);
 
@@ -222,7 +220,7 @@ describe('soil range', () => {
     // Verticals gain more from wet soil in this double, so some rank must move over the range.
     expect(s.candidates.some((c) => !c.soilRange.rankHolds)).toBe(true);
     // Only the pattern of each shortlisted design is solved over the other soils: one request each.
-    const plain = fakeEvaluator({ resonantM: resonantAt(0.47) });
+    const plain = testEvaluator({ resonantM: resonantAt(0.47) });
     planSite(
       { ...project, settings: { ...project.settings, soilRange: ['average'] } },
       { evaluator: plain, types: ['dipole'] },

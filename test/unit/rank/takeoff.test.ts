@@ -1,17 +1,16 @@
 /**
  * The take-off distribution in a plan: every path and region carries it in the plan's JSON with
  * weights summing to 1, the region gain is the power average over it, and a region's own window
- * is honoured. Planning mechanics over the test double of the solver (fakeEvaluator: not physics).
+ * is honoured. Planning mechanics over the test double of the solver (testEvaluator: not physics).
  */
 import { describe, expect, it } from 'vitest';
 import { planPaths } from '../../../core/paths/index.ts';
 import { distributionGainDbi } from '../../../core/rank/pattern.ts';
 import { planSite, type Shortlist } from '../../../core/rank/plan.ts';
-import { wavelengthM } from '../../../core/units/index.ts';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
-import { fakeEvaluator } from './fakeEvaluator.ts';
+import { testEvaluator } from '../../helpers/testEvaluator.ts';
 
-const ev = () => fakeEvaluator({ resonantM: (req) => 0.47 * wavelengthM(req.frequenciesHz[0]) });
+const ev = () => testEvaluator();
 const sum = (xs: readonly { weight: number }[]): number => xs.reduce((s, x) => s + x.weight, 0);
 
 describe('take-off distribution in a plan', () => {

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import { candidateGainAt, planSite, type Candidate, type Shortlist } from '../../../core/rank/plan.ts';
-import { wavelengthM } from '../../../core/units/index.ts';
 import {
   COAX_LOSS_DB_PER_100M,
   COAX_TYPES,
@@ -18,15 +17,12 @@ import { stationReport } from '../../../core/report/stationReport.ts';
 import { feetInches } from '../../../core/report/format.ts';
 import { lengthsInText } from '../../../core/units/index.ts';
 import type { Project } from '../../../core/project/schema.ts';
-import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
-import { toyEvaluator } from '../../helpers/toyEvaluator.ts';
+import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 import { evaluationModel } from '../../../core/antennas/conductors.ts';
 
-// Planning mechanics only: the fake evaluator is not physics (see its header). Verticals resonate
+// Planning mechanics only: the test evaluator is not physics (see its header). Verticals resonate
 // near a quarter wave, wire antennas near a half wave.
-const ev = fakeEvaluator({
-  resonantM: (req) => (req.model.radials.length ? 0.24 : 0.47) * wavelengthM(req.frequenciesHz[0]),
-});
+const ev = testEvaluator({ resonantM: resonantAt(0.47, 0.24) });
 
 const len = (w: Candidate['wires'][number]): number =>
   Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
@@ -109,9 +105,9 @@ describe('build sheet', () => {
 
   it('measures a tuning rate through the evaluator', () => {
     const c = byType('dipole');
-    // The toy's reactance is X = 900 Ω·(L·f/c − 0.48) for total wire length L: resonance at
-    // f = 0.48·c/L, so longer wire, lower resonance, and f_short/f_long = L_long/L_short.
-    const t = measureTuning(c.design, c.trim.valueM, project.soil, toyEvaluator());
+    // The test evaluator's reactance is X = 20 Ω/m·(L·f/f0 − 0.47·c/f0) for total wire length L:
+    // resonance at f = 0.47·c/L, so longer wire, lower resonance, and f_short/f_long = L_long/L_short.
+    const t = measureTuning(c.design, c.trim.valueM, project.soil, testEvaluator({ pattern: 'flat' }));
     expect(t.kHzPerCm).toBeLessThan(0);
     expect(t.resonanceMHz.shorter).toBeGreaterThan(t.resonanceMHz.longer);
     expect(t.cmPer10kHzUp).toBeGreaterThan(0);

@@ -7,8 +7,7 @@ import { BUILDERS } from '../../../core/antennas/registry.ts';
 import { planSite } from '../../../core/rank/plan.ts';
 import { buildSheet, type TuningMeasurement } from '../../../core/report/buildSheet.ts';
 import { CM_PER_INCH, TRIM_HOW, trimHow, tuningProblem, tuningText } from '../../../core/report/tuning.ts';
-import { wavelengthM } from '../../../core/units/index.ts';
-import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
+import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
 /** Invented: a rate of −0.9 kHz/cm around 3.57 MHz. */
 const m: TuningMeasurement = {
@@ -38,9 +37,7 @@ describe('tuning text', () => {
   });
 
   it('says the same as the build sheet for each type on the demo lot', () => {
-    const ev = fakeEvaluator({
-      resonantM: (req) => (req.model.radials.length ? 0.24 : 0.47) * wavelengthM(req.frequenciesHz[0]!),
-    });
+    const ev = testEvaluator({ resonantM: resonantAt(0.47, 0.24) });
     const project = buildDemoProject();
     const s = planSite(project, { evaluator: ev, bands: ['80m'] });
     const types = new Set(s.candidates.map((c) => c.type));

@@ -7,12 +7,9 @@ import { buildDemoProject } from '../../../core/demo/demoProject.ts';
 import { planSite, type Candidate } from '../../../core/rank/plan.ts';
 import { stationReport } from '../../../core/report/stationReport.ts';
 import { INSULATOR_RULE } from '../../../core/report/bom.ts';
-import { wavelengthM } from '../../../core/units/index.ts';
-import { fakeEvaluator } from '../rank/fakeEvaluator.ts';
+import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
-const ev = fakeEvaluator({
-  resonantM: (req) => (req.model.radials.length ? 0.24 : 0.47) * wavelengthM(req.frequenciesHz[0]!),
-});
+const ev = testEvaluator({ resonantM: resonantAt(0.47, 0.24) });
 const project = buildDemoProject();
 const shortlist = planSite(project, { evaluator: ev, bands: ['160m', '80m'] });
 const firstOf = (t: string): Candidate => shortlist.candidates.find((c) => c.type === t)!;
