@@ -753,8 +753,8 @@ function proposeL(site: PreparedSite, band: BandPlan): { proposals: Proposal[]; 
             maxM: Math.min(0.33 * lambda, h - e + T / 2 - 1),
           },
           states: [
-            { name: 'leg 1 driven, leg 2 open', rotationDeg: 0 },
-            { name: 'leg 2 driven, leg 1 open', rotationDeg: 0, mirrorAxisDeg: 45 },
+            { name: 'leg 1 driven (beams both ways), leg 2 open', rotationDeg: 0 },
+            { name: 'leg 2 driven (beams both ways), leg 1 open', rotationDeg: 0, mirrorAxisDeg: 45 },
           ],
         };
         const norm = (d: number) => ((d % 360) + 360) % 360;

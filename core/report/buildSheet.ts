@@ -99,6 +99,8 @@ export interface BuildSheet {
     radialBearingsDeg: number[];
     /** Ropes from the wire ends to their supports or ground anchors (the candidate's rope elements), site frame. */
     ropes: { label: string; from: XYZ; to: XYZ }[];
+    /** Arrays: the coax between the elements and the relay box, site frame. */
+    arrayCoax: { label: string; from: XYZ; to: XYZ }[];
   };
   /**
    * Elevation cuts: toward each target region (its centre bearing, with its elevation window),
@@ -262,6 +264,9 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
       radialBearingsDeg: g.kind === 'radials' ? g.bearingsDeg : [],
       ropes: c.elements.flatMap((e) =>
         e.role === 'rope' ? [{ label: e.label, from: e.from, to: e.to }] : [],
+      ),
+      arrayCoax: c.elements.flatMap((e) =>
+        e.role === 'coax' ? [{ label: e.label, from: e.from, to: e.to }] : [],
       ),
     },
     pattern,

@@ -180,6 +180,16 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
     out.push(
       `<line x1="${X(r.from[0])}" y1="${Y(r.from[1])}" x2="${X(r.to[0])}" y2="${Y(r.to[1])}" class="rope"><title>${e(r.label)}</title></line>`,
     );
+  // An array's coax to its relay box, and the box (a square) where it meets the ground.
+  for (const r of lot.arrayCoax)
+    out.push(
+      `<line x1="${X(r.from[0])}" y1="${Y(r.from[1])}" x2="${X(r.to[0])}" y2="${Y(r.to[1])}" class="coax"><title>${e(r.label)}</title></line>`,
+    );
+  const box = s.array?.boxXY;
+  if (box)
+    out.push(
+      `<rect x="${Number(X(box[0])) - 4}" y="${Number(Y(box[1])) - 4}" width="8" height="8" class="relay-box"><title>relay box</title></rect>`,
+    );
   // Labels spread outward from the antenna's middle, so those at one point do not sit on each other.
   const cx = c.wires.reduce((a, w) => a + w.from[0] + w.to[0], 0) / Math.max(1, 2 * c.wires.length);
   const verticalTops: XY[] = [];

@@ -122,6 +122,7 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .klabel { fill: #a33; }
 .radial { stroke: #8c7a4b; stroke-width: 0.7; }
 .rope { stroke: #6f7a80; stroke-width: 1; stroke-dasharray: 2 2; }
+.relay-box { fill: #fff; stroke: #1d232a; stroke-width: 2; }
 .feed { fill: #ffd45c; stroke: #1d232a; stroke-width: 1.5; }
 .flabel { fill: #1d232a; font-weight: 600; }
 .coax { fill: none; stroke: #555; stroke-width: 1.2; stroke-dasharray: 4 3; }
@@ -248,7 +249,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       `${planSvg(s, 'lot')}<p class="note">${e(
         `Site frame: x east, y north, ${U.units === 'imperial' ? 'feet' : 'metres'}. Red: antenna wires. Filled circles: supports used. Dashed grey: feed line from the station along its route. Thin brown: radials. Red shading and dashed red: keep-outs; dotted brown: paths. Violet shading: where a standing person would be inside the FCC general-population distance (with ground reflection); dashed teal: the same for the ICNIRP 2020 public level.`,
       )}</p><h3>Antenna detail</h3>${planSvg(s, 'detail')}<p class="note">${e(
-        'The same plan, closer: every wire with its length, the heights of the wire ends (h), the ropes (dotted grey) to their supports or ground anchors, and the feed point (yellow).',
+        `The same plan, closer: every wire with its length, the heights of the wire ends (h), the ropes (dotted grey) to their supports or ground anchors, and the feed point (yellow).${s.array?.boxXY ? ' The array’s coax (dashed grey) runs from each fed corner or base to the relay box (white square).' : ''}`,
       )}</p>`,
     ),
   );

@@ -141,6 +141,7 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
   }
 
   const faded = o.stale ? { opacity: 0.55, dashArray: '10 6' } : {};
+  const boxes = new Set<string>();
   for (const e of candidate.elements) {
     if (e.role === 'support' || e.role === 'feed-line') continue; // drawn by the lot and the feed route
     if (e.role === 'coax') {
@@ -153,7 +154,9 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
       }).addTo(g);
       const l = Math.hypot(e.to[0] - e.from[0], e.to[1] - e.from[1], e.to[2] - e.from[2]);
       tip(line, `${e.label}: ${len(l)} straight (cut it to the length on the build sheet)`);
-      if (e.to[2] === 0) {
+      const boxKey = `${e.to[0].toFixed(1)}:${e.to[1].toFixed(1)}`;
+      if (e.to[2] === 0 && !boxes.has(boxKey)) {
+        boxes.add(boxKey);
         const box = L.rectangle(
           [ll(frame, [e.to[0] - 0.6, e.to[1] - 0.6]), ll(frame, [e.to[0] + 0.6, e.to[1] + 0.6])],
           {

@@ -113,7 +113,7 @@ export const shortType = (c: Candidate): string =>
 /** A switched array's states in a few words ("2 directions: 154°, 244°"); empty for a fixed antenna. */
 export function statesText(c: Pick<Candidate, 'states'>): string {
   if (c.states.length < 2) return '';
-  return `${c.states.length} directions: ${c.states.map((s) => `${Math.round(s.beamDeg)}°`).join(', ')}`;
+  return `${c.states.length} directions: ${c.states.map((s) => `${Math.round(s.beamDeg) % 360}°`).join(', ')}`;
 }
 
 /**
