@@ -760,7 +760,7 @@ export function rankPlan(
   project: Project,
   shortlistSize = 10,
 ): Omit<Shortlist, 'stats'> {
-  const { site, prepared, paths } = setup;
+  const { site, paths } = setup;
   const supportById = new Map(site.supports.map((s) => [s.id, s]));
   const candidates: Candidate[] = [];
   const rejected: RejectedPlacement[] = [];

@@ -150,6 +150,7 @@ export function previewPlan(
         feasibleAtNominal: feasible,
         evaluations: 0,
         cacheHits: feasible - borrowed,
+        cuts: setup.cuts,
       },
     },
     borrowed,

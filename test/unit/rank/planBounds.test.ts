@@ -28,7 +28,11 @@ describe('enumeration bounds (PLAN_BOUNDS)', () => {
     for (const j of setup.jobs) perType.set(j.design.type, (perType.get(j.design.type) ?? 0) + 1);
     for (const n of perType.values()) expect(n).toBeLessThanOrEqual(PLAN_BOUNDS.designs);
     // Every type still gets placements: the bounds choose, they do not empty the plan.
-    expect([...perType.keys()].sort()).toEqual(BUILDERS.filter((b) => !b.array).map((b) => b.type).sort());
+    expect([...perType.keys()].sort()).toEqual(
+      BUILDERS.filter((b) => !b.array)
+        .map((b) => b.type)
+        .sort(),
+    );
     // The cut is reported: supports given and placements considered, per type.
     expect(setup.cuts.length).toBe(types);
     for (const c of setup.cuts) {
@@ -58,6 +62,10 @@ describe('enumeration bounds (PLAN_BOUNDS)', () => {
     expect(callsAtFirstEvaluate).toBeGreaterThan(0);
     const beforeSolver = events.slice(0, callsAtFirstEvaluate);
     expect(beforeSolver.every((e) => e.phase === 'enumerate')).toBe(true);
-    expect(beforeSolver.at(-1)).toEqual({ phase: 'enumerate', done: events[0].total, total: events[0].total });
+    expect(beforeSolver.at(-1)).toEqual({
+      phase: 'enumerate',
+      done: events[0].total,
+      total: events[0].total,
+    });
   });
 });
