@@ -261,9 +261,16 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
         text(Number(X(p[0])), Number(Y(p[1])), `h ${U.len(p[2])}`, 'hlabel', AROUND);
       }
     }
-    const f = feedLine.feedXYZ;
-    out.push(`<circle cx="${X(f[0])}" cy="${Y(f[1])}" r="5" class="feed"><title>feed point</title></circle>`);
-    text(Number(X(f[0])), Number(Y(f[1])), `feed, ${U.len(f[2])} up`, 'flabel', AROUND);
+    // Every feed point (an array has one per element); an array's station line ends at its box.
+    const box = s.array?.boxXY;
+    const feeds = box ? c.feedPoints.map((p) => p.xyz) : [feedLine.feedXYZ];
+    for (const f of feeds) {
+      out.push(
+        `<circle cx="${X(f[0])}" cy="${Y(f[1])}" r="5" class="feed"><title>feed point</title></circle>`,
+      );
+      text(Number(X(f[0])), Number(Y(f[1])), `feed, ${U.len(f[2])} up`, 'flabel', AROUND);
+    }
+    if (box) text(Number(X(box[0])), Number(Y(box[1])), 'relay box', 'flabel', AROUND);
   }
   for (const sp of lot.supports) {
     if (detail && !sp.used && !inView(sp.xy)) continue;
