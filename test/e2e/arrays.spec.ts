@@ -39,6 +39,9 @@ test('plans the half-square arrays on a lot with four supports near a rectangle'
   const detail = page.getByTestId('candidate-detail');
   await expect(detail.getByTestId('state-legend')).toContainText('direction 1');
   await expect(detail.getByTestId('state-legend')).toContainText('direction 2');
+  // What the feed network achieves: both elements' drive impedances and currents.
+  await expect(detail.getByTestId('array-feed').getByRole('row')).toHaveCount(3);
+  await expect(detail.getByTestId('array-note')).toContainText('South America');
   await expect(page.locator('path.yw-cand-coax')).toHaveCount(2);
   await expect(page.locator('path.yw-cand-box')).toHaveCount(1); // both lines meet at the one box
   await expect(page.locator('path.yw-cand-feed')).toHaveCount(2);
