@@ -4,7 +4,7 @@
  * Options: --json (machine-readable, schema in core/rank/README.md), --band 160m|80m|40m (repeatable;
  * default the project's bands), --top N (placements per band, default 10), --workers N (default and
  * most: the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON),
- * --arrays (also plan the array types; slower).
+ * --arrays (also plan the array types; slower; without it, the project's settings.planArrays decides).
  * A progress line goes to stderr while designs are evaluated.
  */
 import { availableParallelism } from 'node:os';
@@ -398,7 +398,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
     io.stderr(
       `plan: placing ${project.supports.length} supports' antennas for ${bands.join(', ')} (enumerating)\n`,
     );
-    setup = enumeratePlan(project, { bands, arrays: args.arrays });
+    setup = enumeratePlan(project, { bands, ...(args.arrays ? { arrays: true } : {}) });
     for (const c of setup.cuts) io.stderr(`plan: ${cutText(c)}\n`);
   } catch (e) {
     await pool?.close();
