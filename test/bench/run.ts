@@ -279,6 +279,7 @@ if (asJson) {
     livePreviewMedianS: plan?.livePreviewMedianS ?? null,
     replanAfterRestMedianS: plan?.replanAfterRestMedianS ?? null,
     plan40SupportsS: plan?.plan40SupportsS ?? null,
+    plan500SupportsS: plan?.plan500SupportsS ?? null,
     loadAverage: loadavg(),
     cores: availableParallelism(),
   };
