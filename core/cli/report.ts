@@ -105,7 +105,7 @@ export async function runReport(argv: string[], io: ReportIo): Promise<number> {
     io.stderr('the project has no bands to plan\n');
     return 1;
   }
-  const setup = enumeratePlan(project, { bands: [band], arrays: args.arrays });
+  const setup = enumeratePlan(project, { bands: [band], ...(args.arrays ? { arrays: true } : {}) });
   const cache = memoryCache();
   io.stderr(`report: planning ${band} (${setup.jobs.length} designs)\n`);
   if (args.workers > 0) {
