@@ -5,7 +5,7 @@
  */
 import { boundaryDistance, clipRadial, keepOutDistance, requiredClearance } from '../site/feasibility.ts';
 import type { Element, PreparedSite } from '../site/feasibility.ts';
-import type { XY } from '../site/frame.ts';
+import { boxOf, type XY } from '../site/frame.ts';
 import { placeXY } from '../site/geometry.ts';
 import { arr, cut, lambdaOf, proposalList, wire } from './common.ts';
 import { radialCuts, radialElements, radialsCutAtMidlines, radialsOn } from './radials.ts';
@@ -56,11 +56,10 @@ export function freeSpots(
   heightM: number,
   score: (at: XY[], rotationDeg: number) => number,
 ): Spot[] {
-  const xs = site.site.boundary.map((p) => p[0]);
-  const ys = site.site.boundary.map((p) => p[1]);
+  const { min, max } = boxOf(site.site.boundary);
   const spots: Spot[] = [];
-  for (let x = Math.min(...xs); x <= Math.max(...xs); x += SPOT_GRID_M)
-    for (let y = Math.min(...ys); y <= Math.max(...ys); y += SPOT_GRID_M)
+  for (let x = min[0]; x <= max[0]; x += SPOT_GRID_M)
+    for (let y = min[1]; y <= max[1]; y += SPOT_GRID_M)
       for (const rotationDeg of axesDeg) {
         const xy: XY = [x, y];
         const at = bases.map((c) => placeXY(c, rotationDeg, xy));

@@ -32,6 +32,7 @@ import {
   type PreparedModel,
 } from './solver.ts';
 import type { AntennaModel, ComplexPair } from './types.ts';
+import type { Complex } from '../numeric/complex.ts';
 import { swrOf } from './swr.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
@@ -312,14 +313,7 @@ export function frequencyResult(
     frequencyHz: sol.freqHz,
     feeds: pm.feeds.map((f, i) => {
       const fr = sol.feeds[i];
-      return {
-        wire: f.wire,
-        position: f.position,
-        impedanceOhm: [fr.impedance.re, fr.impedance.im],
-        currentA: [fr.current.re, fr.current.im],
-        voltageV: [fr.voltage.re, fr.voltage.im],
-        swr: swrOf(fr.impedance.re, fr.impedance.im, z0),
-      };
+      return { wire: f.wire, position: f.position, ...portReadings(fr, z0) };
     }),
     inputPowerW: pin,
     radiatedPowerW: prad,
@@ -329,10 +323,7 @@ export function frequencyResult(
     sources: (sol.network?.sources ?? []).map((s) => ({
       node: s.node,
       kind: s.kind,
-      voltageV: [s.voltage.re, s.voltage.im],
-      currentA: [s.current.re, s.current.im],
-      impedanceOhm: [s.impedance.re, s.impedance.im],
-      swr: swrOf(s.impedance.re, s.impedance.im, z0),
+      ...portReadings(s, z0),
       powerW: s.powerW,
     })),
     groundLossW,
@@ -474,5 +465,18 @@ export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): Eva
     unknowns: pm.mesh.nBasis,
     groundModel: pm.ground.kind,
     diagnostics,
+  };
+}
+
+/** What a feed or a network source reads: impedance, current and voltage as [re, im], and the SWR on z0. */
+function portReadings(
+  p: { impedance: Complex; current: Complex; voltage: Complex },
+  z0: number,
+): { impedanceOhm: ComplexPair; currentA: ComplexPair; voltageV: ComplexPair; swr: number } {
+  return {
+    impedanceOhm: [p.impedance.re, p.impedance.im],
+    currentA: [p.current.re, p.current.im],
+    voltageV: [p.voltage.re, p.voltage.im],
+    swr: swrOf(p.impedance.re, p.impedance.im, z0),
   };
 }

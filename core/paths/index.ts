@@ -10,6 +10,7 @@ import { BANDS, type Band, type LonLat, type Polygon, type Target } from '../pro
 import { azimuthSpan, bearingDistance, destination, type AzimuthSpan } from './geodesy.ts';
 import { DEFAULT_LAYER_HEIGHTS_M, DEFAULT_MIN_HOP_ELEVATION_DEG, fewestHops } from './hops.ts';
 import { regionById } from './regions.ts';
+import { boxOf } from '../site/frame.ts';
 import { takeoffDistribution, userWindowDistribution, type TakeoffDistribution } from './takeoff.ts';
 
 export { bearingDistance, destination, azimuthSpan, normalizeDeg } from './geodesy.ts';
@@ -104,16 +105,10 @@ function insideRing(p: LonLat, ring: readonly LonLat[]): boolean {
 function polygonPoints(poly: Polygon): LonLat[] {
   const ring = poly.coordinates[0];
   const corners = ring.slice(0, -1);
-  let minLon = Infinity;
-  let maxLon = -Infinity;
-  let minLat = Infinity;
-  let maxLat = -Infinity;
-  for (const [lon, lat] of corners) {
-    minLon = Math.min(minLon, lon);
-    maxLon = Math.max(maxLon, lon);
-    minLat = Math.min(minLat, lat);
-    maxLat = Math.max(maxLat, lat);
-  }
+  const {
+    min: [minLon, minLat],
+    max: [maxLon, maxLat],
+  } = boxOf(corners);
   const pts: LonLat[] = [...corners];
   for (let i = 0; i < 5; i++) {
     for (let j = 0; j < 5; j++) {

@@ -21,21 +21,15 @@ import { trimToResonance } from '../numeric/roots.ts';
 import { Z0_OHM, type EvalGround, type EvalFrequency, type Evaluator } from './evaluator.ts';
 import { PATTERN_GRID } from './pattern.ts';
 import { feedRatios, type ArrayFeed } from '../antennas/arrayFeed.ts';
+import type { PowerSplitIn } from './lossSplit.ts';
 
 export const TRIM_TOL_X_OHM = 0.5;
 export const TRIM_TOL_M = 0.001;
 export const TRIM_MAX_EVALUATIONS = 8;
 export const SWEEP_FRACTION = 0.02;
 
-export interface PowerSplit {
-  inputW: number;
-  radiatedW: number;
-  conductorLossW: number;
-  groundLossW: number;
-  /** Loss in the radial field(s) near the base; absent when no wire with radials touches the soil. */
-  groundSystemLossW?: number;
-  /** Loss where wires without radials (a grounded tower, a bare stake) meet the soil. */
-  bareContactLossW?: number;
+/** Where the input power goes (the fields of lossSplit.ts's PowerSplitIn) and the efficiency. */
+export interface PowerSplit extends PowerSplitIn {
   /** radiated / input. */
   efficiency: number;
 }

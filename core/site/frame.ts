@@ -48,17 +48,24 @@ export function makeSiteFrame(origin: LonLat): SiteFrame {
   };
 }
 
+/** The bounding box of points given as [x, y] (or [lon, lat]): the smallest and largest of each. */
+export function boxOf(points: readonly (readonly [number, number])[]): {
+  min: [number, number];
+  max: [number, number];
+} {
+  const min: [number, number] = [Infinity, Infinity];
+  const max: [number, number] = [-Infinity, -Infinity];
+  for (const [x, y] of points) {
+    min[0] = Math.min(min[0], x);
+    max[0] = Math.max(max[0], x);
+    min[1] = Math.min(min[1], y);
+    max[1] = Math.max(max[1], y);
+  }
+  return { min, max };
+}
+
 /** Centre of a ring's bounding box, used as a site reference point when none is given. */
 export function ringReferencePoint(ring: readonly LonLat[]): LonLat {
-  let minLon = Infinity;
-  let maxLon = -Infinity;
-  let minLat = Infinity;
-  let maxLat = -Infinity;
-  for (const [lon, lat] of ring) {
-    minLon = Math.min(minLon, lon);
-    maxLon = Math.max(maxLon, lon);
-    minLat = Math.min(minLat, lat);
-    maxLat = Math.max(maxLat, lat);
-  }
-  return [(minLon + maxLon) / 2, (minLat + maxLat) / 2];
+  const { min, max } = boxOf(ring);
+  return [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2];
 }

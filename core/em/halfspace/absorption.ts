@@ -224,16 +224,8 @@ export function groundAbsorption(
     ibr: new Float64Array(n),
     ibi: new Float64Array(n),
   };
-  let cx = 0;
-  let cy = 0;
-  for (let i = 0; i < n; i++) {
-    cx += mesh.sx[i];
-    cy += mesh.sy[i];
-  }
-  cx /= n;
-  cy /= n;
-  let zMin = Infinity;
-  let D = 0;
+  const { cx, cy, zMin, D } = meshExtent(mesh);
+  if (!(zMin > contactM)) return null;
   for (let i = 0; i < n; i++) {
     const w = mesh.segWire[i];
     const a = mesh.wireNodeStart[w] + (i - mesh.wireSegStart[w]);
@@ -248,14 +240,7 @@ export function groundAbsorption(
     s.iai[i] = nodeCurrents[2 * a + 1];
     s.ibr[i] = nodeCurrents[2 * a + 2];
     s.ibi[i] = nodeCurrents[2 * a + 3];
-    zMin = Math.min(zMin, mesh.sz[i], mesh.sz[i] + mesh.len[i] * mesh.tz[i]);
-    for (const f of [0, 1]) {
-      const r = Math.hypot(s.x[i] + f * s.len[i] * s.tx[i], s.y[i] + f * s.len[i] * s.ty[i]);
-      D = Math.max(D, 2 * r);
-    }
   }
-  if (!(zMin > contactM)) return null;
-  D = Math.max(D, 1e-3);
   const k0 = hs.k0;
   let points = 0;
   /** ∫ dφ of the bracket at k_ρ, trapezoidal; kz given as γ = −j k_z = (gr, gi), T's from R. */
@@ -323,6 +308,29 @@ export function groundAbsorption(
  */
 export function groundAbsorptionWork(mesh: Mesh, k0: number, contactM = 2e-3): number | null {
   const n = mesh.nSeg;
+  const { zMin, D } = meshExtent(mesh);
+  if (!(zMin > contactM)) return null;
+  const nq = GL.x.length;
+  const ringsUpTo = (kr: number) => 2 * Math.ceil(0.5 * (1.1 * kr * D + 24));
+  let points = 0;
+  const nProp = pairs(panelEdges(0, 0.5 * Math.PI, Math.min(0.1, 2 / (k0 * D)), [0.5 * Math.PI])).length;
+  points += nProp * nq * ringsUpTo(k0);
+  const nNear = pairs(panelEdges(0, Math.acosh(1.5), Math.min(0.05, 2 / (k0 * D)), [0])).length;
+  points += nNear * nq * ringsUpTo(1.5 * k0);
+  const kMax = Math.max(3 * k0, 20 / zMin);
+  const w = Math.min(2 / D, 1 / zMin, k0);
+  const nFar = Math.ceil((kMax - 1.5 * k0) / w) + 30;
+  // rings grow linearly in k_ρ: mean ring at the middle of [1.5 k0, kMax]
+  points += nFar * nq * ringsUpTo(0.5 * (1.5 * k0 + kMax));
+  return points * n;
+}
+
+/**
+ * Where the segments lie: their start points' mean (cx, cy), the lowest point of any segment and
+ * D, twice the largest plan distance of a segment end from (cx, cy) (at least 1 mm).
+ */
+function meshExtent(mesh: Mesh): { cx: number; cy: number; zMin: number; D: number } {
+  const n = mesh.nSeg;
   let cx = 0;
   let cy = 0;
   for (let i = 0; i < n; i++) {
@@ -345,21 +353,7 @@ export function groundAbsorptionWork(mesh: Mesh, k0: number, contactM = 2e-3): n
           ),
       );
   }
-  if (!(zMin > contactM)) return null;
-  D = Math.max(D, 1e-3);
-  const nq = GL.x.length;
-  const ringsUpTo = (kr: number) => 2 * Math.ceil(0.5 * (1.1 * kr * D + 24));
-  let points = 0;
-  const nProp = pairs(panelEdges(0, 0.5 * Math.PI, Math.min(0.1, 2 / (k0 * D)), [0.5 * Math.PI])).length;
-  points += nProp * nq * ringsUpTo(k0);
-  const nNear = pairs(panelEdges(0, Math.acosh(1.5), Math.min(0.05, 2 / (k0 * D)), [0])).length;
-  points += nNear * nq * ringsUpTo(1.5 * k0);
-  const kMax = Math.max(3 * k0, 20 / zMin);
-  const w = Math.min(2 / D, 1 / zMin, k0);
-  const nFar = Math.ceil((kMax - 1.5 * k0) / w) + 30;
-  // rings grow linearly in k_ρ: mean ring at the middle of [1.5 k0, kMax]
-  points += nFar * nq * ringsUpTo(0.5 * (1.5 * k0 + kMax));
-  return points * n;
+  return { cx, cy, zMin, D: Math.max(D, 1e-3) };
 }
 
 function pairs(e: number[]): [number, number][] {
