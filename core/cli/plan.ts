@@ -4,7 +4,7 @@
  * Options: --json (machine-readable, schema in core/rank/README.md), --band 160m|80m|40m (repeatable;
  * default the project's bands), --top N (placements per band, default 10), --workers N (default and
  * most: the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON),
- * --arrays (also plan the array types; slower).
+ * --arrays (also plan the array types; slower; without it, the project's settings.planArrays decides).
  * A progress line goes to stderr while designs are evaluated.
  */
 import { availableParallelism } from 'node:os';
@@ -12,7 +12,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { freshBundle, ROOT } from './bundle.mjs';
 import { Worker } from 'node:worker_threads';
-import { buildDemoProject } from '../demo/demoProject.ts';
+import { startProjectCommand, walkProjectArgs, type ProjectSource } from './projectFile.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
 import {
   conductorJobs,
@@ -36,7 +36,7 @@ import { bandPlan } from '../antennas/common.ts';
 import type { TablesMessage, WarmMessage } from './plan-worker.ts';
 import { candidateMatching } from '../match/candidateMatch.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
-import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
+import { BANDS, type Band, type Project } from '../project/schema.ts';
 
 export interface PlanIo {
   stdout: (s: string) => void;
@@ -47,9 +47,7 @@ export interface PlanIo {
 const USAGE =
   'usage: plan (FILE.json | --demo) [--json] [--band 160m|80m|40m]... [--top N] [--workers N] [--patterns] [--arrays]\n';
 
-interface Args {
-  file: string | null;
-  demo: boolean;
+interface Args extends ProjectSource {
   json: boolean;
   patterns: boolean;
   arrays: boolean;
@@ -59,9 +57,7 @@ interface Args {
 }
 
 function parseArgs(argv: string[]): Args | string {
-  const a: Args = {
-    file: null,
-    demo: false,
+  const a: Omit<Args, keyof ProjectSource> = {
     json: false,
     patterns: false,
     arrays: false,
@@ -69,11 +65,8 @@ function parseArgs(argv: string[]): Args | string {
     top: 10,
     workers: availableParallelism(),
   };
-  for (let i = 0; i < argv.length; i++) {
-    const v = argv[i];
-    const next = (): string | undefined => argv[++i];
-    if (v === '--demo') a.demo = true;
-    else if (v === '--json') a.json = true;
+  const source = walkProjectArgs(argv, (v, next) => {
+    if (v === '--json') a.json = true;
     else if (v === '--patterns') a.patterns = true;
     else if (v === '--arrays') a.arrays = true;
     else if (v === '--band') {
@@ -85,32 +78,10 @@ function parseArgs(argv: string[]): Args | string {
       if (!Number.isInteger(n) || n < (v === '--top' ? 1 : 0)) return `${v} needs a whole number`;
       if (v === '--top') a.top = n;
       else a.workers = Math.min(n, availableParallelism());
-    } else if (v.startsWith('--')) return `unknown option ${v}`;
-    else if (a.file === null) a.file = v;
-    else return 'give one project file';
-  }
-  if (a.demo === (a.file !== null)) return 'give a project file or --demo';
-  return a;
-}
-
-async function loadProject(args: Args, io: PlanIo): Promise<Project | null> {
-  if (args.demo) return buildDemoProject();
-  const file = args.file as string;
-  let doc: unknown;
-  try {
-    doc = JSON.parse(await io.readFile(file));
-  } catch (e) {
-    io.stderr(
-      `${file}: ${e instanceof SyntaxError ? 'not valid JSON' : 'cannot read the file'} (${e instanceof Error ? e.message : String(e)})\n`,
-    );
-    return null;
-  }
-  const parsed = parseProject(doc);
-  if (!parsed.ok) {
-    for (const e of parsed.errors) io.stderr(`${file}: ${e.path}: ${e.message}\n`);
-    return null;
-  }
-  return parsed.value;
+    } else return false;
+    return true;
+  });
+  return typeof source === 'string' ? source : { ...a, ...source };
 }
 
 /** Where the worker bundle is kept between runs (git-ignored). */
@@ -413,13 +384,9 @@ export async function evaluateOnPool(
 }
 
 export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
-  const args = parseArgs(argv);
-  if (typeof args === 'string') {
-    io.stderr(`${args}\n${USAGE}`);
-    return 2;
-  }
-  const project = await loadProject(args, io);
-  if (!project) return 1;
+  const start = await startProjectCommand(argv, parseArgs, USAGE, io);
+  if (typeof start === 'number') return start;
+  const { args, project } = start;
   const t0 = performance.now();
   const bands = args.bands.length ? args.bands : project.bands;
   // Workers start (load the solver, build the ground's tables) while this thread enumerates.
@@ -431,7 +398,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
     io.stderr(
       `plan: placing ${project.supports.length} supports' antennas for ${bands.join(', ')} (enumerating)\n`,
     );
-    setup = enumeratePlan(project, { bands, arrays: args.arrays });
+    setup = enumeratePlan(project, { bands, ...(args.arrays ? { arrays: true } : {}) });
     for (const c of setup.cuts) io.stderr(`plan: ${cutText(c)}\n`);
   } catch (e) {
     await pool?.close();

@@ -62,9 +62,11 @@ json.coldPlanDemoRunsS = cold;
     messages: medianOf(rows, 'messagesMs'),
   };
   json.livePreviewMedianS = medianOf(rows, 'previewMs') / 1000;
+  json.replanAfterRestMedianS = medianOf(rows, 'afterRestMs') / 1000;
   json.replanRuns = rows;
   log(
-    `RE-PLAN median (app path, one worker): ${medianOf(rows, 'totalMs').toFixed(0)} ms; live preview median ${medianOf(rows, 'previewMs').toFixed(0)} ms`,
+    `RE-PLAN median (app path, one worker): ${medianOf(rows, 'totalMs').toFixed(0)} ms; live preview median ${medianOf(rows, 'previewMs').toFixed(0)} ms; ` +
+      `after a rest in the drag ${medianOf(rows, 'afterRestMs').toFixed(0)} ms`,
   );
 }
 const pool = createWorkerPool(2);
