@@ -17,7 +17,7 @@ import { COAX_TYPES, isCoaxType, measureTuning, type StationOptions } from '../r
 import { stationReport } from '../report/stationReport.ts';
 import type { UnitSystem } from '../units/index.ts';
 import type { Mode } from '../report/exposure.ts';
-import { createWorkerPool } from './plan.ts';
+import { createWorkerPool, evaluateOnPool, warmPool } from './plan.ts';
 import { isOnTimeFraction, isPowerW, MAX_POWER_W } from '../project/station.ts';
 
 export interface ReportIo {
@@ -105,16 +105,17 @@ export async function runReport(argv: string[], io: ReportIo): Promise<number> {
     io.stderr('the project has no bands to plan\n');
     return 1;
   }
-  const setup = enumeratePlan(project, { bands: [band], ...(args.arrays ? { arrays: true } : {}) });
+  // The workers start and build the ground's tables while this thread enumerates (as plan does).
+  const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
+  if (pool) warmPool(pool, project, [band]);
   const cache = memoryCache();
-  io.stderr(`report: planning ${band} (${setup.jobs.length} designs)\n`);
-  if (args.workers > 0) {
-    const pool = createWorkerPool(Math.min(args.workers, Math.max(1, setup.jobs.length)));
-    try {
-      await pool.evaluate(setup.jobs, cache);
-    } finally {
-      await pool.close();
-    }
+  let setup: ReturnType<typeof enumeratePlan>;
+  try {
+    setup = enumeratePlan(project, { bands: [band], ...(args.arrays ? { arrays: true } : {}) });
+    io.stderr(`report: planning ${band} (${setup.jobs.length} designs)\n`);
+    if (pool) await evaluateOnPool(pool, setup, project, cache, 10);
+  } finally {
+    await pool?.close();
   }
   const shortlist = planFromSetup(setup, project, { evaluator: solverEvaluator, cache });
   const candidate = wanted ? shortlist.candidates.find((c) => c.id === wanted) : shortlist.candidates[0];
