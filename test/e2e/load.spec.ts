@@ -111,7 +111,8 @@ test('a 40-support lot plans with progress, cancels, stays responsive and surviv
   await runButton.click();
   await expect(progress).toBeVisible();
   const a = await waitSolved(page, 3);
-  expect(a.total).toBeGreaterThan(300);
+  // Three bands; the enumeration keeps at most 32 designs per type and band (core/rank/plan.ts PLAN_BOUNDS).
+  expect(a.total).toBeGreaterThan(60);
   const t0 = Date.now();
   await page.locator('.yw-support[title^="Support 12"]').click();
   await expect(page.getByTestId('support-name')).toHaveValue('Support 12', { timeout: 1_000 });

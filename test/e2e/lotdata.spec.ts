@@ -5,7 +5,16 @@
 import proj4 from 'proj4';
 import { epsgProjectedKeys, tiledGeoTiffBytes } from '../helpers/geotiffWriter.ts';
 import { clockwiseRect, parcelLayer, parcelRows, storedZip } from '../helpers/shapefileWriter.ts';
-import { addSupports, expect, metresPerPixel, openNewLot, shot, test, waitSaved } from './fixtures.ts';
+import {
+  addSupports,
+  expect,
+  metresPerPixel,
+  openNewLot,
+  shot,
+  startPlan,
+  test,
+  waitSaved,
+} from './fixtures.ts';
 
 // An invented spot in farmland inside UTM zone 15; nothing here names a real station or lot.
 const PLACE: [number, number] = [-94.2184, 45.3121];
@@ -110,13 +119,7 @@ test('imports a projected aerial and a shapefile parcel, traces supports on them
 
   // Plan 40 m on it.
   await page.getByRole('button', { name: 'Open the planning panel' }).click();
-  const bar = page.getByTestId('run-bar');
-  for (const b of ['160 m', '80 m']) {
-    const box = bar.getByRole('checkbox', { name: b });
-    if (await box.isChecked()) await box.uncheck();
-  }
-  await bar.getByRole('checkbox', { name: '40 m' }).check();
-  await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
+  await startPlan(page, '40 m');
   await expect(page.getByTestId('run-status')).toContainText(/\d+ candidates · /, { timeout: 100_000 });
   expect(await page.getByTestId('candidate-row').count()).toBeGreaterThan(0);
   await shot(page, 'lotdata-planned');
