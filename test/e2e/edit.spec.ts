@@ -1,5 +1,5 @@
 // Editing on the map: add a support and set its height, draw a lot boundary, undo and redo.
-import { clickMap, expect, openApp, phrase, shot, test, waitSaved } from './fixtures.ts';
+import { clickMap, expect, openApp, openSupport, phrase, shot, test, waitSaved } from './fixtures.ts';
 
 test('adds a support by clicking the map; its height survives a reload and a restart', async ({
   page,
@@ -36,10 +36,7 @@ test('adds a support by clicking the map; its height survives a reload and a res
 
 test('refuses an impossible height and says why', async ({ page, host }) => {
   await openApp(page, host);
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^West oak/ })
-    .click();
+  await openSupport(page, /^West oak/);
   await page.getByTestId('support-height').fill('-4');
   await page.getByTestId('support-height').press('Enter');
   await expect(
@@ -53,10 +50,7 @@ test('refuses an impossible height and says why', async ({ page, host }) => {
 
 test('deletes the selected support with the Delete key, and undo brings it back', async ({ page, host }) => {
   await openApp(page, host);
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^East ash/ })
-    .click();
+  await openSupport(page, /^East ash/);
   await page.getByTestId('support-name').blur();
   await page.keyboard.press('Delete');
   await expect(page.getByRole('heading', { name: 'Supports (7)' })).toBeVisible();
@@ -118,10 +112,7 @@ test('draws a power line and shows its clearance band and caution', async ({ pag
   ).toBeVisible();
   // A support now standing in the band is flagged.
   await page.getByRole('button', { name: 'Back to list' }).click();
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^North oak/ })
-    .click();
+  await openSupport(page, /^North oak/);
   await expect(
     page.getByRole('alert').filter({ hasText: /Inside the clearance of “Power line 1”/ }),
   ).toBeVisible();
@@ -178,34 +169,47 @@ test('moves a lot corner by dragging it', async ({ page, host }) => {
   await expect(summary).toContainText('1.69 ha');
 });
 
-test('draws a building keep-out', async ({ page, host }) => {
-  await openApp(page, host);
-  await page.keyboard.press('k');
-  await clickMap(page, 0.55, 0.62);
-  await clickMap(page, 0.62, 0.62);
-  await clickMap(page, 0.62, 0.68);
-  await clickMap(page, 0.55, 0.68);
-  await page.keyboard.press('Enter');
-  await expect(page.getByRole('heading', { name: 'Building' })).toBeVisible();
-  await expect(page.getByTestId('keepout-name')).toHaveValue('Building 1');
-  await expect(page.getByText(/^Area \d+ m²/)).toBeVisible();
-  await page.getByRole('button', { name: 'Back to list' }).click();
-  await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
-});
-
-test('draws a path where people walk, which blocks nothing by default', async ({ page, host }) => {
-  await openApp(page, host);
-  await page.keyboard.press('w');
-  await clickMap(page, 0.45, 0.5);
-  await clickMap(page, 0.52, 0.56);
-  await clickMap(page, 0.6, 0.58);
-  await page.keyboard.press('Enter');
-  await expect(page.getByRole('heading', { name: 'Path or play area' })).toBeVisible();
-  await expect(page.getByTestId('keepout-name')).toHaveValue('Path 1');
-  await expect(page.getByText(/^Length \d+/)).toBeVisible();
-  await page.getByRole('button', { name: 'Back to list' }).click();
-  await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
-});
+// Keep-outs drawn with their key: the corners or points clicked (fractions of the map), then the
+// inspector's heading, the default name and the measure it shows.
+for (const k of [
+  {
+    what: 'a building keep-out',
+    key: 'k',
+    at: [
+      [0.55, 0.62],
+      [0.62, 0.62],
+      [0.62, 0.68],
+      [0.55, 0.68],
+    ],
+    heading: 'Building',
+    name: 'Building 1',
+    measure: /^Area \d+ m²/,
+  },
+  {
+    what: 'a path where people walk, which blocks nothing by default',
+    key: 'w',
+    at: [
+      [0.45, 0.5],
+      [0.52, 0.56],
+      [0.6, 0.58],
+    ],
+    heading: 'Path or play area',
+    name: 'Path 1',
+    measure: /^Length \d+/,
+  },
+]) {
+  test(`draws ${k.what}`, async ({ page, host }) => {
+    await openApp(page, host);
+    await page.keyboard.press(k.key);
+    for (const [fx, fy] of k.at) await clickMap(page, fx!, fy!);
+    await page.keyboard.press('Enter');
+    await expect(page.getByRole('heading', { name: k.heading })).toBeVisible();
+    await expect(page.getByTestId('keepout-name')).toHaveValue(k.name);
+    await expect(page.getByText(k.measure)).toBeVisible();
+    await page.getByRole('button', { name: 'Back to list' }).click();
+    await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
+  });
+}
 
 test('Esc cancels a drawing half way and leaves the lot as it was', async ({ page, host }) => {
   await openApp(page, host);

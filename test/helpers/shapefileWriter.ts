@@ -90,6 +90,33 @@ export const clockwiseRect = (x: number, y: number, w: number, h: number): Ring 
   [x, y],
 ];
 
+/** The attributes county parcel exports carry: a parcel id and a site address. */
+export const PARCEL_FIELDS = [
+  { name: 'PIN', length: 14 },
+  { name: 'SITEADDR', length: 32 },
+];
+
+/** `n` rows of PARCEL_FIELDS, the i-th (from 0) with pinOf(i) and addressOf(i). */
+export const parcelRows = (
+  pinOf: (i: number) => string,
+  addressOf: (i: number) => string,
+  n = 3,
+): string[][] => Array.from({ length: n }, (_, i) => [pinOf(i), addressOf(i)]);
+
+/** A parcel layer's files `path`.shp, .dbf (PARCEL_FIELDS, these rows) and .prj (this text). */
+export function parcelLayer(
+  path: string,
+  rings: Ring[],
+  rows: string[][],
+  prj: string,
+): { name: string; data: Uint8Array }[] {
+  return [
+    { name: `${path}.shp`, data: polygonShp(rings) },
+    { name: `${path}.dbf`, data: textDbf(PARCEL_FIELDS, rows) },
+    { name: `${path}.prj`, data: new TextEncoder().encode(prj) },
+  ];
+}
+
 function crc32(data: Uint8Array): number {
   let c = 0xffffffff;
   for (const byte of data) {
