@@ -33,6 +33,8 @@ export interface ReplanTiming {
   messagesMs: number;
   newDesigns: number;
   previewMs: number;
+  /** Process CPU time of the live preview. */
+  previewCpuMs: number;
   previewBorrowed: number;
   /**
    * The same support dropped 1 m further on after the drag rested there: the solves the app makes
@@ -115,10 +117,12 @@ export function appReplan(moves = DEMO_MOVES, log: (s: string) => void = () => {
     return p;
   };
   const preview = (p: Project) => {
+    const c0 = process.cpuUsage();
     const pv = send(host, { type: 'preview', liveId: runId, project: p, bands: p.bands }, { messagesMs: 0 });
+    const c1 = process.cpuUsage(c0);
     const pr = pv.out[0];
     if (pr?.type !== 'previewed') throw new Error(`preview failed: ${JSON.stringify(pr)}`);
-    return { ms: pv.ms, borrowed: pr.borrowed, missing: pr.missing };
+    return { ms: pv.ms, cpuMs: (c1.user + c1.system) / 1000, borrowed: pr.borrowed, missing: pr.missing };
   };
   for (const [id, e, n] of moves) {
     // Live mode first (as in the app: provisional positions during the drag, the exact plan at its end).
@@ -135,6 +139,7 @@ export function appReplan(moves = DEMO_MOVES, log: (s: string) => void = () => {
       move: id,
       ...r,
       previewMs: pv.ms,
+      previewCpuMs: pv.cpuMs,
       previewBorrowed: pv.borrowed,
       restMs,
       afterRestMs: after.totalMs,
@@ -143,7 +148,7 @@ export function appReplan(moves = DEMO_MOVES, log: (s: string) => void = () => {
     log(
       `re-plan after moving ${id}: ${r.totalMs.toFixed(0)} ms (CPU ${r.cpuMs.toFixed(0)}) = enumerate ${r.enumerateMs.toFixed(0)} + ` +
         `${r.newDesigns} new designs ${r.evaluateMs.toFixed(0)} + rank ${r.rankMs.toFixed(0)} + ` +
-        `messages ${r.messagesMs.toFixed(0)}; live preview ${pv.ms.toFixed(0)} ms (${pv.borrowed} borrowed); ` +
+        `messages ${r.messagesMs.toFixed(0)}; live preview ${pv.ms.toFixed(0)} ms (CPU ${pv.cpuMs.toFixed(0)}, ${pv.borrowed} borrowed); ` +
         `dropped after a rest: ${after.totalMs.toFixed(0)} ms (rest solves ${restMs.toFixed(0)} ms)`,
     );
   }
@@ -160,6 +165,6 @@ if (process.argv[1] === fileURLToPath(import.meta.url)) {
   const rows = appReplan(DEMO_MOVES, (s) => process.stdout.write(s + '\n'));
   process.stdout.write(
     `medians: re-plan ${medianOf(rows, 'totalMs').toFixed(0)} ms (CPU ${medianOf(rows, 'cpuMs').toFixed(0)}), ` +
-      `live preview ${medianOf(rows, 'previewMs').toFixed(0)} ms, re-plan after a rest ${medianOf(rows, 'afterRestMs').toFixed(0)} ms\n`,
+      `live preview ${medianOf(rows, 'previewMs').toFixed(0)} ms (CPU ${medianOf(rows, 'previewCpuMs').toFixed(0)}), re-plan after a rest ${medianOf(rows, 'afterRestMs').toFixed(0)} ms\n`,
   );
 }

@@ -62,6 +62,7 @@ json.coldPlanDemoRunsS = cold;
     messages: medianOf(rows, 'messagesMs'),
   };
   json.livePreviewMedianS = medianOf(rows, 'previewMs') / 1000;
+  json.livePreviewCpuMedianS = medianOf(rows, 'previewCpuMs') / 1000;
   json.replanAfterRestMedianS = medianOf(rows, 'afterRestMs') / 1000;
   json.replanRuns = rows;
   log(

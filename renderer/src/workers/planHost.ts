@@ -95,7 +95,9 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
         const t0 = now();
         try {
           const setup =
-            last?.runId === msg.runId ? last.setup : enumeratePlan(msg.project, { bands: msg.bands, feasibility });
+            last?.runId === msg.runId
+              ? last.setup
+              : enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           // planSite is planFromSetup(enumeratePlan(...)); the setup of this run's enumeration is reused.
           const shortlist = planFromSetup(setup, msg.project, { evaluator, cache, bands: msg.bands });
           shortlist.stats.evaluations = msg.evaluations;
