@@ -85,7 +85,7 @@ function arrayHtml(s: BuildSheet): string {
           a.feed.map((f) => [f.label, f.zText, f.current]),
         ) +
         `<p class="note">${e(
-          `Solved with the wires and every line with its loss; currents relative to the element at 1.00.${
+          `Solved with the wires and every line with its loss; currents relative to the element at 1.00; a parasitic or idle element's figure is the voltage over the current at its gap, set by what the relay leaves there (a stub, or an open line).${
             a.networkLossPercent !== null
               ? ` The lines and stubs take ${a.networkLossPercent.toFixed(1)} % of the power.`
               : ''

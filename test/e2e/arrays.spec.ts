@@ -42,6 +42,10 @@ test('plans the half-square arrays on a lot with four supports near a rectangle'
   // What the feed network achieves: both elements' drive impedances and currents.
   await expect(detail.getByTestId('array-feed').getByRole('row')).toHaveCount(3);
   await expect(detail.getByTestId('array-note')).toContainText('South America');
+  await detail.getByTestId('state-legend').scrollIntoViewIfNeeded();
+  await shot(page, 'arrays-switched-pair-patterns');
+  await detail.getByTestId('array-note').scrollIntoViewIfNeeded();
+  await shot(page, 'arrays-switched-pair-detail');
   await expect(page.locator('path.yw-cand-coax')).toHaveCount(2);
   await expect(page.locator('path.yw-cand-box')).toHaveCount(1); // both lines meet at the one box
   await expect(page.locator('path.yw-cand-feed')).toHaveCount(2);
