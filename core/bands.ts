@@ -76,3 +76,25 @@ export function operatingSpan(
   }
   return info.segments[choice.part];
 }
+
+/** How a candidate's 2:1 band lies over the span the user operates in. */
+export type OperatingFit = 'inside' | 'partly' | 'outside';
+
+/**
+ * Whether the user's span lies inside the candidate's 2:1 band (an edge beyond the sweep, null,
+ * counts as reaching past the span), partly, or not at all (no 2:1 band without a match).
+ */
+export function operatingFit(
+  c: {
+    feed: { swr: number };
+    bandwidth2to1: { lowMHz: number | null; highMHz: number | null; widthKHz: number };
+  },
+  span: { lowMHz: number; highMHz: number },
+): OperatingFit {
+  const bw = c.bandwidth2to1;
+  if (c.feed.swr > 2 || !(bw.widthKHz > 0)) return 'outside';
+  const lo = bw.lowMHz ?? -Infinity;
+  const hi = bw.highMHz ?? Infinity;
+  if (lo <= span.lowMHz && hi >= span.highMHz) return 'inside';
+  return lo < span.highMHz && hi > span.lowMHz ? 'partly' : 'outside';
+}

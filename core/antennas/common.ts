@@ -1,13 +1,28 @@
 /**
  * Shared pieces of the antenna builders: band design frequencies, wire size, segmenting, the cut
- * allowance and rope limits.
+ * allowance and rope limits; collecting proposals and rejections, the frame across two supports,
+ * and the radials of base-fed radiators (model, elements, cut list).
  */
 import type { Band } from '../project/schema.ts';
 import { mhzToHz, wavelengthM } from '../units/index.ts';
 import { BAND_INFO, operatingSpan, type OperatingChoice } from '../bands.ts';
 import type { Element } from '../site/feasibility.ts';
-import { placeXY, placeXYZ, type XYZ } from '../site/geometry.ts';
-import type { BandPlan, CutItem, CutKind, Design, ModelWire, Placement } from './types.ts';
+import type { SiteSupport } from '../site/site.ts';
+import { bearingOf, placeXY, placeXYZ, type XYZ } from '../site/geometry.ts';
+import type {
+  AntennaTypeId,
+  BandPlan,
+  CutItem,
+  CutKind,
+  Design,
+  DesignParams,
+  ModelRadials,
+  ModelWire,
+  Placement,
+  Proposal,
+  Rejection,
+  WireModel,
+} from './types.ts';
 
 /**
  * Default design frequencies, Hz (core/bands.ts): 160 m 1.83 MHz, 80 m 3.55 MHz, 40 m 7.05 MHz,
@@ -94,6 +109,7 @@ export function placeElements(elements: readonly Element[], p: Placement): Eleme
     switch (e.kind) {
       case 'wire':
       case 'rope':
+      case 'coax':
       case 'radial':
         return {
           ...e,
@@ -146,4 +162,86 @@ export function clippedRadials(
     if (len >= MIN_RADIAL_M) out.push(round(len, 2));
   }
   return out;
+}
+
+/** One builder's proposals and rejections on one band, and the designs it proposes. */
+export interface ProposalList {
+  proposals: Proposal[];
+  rejections: Rejection[];
+  /** Record that a placement (or the type) was not proposed, with the reasons in plain words. */
+  reject(supports: string[], where: string, ...reasons: string[]): void;
+  /** A design of this type on this band. */
+  design(params: DesignParams, trim: Design['trim'], states?: Design['states']): Design;
+  /** What `Builder.propose` returns. */
+  result(): { proposals: Proposal[]; rejections: Rejection[] };
+}
+
+export function proposalList(type: AntennaTypeId, band: BandPlan): ProposalList {
+  const proposals: Proposal[] = [];
+  const rejections: Rejection[] = [];
+  return {
+    proposals,
+    rejections,
+    reject(supports, where, ...reasons) {
+      rejections.push({ type, band: band.band, supports, where, reasons });
+    },
+    design(params, trim, states) {
+      const d: Design = { type, band: band.band, designFreqHz: band.designFreqHz, params, trim };
+      if (states) d.states = states;
+      return d;
+    },
+    result: () => ({ proposals, rejections }),
+  };
+}
+
+/** Every unordered pair of supports, in list order. */
+export function supportPairs(supports: readonly SiteSupport[]): [SiteSupport, SiteSupport][] {
+  return supports.flatMap((a, i) => supports.slice(i + 1).map((b): [SiteSupport, SiteSupport] => [a, b]));
+}
+
+/**
+ * The canonical frame of a wire across supports a and b (a at −x, b at +x, origin midway) and its
+ * broadside bearings in plan, both ways.
+ */
+export function acrossSupports(
+  a: SiteSupport,
+  b: SiteSupport,
+): { placement: Placement; broadsideDeg: number[] } {
+  const bearing = bearingOf(a.xy, b.xy);
+  return {
+    placement: {
+      originXY: [(a.xy[0] + b.xy[0]) / 2, (a.xy[1] + b.xy[1]) / 2],
+      rotationDeg: bearing - 90,
+    },
+    broadsideDeg: [(bearing + 90) % 360, (bearing + 270) % 360],
+  };
+}
+
+/** The two supports of a design across supports, at (∓spanM/2, 0), as elements. */
+export function supportPairElements(spanM: number, heightAM: number, heightBM: number): Element[] {
+  return [
+    { kind: 'support', label: 'support A', supportId: 'A', at: [-spanM / 2, 0], heightM: heightAM },
+    { kind: 'support', label: 'support B', supportId: 'B', at: [spanM / 2, 0], heightM: heightBM },
+  ];
+}
+
+/** The solver's radial set at the base of wire `wireIndex` (none when every radial was clipped away). */
+export function radialsOn(wireIndex: number, lengthsM: number[]): ModelRadials[] {
+  return lengthsM.length
+    ? [{ wire: wireIndex, count: lengthsM.length, lengthsM, radiusM: RADIAL_RADIUS_M }]
+    : [];
+}
+
+/** A ground-mounted radiator: fed at the base of its first wire, against radials of these lengths there. */
+export function baseFedModel(wires: ModelWire[], radialLengthsM: number[]): WireModel {
+  return { wires, feeds: [{ wire: 0, position: 0 }], radials: radialsOn(0, radialLengthsM) };
+}
+
+/** Cut-list rows of buried radials: one row per length, longest first. */
+export function radialCuts(lengthsM: readonly number[]): CutItem[] {
+  const byLen = new Map<number, number>();
+  for (const l of lengthsM) byLen.set(l, (byLen.get(l) ?? 0) + 1);
+  return [...byLen.entries()]
+    .sort((p, q) => q[0] - p[0])
+    .map(([l, n]) => cut('buried radial', n, l, 1, 'radial'));
 }

@@ -22,20 +22,23 @@
  * not trimmed through the box (see `propose`); trimming each alone over the project's soil is
  * left to do.
  */
-import { clipRadial, requiredClearance, boundaryDistance, keepOutDistance } from '../site/feasibility.ts';
 import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
-import { RADIAL_RADIUS_M, arr, cut, lambdaOf, num, radialElements, round, wire } from './common.ts';
-import { SPOT_GRID_M, VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
+import { arr, cut, num, proposalList, radialCuts, round } from './common.ts';
+import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
+import { COAX_LOSS_DB_PER_100M, COAX_LOSS_REFERENCE_MHZ, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
 import {
-  COAX_LOSS_DB_PER_100M,
-  COAX_LOSS_REFERENCE_MHZ,
-  COAX_VELOCITY_FACTOR,
-  radialsCutAtMidlines,
-} from './verticalPair.ts';
-import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
+  freeSpots,
+  groupRadials,
+  pickSpots,
+  radialKey,
+  radialRoom,
+  verticalParts,
+  verticalsModel,
+} from './verticals.ts';
+import type { Builder, Design, WireModel } from './types.ts';
 
 /** Characteristic impedance of the current-forcing lines (75 Ω coax; common practice, no source). */
 export const FORCING_LINE_Z0_OHM = 75;
@@ -88,17 +91,8 @@ export function fourSquareNetwork(d: Design): NetworkSpec {
 }
 
 function fourSquareModel(d: Design, H: number): WireModel {
-  const lambda = lambdaOf(d);
-  const corners = fourSquareCorners(num(d, 'sideM'));
-  const wires = corners.map((c, i) => wire([c[0], c[1], 0], [c[0], c[1], H], lambda, `vertical ${NAMES[i]}`));
-  const radials = corners.flatMap((_, i) => {
-    const l = arr(d, `radialLengths${NAMES[i]}M`);
-    return l.length ? [{ wire: i, count: l.length, lengthsM: l, radiusM: RADIAL_RADIUS_M }] : [];
-  });
   return {
-    wires,
-    feeds: corners.map((_, i) => ({ wire: i, position: 0 })),
-    radials,
+    ...verticalsModel(d, H, fourSquareCorners(num(d, 'sideM')), NAMES),
     network: fourSquareNetwork(d),
     radialsBonded: true,
     referenceFeed: 2,
@@ -111,8 +105,7 @@ export const fourSquareBuilder: Builder = {
   array: true,
   elementCount: 4,
   propose({ site, band }) {
-    const proposals: Proposal[] = [];
-    const rejections: Rejection[] = [];
+    const out = proposalList('four-square', band);
     const st = site.site.settings;
     const lambda = band.wavelengthM;
     const nominal = VERTICAL_NOMINAL_FRACTION * lambda;
@@ -129,80 +122,40 @@ export const fourSquareBuilder: Builder = {
     };
     const where = 'self-supporting four-square at a free spot';
     if (nominal > st.maxVerticalHeightM) {
-      rejections.push({
-        type: 'four-square',
-        band: band.band,
-        supports: [],
+      out.reject(
+        [],
         where,
-        reasons: [
-          `four quarter-wave verticals (about ${nominal.toFixed(1)} m) are taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit`,
-        ],
-      });
-      return { proposals, rejections };
+        `four quarter-wave verticals (about ${nominal.toFixed(1)} m) are taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit`,
+      );
+      return out.result();
     }
     const corners = fourSquareCorners(side);
-    const toSite = (xy: XY, rot: number, c: XY): XY => {
-      const r = (rot * Math.PI) / 180;
-      return [
-        xy[0] + c[0] * Math.cos(r) + c[1] * Math.sin(r),
-        xy[1] - c[0] * Math.sin(r) + c[1] * Math.cos(r),
-      ];
-    };
-    const free = (p: XY): boolean =>
-      boundaryDistance(site, p) >= st.setbackM &&
-      !site.site.keepOuts.some((k, i) => keepOutDistance(site, i, p) < requiredClearance(k, trim.maxM));
-    const b = site.site.boundary;
-    const xs = b.map((p) => p[0]);
-    const ys = b.map((p) => p[1]);
-    const spots: { xy: XY; rot: number; total: number }[] = [];
-    for (let x = Math.min(...xs); x <= Math.max(...xs); x += SPOT_GRID_M)
-      for (let y = Math.min(...ys); y <= Math.max(...ys); y += SPOT_GRID_M)
-        for (const rot of FOUR_SQUARE_AXES_DEG) {
-          const xy: XY = [x, y];
-          const at = corners.map((c) => toSite(xy, rot, c));
-          if (!at.every(free)) continue;
-          let total = 0;
-          for (const p of at)
-            for (let k = 0; k < 8; k++) total += clipRadial(site, p, rot + k * 45, 0.25 * lambda);
-          spots.push({ xy, rot, total });
-        }
-    spots.sort((p, q) => q.total - p.total);
-    const chosen = spots.slice(0, FOUR_SQUARE_SPOT_COUNT);
+    const radialM = 0.25 * lambda;
+    const spots = freeSpots(site, corners, FOUR_SQUARE_AXES_DEG, trim.maxM, (at, rot) =>
+      radialRoom(site, at, rot, radialM),
+    );
+    const chosen = pickSpots(spots, FOUR_SQUARE_SPOT_COUNT, 0);
     if (chosen.length === 0)
-      rejections.push({
-        type: 'four-square',
-        band: band.band,
-        supports: [],
+      out.reject(
+        [],
         where,
-        reasons: [
-          `no free spot on the lot holds a ${side.toFixed(1)} m square of masts clear of the setback and every keep-out`,
-        ],
-      });
-    chosen.forEach(({ xy, rot }, k) => {
+        `no free spot on the lot holds a ${side.toFixed(1)} m square of masts clear of the setback and every keep-out`,
+      );
+    chosen.forEach((spot, k) => {
+      const { xy, rotationDeg: rot } = spot;
       const params: Design['params'] = {
         sideM: round(side, 2),
         lineLengthM: round(quarterWaveCoaxM(band.designFreqHz), 2),
       };
-      corners.forEach((c, i) => {
-        const others = corners.filter((_, j) => j !== i);
-        params[`radialLengths${NAMES[i]}M`] = radialsCutAtMidlines(
-          (bg, n) => clipRadial(site, toSite(xy, rot, c), bg, n),
-          rot,
-          c,
-          others,
-          st.radialCount,
-          0.25 * lambda,
-        );
+      groupRadials(site, spot, corners, st.radialCount, radialM).forEach((lengths, i) => {
+        params[radialKey(NAMES[i])] = lengths;
       });
-      proposals.push({
-        design: {
-          type: 'four-square',
-          band: band.band,
-          designFreqHz: band.designFreqHz,
+      out.proposals.push({
+        design: out.design(
           params,
           trim,
-          states: NAMES.map((n, i) => ({ name: `beam toward vertical ${n}`, rotationDeg: 90 * i })),
-        },
+          NAMES.map((n, i) => ({ name: `beam toward vertical ${n}`, rotationDeg: 90 * i })),
+        ),
         placement: { originXY: xy, rotationDeg: rot },
         supports: [],
         groupKey: `four-square:free:${k}`,
@@ -210,19 +163,14 @@ export const fourSquareBuilder: Builder = {
         broadsideDeg: [0, 90, 180, 270].map((r) => (rot + r) % 360),
       });
     });
-    return { proposals, rejections };
+    return out.result();
   },
   model: fourSquareModel,
   elements(d, H): Element[] {
-    const corners = fourSquareCorners(num(d, 'sideM'));
-    return corners.flatMap((c, i): Element[] => [
-      { kind: 'wire', label: `vertical ${NAMES[i]}`, from: [c[0], c[1], 0], to: [c[0], c[1], H] },
-      { kind: 'mast', label: `self-supporting vertical ${NAMES[i]}`, at: c, heightM: H },
-      ...radialElements(arr(d, `radialLengths${NAMES[i]}M`), [c[0], c[1], 0]).map((e) => ({
-        ...e,
-        label: `${NAMES[i]} ${e.label}`,
-      })),
-    ]);
+    return fourSquareCorners(num(d, 'sideM')).flatMap((c, i): Element[] => {
+      const v = verticalParts(d, H, c, NAMES[i]);
+      return [v.wire, v.mast, ...v.radials];
+    });
   },
   heights(_d, H) {
     return [
@@ -231,13 +179,10 @@ export const fourSquareBuilder: Builder = {
     ];
   },
   cutList(d, H) {
-    const items = [cut('vertical radiator (four)', 4, H)];
-    const byLen = new Map<number, number>();
-    for (const n of NAMES)
-      for (const l of arr(d, `radialLengths${n}M`)) byLen.set(l, (byLen.get(l) ?? 0) + 1);
-    [...byLen.entries()]
-      .sort((p, q) => q[0] - p[0])
-      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1, 'radial')));
+    const items = [
+      cut('vertical radiator (four)', 4, H),
+      ...radialCuts(NAMES.flatMap((n) => arr(d, radialKey(n)))),
+    ];
     items.push(
       cut(
         '75 Ω coax, control box to each vertical (electrical quarter wave, VF 0.66)',

@@ -7,11 +7,10 @@
  * --arrays (also plan the array types; slower).
  * A progress line goes to stderr while designs are evaluated.
  */
-import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { availableParallelism } from 'node:os';
-import { join, resolve as resolvePath } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { freshBundle, ROOT } from './bundle.mjs';
 import { Worker } from 'node:worker_threads';
 import { buildDemoProject } from '../demo/demoProject.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
@@ -21,12 +20,19 @@ import {
   enumeratePlan,
   memoryCache,
   planFromSetup,
+  PLAN_BOUNDS,
+  soilRangeOf,
   type EvaluationCache,
+  type PlanCut,
   type Job,
   type Shortlist,
   type Candidate,
 } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
+import { SWEEP_FRACTION } from '../rank/evaluate.ts';
+import type { EvalGround } from '../rank/evaluator.ts';
+import { bandPlan } from '../antennas/common.ts';
+import type { WarmMessage } from './plan-worker.ts';
 import { candidateMatching } from '../match/candidateMatch.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
 import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
@@ -107,83 +113,19 @@ async function loadProject(args: Args, io: PlanIo): Promise<Project | null> {
 }
 
 /** Where the worker bundle is kept between runs (git-ignored). */
-const BUNDLE_DIR = fileURLToPath(new URL('../../.cache/plan-worker/', import.meta.url));
-const WORKER_SOURCE = fileURLToPath(new URL('./plan-worker.ts', import.meta.url));
-
-interface BundleManifest {
-  /** Each input of the bundle with its size and modification time when it was built. */
-  inputs: Record<string, [number, number]>;
-}
-
-function stamp(path: string): [number, number] | null {
-  try {
-    const st = statSync(path);
-    return [st.size, st.mtimeMs];
-  } catch {
-    return null;
-  }
-}
-
-function bundleIsFresh(dir: string): boolean {
-  try {
-    const m = JSON.parse(readFileSync(join(dir, 'manifest.json'), 'utf8')) as BundleManifest;
-    if (!existsSync(join(dir, 'plan-worker.mjs'))) return false;
-    for (const [path, want] of Object.entries(m.inputs)) {
-      const got = stamp(path);
-      if (!got || got[0] !== want[0] || got[1] !== want[1]) return false;
-    }
-    return Object.keys(m.inputs).length > 0;
-  } catch {
-    return false;
-  }
-}
-
-interface EsbuildLike {
-  buildSync(o: Record<string, unknown>): { metafile?: { inputs: Record<string, unknown> } };
-}
+const BUNDLE_DIR = join(ROOT, '.cache', 'plan-worker');
+const WORKER_SOURCE = join(ROOT, 'core', 'cli', 'plan-worker.ts');
 
 let bundlePath: string | null | undefined;
 
 /**
- * The worker as one plain ES module, bundled with esbuild at first use and rebuilt when any of
- * its inputs changes (size or modification time), so that a worker starts without a TypeScript
- * loader. Null when esbuild is not available; the caller then falls back to the loader.
+ * The worker as one plain ES module (bundle.mjs: bundled with esbuild at first use and rebuilt
+ * when any of its inputs changes), so that a worker starts without a TypeScript loader. Null when
+ * esbuild is not available; the caller then falls back to the loader.
  */
 export function workerBundle(dir = BUNDLE_DIR): string | null {
   if (bundlePath !== undefined && dir === BUNDLE_DIR) return bundlePath;
-  let out: string | null = join(dir, 'plan-worker.mjs');
-  if (!bundleIsFresh(dir)) {
-    try {
-      const esbuild = createRequire(import.meta.url)('esbuild') as EsbuildLike;
-      mkdirSync(dir, { recursive: true });
-      // Build next to the final file, then rename: concurrent plans never read a partial bundle.
-      const tmp = join(dir, `plan-worker.${process.pid}.${Date.now()}.mjs`);
-      const res = esbuild.buildSync({
-        entryPoints: [WORKER_SOURCE],
-        bundle: true,
-        platform: 'node',
-        format: 'esm',
-        target: 'node20',
-        outfile: tmp,
-        metafile: true,
-        absWorkingDir: fileURLToPath(new URL('../../', import.meta.url)),
-        logLevel: 'silent',
-      });
-      const base = fileURLToPath(new URL('../../', import.meta.url));
-      const inputs: BundleManifest['inputs'] = {};
-      for (const rel of Object.keys(res.metafile?.inputs ?? {})) {
-        const abs = resolvePath(base, rel);
-        const st = stamp(abs);
-        if (st) inputs[abs] = st;
-      }
-      renameSync(tmp, out);
-      const mtmp = join(dir, `manifest.${process.pid}.json`);
-      writeFileSync(mtmp, JSON.stringify({ inputs } satisfies BundleManifest));
-      renameSync(mtmp, join(dir, 'manifest.json'));
-    } catch {
-      out = null;
-    }
-  }
+  const out = freshBundle('core/cli/plan-worker.ts', dir, 'plan-worker');
   if (dir === BUNDLE_DIR) bundlePath = out;
   return out;
 }
@@ -211,6 +153,8 @@ export interface WorkerPool {
     cache: EvaluationCache,
     onDone?: (done: number, total: number) => void,
   ): Promise<number>;
+  /** Each worker builds the ground's tables for these frequencies now, before any job (no answer). */
+  warm(ground: EvalGround, frequenciesHz: number[]): void;
   close(): Promise<void>;
 }
 
@@ -257,6 +201,10 @@ export function createWorkerPool(size: number): WorkerPool {
       );
       if (errors.length) throw new Error(`the solver failed on ${errors.length} design(s): ${errors[0]}`);
       return todo.length;
+    },
+    warm(ground, frequenciesHz) {
+      const msg: WarmMessage = { warm: { ground, frequenciesHz } };
+      for (const w of workers) w.postMessage(msg);
     },
     async close() {
       await Promise.all(workers.map((w) => w.terminate()));
@@ -319,11 +267,24 @@ function describe(c: Candidate): string {
   return lines.join('\n');
 }
 
+/** A bound of the enumeration that left placements out, in words. */
+export function cutText(c: PlanCut): string {
+  const from =
+    c.supportsUsed < c.supportsTotal
+      ? ` from the ${c.supportsUsed} most promising of ${c.supportsTotal} supports`
+      : '';
+  return (
+    `${c.band} ${c.type}: considered ${c.considered} of ${c.proposed} placements${from}, ` +
+    `${c.designs} designs evaluated (at most ${PLAN_BOUNDS.placements} placements and ${PLAN_BOUNDS.designs} designs per type; most promising first: the longest radial field, the highest wires, then facing the targets)`
+  );
+}
+
 function humanReport(project: Project, s: Shortlist, seconds: number): string {
   const out: string[] = [];
   out.push(
     `${project.name} — ${s.candidates.length} placements shortlisted, ${s.rejected.length} rejected (${seconds.toFixed(1)} s)`,
   );
+  for (const c of s.stats.cuts) out.push(`  ${cutText(c)}`);
   for (const p of s.paths) {
     out.push(
       `  target ${p.name} (weight ${p.weight}): bearing ${f1(p.bearingDeg.from)}–${f1(p.bearingDeg.to)}°, ` +
@@ -387,6 +348,16 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   const bands = args.bands.length ? args.bands : project.bands;
   // Workers start (load the solver) while this thread enumerates the proposals.
   const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
+  if (pool) {
+    // While this thread enumerates, the workers build the ground's tables every evaluation reuses:
+    // the design frequency and the bandwidth points of each band, and the soil range at f0.
+    const f0s = bands.map((b) => bandPlan(b, project.settings.operating?.[b]).designFreqHz);
+    pool.warm(
+      project.soil,
+      f0s.flatMap((f0) => [f0, f0 * (1 - SWEEP_FRACTION), f0 * (1 + SWEEP_FRACTION)]),
+    );
+    for (const soilId of soilRangeOf(project)) pool.warm({ classId: soilId }, f0s);
+  }
   let setup: ReturnType<typeof enumeratePlan>;
   try {
     // Say something from the start: enumeration of a lot with many supports takes seconds.
@@ -394,6 +365,7 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
       `plan: placing ${project.supports.length} supports' antennas for ${bands.join(', ')} (enumerating)\n`,
     );
     setup = enumeratePlan(project, { bands, arrays: args.arrays });
+    for (const c of setup.cuts) io.stderr(`plan: ${cutText(c)}\n`);
   } catch (e) {
     await pool?.close();
     throw e;

@@ -11,7 +11,7 @@
  * function every view calls is ./stationReport.ts.
  */
 import type { Project } from '../project/schema.ts';
-import { operatingSpan } from '../bands.ts';
+import { operatingFit, operatingSpan } from '../bands.ts';
 import type { Candidate, Shortlist } from '../rank/plan.ts';
 import { gainAt } from '../rank/pattern.ts';
 import { buildSite } from '../site/site.ts';
@@ -260,10 +260,5 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
 /** The user's operating span on the candidate's band, and whether the candidate's 2:1 band covers it. */
 function operatingOf(c: Candidate, project: Project): BuildSheet['operating'] {
   const span = operatingSpan(c.band, project.settings.operating?.[c.band]);
-  const bw = c.bandwidth2to1;
-  const covered =
-    bw.widthKHz > 0 &&
-    (bw.lowMHz === null || bw.lowMHz <= span.lowMHz) &&
-    (bw.highMHz === null || bw.highMHz >= span.highMHz);
-  return { ...span, covered };
+  return { ...span, covered: operatingFit(c, span) === 'inside' };
 }

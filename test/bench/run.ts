@@ -276,6 +276,7 @@ if (asJson) {
     luRatio400: ratio(400),
     coldPlanDemoS: plan?.coldPlanDemoS ?? null,
     replanMedianS: plan?.replanMedianS ?? null,
+    livePreviewMedianS: plan?.livePreviewMedianS ?? null,
     plan40SupportsS: plan?.plan40SupportsS ?? null,
     loadAverage: loadavg(),
     cores: availableParallelism(),

@@ -63,14 +63,14 @@ test('deletes the selected support with the Delete key, and undo brings it back'
 test('draws a new lot boundary; undo and redo walk over it', async ({ page, host }) => {
   await openApp(page, host);
   const summary = page.getByTestId('lot-summary');
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
   await page.keyboard.press('b');
   await clickMap(page, 0.3, 0.3);
   await clickMap(page, 0.7, 0.3);
   await clickMap(page, 0.7, 0.6);
   await clickMap(page, 0.3, 0.6);
   await page.keyboard.press('Enter');
-  await expect(summary).not.toContainText('1.68 ha');
+  await expect(summary).not.toContainText('1.69 ha');
   const drawn = (await summary.textContent())!;
   await expect(page.locator('.yw-side-label')).toHaveCount(4);
   await expect(page.getByRole('heading', { name: 'Lot boundary' })).toBeVisible();
@@ -78,7 +78,7 @@ test('draws a new lot boundary; undo and redo walk over it', async ({ page, host
   await shot(page, 'boundary-drawn');
 
   await page.keyboard.press('Control+z');
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
   await page.keyboard.press('Control+Shift+Z');
   await expect(summary).toHaveText(drawn);
   await page.keyboard.press('Control+z');
@@ -86,7 +86,7 @@ test('draws a new lot boundary; undo and redo walk over it', async ({ page, host
   await expect(summary).toHaveText(drawn);
   // The toolbar buttons do the same.
   await page.getByRole('button', { name: 'Undo' }).click();
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
   await page.getByRole('button', { name: 'Redo' }).click();
   await expect(summary).toHaveText(drawn);
   await waitSaved(page);
@@ -163,10 +163,10 @@ test('moves a lot corner by dragging it', async ({ page, host }) => {
   await page.mouse.down();
   await page.mouse.move(ne.x + 60, ne.y - 40, { steps: 8 });
   await page.mouse.up();
-  await expect(summary).not.toContainText('1.68 ha');
+  await expect(summary).not.toContainText('1.69 ha');
   await expect(page.getByTestId('status-action')).toHaveText('move lot corner');
   await page.keyboard.press('Control+z');
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
 });
 
 // Keep-outs drawn with their key: the corners or points clicked (fractions of the map), then the
@@ -220,6 +220,6 @@ test('Esc cancels a drawing half way and leaves the lot as it was', async ({ pag
   await page.keyboard.press('Escape');
   await expect(page.getByRole('status').filter({ hasText: 'Draw lot boundary' })).toHaveCount(0);
   await expect(page.getByRole('button', { name: 'Undo' })).toBeDisabled();
-  await expect(page.getByTestId('lot-summary')).toContainText('1.68 ha');
+  await expect(page.getByTestId('lot-summary')).toContainText('1.69 ha');
   await expect(page.locator('.yw-side-label')).toHaveCount(4);
 });

@@ -228,6 +228,28 @@ export async function clickMap(page: Page, fx: number, fy: number): Promise<void
   await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
 }
 
+/**
+ * The "You went to" mark of a Go sits in the middle of the part of the map that the empty-lot
+ * card (when shown) leaves in view, with nothing of the app's own over it.
+ */
+export async function expectGoMarkInView(page: Page): Promise<void> {
+  const mark = (await page.locator('path.yw-goto').boundingBox())!;
+  const map = (await page.getByTestId('map').boundingBox())!;
+  const card = page.getByTestId('empty-lot');
+  const cardBox = (await card.isVisible()) ? await card.boundingBox() : null;
+  const left = cardBox ? cardBox.x + cardBox.width : map.x;
+  const x = mark.x + mark.width / 2;
+  const y = mark.y + mark.height / 2;
+  expect(Math.abs(x - (left + map.x + map.width) / 2)).toBeLessThan(3);
+  expect(Math.abs(y - (map.y + map.height / 2))).toBeLessThan(3);
+  const onTop = await page.evaluate(
+    ([px, py]) =>
+      document.elementFromPoint(px!, py!)?.closest('.leaflet-container, [data-testid]')?.className,
+    [x, mark.y + 1],
+  );
+  expect(onTop, 'what lies over the mark').toContain('leaflet-container');
+}
+
 /** Save a screenshot as a test artefact under test-results/screenshots/. */
 export async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: join('test-results', 'screenshots', `${name}.png`) });
