@@ -5,7 +5,7 @@
 // the project's tile address. Also: the station locator's Go on the Targets tab moves the map.
 import type { Page, Request } from '@playwright/test';
 import { deflateSync, crc32 } from 'node:zlib';
-import { expect, expectGoMarkInView, openApp, shot, test, waitSaved } from './fixtures.ts';
+import { expect, expectGoMarkInView, openNewLot, shot, test, waitSaved } from './fixtures.ts';
 
 /** A 256 × 256 PNG tile (a plain grid), made here so that no tile comes from elsewhere. */
 function localTile(): Buffer {
@@ -56,22 +56,12 @@ async function serveTiles(page: Page, hosts: string[]): Promise<Request[]> {
   return seen;
 }
 
-async function newProject(page: Page, name: string): Promise<void> {
-  await page.getByRole('tab', { name: 'Project' }).click();
-  await page.getByRole('button', { name: 'New…' }).click();
-  await page.getByLabel('Name of the new project').fill(name);
-  await page.getByRole('button', { name: 'Create' }).click();
-  await expect(page.getByTestId('project-name')).toHaveValue(name);
-  await page.getByRole('tab', { name: 'Lot' }).click();
-}
-
 test('loads a public map service only after the user reads its terms and chooses it', async ({
   page,
   host,
 }) => {
   const tiles = await serveTiles(page, [OSM_HOST, USGS_HOST, 'server.arcgisonline.com']);
-  await openApp(page, host);
-  await newProject(page, 'Imagery lot');
+  await openNewLot(page, host, 'Imagery lot');
 
   // Going somewhere and zooming fetches nothing.
   const card = page.getByTestId('empty-lot');
@@ -143,8 +133,7 @@ test('loads a public map service only after the user reads its terms and chooses
 });
 
 test("the station locator's Go on the Targets tab moves the map to the station", async ({ page, host }) => {
-  await openApp(page, host);
-  await newProject(page, 'Locator lot');
+  await openNewLot(page, host, 'Locator lot');
   const dock = page.getByTestId('plan-dock');
   const open = page.getByRole('button', { name: 'Open the planning panel' });
   if (await open.isVisible()) await open.click();
