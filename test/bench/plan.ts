@@ -17,8 +17,7 @@ import { createWorkerPool } from '../../core/cli/plan.ts';
 import { enumeratePlan, memoryCache, planFromSetup } from '../../core/rank/plan.ts';
 import { appReplan, DEMO_MOVES, medianOf } from './appReplan.ts';
 import { solverEvaluator } from '../../core/rank/solver.ts';
-import { makeSiteFrame } from '../../core/site/frame.ts';
-import { ProjectSchema, PROJECT_SCHEMA_VERSION, type Project } from '../../core/project/schema.ts';
+import { lotWithSupports } from '../helpers/manySupportLot.ts';
 
 const quick = process.argv.includes('--quick');
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -69,38 +68,9 @@ json.coldPlanDemoRunsS = cold;
 const pool = createWorkerPool(2);
 
 // 3. Growth with the number of supports
-function lotWith(n: number): Project {
-  const frame = makeSiteFrame([-93.75, 44.9]);
-  const ll = (x: number, y: number): [number, number] => frame.toLonLat([x, y]);
-  let seed = 20240601;
-  const rnd = (): number => {
-    seed = (seed * 16807) % 2147483647;
-    return seed / 2147483647;
-  };
-  const boundary = [ll(-150, -100), ll(150, -100), ll(150, 100), ll(-150, 100), ll(-150, -100)];
-  return ProjectSchema.parse({
-    schemaVersion: PROJECT_SCHEMA_VERSION,
-    id: `bench-${n}`,
-    name: `Invented ${n}-support lot`,
-    boundary: { type: 'Polygon', coordinates: [boundary] },
-    supports: Array.from({ length: n }, (_, i) => ({
-      id: `s${i}`,
-      name: `Support ${i}`,
-      kind: 'tree',
-      position: ll(-140 + 280 * rnd(), -90 + 180 * rnd()),
-      usableHeightM: Math.round(10 + 14 * rnd()),
-    })),
-    station: ll(0, -90),
-    targets: [
-      { regionId: 'europe', weight: 3 },
-      { regionId: 'japan', weight: 1 },
-    ],
-    bands: ['80m'],
-  });
-}
 const growth: Record<number, number[]> = {};
 for (const n of quick ? [4, 8, 40] : [4, 8, 16, 40, 40, 40]) {
-  const p = lotWith(n);
+  const p = lotWithSupports(n);
   const t0 = performance.now();
   const setup = enumeratePlan(p);
   const tEnum = (performance.now() - t0) / 1000;
