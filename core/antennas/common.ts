@@ -1,7 +1,6 @@
 /**
  * Shared pieces of the antenna builders: band design frequencies, wire size, segmenting, the cut
- * allowance and rope limits; collecting proposals and rejections, the frame across two supports,
- * and the radials of base-fed radiators (model, elements, cut list).
+ * allowance and rope limits; collecting proposals and rejections, and the frame across two supports.
  */
 import type { Band } from '../project/schema.ts';
 import { mhzToHz, wavelengthM } from '../units/index.ts';
@@ -16,12 +15,10 @@ import type {
   CutKind,
   Design,
   DesignParams,
-  ModelRadials,
   ModelWire,
   Placement,
   Proposal,
   Rejection,
-  WireModel,
 } from './types.ts';
 
 /**
@@ -42,8 +39,6 @@ export function bandPlan(band: Band, choice?: OperatingChoice): BandPlan {
 
 /** Wire radius of the model: 2 mm diameter copper, a usual antenna wire (common practice, no source). */
 export const WIRE_RADIUS_M = 0.001;
-/** Radial wire radius: 1.6 mm diameter (common practice, no source). */
-export const RADIAL_RADIUS_M = 0.0008;
 /** Cut allowance per end for the loop through an insulator or the connection, metres (common practice, no source). */
 export const CUT_ALLOWANCE_PER_END_M = 0.2;
 /** Default of settings.maxRopeM: longest rope between a wire end and its support, metres (common practice, no source). */
@@ -126,43 +121,7 @@ export function placeElements(elements: readonly Element[], p: Placement): Eleme
   });
 }
 
-/** Radial elements of a ground system at `base` (canonical), lengths in canonical bearing order. */
-export function radialElements(lengthsM: readonly number[], base: XYZ = [0, 0, 0]): Element[] {
-  const n = lengthsM.length;
-  return lengthsM.map((len, k) => {
-    const b = (k * 2 * Math.PI) / n;
-    return {
-      kind: 'radial' as const,
-      label: `radial ${k + 1}`,
-      from: base,
-      to: [base[0] + len * Math.sin(b), base[1] + len * Math.cos(b), 0] as XYZ,
-    };
-  });
-}
-
 export const round = (v: number, digits = 2): number => Math.round(v * 10 ** digits) / 10 ** digits;
-
-/** Shortest radial worth laying, metres; shorter clipped radials are left out (common practice, no source). */
-export const MIN_RADIAL_M = 1;
-
-/**
- * Radial lengths for a ground system at site point `baseXY`, `count` radials of `nominalM` at equal
- * bearings from canonical north (site bearing = canonical + rotationDeg), each clipped by the lot and
- * keep-outs. Radials shorter than MIN_RADIAL_M are left out.
- */
-export function clippedRadials(
-  clip: (bearingDeg: number, nominalM: number) => number,
-  rotationDeg: number,
-  count: number,
-  nominalM: number,
-): number[] {
-  const out: number[] = [];
-  for (let k = 0; k < count; k++) {
-    const len = clip(rotationDeg + (k * 360) / count, nominalM);
-    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
-  }
-  return out;
-}
 
 /** One builder's proposals and rejections on one band, and the designs it proposes. */
 export interface ProposalList {
@@ -223,25 +182,4 @@ export function supportPairElements(spanM: number, heightAM: number, heightBM: n
     { kind: 'support', label: 'support A', supportId: 'A', at: [-spanM / 2, 0], heightM: heightAM },
     { kind: 'support', label: 'support B', supportId: 'B', at: [spanM / 2, 0], heightM: heightBM },
   ];
-}
-
-/** The solver's radial set at the base of wire `wireIndex` (none when every radial was clipped away). */
-export function radialsOn(wireIndex: number, lengthsM: number[]): ModelRadials[] {
-  return lengthsM.length
-    ? [{ wire: wireIndex, count: lengthsM.length, lengthsM, radiusM: RADIAL_RADIUS_M }]
-    : [];
-}
-
-/** A ground-mounted radiator: fed at the base of its first wire, against radials of these lengths there. */
-export function baseFedModel(wires: ModelWire[], radialLengthsM: number[]): WireModel {
-  return { wires, feeds: [{ wire: 0, position: 0 }], radials: radialsOn(0, radialLengthsM) };
-}
-
-/** Cut-list rows of buried radials: one row per length, longest first. */
-export function radialCuts(lengthsM: readonly number[]): CutItem[] {
-  const byLen = new Map<number, number>();
-  for (const l of lengthsM) byLen.set(l, (byLen.get(l) ?? 0) + 1);
-  return [...byLen.entries()]
-    .sort((p, q) => q[0] - p[0])
-    .map(([l, n]) => cut('buried radial', n, l, 1, 'radial'));
 }

@@ -26,18 +26,10 @@ import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
-import { arr, cut, num, proposalList, radialCuts, round } from './common.ts';
+import { cut, num, round } from './common.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { COAX_LOSS_DB_PER_100M, COAX_LOSS_REFERENCE_MHZ, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
-import {
-  freeSpots,
-  groupRadials,
-  pickSpots,
-  radialKey,
-  radialRoom,
-  verticalParts,
-  verticalsModel,
-} from './verticals.ts';
+import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
 import type { Builder, Design, WireModel } from './types.ts';
 
 /** Characteristic impedance of the current-forcing lines (75 Ω coax; common practice, no source). */
@@ -104,66 +96,36 @@ export const fourSquareBuilder: Builder = {
   label: 'Four-square of quarter-wave verticals (hybrid-coupler feed)',
   array: true,
   elementCount: 4,
-  propose({ site, band }) {
-    const out = proposalList('four-square', band);
-    const st = site.site.settings;
-    const lambda = band.wavelengthM;
+  propose(ctx) {
+    const lambda = ctx.band.wavelengthM;
     const nominal = VERTICAL_NOMINAL_FRACTION * lambda;
     const side = 0.25 * lambda;
-    // The four are cut to a single vertical's resonant height and not trimmed through the box:
-    // the hybrid hides the elements' reactance, so trimming for the station line's reactance
-    // shortens them until the dump resistor takes a large share (measured: 42 % against 9 % at
-    // the resonant height, 80 m over very good ground; test/unit/antennas/fourSquare.test.ts).
-    const trim = {
-      name: "height of the four verticals (a single vertical's resonant height)",
-      nominalM: nominal,
-      minM: nominal,
-      maxM: nominal,
-    };
-    const where = 'self-supporting four-square at a free spot';
-    if (nominal > st.maxVerticalHeightM) {
-      out.reject(
-        [],
-        where,
-        `four quarter-wave verticals (about ${nominal.toFixed(1)} m) are taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit`,
-      );
-      return out.result();
-    }
-    const corners = fourSquareCorners(side);
-    const radialM = 0.25 * lambda;
-    const spots = freeSpots(site, corners, FOUR_SQUARE_AXES_DEG, trim.maxM, (at, rot) =>
-      radialRoom(site, at, rot, radialM),
-    );
-    const chosen = pickSpots(spots, FOUR_SQUARE_SPOT_COUNT, 0);
-    if (chosen.length === 0)
-      out.reject(
-        [],
-        where,
-        `no free spot on the lot holds a ${side.toFixed(1)} m square of masts clear of the setback and every keep-out`,
-      );
-    chosen.forEach((spot, k) => {
-      const { xy, rotationDeg: rot } = spot;
-      const params: Design['params'] = {
-        sideM: round(side, 2),
-        lineLengthM: round(quarterWaveCoaxM(band.designFreqHz), 2),
-      };
-      groupRadials(site, spot, corners, st.radialCount, radialM).forEach((lengths, i) => {
-        params[radialKey(NAMES[i])] = lengths;
-      });
-      out.proposals.push({
-        design: out.design(
-          params,
-          trim,
-          NAMES.map((n, i) => ({ name: `beam toward vertical ${n}`, rotationDeg: 90 * i })),
-        ),
-        placement: { originXY: xy, rotationDeg: rot },
-        supports: [],
-        groupKey: `four-square:free:${k}`,
+    return proposeVerticalArray('four-square', ctx, {
+      groupWords: 'four quarter-wave verticals',
+      where: 'self-supporting four-square at a free spot',
+      bases: fourSquareCorners(side),
+      names: NAMES,
+      axesDeg: FOUR_SQUARE_AXES_DEG,
+      count: FOUR_SQUARE_SPOT_COUNT,
+      minApartM: 0,
+      // The four are cut to a single vertical's resonant height and not trimmed through the box:
+      // the hybrid hides the elements' reactance, so trimming for the station line's reactance
+      // shortens them until the dump resistor takes a large share (measured: 42 % against 9 % at
+      // the resonant height, 80 m over very good ground; test/unit/antennas/fourSquare.test.ts).
+      trim: {
+        name: "height of the four verticals (a single vertical's resonant height)",
+        nominalM: nominal,
+        minM: nominal,
+        maxM: nominal,
+      },
+      noSpotReason: `no free spot on the lot holds a ${side.toFixed(1)} m square of masts clear of the setback and every keep-out`,
+      params: { sideM: round(side, 2), lineLengthM: round(quarterWaveCoaxM(ctx.band.designFreqHz), 2) },
+      states: NAMES.map((n, i) => ({ name: `beam toward vertical ${n}`, rotationDeg: 90 * i })),
+      describe: ({ xy, rotationDeg: rot }) => ({
         where: `self-supporting four-square centred at (${xy[0].toFixed(0)} m E, ${xy[1].toFixed(0)} m N)`,
         broadsideDeg: [0, 90, 180, 270].map((r) => (rot + r) % 360),
-      });
+      }),
     });
-    return out.result();
   },
   model: fourSquareModel,
   elements(d, H): Element[] {
@@ -172,17 +134,9 @@ export const fourSquareBuilder: Builder = {
       return [v.wire, v.mast, ...v.radials];
     });
   },
-  heights(_d, H) {
-    return [
-      { label: 'feed points (bases)', heightM: 0 },
-      { label: 'top of each vertical', heightM: H },
-    ];
-  },
+  heights: (_d, H) => groupHeights(H),
   cutList(d, H) {
-    const items = [
-      cut('vertical radiator (four)', 4, H),
-      ...radialCuts(NAMES.flatMap((n) => arr(d, radialKey(n)))),
-    ];
+    const items = groupCuts(d, H, NAMES, 'vertical radiator (four)');
     items.push(
       cut(
         '75 Ω coax, control box to each vertical (electrical quarter wave, VF 0.66)',

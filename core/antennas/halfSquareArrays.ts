@@ -47,7 +47,7 @@ import type { XY } from '../site/frame.ts';
 import { bearingOf, dist2, placeXY, type XYZ } from '../site/geometry.ts';
 import type { NetworkSpec } from '../em/network.ts';
 import { whereToChange } from '../project/settingLimits.ts';
-import { arr, cut, lambdaOf, num, round, wire } from './common.ts';
+import { arr, cut, lambdaOf, num, proposalList, round, supportPairs, wire } from './common.ts';
 import { sides, TOP_FRACTION, type Side } from './halfSquare.ts';
 import {
   COAX_LOSS_DB_PER_100M,
@@ -305,17 +305,14 @@ interface Span {
   len: number;
 }
 
-function spansOf(site: PreparedSite, band: BandPlan, minLen: number): Span[] {
+function spansOf(site: PreparedSite, minLen: number): Span[] {
   const sup = site.site.supports;
   const maxLen = minLen + 2 * site.site.settings.maxRopeM;
-  const out: Span[] = [];
-  for (let i = 0; i < sup.length; i++)
-    for (let j = i + 1; j < sup.length; j++) {
-      const len = dist2(sup[i].xy, sup[j].xy);
-      if (len >= minLen && len <= maxLen) out.push({ i, j, len });
-    }
-  void band;
-  return out;
+  const index = new Map(sup.map((s, i) => [s.id, i]));
+  return supportPairs(sup).flatMap(([a, b]) => {
+    const len = dist2(a.xy, b.xy);
+    return len >= minLen && len <= maxLen ? [{ i: index.get(a.id)!, j: index.get(b.id)!, len }] : [];
+  });
 }
 
 interface RectFit {
@@ -488,7 +485,7 @@ function fitRectangle(
 /** Pairs of spans that may stand near a rectangle (midpoints within a quarter wave plus the spans' length). */
 function rectangleCandidates(site: PreparedSite, band: BandPlan): [Span, Span][] {
   const T = TOP_FRACTION * band.wavelengthM;
-  const spans = spansOf(site, band, T);
+  const spans = spansOf(site, T);
   const sup = site.site.supports;
   const mid = (s: Span): XY => [(sup[s.i].xy[0] + sup[s.j].xy[0]) / 2, (sup[s.i].xy[1] + sup[s.j].xy[1]) / 2];
   const reach = REFLECTOR_SPACING_WAVELENGTHS.max * band.wavelengthM + site.site.settings.maxRopeM;
@@ -531,8 +528,7 @@ function proposeRect(
   type: AntennaTypeId,
   switched: boolean,
 ): { proposals: Proposal[]; rejections: Rejection[] } {
-  const proposals: Proposal[] = [];
-  const rejections: Rejection[] = [];
+  const list = proposalList(type, band);
   const sup = site.site.supports;
   const fits: RectFit[][] = [];
   for (const [p, q] of rectangleCandidates(site, band)) {
@@ -542,24 +538,18 @@ function proposeRect(
     const other = fit && !switched ? fitRectangle(site, band, p, q, type, switched, true, []) : null;
     if (fit) fits.push(other ? [fit, other] : [fit]);
     else
-      rejections.push({
-        type,
-        band: band.band,
-        supports: [sup[p.i].id, sup[p.j].id, sup[q.i].id, sup[q.j].id],
-        where: `on ${sup[p.i].name}–${sup[p.j].name} and ${sup[q.i].name}–${sup[q.j].name}`,
-        reasons: why,
-      });
+      list.reject(
+        [sup[p.i].id, sup[p.j].id, sup[q.i].id, sup[q.j].id],
+        `on ${sup[p.i].name}–${sup[p.j].name} and ${sup[q.i].name}–${sup[q.j].name}`,
+        ...why,
+      );
   }
-  if (fits.length === 0 && rejections.length === 0)
-    rejections.push({
-      type,
-      band: band.band,
-      supports: [],
-      where: 'four supports near a rectangle',
-      reasons: [
-        `no two pairs of supports stand about parallel with spans of at least ${(TOP_FRACTION * band.wavelengthM).toFixed(1)} m and ${REFLECTOR_SPACING_WAVELENGTHS.min}–${REFLECTOR_SPACING_WAVELENGTHS.max} λ apart`,
-      ],
-    });
+  if (fits.length === 0 && list.rejections.length === 0)
+    list.reject(
+      [],
+      'four supports near a rectangle',
+      `no two pairs of supports stand about parallel with spans of at least ${(TOP_FRACTION * band.wavelengthM).toFixed(1)} m and ${REFLECTOR_SPACING_WAVELENGTHS.min}–${REFLECTOR_SPACING_WAVELENGTHS.max} λ apart`,
+    );
   fits.sort(
     ([a], [b]) =>
       Math.abs(a.spacingWl - 0.15) - Math.abs(b.spacingWl - 0.15) ||
@@ -571,7 +561,7 @@ function proposeRect(
     for (const f of variants) {
       const rot = f.placement.rotationDeg;
       const sM = (f.design.params.spacingM as number).toFixed(1);
-      proposals.push({
+      list.proposals.push({
         design: f.design,
         placement: f.placement,
         supports: f.ids,
@@ -583,7 +573,7 @@ function proposeRect(
       });
     }
   }
-  return { proposals, rejections };
+  return list.result();
 }
 
 function rectBuilder(type: AntennaTypeId, label: string, switched: boolean): Builder {
@@ -671,8 +661,7 @@ function lElements(d: Design, dropM: number): Element[] {
 
 function proposeL(site: PreparedSite, band: BandPlan): { proposals: Proposal[]; rejections: Rejection[] } {
   const type = 'half-square-l';
-  const proposals: Proposal[] = [];
-  const rejections: Rejection[] = [];
+  const list = proposalList(type, band);
   const sup = site.site.supports;
   const st = site.site.settings;
   const lambda = band.wavelengthM;
@@ -727,7 +716,7 @@ function proposeL(site: PreparedSite, band: BandPlan): { proposals: Proposal[]; 
             `the lowest support (${h.toFixed(1)} m) leaves too little height above the ${e.toFixed(1)} m end height`,
           );
         if (why.length) {
-          rejections.push({ type, band: band.band, supports: ids, where, reasons: why });
+          list.reject(ids, where, ...why);
           continue;
         }
         const line = halfWaveMultipleM(Math.hypot(h, c / Math.SQRT2), band.designFreqHz);
@@ -753,8 +742,8 @@ function proposeL(site: PreparedSite, band: BandPlan): { proposals: Proposal[]; 
             maxM: Math.min(0.33 * lambda, h - e + T / 2 - 1),
           },
           states: [
-            { name: 'leg 1 driven, leg 2 open', rotationDeg: 0 },
-            { name: 'leg 2 driven, leg 1 open', rotationDeg: 0, mirrorAxisDeg: 45 },
+            { name: 'leg 1 driven (beams both ways), leg 2 open', rotationDeg: 0 },
+            { name: 'leg 2 driven (beams both ways), leg 1 open', rotationDeg: 0, mirrorAxisDeg: 45 },
           ],
         };
         const norm = (d: number) => ((d % 360) + 360) % 360;
@@ -771,17 +760,15 @@ function proposeL(site: PreparedSite, band: BandPlan): { proposals: Proposal[]; 
         });
       }
   }
-  if (fits.length === 0 && rejections.length === 0)
-    rejections.push({
-      type,
-      band: band.band,
-      supports: [],
-      where: 'three supports in an L',
-      reasons: [`no three supports stand in an L with legs of at least ${minLeg.toFixed(1)} m at about 90°`],
-    });
+  if (fits.length === 0 && list.rejections.length === 0)
+    list.reject(
+      [],
+      'three supports in an L',
+      `no three supports stand in an L with legs of at least ${minLeg.toFixed(1)} m at about 90°`,
+    );
   fits.sort((a, b) => b.h - a.h);
-  for (const f of fits.slice(0, ARRAY_PROPOSALS_PER_BAND)) proposals.push(f.p);
-  return { proposals, rejections };
+  for (const f of fits.slice(0, ARRAY_PROPOSALS_PER_BAND)) list.proposals.push(f.p);
+  return list.result();
 }
 
 export const halfSquareLBuilder: Builder = {

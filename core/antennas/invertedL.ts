@@ -11,19 +11,8 @@ import { whereToChange } from '../project/settingLimits.ts';
 import type { Element } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
 import { bearingOf, dist2 } from '../site/geometry.ts';
-import {
-  arr,
-  baseFedModel,
-  clippedRadials,
-  cut,
-  lambdaOf,
-  num,
-  proposalList,
-  radialCuts,
-  radialElements,
-  round,
-  wire,
-} from './common.ts';
+import { arr, cut, lambdaOf, num, proposalList, round, wire } from './common.ts';
+import { baseFedModel, clippedRadials, radialCuts, radialElements } from './radials.ts';
 import type { Builder, Design, WireModel } from './types.ts';
 
 /** Nominal total length as a fraction of the wavelength (common practice, no source). */

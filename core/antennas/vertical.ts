@@ -12,18 +12,8 @@ import { clipRadial } from '../site/feasibility.ts';
 import { whereToChange } from '../project/settingLimits.ts';
 import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
-import {
-  arr,
-  baseFedModel,
-  clippedRadials,
-  cut,
-  lambdaOf,
-  num,
-  proposalList,
-  radialCuts,
-  radialElements,
-  wire,
-} from './common.ts';
+import { arr, cut, lambdaOf, num, proposalList, wire } from './common.ts';
+import { baseFedModel, clippedRadials, radialCuts, radialElements } from './radials.ts';
 import { SPOT_SCORE_RADIALS, freeSpots, pickSpots } from './verticals.ts';
 import type { Builder, Design, Proposal, WireModel } from './types.ts';
 

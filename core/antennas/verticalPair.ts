@@ -29,17 +29,9 @@ import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
-import { arr, cut, num, proposalList, radialCuts, round } from './common.ts';
+import { cut, num, round } from './common.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
-import {
-  freeSpots,
-  groupRadials,
-  pickSpots,
-  radialKey,
-  radialRoom,
-  verticalParts,
-  verticalsModel,
-} from './verticals.ts';
+import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
 import type { Builder, Design, WireModel } from './types.ts';
 
 export const PAIR_SPACING_WAVELENGTHS = 0.15;
@@ -105,82 +97,48 @@ export const verticalPairBuilder: Builder = {
   label: 'Two switched quarter-wave verticals (driven + reflector)',
   array: true,
   elementCount: 2,
-  propose({ site, band }) {
-    const out = proposalList('vertical-pair', band);
-    const st = site.site.settings;
-    const lambda = band.wavelengthM;
-    const nominal = VERTICAL_NOMINAL_FRACTION * lambda;
+  propose(ctx) {
+    const lambda = ctx.band.wavelengthM;
+    const f = ctx.band.designFreqHz;
     const s = PAIR_SPACING_WAVELENGTHS * lambda;
-    const trim = {
-      name: 'height of both verticals',
-      nominalM: nominal,
-      minM: 0.2 * lambda,
-      maxM: 0.3 * lambda,
-    };
-    const where = 'self-supporting pair at a free spot';
-    if (nominal > st.maxVerticalHeightM) {
-      out.reject(
-        [],
-        where,
-        `two quarter-wave verticals (about ${nominal.toFixed(1)} m) are taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit`,
-      );
-      return out.result();
-    }
-    const bases = pairBases(s);
-    const radialM = 0.25 * lambda;
-    const spots = freeSpots(site, bases, PAIR_AXES_DEG, trim.maxM, (at, rot) =>
-      radialRoom(site, at, rot, radialM),
-    );
-    const chosen = pickSpots(spots, PAIR_SPOT_COUNT, 0.25 * lambda);
-    if (chosen.length === 0)
-      out.reject(
-        [],
-        where,
-        `no free spot on the lot keeps two masts ${s.toFixed(1)} m apart clear of the setback and every keep-out`,
-      );
-    chosen.forEach((spot, k) => {
-      const { xy, rotationDeg: rot } = spot;
-      const [ra, rb] = groupRadials(site, spot, bases, st.radialCount, radialM);
-      out.proposals.push({
-        design: out.design(
-          {
-            spacingM: round(s, 2),
-            lineLengthM: round(halfWaveCoaxM(band.designFreqHz), 2),
-            stubLengthM: round(stubLengthM(REFLECTOR_REACTANCE_OHM, band.designFreqHz), 2),
-            radialLengthsAM: ra,
-            radialLengthsBM: rb,
-          },
-          { ...trim, maxM: Math.min(trim.maxM, st.maxVerticalHeightM) },
-          [
-            { name: 'A driven, B reflects', rotationDeg: 0 },
-            { name: 'B driven, A reflects', rotationDeg: 180 },
-          ],
-        ),
-        placement: { originXY: xy, rotationDeg: rot },
-        supports: [],
-        groupKey: `vertical-pair:free:${k}`,
+    return proposeVerticalArray('vertical-pair', ctx, {
+      groupWords: 'two quarter-wave verticals',
+      where: 'self-supporting pair at a free spot',
+      bases: pairBases(s),
+      names: NAMES,
+      axesDeg: PAIR_AXES_DEG,
+      count: PAIR_SPOT_COUNT,
+      minApartM: 0.25 * lambda,
+      trim: {
+        name: 'height of both verticals',
+        nominalM: VERTICAL_NOMINAL_FRACTION * lambda,
+        minM: 0.2 * lambda,
+        maxM: 0.3 * lambda,
+      },
+      noSpotReason: `no free spot on the lot keeps two masts ${s.toFixed(1)} m apart clear of the setback and every keep-out`,
+      params: {
+        spacingM: round(s, 2),
+        lineLengthM: round(halfWaveCoaxM(f), 2),
+        stubLengthM: round(stubLengthM(REFLECTOR_REACTANCE_OHM, f), 2),
+      },
+      states: [
+        { name: 'A driven, B reflects', rotationDeg: 0 },
+        { name: 'B driven, A reflects', rotationDeg: 180 },
+      ],
+      describe: ({ xy, rotationDeg: rot }) => ({
         where: `self-supporting pair at (${xy[0].toFixed(0)} m E, ${xy[1].toFixed(0)} m N), axis ${rot}°–${rot + 180}°`,
         broadsideDeg: [rot, (rot + 180) % 360],
-      });
+      }),
     });
-    return out.result();
   },
   model: pairModel,
   elements(d, H): Element[] {
     const [A, B] = pairBases(num(d, 'spacingM')).map((c, i) => verticalParts(d, H, c, NAMES[i]));
     return [A.wire, B.wire, ...A.radials, ...B.radials, A.mast, B.mast];
   },
-  heights(_d, H) {
-    return [
-      { label: 'feed points (bases)', heightM: 0 },
-      { label: 'top of each vertical', heightM: H },
-    ];
-  },
+  heights: (_d, H) => groupHeights(H),
   cutList(d, H) {
-    const items = [
-      cut('vertical radiator (A and B)', 2, H),
-      ...radialCuts(NAMES.flatMap((n) => arr(d, radialKey(n)))),
-    ];
+    const items = groupCuts(d, H, NAMES, 'vertical radiator (A and B)');
     items.push(
       cut(
         'coax, relay box to each vertical (electrical half wave, VF 0.66)',

@@ -7,8 +7,21 @@ import { boundaryDistance, clipRadial, keepOutDistance, requiredClearance } from
 import type { Element, PreparedSite } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { placeXY } from '../site/geometry.ts';
-import { MIN_RADIAL_M, arr, lambdaOf, radialElements, radialsOn, round, wire } from './common.ts';
-import type { Design, ModelFeed, ModelRadials, ModelWire } from './types.ts';
+import { arr, cut, lambdaOf, proposalList, wire } from './common.ts';
+import { radialCuts, radialElements, radialsCutAtMidlines, radialsOn } from './radials.ts';
+import type {
+  AntennaTypeId,
+  BuildContext,
+  CutItem,
+  Design,
+  DesignParams,
+  HeightItem,
+  ModelFeed,
+  ModelRadials,
+  ModelWire,
+  Proposal,
+  Rejection,
+} from './types.ts';
 
 /** Grid step of the free-spot search, metres. */
 export const SPOT_GRID_M = 4;
@@ -83,61 +96,50 @@ export function radialRoom(
 }
 
 /**
- * Radial lengths at one base (canonical `base`), in canonical bearing order k·360°/N: a quarter
- * wave unless the lot clips it (`clip` takes the site bearing), and cut where it meets the line
- * midway to any other element (`others`, canonical), where the fields are bonded.
+ * Where a group of self-supporting verticals goes: the `count` free spots (freeSpots, each mast
+ * reaching `mastHeightM`) with the most room for radials of `radialM` (radialRoom), their origins
+ * at least `minApartM` apart.
  */
-export function radialsCutAtMidlines(
-  clip: (bearingDeg: number, nominalM: number) => number,
-  rotationDeg: number,
-  base: XY,
-  others: readonly XY[],
-  count: number,
-  nominalM: number,
-): number[] {
-  const out: number[] = [];
-  for (let k = 0; k < count; k++) {
-    const b = (2 * Math.PI * k) / count;
-    const ux = Math.sin(b);
-    const uy = Math.cos(b);
-    let meet = Infinity;
-    for (const o of others) {
-      const dx = o[0] - base[0];
-      const dy = o[1] - base[1];
-      const along = ux * dx + uy * dy;
-      if (along > 1e-9) meet = Math.min(meet, (dx * dx + dy * dy) / (2 * along));
-    }
-    const len = Math.min(clip(rotationDeg + (k * 360) / count, nominalM), meet);
-    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
-  }
-  return out;
+export function arraySpots(
+  site: PreparedSite,
+  bases: readonly XY[],
+  o: { axesDeg: readonly number[]; mastHeightM: number; radialM: number; count: number; minApartM: number },
+): Spot[] {
+  const spots = freeSpots(site, bases, o.axesDeg, o.mastHeightM, (at, rot) =>
+    radialRoom(site, at, rot, o.radialM),
+  );
+  return pickSpots(spots, o.count, o.minApartM);
 }
 
+/** Design parameter holding the radial lengths at the vertical named `name`. */
+export const radialKey = (name: string): string => `radialLengths${name}M`;
+
 /**
- * Radial lengths at every base of a group placed at `spot` (radialsCutAtMidlines at each base,
- * cut on the lines midway to all the others), `count` radials of `nominalM` each.
+ * Radial lengths at every base of a group placed at `spot`, as design parameters (radialKey of
+ * each name, in order): radialsCutAtMidlines at each base, cut on the lines midway to all the
+ * others, `count` radials of `nominalM` each.
  */
 export function groupRadials(
   site: PreparedSite,
   spot: { xy: XY; rotationDeg: number },
   bases: readonly XY[],
+  names: readonly string[],
   count: number,
   nominalM: number,
-): number[][] {
-  return bases.map((c, i) =>
-    radialsCutAtMidlines(
+): Record<string, number[]> {
+  const params: Record<string, number[]> = {};
+  bases.forEach((c, i) => {
+    params[radialKey(names[i])] = radialsCutAtMidlines(
       (bearingDeg, n) => clipRadial(site, placeXY(c, spot.rotationDeg, spot.xy), bearingDeg, n),
       spot.rotationDeg,
       c,
       bases.filter((_, j) => j !== i),
       count,
       nominalM,
-    ),
-  );
+    );
+  });
+  return params;
 }
-
-/** Design parameter holding the radial lengths at the vertical named `name`. */
-export const radialKey = (name: string): string => `radialLengths${name}M`;
 
 /**
  * Wires of verticals of height H at canonical `bases` (named `vertical <name>`), each fed at its
@@ -172,4 +174,87 @@ export function verticalParts(
       label: `${name} ${e.label}`,
     })),
   };
+}
+
+/** Heights of a group of verticals of height H, fed at their bases. */
+export function groupHeights(H: number): HeightItem[] {
+  return [
+    { label: 'feed points (bases)', heightM: 0 },
+    { label: 'top of each vertical', heightM: H },
+  ];
+}
+
+/** Cut list of a group of verticals named `names`: the radiators in one row, then every base's buried radials. */
+export function groupCuts(d: Design, H: number, names: readonly string[], radiatorLabel: string): CutItem[] {
+  return [cut(radiatorLabel, names.length, H), ...radialCuts(names.flatMap((n) => arr(d, radialKey(n))))];
+}
+
+/** An array of self-supporting quarter-wave verticals, as its builder describes it to proposeVerticalArray. */
+export interface VerticalArraySpec {
+  /** The group in a reason's words ("two quarter-wave verticals"). */
+  groupWords: string;
+  /** Where it goes, in a rejection ("self-supporting pair at a free spot"). */
+  where: string;
+  /** Canonical bases and names of the verticals (the radial parameters are named after them). */
+  bases: readonly XY[];
+  names: readonly string[];
+  /** Orientations tried at each spot, how many spots and how far apart their origins at least. */
+  axesDeg: readonly number[];
+  count: number;
+  minApartM: number;
+  /** The trim of the verticals' height; every mast must fit at trim.maxM. */
+  trim: Design['trim'];
+  /** Why nothing was proposed when no spot is free. */
+  noSpotReason: string;
+  /** The design's parameters other than the radials (which follow them). */
+  params: DesignParams;
+  states: Design['states'];
+  /** The proposal's words and broadside bearings at a spot. */
+  describe(spot: Spot): { where: string; broadsideDeg: number[] };
+}
+
+/**
+ * Proposals of an array of self-supporting verticals: none (with the reason) when its masts
+ * exceed the self-supporting limit or no spot is free; else one per spot (arraySpots), its
+ * radials a quarter wave unless the lot clips them, cut and bonded midway between the bases.
+ */
+export function proposeVerticalArray(
+  type: AntennaTypeId,
+  { site, band }: BuildContext,
+  a: VerticalArraySpec,
+): { proposals: Proposal[]; rejections: Rejection[] } {
+  const out = proposalList(type, band);
+  const st = site.site.settings;
+  const nominal = a.trim.nominalM;
+  if (nominal > st.maxVerticalHeightM) {
+    out.reject(
+      [],
+      a.where,
+      `${a.groupWords} (about ${nominal.toFixed(1)} m) are taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit`,
+    );
+    return out.result();
+  }
+  const radialM = 0.25 * band.wavelengthM;
+  const chosen = arraySpots(site, a.bases, {
+    axesDeg: a.axesDeg,
+    mastHeightM: a.trim.maxM,
+    radialM,
+    count: a.count,
+    minApartM: a.minApartM,
+  });
+  if (chosen.length === 0) out.reject([], a.where, a.noSpotReason);
+  chosen.forEach((spot, k) => {
+    out.proposals.push({
+      design: out.design(
+        { ...a.params, ...groupRadials(site, spot, a.bases, a.names, st.radialCount, radialM) },
+        { ...a.trim, maxM: Math.min(a.trim.maxM, st.maxVerticalHeightM) },
+        a.states,
+      ),
+      placement: { originXY: spot.xy, rotationDeg: spot.rotationDeg },
+      supports: [],
+      groupKey: `${type}:free:${k}`,
+      ...a.describe(spot),
+    });
+  });
+  return out.result();
 }

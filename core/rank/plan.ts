@@ -95,9 +95,9 @@ export interface PlanOptions {
   /** Number of placements in the shortlist per band before the best of each missing type is added (default 10). */
   shortlistSize?: number;
   layerHeightsM?: readonly number[];
-  /** Only these antenna types (default: every registered type, arrays only with `arrays`). */
+  /** Only these antenna types (default: every registered type, arrays only with `arrays`, else the project's `settings.planArrays`). */
   types?: readonly AntennaTypeId[];
-  /** Also plan the array types (several elements; slower). Default false. */
+  /** Also plan the array types (several elements; slower). Default: the project's `settings.planArrays`. */
   arrays?: boolean;
   /**
    * Progress: 'enumerate' from the start (done 0 of the builders × bands, then after each), then
@@ -472,8 +472,9 @@ function placedElements(p: Proposal, trimM: number): Element[] {
 
 /** Step 1: site, paths, proposals checked at nominal dimensions, unique jobs. */
 export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'evaluator'> = {}): PlanSetup {
+  const arrays = options.arrays ?? project.settings.planArrays === true;
   const builders = BUILDERS.filter((b) =>
-    options.types ? options.types.includes(b.type) : !b.array || options.arrays === true,
+    options.types ? options.types.includes(b.type) : !b.array || arrays,
   );
   const bandList = options.bands ?? project.bands;
   const steps = bandList.length * builders.length;

@@ -11,7 +11,9 @@
  * After a first plan of the demo, one support is moved a few metres and the project re-planned,
  * at several positions; each re-plan is split into enumeration, evaluation of the new designs,
  * ranking (with the conducting-support and soil-range solves it makes) and message copying. The
- * provisional re-rank of live mode (the 'preview' message) is timed at the same positions.
+ * provisional re-rank of live mode (the 'preview' message) is timed at the same positions, and the
+ * re-plan of a drop 1 m further on after the drag rested there (the app solves the position's new
+ * designs while the drag rests).
  */
 import { fileURLToPath } from 'node:url';
 import type { Project } from '../../core/project/schema.ts';
@@ -32,6 +34,12 @@ export interface ReplanTiming {
   newDesigns: number;
   previewMs: number;
   previewBorrowed: number;
+  /**
+   * The same support dropped 1 m further on after the drag rested there: the solves the app makes
+   * while the drag rests (restMs), then the exact re-plan at the drop (afterRestMs).
+   */
+  restMs: number;
+  afterRestMs: number;
 }
 
 /** The demo's moves: a support and where it goes (metres east, north of the lot's corner). */
@@ -59,11 +67,12 @@ function send(host: PlanHost, msg: ToWorker, t: { messagesMs: number }): { out: 
 }
 
 /** A full run as the window's runner makes it with one worker; its phases in ms. */
-function runOnce(
-  host: PlanHost,
-  project: Project,
-  runId: number,
-): Omit<ReplanTiming, 'move' | 'previewMs' | 'previewBorrowed'> {
+type RunTiming = Pick<
+  ReplanTiming,
+  'totalMs' | 'cpuMs' | 'enumerateMs' | 'evaluateMs' | 'rankMs' | 'messagesMs' | 'newDesigns'
+>;
+
+function runOnce(host: PlanHost, project: Project, runId: number): RunTiming {
   const bands = project.bands;
   const t = { messagesMs: 0 };
   const c0 = process.cpuUsage();
@@ -98,22 +107,44 @@ export function appReplan(moves = DEMO_MOVES, log: (s: string) => void = () => {
   const first = runOnce(host, demo, ++runId);
   log(`first plan through the host: ${(first.totalMs / 1000).toFixed(2)} s (${first.newDesigns} designs)`);
   const out: ReplanTiming[] = [];
-  for (const [id, e, n] of moves) {
+  const moved = (id: string, e: number, n: number): Project => {
     const p: Project = structuredClone(demo);
     const s = p.supports.find((x) => x.id === id);
     if (!s) throw new Error(id);
     s.position = demoLonLat(e, n);
-    // Live mode first (as in the app: provisional positions during the drag, the exact plan at its end).
+    return p;
+  };
+  const preview = (p: Project) => {
     const pv = send(host, { type: 'preview', liveId: runId, project: p, bands: p.bands }, { messagesMs: 0 });
     const pr = pv.out[0];
     if (pr?.type !== 'previewed') throw new Error(`preview failed: ${JSON.stringify(pr)}`);
+    return { ms: pv.ms, borrowed: pr.borrowed, missing: pr.missing };
+  };
+  for (const [id, e, n] of moves) {
+    // Live mode first (as in the app: provisional positions during the drag, the exact plan at its end).
+    const p = moved(id, e, n);
+    const pv = preview(p);
     const r = runOnce(host, p, ++runId);
-    const row = { move: id, ...r, previewMs: pv.ms, previewBorrowed: pr.borrowed };
+    // Dropped after a rest 1 m further on: the designs of that position were solved during the rest.
+    const q = moved(id, e + 1, n);
+    const rest = { messagesMs: 0 };
+    let restMs = 0;
+    for (const job of preview(q).missing) restMs += send(host, { type: 'evaluate', runId: 0, job }, rest).ms;
+    const after = runOnce(host, q, ++runId);
+    const row = {
+      move: id,
+      ...r,
+      previewMs: pv.ms,
+      previewBorrowed: pv.borrowed,
+      restMs,
+      afterRestMs: after.totalMs,
+    };
     out.push(row);
     log(
       `re-plan after moving ${id}: ${r.totalMs.toFixed(0)} ms (CPU ${r.cpuMs.toFixed(0)}) = enumerate ${r.enumerateMs.toFixed(0)} + ` +
         `${r.newDesigns} new designs ${r.evaluateMs.toFixed(0)} + rank ${r.rankMs.toFixed(0)} + ` +
-        `messages ${r.messagesMs.toFixed(0)}; live preview ${pv.ms.toFixed(0)} ms (${pr.borrowed} borrowed)`,
+        `messages ${r.messagesMs.toFixed(0)}; live preview ${pv.ms.toFixed(0)} ms (${pv.borrowed} borrowed); ` +
+        `dropped after a rest: ${after.totalMs.toFixed(0)} ms (rest solves ${restMs.toFixed(0)} ms)`,
     );
   }
   return out;
@@ -128,6 +159,7 @@ export function medianOf(rows: readonly ReplanTiming[], k: Exclude<keyof ReplanT
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
   const rows = appReplan(DEMO_MOVES, (s) => process.stdout.write(s + '\n'));
   process.stdout.write(
-    `medians: re-plan ${medianOf(rows, 'totalMs').toFixed(0)} ms (CPU ${medianOf(rows, 'cpuMs').toFixed(0)}), live preview ${medianOf(rows, 'previewMs').toFixed(0)} ms\n`,
+    `medians: re-plan ${medianOf(rows, 'totalMs').toFixed(0)} ms (CPU ${medianOf(rows, 'cpuMs').toFixed(0)}), ` +
+      `live preview ${medianOf(rows, 'previewMs').toFixed(0)} ms, re-plan after a rest ${medianOf(rows, 'afterRestMs').toFixed(0)} ms\n`,
   );
 }

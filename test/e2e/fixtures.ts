@@ -3,7 +3,7 @@
  * its own temporary data folder), a page that may reach only the loopback host, and helpers to
  * restart the host on the same data and to save screenshots as artefacts.
  */
-import { test as base, expect, type Page } from '@playwright/test';
+import { test as base, expect, type APIRequestContext, type Page } from '@playwright/test';
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -121,6 +121,24 @@ export const test = base.extend<{ host: Host; blocked: string[] }>({
 
 export { expect };
 
+/** Call the host's API as the page would (token header), expecting success; returns the value. */
+export async function apiCall(
+  req: APIRequestContext,
+  host: Host,
+  name: string,
+  body: unknown,
+): Promise<unknown> {
+  const base = host.url.replace(/#.*$/, '');
+  const token = /#token=([A-Za-z0-9_-]+)/.exec(host.url)![1]!;
+  const res = await req.post(`${base}api/${name}`, {
+    headers: { 'content-type': 'application/json', 'x-yardwire-token': token },
+    data: body,
+  });
+  const out = (await res.json()) as { ok: boolean; value?: unknown; error?: unknown };
+  expect(out.ok, JSON.stringify(out.error)).toBe(true);
+  return out.value;
+}
+
 /** Open the app at the host's address and wait until the project is on screen. */
 export async function openApp(page: Page, host: Host): Promise<void> {
   await page.goto(host.url);
@@ -196,12 +214,13 @@ export async function addSupports(
 /** Tick only this band in the run bar (the others off) and start the plan. */
 export async function startPlan(page: Page, band: '160 m' | '80 m' | '40 m'): Promise<void> {
   const bar = page.getByTestId('run-bar');
-  for (const b of ['160 m', '80 m', '40 m'].filter((x) => x !== band)) {
-    const box = bar.getByRole('checkbox', { name: b });
-    if (await box.isChecked()) await box.uncheck();
-  }
+  // The band asked for first: the last ticked band cannot be unticked.
   const box = bar.getByRole('checkbox', { name: band });
   if (!(await box.isChecked())) await box.check();
+  for (const b of ['160 m', '80 m', '40 m'].filter((x) => x !== band)) {
+    const other = bar.getByRole('checkbox', { name: b });
+    if (await other.isChecked()) await other.uncheck();
+  }
   await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
 }
 

@@ -106,6 +106,8 @@ test('loads a public map service only after the user reads its terms and chooses
     '© OpenStreetMap contributors (ODbL)',
   );
   await expect(presets.getByTestId('imagery-in-use')).toContainText('OpenStreetMap standard map');
+  // The place the user went to stays marked: choosing imagery is no change to the lot.
+  await expect(page.locator('path.yw-goto')).toHaveCount(1);
 
   // Kept like the user's own tile address: in Settings, and over a reload.
   await page.getByRole('tab', { name: 'Settings' }).click();

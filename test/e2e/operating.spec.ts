@@ -64,6 +64,9 @@ test('designs for where the user operates and matches a low feed impedance', asy
   test.setTimeout(300_000);
   await openApp(page, host);
   const bar = page.getByTestId('run-bar');
+  // The demo plans 80 m only: that last band cannot be unticked, and its box says so by staying ticked.
+  await bar.getByRole('checkbox', { name: '80 m' }).click();
+  await expect(bar.getByRole('checkbox', { name: '80 m' })).toBeChecked();
   await bar.getByRole('checkbox', { name: '160 m' }).check();
 
   // Settings: each choice states the frequency it designs for.

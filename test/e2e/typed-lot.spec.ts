@@ -31,6 +31,8 @@ test('types a 45 × 30 m lot after going to its place, without imagery', async (
   await typed.getByRole('button', { name: 'Set boundary' }).click();
   const sides = page.locator('.yw-side-label span');
   await expect(sides).toHaveCount(4);
+  // The Go mark goes once the lot is drawn, so that it never covers the lot.
+  await expect(page.locator('path.yw-goto')).toHaveCount(0);
   expect((await sides.allTextContents()).sort()).toEqual(['30.0 m', '30.0 m', '45.0 m', '45.0 m']);
   // One geodesic area everywhere: the chip reads the lot measures' WGS84 area.
   await expect(page.getByTestId('lot-summary')).toContainText('Lot 1350 m² · perimeter 150.0 m');
@@ -42,7 +44,12 @@ test('types a 45 × 30 m lot after going to its place, without imagery', async (
   await clickMap(page, 0.5, 0.6);
   const offset = page.getByTestId('support-offset');
   await page.getByText('Place by distance and bearing').click();
-  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 1' });
+  // The first place to start from is shown chosen, and each corner says where it lies.
+  await expect(offset.getByRole('combobox', { name: 'Offset from' }).locator('option:checked')).toHaveText(
+    'lot corner 1 (SW)',
+  );
+  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 3 (NE)' });
+  await offset.getByRole('combobox', { name: 'Offset from' }).selectOption({ label: 'lot corner 1 (SW)' });
   await offset.getByRole('spinbutton', { name: 'Distance, m' }).fill('10');
   await offset.getByRole('spinbutton', { name: 'Bearing, degrees' }).fill('90');
   await offset.getByRole('button', { name: 'Place here' }).click();

@@ -216,7 +216,23 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       if (r && !map.getBounds().pad(-0.05).contains(toLatLng(r.at))) map.panTo(toLatLng(r.at));
     });
     // Go to a place: centre there, close in, and mark it (offline the map is grey: the mark and
-    // the scale show that it moved).
+    // the scale show that it moved). The mark goes once the lot's drawing changes or a candidate
+    // is drawn, so that it never covers the lot or an antenna.
+    let goMark: L.CircleMarker | null = null;
+    let goMarkFor = '';
+    // By value: an edit of anything else (a setting, the station) copies these arrays too.
+    const drawing = (): string => {
+      const p = doc.project;
+      return JSON.stringify([p?.id, p?.boundary, p?.supports, p?.keepOuts]);
+    };
+    $effect(() => {
+      const now = drawing();
+      const shown = session.mapOverlays.candidates.length > 0;
+      if (goMark && (shown || now !== goMarkFor)) {
+        goMark.remove();
+        goMark = null;
+      }
+    });
     $effect(() => {
       const g = ui.goTo;
       if (!g) return;
@@ -224,6 +240,7 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       // Centre the place in the part of the map no panel covers.
       const cover = untrack(() => ui.mapCoverLeftPx);
       if (cover > 0 && cover < map.getSize().x - 200) map.panBy([-cover / 2, 0], { animate: false });
+      if (untrack(() => session.mapOverlays.candidates.length) > 0) return;
       const mark = L.circleMarker(toLatLng(g.at), {
         radius: 9,
         color: '#0f6b73',
@@ -238,7 +255,12 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
           className: 'yw-tip yw-goto-label',
         })
         .addTo(map);
-      return () => mark.remove();
+      goMark = mark;
+      goMarkFor = untrack(drawing);
+      return () => {
+        mark.remove();
+        goMark = null;
+      };
     });
     map.on('moveend', () => {
       const c = map.getCenter();

@@ -57,12 +57,14 @@ function pumpedWorker(): {
   start: () => PlanWorker[];
   pump(n?: number): number;
   inject(m: FromWorker): void;
+  posted: ToWorker[];
 } {
   const host = createPlanHost(testEvaluator({ pattern: 'directional' }), () => 0);
   const inbox: ToWorker[] = [];
+  const posted: ToWorker[] = [];
   let handler: ((m: FromWorker) => void) | null = null;
   const w: PlanWorker = {
-    post: (m) => inbox.push(structuredClone(m)),
+    post: (m) => (inbox.push(structuredClone(m)), posted.push(m)),
     onMessage: (h) => (handler = h),
     terminate: () => (handler = null),
   };
@@ -78,6 +80,7 @@ function pumpedWorker(): {
       return done;
     },
     inject: (m) => handler?.(m),
+    posted,
   };
 }
 
@@ -128,14 +131,28 @@ describe('Planning live re-ranking', () => {
     const first = planning.shortlist;
 
     // An answer for a position never asked for (older than the one shown next) changes nothing.
-    worker.inject({ type: 'previewed', liveId: 2, shortlist: kept!, borrowed: 0, leftOut: 0, ms: 1 });
+    worker.inject({
+      type: 'previewed',
+      liveId: 2,
+      shortlist: kept!,
+      borrowed: 0,
+      leftOut: 0,
+      missing: [],
+      ms: 1,
+    });
     expect(planning.shortlist).toBe(first);
 
     expect(worker.pump(1)).toBe(1); // the newest position
     expect(oakOf(planning.madeFor)).toEqual(at[2]);
     expect(planning.live!.following).toBe(false);
     expect(planning.shortlist!.candidates.length).toBeGreaterThan(0);
-    expect(worker.pump()).toBe(0); // nothing queued: at[1] was dropped
+    // at[1] was never sent; while the drag rests, the designs the newest position lacks are solved.
+    const previews = worker.posted.filter((m) => m.type === 'preview');
+    expect(previews.map((m) => m.type === 'preview' && oakOf(m.project))).toEqual([at[0], at[2]]);
+    const sent = worker.posted.length;
+    worker.pump();
+    const warmed = worker.posted.slice(sent).filter((m) => m.type === 'evaluate').length;
+    expect(warmed).toBeGreaterThan(0);
     // Nothing provisional is kept, the shown plan is not the stored one, and the project is unchanged.
     expect(saved).toHaveLength(1);
     expect(planning.runner.shortlist).toBe(kept);
@@ -149,6 +166,8 @@ describe('Planning live re-ranking', () => {
     expect(planning.stale).toBe(false); // provisional, not out of date
     worker.pump();
     expect(planning.runner.status).toBe('done');
+    expect(planning.runner.total).toBe(0); // every new design was solved while the drag rested
+    expect(planning.runner.cached).toBeGreaterThan(warmed);
     expect(planning.live).toBeNull();
     expect(saved).toHaveLength(2);
     expect(oakOf(saved[1]!.madeFor)).toEqual(at[2]);

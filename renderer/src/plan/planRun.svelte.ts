@@ -129,6 +129,8 @@ export class PlanRunner {
   readonly #liveQueue = new LiveQueue<MadeFor>((ask) =>
     this.#lead().post({ type: 'preview', liveId: ask.seq, project: ask.what.project, bands: ask.what.bands }),
   );
+  /** Designs the shown drag position lacks, solved while the drag rests (#warmNext). */
+  #warm: Job[] = [];
   /** The run that settles a drag: its plan replaces the provisional one. */
   #settleRun = 0;
 
@@ -246,7 +248,23 @@ export class PlanRunner {
     return this.#liveQueue.active || this.live !== null;
   }
 
+  /**
+   * While the drag rests (no newer position waiting), the lead worker solves the designs the shown
+   * position lacks, one at a time, into its cache: a newer position waits for one solve at most,
+   * and the exact plan at the drag's end finds them done.
+   */
+  #warmNext(): void {
+    const lead = this.#workers[0];
+    if (!lead || this.#run || !this.#liveQueue.active || this.#liveQueue.busy) return;
+    if (this.#busy.get(lead) !== null) return;
+    const job = this.#warm.shift();
+    if (!job) return;
+    this.#busy.set(lead, job.key);
+    lead.post({ type: 'evaluate', runId: 0, job });
+  }
+
   #dropLive(): void {
+    this.#warm = [];
     this.#liveQueue.end();
     this.live = null;
     this.#settleRun = 0;
@@ -475,6 +493,7 @@ export class PlanRunner {
           this.done = run.evaluations;
           if (run.pending.size === 0) return this.#rank(run);
         }
+        if (!run) return this.#warmNext();
         return this.#dispatch();
       }
       case 'ranked': {
@@ -491,6 +510,8 @@ export class PlanRunner {
         const asked = this.#liveQueue.answer(m.liveId);
         if (!asked) return;
         const { shortlist, borrowed, leftOut, ms } = m;
+        this.#warm = m.missing;
+        this.#warmNext();
         const following = this.#liveQueue.following;
         this.live = {
           shortlist,

@@ -194,6 +194,17 @@ export class Planning {
     this.#keepView();
   }
 
+  /** The plan also places arrays (the project's `settings.planArrays`). */
+  arrays: boolean = $derived.by(() => this.#doc.project?.settings.planArrays === true);
+
+  /** Turn the array types on or off for the next run (an undoable edit of the project's settings). */
+  setArrays(on: boolean): boolean {
+    return this.#doc.edit(on ? 'plan arrays too' : 'plan single antennas only', (q) => ({
+      ...q,
+      settings: { ...q.settings, planArrays: on },
+    }));
+  }
+
   toggleBand(b: Band): boolean {
     const has = this.bands.includes(b);
     if (has && this.bands.length === 1) return false;

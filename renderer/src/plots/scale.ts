@@ -92,3 +92,28 @@ export function wedgePath(
     `L${fmt(x2)},${fmt(y2)}A${fmt(r0)},${fmt(r0)} 0 ${large} 0 ${fmt(x3)},${fmt(y3)}Z`
   );
 }
+
+/** A Cartesian plot: its size in px, the margins around the plotting area, and its two scales. */
+export interface XYFrame {
+  width: number;
+  height: number;
+  margin: { l: number; r: number; t: number; b: number };
+  x: LinearScale;
+  y: LinearScale;
+}
+
+/**
+ * The plotting area of a Cartesian plot inside its margins: the attributes of a full-height band
+ * between two x values (at least `minPx` wide, so a narrow one shows) and of a full-height line.
+ */
+export function plotArea({ height, margin, x }: XYFrame): {
+  band(a: number, b: number, minPx: number): { x: number; y: number; width: number; height: number };
+  vline(v: number): { x1: number; x2: number; y1: number; y2: number };
+} {
+  const top = margin.t;
+  const bottom = height - margin.b;
+  return {
+    band: (a, b, minPx) => ({ x: x(a), y: top, width: Math.max(minPx, x(b) - x(a)), height: bottom - top }),
+    vline: (v) => ({ x1: x(v), x2: x(v), y1: top, y2: bottom }),
+  };
+}

@@ -10,6 +10,7 @@ import { swrOf } from '../../../core/em/swr.ts';
 import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import { enumeratePlan, planFromSetup, type PlanSetup } from '../../../core/rank/plan.ts';
 import { DesignIndex, previewPlan } from '../../../core/rank/preview.ts';
+import { feasibilityMemo } from '../../../core/site/feasibilityMemo.ts';
 import { measureTuning } from '../../../core/report/buildSheet.ts';
 import { tuningProblem } from '../../../core/report/tuning.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
@@ -29,12 +30,17 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
   let last: { runId: number; setup: PlanSetup } | null = null;
   /** The designs behind the cached evaluations, for the stand-ins of a live preview. */
   const designs = new DesignIndex();
+  /**
+   * Feasibility results kept across runs: a moved support changes only the placements that use it
+   * (core/site/feasibilityMemo.ts), so a re-plan and a live preview check only those again.
+   */
+  const feasibility = feasibilityMemo().check;
 
   function handle(msg: ToWorker): FromWorker[] {
     switch (msg.type) {
       case 'enumerate': {
         try {
-          const setup = enumeratePlan(msg.project, { bands: msg.bands });
+          const setup = enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           last = { runId: msg.runId, setup };
           for (const j of setup.jobs) designs.add(j);
           const missing = setup.jobs.filter((j) => !cache.has(j.key));
@@ -77,9 +83,10 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
       case 'preview': {
         const t0 = now();
         try {
-          const setup = enumeratePlan(msg.project, { bands: msg.bands });
+          const setup = enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           const out = previewPlan(setup, msg.project, cache, designs);
-          return [{ type: 'previewed', liveId: msg.liveId, ...out, ms: now() - t0 }];
+          const missing = setup.jobs.filter((j) => !cache.has(j.key));
+          return [{ type: 'previewed', liveId: msg.liveId, ...out, missing, ms: now() - t0 }];
         } catch (e) {
           return [{ type: 'error', liveId: msg.liveId, message: message(e) }];
         }
@@ -88,7 +95,9 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
         const t0 = now();
         try {
           const setup =
-            last?.runId === msg.runId ? last.setup : enumeratePlan(msg.project, { bands: msg.bands });
+            last?.runId === msg.runId
+              ? last.setup
+              : enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           // planSite is planFromSetup(enumeratePlan(...)); the setup of this run's enumeration is reused.
           const shortlist = planFromSetup(setup, msg.project, { evaluator, cache, bands: msg.bands });
           shortlist.stats.evaluations = msg.evaluations;

@@ -62,7 +62,16 @@ export type FromWorker =
   | { type: 'enumerated'; runId: number; missing: Job[]; cached: number; total: number }
   | { type: 'evaluated'; runId: number; key: string; record: EvaluationRecord; ms: number }
   | { type: 'ranked'; runId: number; shortlist: Shortlist; ms: number }
-  | { type: 'previewed'; liveId: number; shortlist: Shortlist; borrowed: number; leftOut: number; ms: number }
+  | {
+      type: 'previewed';
+      liveId: number;
+      shortlist: Shortlist;
+      borrowed: number;
+      leftOut: number;
+      /** The designs of this position not yet solved (the runner has them solved while the drag rests). */
+      missing: Job[];
+      ms: number;
+    }
   | { type: 'swept'; reqId: number; points: SweepPoint[] }
   | { type: 'tuned'; reqId: number; tuning: TuningMeasurement }
   | { type: 'error'; runId?: number; reqId?: number; liveId?: number; key?: string; message: string }

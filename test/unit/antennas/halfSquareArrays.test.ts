@@ -1,7 +1,10 @@
 // Half-square arrays (core/antennas/halfSquareArrays.ts): placement from four supports near a
 // rectangle and three in an L, the designed stub and lines, feasibility of every part, trimming
 // through the network, and loose physical checks marked as such.
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { parseProject } from '../../../core/project/schema.ts';
 import { bandPlan, placeElements } from '../../../core/antennas/common.ts';
 import { builderFor } from '../../../core/antennas/registry.ts';
 import {
@@ -247,4 +250,26 @@ describe('two half-squares at 90° on three supports in an L', () => {
       expect(best, `broadside ${az}°`).toBeGreaterThan(ref - 2);
     }
   }, 30_000);
+});
+
+describe('the example lot with four supports near a rectangle (data/examples)', () => {
+  it('holds every half-square array, each part passing the lot rules', () => {
+    const text = readFileSync(
+      fileURLToPath(new URL('../../../data/examples/four-supports-near-a-rectangle.json', import.meta.url)),
+      'utf8',
+    );
+    const parsed = parseProject(JSON.parse(text));
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
+    expect(parsed.value.settings.planArrays).toBe(true);
+    const site = prepareSite(buildSite(parsed.value));
+    for (const b of [halfSquareReflectorBuilder, halfSquareSwitchedBuilder, halfSquareLBuilder]) {
+      const out = b.propose({ site, band });
+      expect(out.proposals.length, b.type).toBeGreaterThan(0);
+      for (const p of out.proposals)
+        expect(
+          checkPlacement(site, placeElements(b.elements(p.design, p.design.trim.nominalM), p.placement)).ok,
+          `${b.type} ${p.where}`,
+        ).toBe(true);
+    }
+  });
 });

@@ -42,6 +42,18 @@ describe('feasibility memo', () => {
     expect(memo.size()).toBe(1);
   });
 
+  it('tells apart elements that share a hash (labels of one length and first letter)', () => {
+    const memo = feasibilityMemo();
+    const a = prepared();
+    const named = (label: string): Element[] => [{ kind: 'end', label, at: [0, 0, 2] }];
+    const one = memo.check(a, named('end A'));
+    const two = memo.check(a, named('end B'));
+    expect(one.violations[0]!.message).toMatch(/^end A /);
+    expect(two.violations[0]!.message).toMatch(/^end B /);
+    expect(memo.size()).toBe(2);
+    expect(memo.check(a, named('end B'))).toBe(two);
+  });
+
   it('holds at most its limit', () => {
     const memo = feasibilityMemo(3);
     const a = prepared();
