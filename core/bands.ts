@@ -22,34 +22,29 @@ export interface BandInfo {
   segments: Record<BandPart, { lowMHz: number; highMHz: number; designMHz: number; label: string }>;
 }
 
+/** A segment as [low edge, high edge, design frequency], MHz. */
+type SegmentMHz = [number, number, number];
+
+/** One band's entry; its default design frequency is the CW segment's. */
+function bandInfo(band: Band, edgesMHz: [number, number], cw: SegmentMHz, phone: SegmentMHz): BandInfo {
+  const segment = ([lowMHz, highMHz, designMHz]: SegmentMHz, label: string) => ({
+    lowMHz,
+    highMHz,
+    designMHz,
+    label,
+  });
+  return {
+    band,
+    edgesMHz,
+    defaultDesignMHz: cw[2],
+    segments: { cw: segment(cw, 'CW end'), phone: segment(phone, 'phone') },
+  };
+}
+
 export const BAND_INFO: Record<Band, BandInfo> = {
-  '160m': {
-    band: '160m',
-    edgesMHz: [1.8, 2.0],
-    defaultDesignMHz: 1.83,
-    segments: {
-      cw: { lowMHz: 1.8, highMHz: 1.86, designMHz: 1.83, label: 'CW end' },
-      phone: { lowMHz: 1.84, highMHz: 2.0, designMHz: 1.9, label: 'phone' },
-    },
-  },
-  '80m': {
-    band: '80m',
-    edgesMHz: [3.5, 4.0],
-    defaultDesignMHz: 3.55,
-    segments: {
-      cw: { lowMHz: 3.5, highMHz: 3.6, designMHz: 3.55, label: 'CW end' },
-      phone: { lowMHz: 3.6, highMHz: 4.0, designMHz: 3.8, label: 'phone' },
-    },
-  },
-  '40m': {
-    band: '40m',
-    edgesMHz: [7.0, 7.3],
-    defaultDesignMHz: 7.05,
-    segments: {
-      cw: { lowMHz: 7.0, highMHz: 7.1, designMHz: 7.05, label: 'CW end' },
-      phone: { lowMHz: 7.1, highMHz: 7.3, designMHz: 7.2, label: 'phone' },
-    },
-  },
+  '160m': bandInfo('160m', [1.8, 2.0], [1.8, 1.86, 1.83], [1.84, 2.0, 1.9]),
+  '80m': bandInfo('80m', [3.5, 4.0], [3.5, 3.6, 3.55], [3.6, 4.0, 3.8]),
+  '40m': bandInfo('40m', [7.0, 7.3], [7.0, 7.1, 7.05], [7.1, 7.3, 7.2]),
 };
 
 /** The user's choice for one band: a segment, or their own frequency or span (MHz, inside the band). */
@@ -75,4 +70,26 @@ export function operatingSpan(
     };
   }
   return info.segments[choice.part];
+}
+
+/** How a candidate's 2:1 band lies over the span the user operates in. */
+export type OperatingFit = 'inside' | 'partly' | 'outside';
+
+/**
+ * Whether the user's span lies inside the candidate's 2:1 band (an edge beyond the sweep, null,
+ * counts as reaching past the span), partly, or not at all (no 2:1 band without a match).
+ */
+export function operatingFit(
+  c: {
+    feed: { swr: number };
+    bandwidth2to1: { lowMHz: number | null; highMHz: number | null; widthKHz: number };
+  },
+  span: { lowMHz: number; highMHz: number },
+): OperatingFit {
+  const bw = c.bandwidth2to1;
+  if (c.feed.swr > 2 || !(bw.widthKHz > 0)) return 'outside';
+  const lo = bw.lowMHz ?? -Infinity;
+  const hi = bw.highMHz ?? Infinity;
+  if (lo <= span.lowMHz && hi >= span.highMHz) return 'inside';
+  return lo < span.highMHz && hi > span.lowMHz ? 'partly' : 'outside';
 }

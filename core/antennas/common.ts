@@ -1,13 +1,25 @@
 /**
  * Shared pieces of the antenna builders: band design frequencies, wire size, segmenting, the cut
- * allowance and rope limits.
+ * allowance and rope limits; collecting proposals and rejections, and the frame across two supports.
  */
 import type { Band } from '../project/schema.ts';
 import { mhzToHz, wavelengthM } from '../units/index.ts';
 import { BAND_INFO, operatingSpan, type OperatingChoice } from '../bands.ts';
 import type { Element } from '../site/feasibility.ts';
-import { placeXY, placeXYZ, type XYZ } from '../site/geometry.ts';
-import type { BandPlan, CutItem, CutKind, Design, ModelWire, Placement } from './types.ts';
+import type { SiteSupport } from '../site/site.ts';
+import { bearingOf, placeXY, placeXYZ, type XYZ } from '../site/geometry.ts';
+import type {
+  AntennaTypeId,
+  BandPlan,
+  CutItem,
+  CutKind,
+  Design,
+  DesignParams,
+  ModelWire,
+  Placement,
+  Proposal,
+  Rejection,
+} from './types.ts';
 
 /**
  * Default design frequencies, Hz (core/bands.ts): 160 m 1.83 MHz, 80 m 3.55 MHz, 40 m 7.05 MHz,
@@ -27,8 +39,6 @@ export function bandPlan(band: Band, choice?: OperatingChoice): BandPlan {
 
 /** Wire radius of the model: 2 mm diameter copper, a usual antenna wire (common practice, no source). */
 export const WIRE_RADIUS_M = 0.001;
-/** Radial wire radius: 1.6 mm diameter (common practice, no source). */
-export const RADIAL_RADIUS_M = 0.0008;
 /** Cut allowance per end for the loop through an insulator or the connection, metres (common practice, no source). */
 export const CUT_ALLOWANCE_PER_END_M = 0.2;
 /** Default of settings.maxRopeM: longest rope between a wire end and its support, metres (common practice, no source). */
@@ -94,6 +104,7 @@ export function placeElements(elements: readonly Element[], p: Placement): Eleme
     switch (e.kind) {
       case 'wire':
       case 'rope':
+      case 'coax':
       case 'radial':
         return {
           ...e,
@@ -110,40 +121,65 @@ export function placeElements(elements: readonly Element[], p: Placement): Eleme
   });
 }
 
-/** Radial elements of a ground system at `base` (canonical), lengths in canonical bearing order. */
-export function radialElements(lengthsM: readonly number[], base: XYZ = [0, 0, 0]): Element[] {
-  const n = lengthsM.length;
-  return lengthsM.map((len, k) => {
-    const b = (k * 2 * Math.PI) / n;
-    return {
-      kind: 'radial' as const,
-      label: `radial ${k + 1}`,
-      from: base,
-      to: [base[0] + len * Math.sin(b), base[1] + len * Math.cos(b), 0] as XYZ,
-    };
-  });
-}
-
 export const round = (v: number, digits = 2): number => Math.round(v * 10 ** digits) / 10 ** digits;
 
-/** Shortest radial worth laying, metres; shorter clipped radials are left out (common practice, no source). */
-export const MIN_RADIAL_M = 1;
+/** One builder's proposals and rejections on one band, and the designs it proposes. */
+export interface ProposalList {
+  proposals: Proposal[];
+  rejections: Rejection[];
+  /** Record that a placement (or the type) was not proposed, with the reasons in plain words. */
+  reject(supports: string[], where: string, ...reasons: string[]): void;
+  /** A design of this type on this band. */
+  design(params: DesignParams, trim: Design['trim'], states?: Design['states']): Design;
+  /** What `Builder.propose` returns. */
+  result(): { proposals: Proposal[]; rejections: Rejection[] };
+}
+
+export function proposalList(type: AntennaTypeId, band: BandPlan): ProposalList {
+  const proposals: Proposal[] = [];
+  const rejections: Rejection[] = [];
+  return {
+    proposals,
+    rejections,
+    reject(supports, where, ...reasons) {
+      rejections.push({ type, band: band.band, supports, where, reasons });
+    },
+    design(params, trim, states) {
+      const d: Design = { type, band: band.band, designFreqHz: band.designFreqHz, params, trim };
+      if (states) d.states = states;
+      return d;
+    },
+    result: () => ({ proposals, rejections }),
+  };
+}
+
+/** Every unordered pair of supports, in list order. */
+export function supportPairs(supports: readonly SiteSupport[]): [SiteSupport, SiteSupport][] {
+  return supports.flatMap((a, i) => supports.slice(i + 1).map((b): [SiteSupport, SiteSupport] => [a, b]));
+}
 
 /**
- * Radial lengths for a ground system at site point `baseXY`, `count` radials of `nominalM` at equal
- * bearings from canonical north (site bearing = canonical + rotationDeg), each clipped by the lot and
- * keep-outs. Radials shorter than MIN_RADIAL_M are left out.
+ * The canonical frame of a wire across supports a and b (a at −x, b at +x, origin midway) and its
+ * broadside bearings in plan, both ways.
  */
-export function clippedRadials(
-  clip: (bearingDeg: number, nominalM: number) => number,
-  rotationDeg: number,
-  count: number,
-  nominalM: number,
-): number[] {
-  const out: number[] = [];
-  for (let k = 0; k < count; k++) {
-    const len = clip(rotationDeg + (k * 360) / count, nominalM);
-    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
-  }
-  return out;
+export function acrossSupports(
+  a: SiteSupport,
+  b: SiteSupport,
+): { placement: Placement; broadsideDeg: number[] } {
+  const bearing = bearingOf(a.xy, b.xy);
+  return {
+    placement: {
+      originXY: [(a.xy[0] + b.xy[0]) / 2, (a.xy[1] + b.xy[1]) / 2],
+      rotationDeg: bearing - 90,
+    },
+    broadsideDeg: [(bearing + 90) % 360, (bearing + 270) % 360],
+  };
+}
+
+/** The two supports of a design across supports, at (∓spanM/2, 0), as elements. */
+export function supportPairElements(spanM: number, heightAM: number, heightBM: number): Element[] {
+  return [
+    { kind: 'support', label: 'support A', supportId: 'A', at: [-spanM / 2, 0], heightM: heightAM },
+    { kind: 'support', label: 'support B', supportId: 'B', at: [spanM / 2, 0], heightM: heightBM },
+  ];
 }

@@ -11,9 +11,20 @@
 import type { Element } from '../site/feasibility.ts';
 import { whereToChange } from '../project/settingLimits.ts';
 import type { XYZ } from '../site/geometry.ts';
-import { bearingOf, dist2 } from '../site/geometry.ts';
-import { cut, lambdaOf, num, round, wire, wireLength } from './common.ts';
-import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
+import { dist2 } from '../site/geometry.ts';
+import {
+  acrossSupports,
+  cut,
+  lambdaOf,
+  num,
+  proposalList,
+  round,
+  supportPairElements,
+  supportPairs,
+  wire,
+  wireLength,
+} from './common.ts';
+import type { Builder, Design, WireModel } from './types.ts';
 
 interface Shape {
   top: [XYZ, XYZ];
@@ -69,72 +80,45 @@ export const dipoleBuilder: Builder = {
   type: 'dipole',
   label: 'Dipole between two supports',
   propose({ site, band }) {
-    const proposals: Proposal[] = [];
-    const rejections: Rejection[] = [];
-    const sup = site.site.supports;
+    const out = proposalList('dipole', band);
     const nominal = 0.48 * band.wavelengthM;
-    for (let i = 0; i < sup.length; i++) {
-      for (let j = i + 1; j < sup.length; j++) {
-        const a = sup[i];
-        const b = sup[j];
-        const s = dist2(a.xy, b.xy);
-        const where = `between ${a.name} and ${b.name}`;
-        const ropeM = (s - nominal) / 2;
-        if (ropeM > site.site.settings.maxRopeM) {
-          rejections.push({
-            type: 'dipole',
-            band: band.band,
-            supports: [a.id, b.id],
-            where,
-            reasons: [
-              `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
-            ],
-          });
-          continue;
-        }
-        // Longest wire whose hanging ends stay at or above the end height.
-        const e = site.site.settings.minEndHeightM;
-        const lineLen = Math.hypot(s, b.heightM - a.heightM);
-        const maxM = Math.min(0.56 * band.wavelengthM, lineLen + 2 * (Math.min(a.heightM, b.heightM) - e));
-        const minM = 0.4 * band.wavelengthM;
-        if (maxM < 0.9 * nominal) {
-          rejections.push({
-            type: 'dipole',
-            band: band.band,
-            supports: [a.id, b.id],
-            where,
-            reasons: [
-              `span ${s.toFixed(1)} m is too short: a ${nominal.toFixed(1)} m wire's ends would hang below the ${e.toFixed(1)} m end height`,
-            ],
-          });
-          continue;
-        }
-        const bearing = bearingOf(a.xy, b.xy);
-        proposals.push({
-          design: {
-            type: 'dipole',
-            band: band.band,
-            designFreqHz: band.designFreqHz,
-            params: { spanM: round(s, 3), heightAM: a.heightM, heightBM: b.heightM },
-            trim: {
-              name: 'total wire length',
-              nominalM: Math.min(nominal, maxM),
-              minM: Math.min(minM, maxM),
-              maxM,
-            },
-          },
-          placement: {
-            originXY: [(a.xy[0] + b.xy[0]) / 2, (a.xy[1] + b.xy[1]) / 2],
-            rotationDeg: bearing - 90,
-          },
-          supports: [a.id, b.id],
-          groupKey: `dipole:${a.id}:${b.id}`,
+    for (const [a, b] of supportPairs(site.site.supports)) {
+      const s = dist2(a.xy, b.xy);
+      const where = `between ${a.name} and ${b.name}`;
+      const ropeM = (s - nominal) / 2;
+      if (ropeM > site.site.settings.maxRopeM) {
+        out.reject(
+          [a.id, b.id],
           where,
-          broadsideDeg: [(bearing + 90) % 360, (bearing + 270) % 360],
-        });
+          `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
+        );
+        continue;
       }
+      // Longest wire whose hanging ends stay at or above the end height.
+      const e = site.site.settings.minEndHeightM;
+      const lineLen = Math.hypot(s, b.heightM - a.heightM);
+      const maxM = Math.min(0.56 * band.wavelengthM, lineLen + 2 * (Math.min(a.heightM, b.heightM) - e));
+      const minM = 0.4 * band.wavelengthM;
+      if (maxM < 0.9 * nominal) {
+        out.reject(
+          [a.id, b.id],
+          where,
+          `span ${s.toFixed(1)} m is too short: a ${nominal.toFixed(1)} m wire's ends would hang below the ${e.toFixed(1)} m end height`,
+        );
+        continue;
+      }
+      out.proposals.push({
+        design: out.design(
+          { spanM: round(s, 3), heightAM: a.heightM, heightBM: b.heightM },
+          { name: 'total wire length', nominalM: Math.min(nominal, maxM), minM: Math.min(minM, maxM), maxM },
+        ),
+        ...acrossSupports(a, b),
+        supports: [a.id, b.id],
+        groupKey: `dipole:${a.id}:${b.id}`,
+        where,
+      });
     }
-    return { proposals, rejections };
+    return out.result();
   },
   model(d, L): WireModel {
     const lambda = lambdaOf(d);
@@ -161,8 +145,7 @@ export const dipoleBuilder: Builder = {
         to: q,
       })),
       ...sh.ends.map((p, k): Element => ({ kind: 'end', label: `wire end ${k === 0 ? 'A' : 'B'}`, at: p })),
-      { kind: 'support', label: 'support A', supportId: 'A', at: [-s / 2, 0], heightM: num(d, 'heightAM') },
-      { kind: 'support', label: 'support B', supportId: 'B', at: [s / 2, 0], heightM: num(d, 'heightBM') },
+      ...supportPairElements(s, num(d, 'heightAM'), num(d, 'heightBM')),
     ];
     return els;
   },

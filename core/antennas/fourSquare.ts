@@ -22,20 +22,15 @@
  * not trimmed through the box (see `propose`); trimming each alone over the project's soil is
  * left to do.
  */
-import { clipRadial, requiredClearance, boundaryDistance, keepOutDistance } from '../site/feasibility.ts';
 import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
-import { RADIAL_RADIUS_M, arr, cut, lambdaOf, num, radialElements, round, wire } from './common.ts';
-import { SPOT_GRID_M, VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
-import {
-  COAX_LOSS_DB_PER_100M,
-  COAX_LOSS_REFERENCE_MHZ,
-  COAX_VELOCITY_FACTOR,
-  radialsCutAtMidlines,
-} from './verticalPair.ts';
-import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
+import { cut, num, round } from './common.ts';
+import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
+import { COAX_LOSS_DB_PER_100M, COAX_LOSS_REFERENCE_MHZ, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
+import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
+import type { Builder, Design, WireModel } from './types.ts';
 
 /** Characteristic impedance of the current-forcing lines (75 Ω coax; common practice, no source). */
 export const FORCING_LINE_Z0_OHM = 75;
@@ -88,17 +83,8 @@ export function fourSquareNetwork(d: Design): NetworkSpec {
 }
 
 function fourSquareModel(d: Design, H: number): WireModel {
-  const lambda = lambdaOf(d);
-  const corners = fourSquareCorners(num(d, 'sideM'));
-  const wires = corners.map((c, i) => wire([c[0], c[1], 0], [c[0], c[1], H], lambda, `vertical ${NAMES[i]}`));
-  const radials = corners.flatMap((_, i) => {
-    const l = arr(d, `radialLengths${NAMES[i]}M`);
-    return l.length ? [{ wire: i, count: l.length, lengthsM: l, radiusM: RADIAL_RADIUS_M }] : [];
-  });
   return {
-    wires,
-    feeds: corners.map((_, i) => ({ wire: i, position: 0 })),
-    radials,
+    ...verticalsModel(d, H, fourSquareCorners(num(d, 'sideM')), NAMES),
     network: fourSquareNetwork(d),
     radialsBonded: true,
     referenceFeed: 2,
@@ -110,134 +96,47 @@ export const fourSquareBuilder: Builder = {
   label: 'Four-square of quarter-wave verticals (hybrid-coupler feed)',
   array: true,
   elementCount: 4,
-  propose({ site, band }) {
-    const proposals: Proposal[] = [];
-    const rejections: Rejection[] = [];
-    const st = site.site.settings;
-    const lambda = band.wavelengthM;
+  propose(ctx) {
+    const lambda = ctx.band.wavelengthM;
     const nominal = VERTICAL_NOMINAL_FRACTION * lambda;
     const side = 0.25 * lambda;
-    // The four are cut to a single vertical's resonant height and not trimmed through the box:
-    // the hybrid hides the elements' reactance, so trimming for the station line's reactance
-    // shortens them until the dump resistor takes a large share (measured: 42 % against 9 % at
-    // the resonant height, 80 m over very good ground; test/unit/antennas/fourSquare.test.ts).
-    const trim = {
-      name: "height of the four verticals (a single vertical's resonant height)",
-      nominalM: nominal,
-      minM: nominal,
-      maxM: nominal,
-    };
-    const where = 'self-supporting four-square at a free spot';
-    if (nominal > st.maxVerticalHeightM) {
-      rejections.push({
-        type: 'four-square',
-        band: band.band,
-        supports: [],
-        where,
-        reasons: [
-          `four quarter-wave verticals (about ${nominal.toFixed(1)} m) are taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit`,
-        ],
-      });
-      return { proposals, rejections };
-    }
-    const corners = fourSquareCorners(side);
-    const toSite = (xy: XY, rot: number, c: XY): XY => {
-      const r = (rot * Math.PI) / 180;
-      return [
-        xy[0] + c[0] * Math.cos(r) + c[1] * Math.sin(r),
-        xy[1] - c[0] * Math.sin(r) + c[1] * Math.cos(r),
-      ];
-    };
-    const free = (p: XY): boolean =>
-      boundaryDistance(site, p) >= st.setbackM &&
-      !site.site.keepOuts.some((k, i) => keepOutDistance(site, i, p) < requiredClearance(k, trim.maxM));
-    const b = site.site.boundary;
-    const xs = b.map((p) => p[0]);
-    const ys = b.map((p) => p[1]);
-    const spots: { xy: XY; rot: number; total: number }[] = [];
-    for (let x = Math.min(...xs); x <= Math.max(...xs); x += SPOT_GRID_M)
-      for (let y = Math.min(...ys); y <= Math.max(...ys); y += SPOT_GRID_M)
-        for (const rot of FOUR_SQUARE_AXES_DEG) {
-          const xy: XY = [x, y];
-          const at = corners.map((c) => toSite(xy, rot, c));
-          if (!at.every(free)) continue;
-          let total = 0;
-          for (const p of at)
-            for (let k = 0; k < 8; k++) total += clipRadial(site, p, rot + k * 45, 0.25 * lambda);
-          spots.push({ xy, rot, total });
-        }
-    spots.sort((p, q) => q.total - p.total);
-    const chosen = spots.slice(0, FOUR_SQUARE_SPOT_COUNT);
-    if (chosen.length === 0)
-      rejections.push({
-        type: 'four-square',
-        band: band.band,
-        supports: [],
-        where,
-        reasons: [
-          `no free spot on the lot holds a ${side.toFixed(1)} m square of masts clear of the setback and every keep-out`,
-        ],
-      });
-    chosen.forEach(({ xy, rot }, k) => {
-      const params: Design['params'] = {
-        sideM: round(side, 2),
-        lineLengthM: round(quarterWaveCoaxM(band.designFreqHz), 2),
-      };
-      corners.forEach((c, i) => {
-        const others = corners.filter((_, j) => j !== i);
-        params[`radialLengths${NAMES[i]}M`] = radialsCutAtMidlines(
-          (bg, n) => clipRadial(site, toSite(xy, rot, c), bg, n),
-          rot,
-          c,
-          others,
-          st.radialCount,
-          0.25 * lambda,
-        );
-      });
-      proposals.push({
-        design: {
-          type: 'four-square',
-          band: band.band,
-          designFreqHz: band.designFreqHz,
-          params,
-          trim,
-          states: NAMES.map((n, i) => ({ name: `beam toward vertical ${n}`, rotationDeg: 90 * i })),
-        },
-        placement: { originXY: xy, rotationDeg: rot },
-        supports: [],
-        groupKey: `four-square:free:${k}`,
+    return proposeVerticalArray('four-square', ctx, {
+      groupWords: 'four quarter-wave verticals',
+      where: 'self-supporting four-square at a free spot',
+      bases: fourSquareCorners(side),
+      names: NAMES,
+      axesDeg: FOUR_SQUARE_AXES_DEG,
+      count: FOUR_SQUARE_SPOT_COUNT,
+      minApartM: 0,
+      // The four are cut to a single vertical's resonant height and not trimmed through the box:
+      // the hybrid hides the elements' reactance, so trimming for the station line's reactance
+      // shortens them until the dump resistor takes a large share (measured: 42 % against 9 % at
+      // the resonant height, 80 m over very good ground; test/unit/antennas/fourSquare.test.ts).
+      trim: {
+        name: "height of the four verticals (a single vertical's resonant height)",
+        nominalM: nominal,
+        minM: nominal,
+        maxM: nominal,
+      },
+      noSpotReason: `no free spot on the lot holds a ${side.toFixed(1)} m square of masts clear of the setback and every keep-out`,
+      params: { sideM: round(side, 2), lineLengthM: round(quarterWaveCoaxM(ctx.band.designFreqHz), 2) },
+      states: NAMES.map((n, i) => ({ name: `beam toward vertical ${n}`, rotationDeg: 90 * i })),
+      describe: ({ xy, rotationDeg: rot }) => ({
         where: `self-supporting four-square centred at (${xy[0].toFixed(0)} m E, ${xy[1].toFixed(0)} m N)`,
         broadsideDeg: [0, 90, 180, 270].map((r) => (rot + r) % 360),
-      });
+      }),
     });
-    return { proposals, rejections };
   },
   model: fourSquareModel,
   elements(d, H): Element[] {
-    const corners = fourSquareCorners(num(d, 'sideM'));
-    return corners.flatMap((c, i): Element[] => [
-      { kind: 'wire', label: `vertical ${NAMES[i]}`, from: [c[0], c[1], 0], to: [c[0], c[1], H] },
-      { kind: 'mast', label: `self-supporting vertical ${NAMES[i]}`, at: c, heightM: H },
-      ...radialElements(arr(d, `radialLengths${NAMES[i]}M`), [c[0], c[1], 0]).map((e) => ({
-        ...e,
-        label: `${NAMES[i]} ${e.label}`,
-      })),
-    ]);
+    return fourSquareCorners(num(d, 'sideM')).flatMap((c, i): Element[] => {
+      const v = verticalParts(d, H, c, NAMES[i]);
+      return [v.wire, v.mast, ...v.radials];
+    });
   },
-  heights(_d, H) {
-    return [
-      { label: 'feed points (bases)', heightM: 0 },
-      { label: 'top of each vertical', heightM: H },
-    ];
-  },
+  heights: (_d, H) => groupHeights(H),
   cutList(d, H) {
-    const items = [cut('vertical radiator (four)', 4, H)];
-    const byLen = new Map<number, number>();
-    for (const n of NAMES)
-      for (const l of arr(d, `radialLengths${n}M`)) byLen.set(l, (byLen.get(l) ?? 0) + 1);
-    [...byLen.entries()]
-      .sort((p, q) => q[0] - p[0])
-      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1, 'radial')));
+    const items = groupCuts(d, H, NAMES, 'vertical radiator (four)');
     items.push(
       cut(
         '75 Ω coax, control box to each vertical (electrical quarter wave, VF 0.66)',

@@ -12,21 +12,32 @@
 import type { Element } from '../site/feasibility.ts';
 import { whereToChange } from '../project/settingLimits.ts';
 import type { XYZ } from '../site/geometry.ts';
-import { bearingOf, dist2 } from '../site/geometry.ts';
-import { cut, lambdaOf, num, round, wire } from './common.ts';
-import type { Builder, Design, ModelWire, Proposal, Rejection, WireModel } from './types.ts';
+import { dist2 } from '../site/geometry.ts';
+import {
+  acrossSupports,
+  cut,
+  lambdaOf,
+  num,
+  proposalList,
+  round,
+  supportPairElements,
+  supportPairs,
+  wire,
+} from './common.ts';
+import type { Builder, Design, ModelWire, WireModel } from './types.ts';
 
 /** Top wire length as a fraction of the wavelength (common practice, no source). */
 export const TOP_FRACTION = 0.5;
 
-interface Side {
+export interface Side {
   corner: XYZ;
   bottom: XYZ;
   end: XYZ;
   bent: boolean;
 }
 
-function sides(d: Design, dropM: number): { top: [XYZ, XYZ]; A: Side; B: Side; s: number } {
+/** The top wire and both sides at drop length `dropM`, centred on the origin along x (also used by the half-square arrays). */
+export function sides(d: Design, dropM: number): { top: [XYZ, XYZ]; A: Side; B: Side; s: number } {
   const s = num(d, 'spanM');
   const T = num(d, 'topM');
   const h = num(d, 'heightM');
@@ -52,70 +63,56 @@ export const halfSquareBuilder: Builder = {
   type: 'half-square',
   label: 'Half-square between two supports',
   propose({ site, band }) {
-    const proposals: Proposal[] = [];
-    const rejections: Rejection[] = [];
-    const sup = site.site.supports;
+    const out = proposalList('half-square', band);
     const e = site.site.settings.minEndHeightM;
     const T = TOP_FRACTION * band.wavelengthM;
-    for (let i = 0; i < sup.length; i++) {
-      for (let j = i + 1; j < sup.length; j++) {
-        let a = sup[i];
-        let b = sup[j];
-        const s = dist2(a.xy, b.xy);
-        const where = `between ${a.name} and ${b.name}`;
-        const reasons: string[] = [];
-        if (s < T) reasons.push(`span ${s.toFixed(1)} m is shorter than the ${T.toFixed(1)} m top wire`);
-        else if ((s - T) / 2 > site.site.settings.maxRopeM) {
-          reasons.push(
-            `span ${s.toFixed(1)} m needs ropes of ${((s - T) / 2).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
-          );
-        }
-        const h = Math.min(a.heightM, b.heightM);
-        if (h - e < 0.05 * band.wavelengthM) {
-          reasons.push(
-            `the lower support (${h.toFixed(1)} m) leaves too little height above the ${e.toFixed(1)} m end height`,
-          );
-        }
-        if (reasons.length) {
-          rejections.push({ type: 'half-square', band: band.band, supports: [a.id, b.id], where, reasons });
-          continue;
-        }
-        // Feed at the corner nearer the station: make that support A (canonical −x).
-        if (dist2(b.xy, site.site.station) < dist2(a.xy, site.site.station)) [a, b] = [b, a];
-        const bearing = bearingOf(a.xy, b.xy);
-        proposals.push({
-          design: {
-            type: 'half-square',
-            band: band.band,
-            designFreqHz: band.designFreqHz,
-            params: {
-              spanM: round(s, 3),
-              topM: round(T, 3),
-              heightM: h,
-              endHeightM: e,
-              supportAM: a.heightM,
-              supportBM: b.heightM,
-            },
-            trim: {
-              name: 'length of each drop',
-              nominalM: 0.245 * band.wavelengthM,
-              minM: 0.15 * band.wavelengthM,
-              // Bent ends may not reach past the middle of the top wire.
-              maxM: Math.min(0.33 * band.wavelengthM, h - e + T / 2 - 1),
-            },
-          },
-          placement: {
-            originXY: [(a.xy[0] + b.xy[0]) / 2, (a.xy[1] + b.xy[1]) / 2],
-            rotationDeg: bearing - 90,
-          },
-          supports: [a.id, b.id],
-          groupKey: `half-square:${[a.id, b.id].sort().join(':')}`,
-          where: `${where}, fed at the ${a.name} corner`,
-          broadsideDeg: [(bearing + 90) % 360, (bearing + 270) % 360],
-        });
+    for (let [a, b] of supportPairs(site.site.supports)) {
+      const s = dist2(a.xy, b.xy);
+      const where = `between ${a.name} and ${b.name}`;
+      const reasons: string[] = [];
+      if (s < T) reasons.push(`span ${s.toFixed(1)} m is shorter than the ${T.toFixed(1)} m top wire`);
+      else if ((s - T) / 2 > site.site.settings.maxRopeM) {
+        reasons.push(
+          `span ${s.toFixed(1)} m needs ropes of ${((s - T) / 2).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
+        );
       }
+      const h = Math.min(a.heightM, b.heightM);
+      if (h - e < 0.05 * band.wavelengthM) {
+        reasons.push(
+          `the lower support (${h.toFixed(1)} m) leaves too little height above the ${e.toFixed(1)} m end height`,
+        );
+      }
+      if (reasons.length) {
+        out.reject([a.id, b.id], where, ...reasons);
+        continue;
+      }
+      // Feed at the corner nearer the station: make that support A (canonical −x).
+      if (dist2(b.xy, site.site.station) < dist2(a.xy, site.site.station)) [a, b] = [b, a];
+      out.proposals.push({
+        design: out.design(
+          {
+            spanM: round(s, 3),
+            topM: round(T, 3),
+            heightM: h,
+            endHeightM: e,
+            supportAM: a.heightM,
+            supportBM: b.heightM,
+          },
+          {
+            name: 'length of each drop',
+            nominalM: 0.245 * band.wavelengthM,
+            minM: 0.15 * band.wavelengthM,
+            // Bent ends may not reach past the middle of the top wire.
+            maxM: Math.min(0.33 * band.wavelengthM, h - e + T / 2 - 1),
+          },
+        ),
+        ...acrossSupports(a, b),
+        supports: [a.id, b.id],
+        groupKey: `half-square:${[a.id, b.id].sort().join(':')}`,
+        where: `${where}, fed at the ${a.name} corner`,
+      });
     }
-    return { proposals, rejections };
+    return out.result();
   },
   model(d, dropM): WireModel {
     const lambda = lambdaOf(d);
@@ -139,8 +136,7 @@ export const halfSquareBuilder: Builder = {
       { kind: 'end', label: 'lower end B', at: B.end },
       { kind: 'rope', label: 'tie-down A', from: A.end, to: [A.end[0], 0, 0] },
       { kind: 'rope', label: 'tie-down B', from: B.end, to: [B.end[0], 0, 0] },
-      { kind: 'support', label: 'support A', supportId: 'A', at: [-s / 2, 0], heightM: num(d, 'supportAM') },
-      { kind: 'support', label: 'support B', supportId: 'B', at: [s / 2, 0], heightM: num(d, 'supportBM') },
+      ...supportPairElements(s, num(d, 'supportAM'), num(d, 'supportBM')),
     ];
     if (A.bent) els.push({ kind: 'wire', label: 'bent end A', from: A.bottom, to: A.end });
     if (B.bent) els.push({ kind: 'wire', label: 'bent end B', from: B.bottom, to: B.end });

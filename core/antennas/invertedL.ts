@@ -11,18 +11,9 @@ import { whereToChange } from '../project/settingLimits.ts';
 import type { Element } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
 import { bearingOf, dist2 } from '../site/geometry.ts';
-import {
-  RADIAL_RADIUS_M,
-  arr,
-  clippedRadials,
-  cut,
-  lambdaOf,
-  num,
-  radialElements,
-  round,
-  wire,
-} from './common.ts';
-import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
+import { arr, cut, lambdaOf, num, proposalList, round, wire } from './common.ts';
+import { baseFedModel, clippedRadials, radialCuts, radialElements } from './radials.ts';
+import type { Builder, Design, WireModel } from './types.ts';
 
 /** Nominal total length as a fraction of the wavelength (common practice, no source). */
 export const INVERTED_L_NOMINAL_FRACTION = 0.26;
@@ -46,8 +37,7 @@ export const invertedLBuilder: Builder = {
   type: 'inverted-l',
   label: 'Inverted-L up one support toward another',
   propose({ site, band }) {
-    const proposals: Proposal[] = [];
-    const rejections: Rejection[] = [];
+    const out = proposalList('inverted-l', band);
     const st = site.site.settings;
     const lambda = band.wavelengthM;
     const nominal = INVERTED_L_NOMINAL_FRACTION * lambda;
@@ -56,15 +46,11 @@ export const invertedLBuilder: Builder = {
       // Tall enough for a plain vertical (or nearly: the top part would be a stub).
       if (a.heightM >= INVERTED_L_MAX_VERTICAL_FRACTION * lambda) continue;
       if (a.heightM < 0.08 * lambda) {
-        rejections.push({
-          type: 'inverted-l',
-          band: band.band,
-          supports: [a.id],
-          where: `up ${a.name}`,
-          reasons: [
-            `${a.name} at ${a.heightM.toFixed(1)} m is too short for the vertical part (at least ${(0.08 * lambda).toFixed(1)} m)`,
-          ],
-        });
+        out.reject(
+          [a.id],
+          `up ${a.name}`,
+          `${a.name} at ${a.heightM.toFixed(1)} m is too short for the vertical part (at least ${(0.08 * lambda).toFixed(1)} m)`,
+        );
         continue;
       }
       let tried = 0;
@@ -75,54 +61,42 @@ export const invertedLBuilder: Builder = {
         const horiz = nominal - a.heightM;
         const where = `up ${a.name} toward ${b.name}`;
         if (run < horiz * 1.1 || run - horiz > site.site.settings.maxRopeM) {
-          rejections.push({
-            type: 'inverted-l',
-            band: band.band,
-            supports: [a.id, b.id],
+          out.reject(
+            [a.id, b.id],
             where,
-            reasons: [
-              run < horiz * 1.1
-                ? `${b.name} is ${s.toFixed(1)} m away, too close for a ${horiz.toFixed(1)} m top wire`
-                : `${b.name} is ${s.toFixed(1)} m away: the rope would be ${(run - horiz).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
-            ],
-          });
+            run < horiz * 1.1
+              ? `${b.name} is ${s.toFixed(1)} m away, too close for a ${horiz.toFixed(1)} m top wire`
+              : `${b.name} is ${s.toFixed(1)} m away: the rope would be ${(run - horiz).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
+          );
           continue;
         }
         if (tried >= INVERTED_L_FAR_SUPPORTS) {
-          rejections.push({
-            type: 'inverted-l',
-            band: band.band,
-            supports: [a.id, b.id],
+          out.reject(
+            [a.id, b.id],
             where,
-            reasons: [
-              `only the ${INVERTED_L_FAR_SUPPORTS} nearest usable far supports are tried for an inverted-L up ${a.name}`,
-            ],
-          });
+            `only the ${INVERTED_L_FAR_SUPPORTS} nearest usable far supports are tried for an inverted-L up ${a.name}`,
+          );
           continue;
         }
         tried++;
-        const bearing = bearingOf(a.xy, b.xy);
         // Radials are listed from canonical north; the placement rotates by bearing − 90, so re-clip in that frame.
-        const rot = bearing - 90;
+        const rot = bearingOf(a.xy, b.xy) - 90;
         const lengths = clippedRadials(
           (bb, n) => clipRadial(site, a.xy, bb, n),
           rot,
           st.radialCount,
           0.25 * lambda,
         );
-        proposals.push({
-          design: {
-            type: 'inverted-l',
-            band: band.band,
-            designFreqHz: band.designFreqHz,
-            params: { heightAM: a.heightM, heightBM: b.heightM, spanM: round(s, 3), radialLengthsM: lengths },
-            trim: {
+        out.proposals.push({
+          design: out.design(
+            { heightAM: a.heightM, heightBM: b.heightM, spanM: round(s, 3), radialLengthsM: lengths },
+            {
               name: 'total wire length',
               nominalM: nominal,
               minM: a.heightM + 1,
               maxM: Math.min(0.4 * lambda, a.heightM + run),
             },
-          },
+          ),
           placement: { originXY: a.xy, rotationDeg: rot },
           supports: [a.id, b.id],
           groupKey: `inverted-l:${a.id}:${b.id}`,
@@ -131,20 +105,15 @@ export const invertedLBuilder: Builder = {
         });
       }
     }
-    return { proposals, rejections };
+    return out.result();
   },
   model(d, L): WireModel {
     const lambda = lambdaOf(d);
     const { top, end } = shape(d, L);
-    const v = wire([0, 0, 0], top, lambda, 'vertical part');
-    const lengths = arr(d, 'radialLengthsM');
-    return {
-      wires: [v, wire(top, end, lambda, 'top part')],
-      feeds: [{ wire: 0, position: 0 }],
-      radials: lengths.length
-        ? [{ wire: 0, count: lengths.length, lengthsM: lengths, radiusM: RADIAL_RADIUS_M }]
-        : [],
-    };
+    return baseFedModel(
+      [wire([0, 0, 0], top, lambda, 'vertical part'), wire(top, end, lambda, 'top part')],
+      arr(d, 'radialLengthsM'),
+    );
   },
   elements(d, L): Element[] {
     const { top, end, far } = shape(d, L);
@@ -167,13 +136,6 @@ export const invertedLBuilder: Builder = {
     ];
   },
   cutList(d, L) {
-    const lengths = arr(d, 'radialLengthsM');
-    const items = [cut('radiator (vertical and top in one piece)', 1, L)];
-    const byLen = new Map<number, number>();
-    for (const l of lengths) byLen.set(l, (byLen.get(l) ?? 0) + 1);
-    [...byLen.entries()]
-      .sort((p, q) => q[0] - p[0])
-      .forEach(([l, n]) => items.push(cut('buried radial', n, l, 1, 'radial')));
-    return items;
+    return [cut('radiator (vertical and top in one piece)', 1, L), ...radialCuts(arr(d, 'radialLengthsM'))];
   },
 };

@@ -12,8 +12,8 @@
  */
 import type { Element } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
-import { cut, lambdaOf, num, wire } from './common.ts';
-import type { Builder, Design, Proposal, Rejection, WireModel } from './types.ts';
+import { cut, lambdaOf, num, proposalList, wire } from './common.ts';
+import type { Builder, Design, WireModel } from './types.ts';
 
 /** Length of the horizontal feed wire at the apex, metres (a modelling detail, common practice, no source). */
 export const APEX_WIRE_M = 1;
@@ -59,38 +59,31 @@ export const invertedVBuilder: Builder = {
   type: 'inverted-v',
   label: 'Inverted-V from one support',
   propose({ site, band }) {
-    const proposals: Proposal[] = [];
-    const rejections: Rejection[] = [];
+    const out = proposalList('inverted-v', band);
     const e = site.site.settings.minEndHeightM;
     for (const s of site.site.supports) {
       if (s.heightM <= e + 1) {
-        rejections.push({
-          type: 'inverted-v',
-          band: band.band,
-          supports: [s.id],
-          where: `from ${s.name}`,
-          reasons: [`${s.name} at ${s.heightM.toFixed(1)} m is not above the ${e.toFixed(1)} m end height`],
-        });
+        out.reject(
+          [s.id],
+          `from ${s.name}`,
+          `${s.name} at ${s.heightM.toFixed(1)} m is not above the ${e.toFixed(1)} m end height`,
+        );
         continue;
       }
       for (const phiDeg of PLAN_ANGLES_DEG) {
         const full = phiDeg === 180 ? 180 : 360;
         for (let beta = 0; beta < full; beta += ORIENTATION_STEP_DEG) {
           // Canonical legs bend toward north; rotation by beta turns canonical north to bearing beta.
-          const broadside = [beta % 360, (beta + 180) % 360];
-          proposals.push({
-            design: {
-              type: 'inverted-v',
-              band: band.band,
-              designFreqHz: band.designFreqHz,
-              params: { heightM: s.heightM, endHeightM: e, planAngleDeg: phiDeg },
-              trim: {
+          out.proposals.push({
+            design: out.design(
+              { heightM: s.heightM, endHeightM: e, planAngleDeg: phiDeg },
+              {
                 name: 'total wire length',
                 nominalM: 0.47 * band.wavelengthM,
                 minM: 0.38 * band.wavelengthM,
                 maxM: 0.56 * band.wavelengthM,
               },
-            },
+            ),
             placement: { originXY: s.xy, rotationDeg: beta },
             supports: [s.id],
             groupKey: `inverted-v:${s.id}:${phiDeg}`,
@@ -98,12 +91,12 @@ export const invertedVBuilder: Builder = {
               phiDeg === 180
                 ? `from ${s.name}, wire along ${((beta + 90) % 180).toFixed(0)}°`
                 : `from ${s.name}, legs ${phiDeg}° apart in plan, opening toward ${beta.toFixed(0)}°`,
-            broadsideDeg: broadside,
+            broadsideDeg: [beta % 360, (beta + 180) % 360],
           });
         }
       }
     }
-    return { proposals, rejections };
+    return out.result();
   },
   model(d, L): WireModel {
     const lambda = lambdaOf(d);

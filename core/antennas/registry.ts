@@ -10,6 +10,11 @@ import type { AntennaTypeId, Builder } from './types.ts';
 import { verticalBuilder } from './vertical.ts';
 import { verticalPairBuilder } from './verticalPair.ts';
 import { fourSquareBuilder } from './fourSquare.ts';
+import {
+  halfSquareLBuilder,
+  halfSquareReflectorBuilder,
+  halfSquareSwitchedBuilder,
+} from './halfSquareArrays.ts';
 
 export const BUILDERS: readonly Builder[] = [
   dipoleBuilder,
@@ -19,6 +24,9 @@ export const BUILDERS: readonly Builder[] = [
   invertedLBuilder,
   verticalPairBuilder,
   fourSquareBuilder,
+  halfSquareReflectorBuilder,
+  halfSquareSwitchedBuilder,
+  halfSquareLBuilder,
 ];
 
 export function builderFor(type: AntennaTypeId): Builder {

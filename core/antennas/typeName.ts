@@ -14,6 +14,9 @@ const TYPE_NAMES: Record<string, string> = {
   'inverted-l': 'Inverted-L',
   'vertical-pair': 'Switched vertical pair',
   'four-square': 'Four-square',
+  'half-square-reflector': 'Half-square + reflector',
+  'half-square-switched': 'Switched half-square pair',
+  'half-square-l': 'Half-square L (switched)',
 };
 
 /** The short display name of a type; an id this version does not know reads as its words, capitalised. */

@@ -20,6 +20,9 @@ export type AntennaTypeId =
   | 'inverted-l'
   | 'vertical-pair'
   | 'four-square'
+  | 'half-square-reflector'
+  | 'half-square-switched'
+  | 'half-square-l'
   | (string & {});
 
 /** One straight conductor of the model. */
@@ -78,9 +81,12 @@ export interface Design {
   conductors?: SupportConductor[];
   /**
    * Switchable directions of an array (relay states). Each state's pattern is the evaluated
-   * (state 1) pattern turned by `rotationDeg` in the canonical frame; a fixed antenna has none.
+   * (state 1) pattern, mirrored across the vertical plane at canonical bearing `mirrorAxisDeg`
+   * when given (an array symmetric under that mirror, not under a turn), then turned by
+   * `rotationDeg` in the canonical frame (core/rank/states.ts); a fixed antenna has none. State 1
+   * beams toward canonical north.
    */
-  states?: { name: string; rotationDeg: number }[];
+  states?: { name: string; rotationDeg: number; mirrorAxisDeg?: number }[];
 }
 
 /** Canonical frame → site: rotate clockwise (compass sense) by rotationDeg about the origin, then translate. */

@@ -57,9 +57,8 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
   return cmd.run(rest, io);
 }
 
-const isEntry =
-  process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/'));
-if (isEntry) {
+/** Runs the command in process.argv with the process's streams; sets the exit code. */
+export function runFromArgv(): void {
   const io: CliIo = {
     stdout: (s) => process.stdout.write(s),
     stderr: (s) => process.stderr.write(s),
@@ -75,3 +74,7 @@ if (isEntry) {
     },
   );
 }
+
+const isEntry =
+  process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/'));
+if (isEntry) runFromArgv();

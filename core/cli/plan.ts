@@ -4,16 +4,15 @@
  * Options: --json (machine-readable, schema in core/rank/README.md), --band 160m|80m|40m (repeatable;
  * default the project's bands), --top N (placements per band, default 10), --workers N (default and
  * most: the machine's cores; 0 evaluates in this thread), --patterns (include canonical patterns in JSON),
- * --arrays (also plan the array types; slower).
+ * --arrays (also plan the array types; slower; without it, the project's settings.planArrays decides).
  * A progress line goes to stderr while designs are evaluated.
  */
-import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { availableParallelism } from 'node:os';
-import { join, resolve as resolvePath } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { freshBundle, ROOT } from './bundle.mjs';
 import { Worker } from 'node:worker_threads';
-import { buildDemoProject } from '../demo/demoProject.ts';
+import { startProjectCommand, walkProjectArgs, type ProjectSource } from './projectFile.ts';
 import type { EvaluationRecord } from '../rank/evaluate.ts';
 import {
   conductorJobs,
@@ -21,15 +20,23 @@ import {
   enumeratePlan,
   memoryCache,
   planFromSetup,
+  PLAN_BOUNDS,
+  soilRangeOf,
   type EvaluationCache,
+  type PlanCut,
+  type PlanSetup,
   type Job,
   type Shortlist,
   type Candidate,
 } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
+import { SWEEP_FRACTION } from '../rank/evaluate.ts';
+import type { EvalGround } from '../rank/evaluator.ts';
+import { bandPlan } from '../antennas/common.ts';
+import type { TablesMessage, WarmMessage } from './plan-worker.ts';
 import { candidateMatching } from '../match/candidateMatch.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
-import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
+import { BANDS, type Band, type Project } from '../project/schema.ts';
 
 export interface PlanIo {
   stdout: (s: string) => void;
@@ -40,9 +47,7 @@ export interface PlanIo {
 const USAGE =
   'usage: plan (FILE.json | --demo) [--json] [--band 160m|80m|40m]... [--top N] [--workers N] [--patterns] [--arrays]\n';
 
-interface Args {
-  file: string | null;
-  demo: boolean;
+interface Args extends ProjectSource {
   json: boolean;
   patterns: boolean;
   arrays: boolean;
@@ -52,9 +57,7 @@ interface Args {
 }
 
 function parseArgs(argv: string[]): Args | string {
-  const a: Args = {
-    file: null,
-    demo: false,
+  const a: Omit<Args, keyof ProjectSource> = {
     json: false,
     patterns: false,
     arrays: false,
@@ -62,11 +65,8 @@ function parseArgs(argv: string[]): Args | string {
     top: 10,
     workers: availableParallelism(),
   };
-  for (let i = 0; i < argv.length; i++) {
-    const v = argv[i];
-    const next = (): string | undefined => argv[++i];
-    if (v === '--demo') a.demo = true;
-    else if (v === '--json') a.json = true;
+  const source = walkProjectArgs(argv, (v, next) => {
+    if (v === '--json') a.json = true;
     else if (v === '--patterns') a.patterns = true;
     else if (v === '--arrays') a.arrays = true;
     else if (v === '--band') {
@@ -78,112 +78,26 @@ function parseArgs(argv: string[]): Args | string {
       if (!Number.isInteger(n) || n < (v === '--top' ? 1 : 0)) return `${v} needs a whole number`;
       if (v === '--top') a.top = n;
       else a.workers = Math.min(n, availableParallelism());
-    } else if (v.startsWith('--')) return `unknown option ${v}`;
-    else if (a.file === null) a.file = v;
-    else return 'give one project file';
-  }
-  if (a.demo === (a.file !== null)) return 'give a project file or --demo';
-  return a;
-}
-
-async function loadProject(args: Args, io: PlanIo): Promise<Project | null> {
-  if (args.demo) return buildDemoProject();
-  const file = args.file as string;
-  let doc: unknown;
-  try {
-    doc = JSON.parse(await io.readFile(file));
-  } catch (e) {
-    io.stderr(
-      `${file}: ${e instanceof SyntaxError ? 'not valid JSON' : 'cannot read the file'} (${e instanceof Error ? e.message : String(e)})\n`,
-    );
-    return null;
-  }
-  const parsed = parseProject(doc);
-  if (!parsed.ok) {
-    for (const e of parsed.errors) io.stderr(`${file}: ${e.path}: ${e.message}\n`);
-    return null;
-  }
-  return parsed.value;
+    } else return false;
+    return true;
+  });
+  return typeof source === 'string' ? source : { ...a, ...source };
 }
 
 /** Where the worker bundle is kept between runs (git-ignored). */
-const BUNDLE_DIR = fileURLToPath(new URL('../../.cache/plan-worker/', import.meta.url));
-const WORKER_SOURCE = fileURLToPath(new URL('./plan-worker.ts', import.meta.url));
-
-interface BundleManifest {
-  /** Each input of the bundle with its size and modification time when it was built. */
-  inputs: Record<string, [number, number]>;
-}
-
-function stamp(path: string): [number, number] | null {
-  try {
-    const st = statSync(path);
-    return [st.size, st.mtimeMs];
-  } catch {
-    return null;
-  }
-}
-
-function bundleIsFresh(dir: string): boolean {
-  try {
-    const m = JSON.parse(readFileSync(join(dir, 'manifest.json'), 'utf8')) as BundleManifest;
-    if (!existsSync(join(dir, 'plan-worker.mjs'))) return false;
-    for (const [path, want] of Object.entries(m.inputs)) {
-      const got = stamp(path);
-      if (!got || got[0] !== want[0] || got[1] !== want[1]) return false;
-    }
-    return Object.keys(m.inputs).length > 0;
-  } catch {
-    return false;
-  }
-}
-
-interface EsbuildLike {
-  buildSync(o: Record<string, unknown>): { metafile?: { inputs: Record<string, unknown> } };
-}
+const BUNDLE_DIR = join(ROOT, '.cache', 'plan-worker');
+const WORKER_SOURCE = join(ROOT, 'core', 'cli', 'plan-worker.ts');
 
 let bundlePath: string | null | undefined;
 
 /**
- * The worker as one plain ES module, bundled with esbuild at first use and rebuilt when any of
- * its inputs changes (size or modification time), so that a worker starts without a TypeScript
- * loader. Null when esbuild is not available; the caller then falls back to the loader.
+ * The worker as one plain ES module (bundle.mjs: bundled with esbuild at first use and rebuilt
+ * when any of its inputs changes), so that a worker starts without a TypeScript loader. Null when
+ * esbuild is not available; the caller then falls back to the loader.
  */
 export function workerBundle(dir = BUNDLE_DIR): string | null {
   if (bundlePath !== undefined && dir === BUNDLE_DIR) return bundlePath;
-  let out: string | null = join(dir, 'plan-worker.mjs');
-  if (!bundleIsFresh(dir)) {
-    try {
-      const esbuild = createRequire(import.meta.url)('esbuild') as EsbuildLike;
-      mkdirSync(dir, { recursive: true });
-      // Build next to the final file, then rename: concurrent plans never read a partial bundle.
-      const tmp = join(dir, `plan-worker.${process.pid}.${Date.now()}.mjs`);
-      const res = esbuild.buildSync({
-        entryPoints: [WORKER_SOURCE],
-        bundle: true,
-        platform: 'node',
-        format: 'esm',
-        target: 'node20',
-        outfile: tmp,
-        metafile: true,
-        absWorkingDir: fileURLToPath(new URL('../../', import.meta.url)),
-        logLevel: 'silent',
-      });
-      const base = fileURLToPath(new URL('../../', import.meta.url));
-      const inputs: BundleManifest['inputs'] = {};
-      for (const rel of Object.keys(res.metafile?.inputs ?? {})) {
-        const abs = resolvePath(base, rel);
-        const st = stamp(abs);
-        if (st) inputs[abs] = st;
-      }
-      renameSync(tmp, out);
-      const mtmp = join(dir, `manifest.${process.pid}.json`);
-      writeFileSync(mtmp, JSON.stringify({ inputs } satisfies BundleManifest));
-      renameSync(mtmp, join(dir, 'manifest.json'));
-    } catch {
-      out = null;
-    }
-  }
+  const out = freshBundle('core/cli/plan-worker.ts', dir, 'plan-worker');
   if (dir === BUNDLE_DIR) bundlePath = out;
   return out;
 }
@@ -211,14 +125,22 @@ export interface WorkerPool {
     cache: EvaluationCache,
     onDone?: (done: number, total: number) => void,
   ): Promise<number>;
+  /**
+   * Build the exact ground's tables for these (ground, frequency) pairs now, shared out among the
+   * workers; each worker's tables go to the others. Later evaluations wait until all are in.
+   */
+  warm(tasks: { ground: EvalGround; frequencyHz: number }[]): void;
   close(): Promise<void>;
 }
 
 export function createWorkerPool(size: number): WorkerPool {
   const workers = Array.from({ length: Math.max(1, size) }, startWorker);
+  let warming: Promise<void> | null = null;
   return {
     size: workers.length,
     async evaluate(jobs, cache, onDone) {
+      // Tables still being built and shared: jobs sent now would build them again.
+      if (warming) await warming;
       // Designs with a radial system cost the solver several times more (the ground-loss
       // integral): start them first so that no worker is left with a long one at the end.
       const todo = jobs
@@ -257,6 +179,35 @@ export function createWorkerPool(size: number): WorkerPool {
       );
       if (errors.length) throw new Error(`the solver failed on ${errors.length} design(s): ${errors[0]}`);
       return todo.length;
+    },
+    warm(tasks) {
+      const shares = workers.map((): WarmMessage => ({ warm: [] }));
+      tasks.forEach((t, i) =>
+        shares[i % workers.length].warm.push({ ground: t.ground, frequenciesHz: [t.frequencyHz] }),
+      );
+      const done = workers.map(
+        (w, i) =>
+          new Promise<void>((resolve) => {
+            if (!shares[i].warm.length) return resolve();
+            const onMessage = (m: { warmed?: TablesMessage['tables'] }): void => {
+              if (!m.warmed) return;
+              w.off('message', onMessage);
+              w.off('error', onError);
+              const msg: TablesMessage = { tables: m.warmed };
+              for (const other of workers) if (other !== w) other.postMessage(msg);
+              resolve();
+            };
+            // A worker that fails is reported by the evaluation that needs it.
+            const onError = (): void => {
+              w.off('message', onMessage);
+              resolve();
+            };
+            w.on('message', onMessage);
+            w.once('error', onError);
+            w.postMessage(shares[i]);
+          }),
+      );
+      warming = Promise.all(done).then(() => undefined);
     },
     async close() {
       await Promise.all(workers.map((w) => w.terminate()));
@@ -319,11 +270,24 @@ function describe(c: Candidate): string {
   return lines.join('\n');
 }
 
+/** A bound of the enumeration that left placements out, in words. */
+export function cutText(c: PlanCut): string {
+  const from =
+    c.supportsUsed < c.supportsTotal
+      ? ` from the ${c.supportsUsed} most promising of ${c.supportsTotal} supports`
+      : '';
+  return (
+    `${c.band} ${c.type}: considered ${c.considered} of ${c.proposed} placements${from}, ` +
+    `${c.designs} designs evaluated (at most ${PLAN_BOUNDS.placements} placements and ${PLAN_BOUNDS.designs} designs per type; most promising first: the longest radial field, the highest wires, then facing the targets)`
+  );
+}
+
 function humanReport(project: Project, s: Shortlist, seconds: number): string {
   const out: string[] = [];
   out.push(
     `${project.name} — ${s.candidates.length} placements shortlisted, ${s.rejected.length} rejected (${seconds.toFixed(1)} s)`,
   );
+  for (const c of s.stats.cuts) out.push(`  ${cutText(c)}`);
   for (const p of s.paths) {
     out.push(
       `  target ${p.name} (weight ${p.weight}): bearing ${f1(p.bearingDeg.from)}–${f1(p.bearingDeg.to)}°, ` +
@@ -375,25 +339,67 @@ export function shortlistJson(shortlist: Shortlist, withPatterns: boolean): obje
   return withPatterns ? { ...out, patterns } : out;
 }
 
-export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
-  const args = parseArgs(argv);
-  if (typeof args === 'string') {
-    io.stderr(`${args}\n${USAGE}`);
-    return 2;
+/**
+ * The workers build the ground's tables every evaluation of this plan reuses (the design
+ * frequency and the bandwidth points of each band, and the soil range at the design frequency),
+ * each a share and then all of them, so that they are ready about when the enumeration is.
+ */
+export function warmPool(pool: WorkerPool, project: Project, bands: readonly Band[]): void {
+  const f0s = bands.map((b) => bandPlan(b, project.settings.operating?.[b]).designFreqHz);
+  pool.warm([
+    ...f0s
+      .flatMap((f0) => [f0, f0 * (1 - SWEEP_FRACTION), f0 * (1 + SWEEP_FRACTION)])
+      .map((frequencyHz) => ({ ground: project.soil, frequencyHz })),
+    ...soilRangeOf(project).flatMap((classId) =>
+      f0s.map((frequencyHz) => ({ ground: { classId }, frequencyHz })),
+    ),
+  ]);
+}
+
+/**
+ * The three evaluation steps of a plan on the workers, filling `cache`: every design alone, the
+ * best orientation of each placement near a metal support again with it, and the shortlisted
+ * designs over the soil range. Then planFromSetup ranks without solver work.
+ */
+export async function evaluateOnPool(
+  pool: WorkerPool,
+  setup: PlanSetup,
+  project: Project,
+  cache: EvaluationCache,
+  shortlistSize: number,
+  onDone?: (done: number, total: number) => void,
+  say: (line: string) => void = () => {},
+): Promise<void> {
+  await pool.evaluate(setup.jobs, cache, onDone);
+  const second = conductorJobs(setup, cache, project);
+  if (second.length) {
+    say(`${second.length} placements again with the metal supports near them`);
+    await pool.evaluate(second, cache, onDone);
   }
-  const project = await loadProject(args, io);
-  if (!project) return 1;
+  const third = soilRangeJobs(setup, cache, project, shortlistSize);
+  if (third.length) {
+    say(`${third.length} shortlisted designs over the soil range`);
+    await pool.evaluate(third, cache, onDone);
+  }
+}
+
+export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
+  const start = await startProjectCommand(argv, parseArgs, USAGE, io);
+  if (typeof start === 'number') return start;
+  const { args, project } = start;
   const t0 = performance.now();
   const bands = args.bands.length ? args.bands : project.bands;
-  // Workers start (load the solver) while this thread enumerates the proposals.
+  // Workers start (load the solver, build the ground's tables) while this thread enumerates.
   const pool = args.workers > 0 ? createWorkerPool(args.workers) : null;
+  if (pool) warmPool(pool, project, bands);
   let setup: ReturnType<typeof enumeratePlan>;
   try {
     // Say something from the start: enumeration of a lot with many supports takes seconds.
     io.stderr(
       `plan: placing ${project.supports.length} supports' antennas for ${bands.join(', ')} (enumerating)\n`,
     );
-    setup = enumeratePlan(project, { bands, arrays: args.arrays });
+    setup = enumeratePlan(project, { bands, ...(args.arrays ? { arrays: true } : {}) });
+    for (const c of setup.cuts) io.stderr(`plan: ${cutText(c)}\n`);
   } catch (e) {
     await pool?.close();
     throw e;
@@ -414,19 +420,9 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
   );
   if (pool) {
     try {
-      await pool.evaluate(setup.jobs, cache, progress);
-      // Step 2: the best orientation of each placement near a metal support, with the support.
-      const second = conductorJobs(setup, cache, project);
-      if (second.length) {
-        io.stderr(`plan: ${second.length} placements again with the metal supports near them\n`);
-        await pool.evaluate(second, cache, progress);
-      }
-      // Step 3: the soil range of the shortlisted candidates only.
-      const third = soilRangeJobs(setup, cache, project, args.top);
-      if (third.length) {
-        io.stderr(`plan: ${third.length} shortlisted designs over the soil range\n`);
-        await pool.evaluate(third, cache, progress);
-      }
+      await evaluateOnPool(pool, setup, project, cache, args.top, progress, (line) =>
+        io.stderr(`plan: ${line}\n`),
+      );
     } finally {
       await pool.close();
     }

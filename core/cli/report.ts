@@ -9,8 +9,8 @@
  */
 import { writeFile as fsWriteFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
-import { buildDemoProject } from '../demo/demoProject.ts';
-import { BANDS, parseProject, type Band, type Project } from '../project/schema.ts';
+import { startProjectCommand, walkProjectArgs, type ProjectSource } from './projectFile.ts';
+import { BANDS, type Band } from '../project/schema.ts';
 import { enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
 import { COAX_TYPES, isCoaxType, measureTuning, type StationOptions } from '../report/buildSheet.ts';
@@ -31,9 +31,7 @@ export interface ReportIo {
 const MODES = ['ssb', 'cw', 'ft8'] as const;
 const USAGE = `usage: report (FILE.json | --demo) [--candidate ID] --out FILE.html [--units imperial|metric] [--power W] [--mode ${MODES.join('|')}] [--on-time 0..1] [--coax ${COAX_TYPES.join('|')}] [--workers N] [--arrays]\n`;
 
-interface Args {
-  file: string | null;
-  demo: boolean;
+interface Args extends ProjectSource {
   candidate: string | null;
   out: string | null;
   /** Only what the command line gave; the rest comes from the project's station settings. */
@@ -45,9 +43,7 @@ interface Args {
 }
 
 function parseArgs(argv: string[]): Args | string {
-  const a: Args = {
-    file: null,
-    demo: false,
+  const a: Omit<Args, keyof ProjectSource> = {
     candidate: null,
     out: null,
     station: {},
@@ -55,11 +51,8 @@ function parseArgs(argv: string[]): Args | string {
     units: null,
     arrays: false,
   };
-  for (let i = 0; i < argv.length; i++) {
-    const v = argv[i];
-    const next = (): string | undefined => argv[++i];
-    if (v === '--demo') a.demo = true;
-    else if (v === '--arrays') a.arrays = true;
+  const source = walkProjectArgs(argv, (v, next) => {
+    if (v === '--arrays') a.arrays = true;
     else if (v === '--candidate' || v === '--out') {
       const s = next();
       if (!s) return `${v} needs a value`;
@@ -89,41 +82,18 @@ function parseArgs(argv: string[]): Args | string {
       const n = Number(next());
       if (!Number.isInteger(n) || n < 0) return '--workers needs a whole number';
       a.workers = n;
-    } else if (v.startsWith('--')) return `unknown option ${v}`;
-    else if (a.file === null) a.file = v;
-    else return 'give one project file';
-  }
-  if (a.demo === (a.file !== null)) return 'give a project file or --demo';
+    } else return false;
+    return true;
+  });
+  if (typeof source === 'string') return source;
   if (!a.out) return '--out FILE.html is required';
-  return a;
-}
-
-async function loadProject(args: Args, io: ReportIo): Promise<Project | null> {
-  if (args.demo) return buildDemoProject();
-  const file = args.file as string;
-  let doc: unknown;
-  try {
-    doc = JSON.parse(await io.readFile(file));
-  } catch (e) {
-    io.stderr(`${file}: cannot read a JSON project (${e instanceof Error ? e.message : String(e)})\n`);
-    return null;
-  }
-  const parsed = parseProject(doc);
-  if (!parsed.ok) {
-    for (const err of parsed.errors) io.stderr(`${file}: ${err.path}: ${err.message}\n`);
-    return null;
-  }
-  return parsed.value;
+  return { ...a, ...source };
 }
 
 export async function runReport(argv: string[], io: ReportIo): Promise<number> {
-  const args = parseArgs(argv);
-  if (typeof args === 'string') {
-    io.stderr(`${args}\n${USAGE}`);
-    return 2;
-  }
-  const project = await loadProject(args, io);
-  if (!project) return 1;
+  const start = await startProjectCommand(argv, parseArgs, USAGE, io);
+  if (typeof start === 'number') return start;
+  const { args, project } = start;
   const wanted = args.candidate;
   const bandOf = wanted ? (BANDS as readonly string[]).find((b) => wanted.startsWith(`${b}-`)) : undefined;
   if (wanted && !bandOf) {
@@ -135,7 +105,7 @@ export async function runReport(argv: string[], io: ReportIo): Promise<number> {
     io.stderr('the project has no bands to plan\n');
     return 1;
   }
-  const setup = enumeratePlan(project, { bands: [band], arrays: args.arrays });
+  const setup = enumeratePlan(project, { bands: [band], ...(args.arrays ? { arrays: true } : {}) });
   const cache = memoryCache();
   io.stderr(`report: planning ${band} (${setup.jobs.length} designs)\n`);
   if (args.workers > 0) {

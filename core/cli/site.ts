@@ -2,6 +2,7 @@
 import { buildDemoProject } from '../demo/demoProject.ts';
 import { parseProject } from '../project/schema.ts';
 import type { CliIo } from './main.ts';
+import { readJsonFile } from './projectFile.ts';
 
 export async function runSite(argv: string[], io: CliIo): Promise<number> {
   const json = argv.includes('--json');
@@ -18,21 +19,10 @@ export async function runSite(argv: string[], io: CliIo): Promise<number> {
     doc = buildDemoProject();
     label = 'demo project';
   } else {
-    const file = files[0] as string;
-    label = file;
-    let text: string;
-    try {
-      text = await io.readFile(file);
-    } catch (e) {
-      io.stderr(`${file}: cannot read the file (${e instanceof Error ? e.message : String(e)})\n`);
-      return 1;
-    }
-    try {
-      doc = JSON.parse(text);
-    } catch (e) {
-      io.stderr(`${file}: not valid JSON (${e instanceof Error ? e.message : String(e)})\n`);
-      return 1;
-    }
+    label = files[0] as string;
+    const read = await readJsonFile(label, io);
+    if (!read) return 1;
+    doc = read.doc;
   }
   const parsed = parseProject(doc);
   if (!parsed.ok) {

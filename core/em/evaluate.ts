@@ -66,6 +66,13 @@ export interface EvaluateOptions {
    * low wires) and report the power balance against it.
    */
   groundPowerCheck?: boolean;
+  /**
+   * Only the total gain on the pattern grid, as one array (`gainGridDbi`, elevation-major), with no
+   * point objects (`pattern` is then empty), and the peak taken as the largest of those gains
+   * instead of searched for on the 2° grid and refined. For callers that read nothing else of the
+   * pattern (the planner); the power split and every other figure are the same.
+   */
+  gainGridOnly?: boolean;
 }
 
 export interface PatternPoint {
@@ -124,6 +131,8 @@ export interface FrequencyResult {
   averageGainDb: number;
   peak: { elevationDeg: number; azimuthDeg: number; gainDbi: number };
   pattern: PatternPoint[];
+  /** With `gainGridOnly`: the total gain, dBi, on the requested grid (index = iEl·nAz + iAz). */
+  gainGridDbi?: Float64Array;
   /**
    * Power into the ground computed independently of the input power (exact ground with
    * `groundPowerCheck`, no wire touching the ground); null otherwise.
@@ -265,14 +274,27 @@ export function frequencyResult(
   const tmp = new Float64Array(2);
   const pattern: PatternPoint[] = [];
   const isDefault = grid === DEFAULT_PATTERN;
-  const gains = isDefault ? new Float64Array(grid.elevationsDeg.length * grid.azimuthsDeg.length) : null;
+  const only = opts.gainGridOnly === true;
+  const gains =
+    isDefault || only ? new Float64Array(grid.elevationsDeg.length * grid.azimuthsDeg.length) : null;
   let gi = 0;
+  let top = -1;
+  let topEl = 0;
+  let topAz = 0;
   for (const el of grid.elevationsDeg)
     for (const az of grid.azimuthsDeg) {
       radiationIntensity(src, el * D2R, az * D2R, ETA0, tmp);
       const gv = (4 * Math.PI * tmp[0]) / pin;
       const gh = (4 * Math.PI * tmp[1]) / pin;
       if (gains) gains[gi++] = gv + gh;
+      if (only) {
+        if (gv + gh > top) {
+          top = gv + gh;
+          topEl = el;
+          topAz = az;
+        }
+        continue;
+      }
       pattern.push({
         elevationDeg: el,
         azimuthDeg: az,
@@ -281,7 +303,10 @@ export function frequencyResult(
         horizontalDbi: toDbi(gh),
       });
     }
-  const peak = findPeak(src, pin, hasGround, gains);
+  const peak = only
+    ? { elevationDeg: topEl, azimuthDeg: topAz, gainDbi: toDbi(top) }
+    : findPeak(src, pin, hasGround, gains);
+  const gainGrid = only && gains ? gains.map(toDbi) : null;
   const averageGain = ((hasGround ? 2 : 1) * prad) / pin;
   const out: FrequencyResult = {
     frequencyHz: sol.freqHz,
@@ -325,6 +350,7 @@ export function frequencyResult(
     averageGainDb: 10 * Math.log10(Math.max(averageGain, 1e-15)),
     peak,
     pattern,
+    ...(gainGrid ? { gainGridDbi: gainGrid } : {}),
     powerBalanceError: balance,
   };
   if (opts.includeCurrents) {

@@ -336,6 +336,11 @@ export const SettingsSchema = z.object({
    * frequency or span; the planner designs and trims for its centre. Unset: the CW end.
    */
   operating: OperatingSchema.optional(),
+  /**
+   * Also plan the array types (several elements, relay-switched directions; core/antennas
+   * registry entries marked `array`). Slower. Unset: single antennas only.
+   */
+  planArrays: z.boolean().optional(),
   /** Number of radials the user would lay. */
   radialCount: z
     .number()

@@ -25,11 +25,18 @@ export type ElementRole =
   | 'support'
   | 'mast'
   | 'feed-line'
+  /** An array's coax between its elements and its relay box (the station's run is 'feed-line'). */
+  | 'coax'
   | 'conducting-support';
 
 /** One element of the candidate in the site frame (x east, y north, z up, metres). */
 export type PlacedElement =
-  | { role: 'radiator' | 'top-wire' | 'radial' | 'rope' | 'feed-line'; label: string; from: XYZ; to: XYZ }
+  | {
+      role: 'radiator' | 'top-wire' | 'radial' | 'rope' | 'feed-line' | 'coax';
+      label: string;
+      from: XYZ;
+      to: XYZ;
+    }
   | { role: 'end' | 'anchor'; label: string; at: XYZ }
   | { role: 'support'; label: string; supportId: string; at: XY; heightM: number }
   | { role: 'mast'; label: string; at: XY; heightM: number }
@@ -83,6 +90,7 @@ export function elementsWithRoles(elements: readonly Element[]): PlacedElement[]
       case 'wire':
         return { role: e.role ?? 'radiator', label: e.label, from: e.from, to: e.to };
       case 'rope':
+      case 'coax':
       case 'radial':
         return { role: e.kind, label: e.label, from: e.from, to: e.to };
       case 'end':

@@ -25,7 +25,15 @@ import {
 } from '../antennas/conductors.ts';
 import { neighbourSoils, soilById } from '../em/soils.ts';
 import { bandPlan, placeElements, CUT_ALLOWANCE_PER_END_M } from '../antennas/common.ts';
-import type { AntennaTypeId, CutKind, Design, Placement, Proposal, Rejection } from '../antennas/types.ts';
+import type {
+  AntennaTypeId,
+  CutKind,
+  Design,
+  Placement,
+  Proposal,
+  Rejection,
+  WireModel,
+} from '../antennas/types.ts';
 import type { Caution } from '../report/cautions.ts';
 import {
   candidateCautions,
@@ -41,7 +49,14 @@ import {
 import { planPaths, takeoffSummary, type RegionPath, type TakeoffSummary } from '../paths/index.ts';
 import type { Band, LonLat, Project } from '../project/schema.ts';
 import type { XY } from '../site/frame.ts';
-import { checkPlacement, prepareSite, type Element, type PreparedSite } from '../site/feasibility.ts';
+import {
+  checkPlacement,
+  prepareSite,
+  type Element,
+  type FeasibilityResult,
+  type PreparedSite,
+} from '../site/feasibility.ts';
+import { INVERTED_L_MAX_VERTICAL_FRACTION } from '../antennas/invertedL.ts';
 import { convexHull, placeXYZ } from '../site/geometry.ts';
 import { buildSite, type Site } from '../site/site.ts';
 import { evaluateDesign, type EvaluationRecord } from './evaluate.ts';
@@ -80,11 +95,47 @@ export interface PlanOptions {
   /** Number of placements in the shortlist per band before the best of each missing type is added (default 10). */
   shortlistSize?: number;
   layerHeightsM?: readonly number[];
-  /** Only these antenna types (default: every registered type, arrays only with `arrays`). */
+  /** Only these antenna types (default: every registered type, arrays only with `arrays`, else the project's `settings.planArrays`). */
   types?: readonly AntennaTypeId[];
-  /** Also plan the array types (several elements; slower). Default false. */
+  /** Also plan the array types (several elements; slower). Default: the project's `settings.planArrays`. */
   arrays?: boolean;
+  /**
+   * Progress: 'enumerate' from the start (done 0 of the builders × bands, then after each), then
+   * 'evaluate' per design and 'rank'.
+   */
   onProgress?: (p: PlanProgress) => void;
+  /** The feasibility check of a placement (default checkPlacement; a caller may memoise it across plans). */
+  feasibility?: Feasibility;
+}
+
+/** Checks a placement's elements on the site (core/site/feasibility.ts checkPlacement or a memo of it). */
+export type Feasibility = (ps: PreparedSite, elements: readonly Element[]) => FeasibilityResult;
+
+/**
+ * Bounds of the enumeration, per antenna type and band, so that a lot with many supports plans in
+ * bounded time (the schema allows 500 supports). None binds on the demo lot.
+ *  - supports: a builder is given at most this many supports, the most promising for its type
+ *    (the tallest; for an inverted-L the tallest of those short enough for one);
+ *  - placements: at most this many placements are checked on the site;
+ *  - designs: at most this many distinct designs (evaluations) are kept.
+ * Placements are taken most promising first: a ground-mounted type by the total length of its
+ * radials, then every type by the mean height of its wires (0.5 m steps), then by how squarely its
+ * broadside faces the weighted targets. What was left out is reported (`PlanCut`).
+ */
+export const PLAN_BOUNDS = { supports: 40, placements: 2000, designs: 32 } as const;
+
+/** Where a bound of PLAN_BOUNDS left placements out, for the plan's output. */
+export interface PlanCut {
+  band: Band;
+  type: AntennaTypeId;
+  /** Supports given to the builder, of the lot's. */
+  supportsUsed: number;
+  supportsTotal: number;
+  /** Placements checked on the site, of those the builder proposed from its supports. */
+  considered: number;
+  proposed: number;
+  /** Distinct designs kept for evaluation (at most PLAN_BOUNDS.designs). */
+  designs: number;
 }
 
 export interface Job {
@@ -122,6 +173,12 @@ export interface PlanSetup {
   conductorJobs?: Job[];
   /** Indices into `bands[b].proposed` of the orientations chosen for step 2, by band. */
   conductorChoice?: Map<Band, Set<number>>;
+  /** Where the enumeration's bounds left placements out (empty when nothing was left out). */
+  cuts: PlanCut[];
+  /** The feasibility check used (PlanOptions.feasibility or checkPlacement). */
+  check: Feasibility;
+  /** Each placement's check at its trimmed dimensions, shared by the ranking passes of one plan. */
+  trimmedChecks: WeakMap<Proposed, { trimM: number; metal: boolean; result: FeasibilityResult }[]>;
 }
 
 export interface RejectedPlacement {
@@ -246,7 +303,14 @@ export interface Shortlist {
   }[];
   candidates: Candidate[];
   rejected: RejectedPlacement[];
-  stats: { proposals: number; feasibleAtNominal: number; evaluations: number; cacheHits: number };
+  stats: {
+    proposals: number;
+    feasibleAtNominal: number;
+    evaluations: number;
+    cacheHits: number;
+    /** Where the enumeration's bounds (PLAN_BOUNDS) left placements out; empty when none did. */
+    cuts: PlanCut[];
+  };
   /** Canonical patterns by evaluation key (for comparisons; large, left out of compact output). */
   patterns: Record<string, number[]>;
 }
@@ -290,27 +354,50 @@ function mainTargetBearing(paths: readonly RegionPath[]): number {
 const r3 = (v: number): number => Math.round(v * 1000) / 1000;
 
 /**
- * Cache key of a design over a ground: hash of its parameters, trim limits, nominal wire model,
- * conducting supports (canonical frame), ground and frequency. A design with no
- * conducting support near it has one key for every placement (its pattern is read rotated);
- * with one, the key holds the supports' positions relative to the placement.
+ * Types whose solver model is fixed by its wire geometry at the shortest, nominal and longest trim
+ * (checked for each builder: a dipole's slope and end drops, an inverted-V's apex and legs, a
+ * half-square's top, drops and bent ends, a vertical's or inverted-L's wires and radials show
+ * there). Their evaluation key holds that geometry instead of the design's parameters, so that
+ * designs differing only in what the solver never sees (a half-square's span and support
+ * heights, which only place its ropes) share one evaluation, trim included. Other types (arrays)
+ * keep their parameters in the key.
+ */
+const KEY_BY_GEOMETRY: ReadonlySet<AntennaTypeId> = new Set([
+  'dipole',
+  'inverted-v',
+  'half-square',
+  'vertical',
+  'inverted-l',
+]);
+
+const wireGeometry = (model: WireModel): unknown[] =>
+  model.wires.map((w) => [w.from.map(r3), w.to.map(r3), w.radiusM, w.segments ?? 0, w.material ?? '']);
+
+/**
+ * Cache key of a design over a ground: hash of its solver model (wire geometry to the millimetre,
+ * feeds, radials, feed network), trim limits, conducting supports (canonical frame), ground and
+ * frequency, and, for types not in KEY_BY_GEOMETRY, its parameters. A design with no conducting
+ * support near it has one key for every placement (its pattern is read rotated); with one, the
+ * key holds the supports' positions relative to the placement.
  */
 export function designKey(design: Design, ground: EvalGround): string {
-  const model = builderFor(design.type).model(design, design.trim.nominalM);
-  const geom = model.wires.map((w) => [
-    w.from.map(r3),
-    w.to.map(r3),
-    w.radiusM,
-    w.segments ?? 0,
-    w.material ?? '',
-  ]);
+  const builder = builderFor(design.type);
+  const model = builder.model(design, design.trim.nominalM);
+  const byGeometry = KEY_BY_GEOMETRY.has(design.type);
   return fnv1a64(
     JSON.stringify({
       v: EVALUATION_VERSION,
       t: design.type,
-      p: design.params,
+      ...(byGeometry
+        ? {
+            ends: [
+              wireGeometry(builder.model(design, design.trim.minM)),
+              wireGeometry(builder.model(design, design.trim.maxM)),
+            ],
+          }
+        : { p: design.params }),
       trim: [r3(design.trim.minM), r3(design.trim.nominalM), r3(design.trim.maxM)],
-      geom,
+      geom: wireGeometry(model),
       feeds: model.feeds,
       radials: model.radials,
       ...(model.network ? { net: model.network, bonded: model.radialsBonded === true } : {}),
@@ -322,12 +409,78 @@ export function designKey(design: Design, ground: EvalGround): string {
   );
 }
 
+/** How promising a design looks before any solver work (PLAN_BOUNDS): radial length, then mean wire height. */
+function designPromise(design: Design): [number, number] {
+  const model = builderFor(design.type).model(design, design.trim.nominalM);
+  let radials = 0;
+  for (const r of model.radials) for (const l of r.lengthsM) radials += l;
+  let len = 0;
+  let moment = 0;
+  for (const w of model.wires) {
+    const l = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
+    len += l;
+    moment += (l * (w.from[2] + w.to[2])) / 2;
+  }
+  return [Math.round(radials), Math.round((2 * moment) / Math.max(len, 1e-9)) / 2];
+}
+
+/** How squarely a placement's broadside faces the targets: weighted mean of cos² of the smallest miss, 0..1. */
+function facing(broadsideDeg: readonly number[], paths: readonly RegionPath[]): number {
+  if (!broadsideDeg.length) return 0;
+  let sum = 0;
+  let w = 0;
+  for (const path of paths) {
+    let best = 0;
+    for (const b of broadsideDeg)
+      best = Math.max(best, Math.cos(((b - path.azimuthSpan.centerDeg) * Math.PI) / 180) ** 2);
+    sum += path.weight * best;
+    w += path.weight;
+  }
+  return w > 0 ? sum / w : 0;
+}
+
+/**
+ * The supports a builder of `type` is given on a lot with more than PLAN_BOUNDS.supports: the
+ * tallest (for an inverted-L, the tallest of those short enough for its vertical part first), in
+ * the lot's order.
+ */
+/** Shortest support an inverted-L is proposed on, as a fraction of the wavelength (core/antennas/invertedL.ts). */
+const INVERTED_L_MIN_FRACTION = 0.08;
+
+function supportsFor(prepared: PreparedSite, type: AntennaTypeId, wavelengthM: number): PreparedSite {
+  const all = prepared.site.supports;
+  if (all.length <= PLAN_BOUNDS.supports) return prepared;
+  const usable = (h: number): number =>
+    type === 'inverted-l'
+      ? Number(
+          h < INVERTED_L_MAX_VERTICAL_FRACTION * wavelengthM && h >= INVERTED_L_MIN_FRACTION * wavelengthM,
+        )
+      : 1;
+  const chosen = new Set(
+    all
+      .map((s, i) => ({ s, i }))
+      .sort((a, b) => usable(b.s.heightM) - usable(a.s.heightM) || b.s.heightM - a.s.heightM || a.i - b.i)
+      .slice(0, PLAN_BOUNDS.supports)
+      .map((x) => x.i),
+  );
+  return { ...prepared, site: { ...prepared.site, supports: all.filter((_, i) => chosen.has(i)) } };
+}
+
 function placedElements(p: Proposal, trimM: number): Element[] {
   return placeElements(builderFor(p.design.type).elements(p.design, trimM), p.placement);
 }
 
 /** Step 1: site, paths, proposals checked at nominal dimensions, unique jobs. */
 export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'evaluator'> = {}): PlanSetup {
+  const arrays = options.arrays ?? project.settings.planArrays === true;
+  const builders = BUILDERS.filter((b) =>
+    options.types ? options.types.includes(b.type) : !b.array || arrays,
+  );
+  const bandList = options.bands ?? project.bands;
+  const steps = bandList.length * builders.length;
+  let step = 0;
+  options.onProgress?.({ phase: 'enumerate', done: 0, total: steps });
+  const check = options.feasibility ?? checkPlacement;
   const site = buildSite(project);
   const prepared = prepareSite(site);
   const paths = planPaths(
@@ -340,26 +493,70 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
   const metalSupports: NearbySupport[] = site.supports
     .filter((s) => s.conducts !== false && s.conducts !== undefined)
     .map((s) => ({ id: s.id, name: s.name, xy: s.xy, metal: s.metal ?? null }));
-  const builders = BUILDERS.filter((b) =>
-    options.types ? options.types.includes(b.type) : !b.array || options.arrays === true,
-  );
   const jobs = new Map<string, Job>();
-  const bands = (options.bands ?? project.bands).map((band) => {
-    const ctx = { site: prepared, band: bandPlan(band, project.settings.operating?.[band]) };
+  const cuts: PlanCut[] = [];
+  // Key and promise of each design, by its content: the orientations of one design share them.
+  const known = new Map<string, { key: string; promise: [number, number] }>();
+  const designInfo = (d: Design): { key: string; promise: [number, number] } => {
+    const id = JSON.stringify([d.type, d.params, d.trim, d.designFreqHz]);
+    let k = known.get(id);
+    if (!k) {
+      k = { key: designKey(d, ground), promise: designPromise(d) };
+      known.set(id, k);
+    }
+    return k;
+  };
+  const bands = bandList.map((band) => {
+    const bp = bandPlan(band, project.settings.operating?.[band]);
     const proposed: Proposed[] = [];
     const rejections: Rejection[] = [];
     for (const b of builders) {
-      const out = b.propose(ctx);
+      const given = supportsFor(prepared, b.type, bp.wavelengthM);
+      const out = b.propose({ site: given, band: bp });
       for (const r of out.rejections) rejections.push(r); // no spread: a large lot has 1e5+ of them
+      // Most promising first, within the bounds; the rest of the work in the builder's order.
+      const n = out.proposals.length;
+      const info = out.proposals.map((p) => designInfo(p.design));
+      const face = out.proposals.map((p) => facing(p.broadsideDeg, paths));
+      const order = Array.from({ length: n }, (_, i) => i).sort(
+        (i, j) =>
+          info[j].promise[0] - info[i].promise[0] ||
+          info[j].promise[1] - info[i].promise[1] ||
+          face[j] - face[i] ||
+          i - j,
+      );
+      const results: (FeasibilityResult | undefined)[] = new Array(n);
+      const kept = new Set<string>();
+      let considered = 0;
+      for (const i of order) {
+        if (considered >= PLAN_BOUNDS.placements) break;
+        if (!kept.has(info[i].key) && kept.size >= PLAN_BOUNDS.designs) continue;
+        const p = out.proposals[i];
+        const res = check(prepared, placedElements(p, p.design.trim.nominalM));
+        considered++;
+        results[i] = res;
+        if (res.ok) kept.add(info[i].key);
+      }
+      if (considered < n || given !== prepared)
+        cuts.push({
+          band,
+          type: b.type,
+          supportsUsed: given.site.supports.length,
+          supportsTotal: site.supports.length,
+          considered,
+          proposed: n,
+          designs: kept.size,
+        });
       const failedByGroup = new Map<string, { p: Proposal; reasons: string[]; worst: number }>();
       const okGroups = new Set<string>();
-      for (const p of out.proposals) {
-        const res = checkPlacement(prepared, placedElements(p, p.design.trim.nominalM));
+      out.proposals.forEach((p, i) => {
+        const res = results[i];
+        if (!res) return;
         if (res.ok) {
           const near = metalSupports.length
             ? conductorsNear(p.design, p.placement, metalSupports, away)
             : { conductors: [], unknown: [] };
-          const key = designKey(p.design, ground);
+          const key = info[i].key;
           if (!jobs.has(key)) jobs.set(key, { key, design: p.design, ground });
           let withConductors: Proposed['withConductors'];
           if (near.conductors.length) {
@@ -380,7 +577,7 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
             failedByGroup.set(p.groupKey, { p, reasons: res.violations.map((v) => v.message), worst });
           }
         }
-      }
+      });
       for (const [g, f] of failedByGroup) {
         if (okGroups.has(g)) continue;
         rejections.push({
@@ -391,10 +588,40 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
           reasons: f.reasons,
         });
       }
+      options.onProgress?.({ phase: 'enumerate', done: ++step, total: steps });
     }
     return { band, proposed, rejections };
   });
-  return { site, prepared, paths, bands, jobs: [...jobs.values()] };
+  return {
+    site,
+    prepared,
+    paths,
+    bands,
+    jobs: [...jobs.values()],
+    cuts,
+    check,
+    trimmedChecks: new WeakMap(),
+  };
+}
+
+/**
+ * The check of a proposed placement at its trimmed dimensions (with the metal near it or not),
+ * computed once per plan: the ranking runs more than once (step 3 ranks before the soil range).
+ */
+function trimmedCheck(
+  setup: PlanSetup,
+  q: Proposed,
+  p: Proposal,
+  trimM: number,
+  metal: boolean,
+): FeasibilityResult {
+  let list = setup.trimmedChecks.get(q);
+  if (!list) setup.trimmedChecks.set(q, (list = []));
+  const hit = list.find((c) => c.trimM === trimM && c.metal === metal);
+  if (hit) return hit.result;
+  const result = setup.check(setup.prepared, placedElements(p, trimM));
+  list.push({ trimM, metal, result });
+  return result;
 }
 
 /** Step 2: evaluate every job missing from the cache. Returns the number of evaluations made. */
@@ -459,7 +686,7 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
       const rec = cache.get(q.key);
       if (!rec) throw new Error(`conductorJobs: evaluation ${q.key} missing from the cache`);
       if (rec.unsolvable !== undefined) return;
-      if (!checkPlacement(setup.prepared, placedElements(q.proposal, rec.trimM)).ok) return;
+      if (!trimmedCheck(setup, q, q.proposal, rec.trimM, false).ok) return;
       const { score } = scoreStates(
         scoreOf,
         setup.paths.map((path) => path.weight),
@@ -533,7 +760,7 @@ export function rankPlan(
   project: Project,
   shortlistSize = 10,
 ): Omit<Shortlist, 'stats'> {
-  const { site, prepared, paths } = setup;
+  const { site, paths } = setup;
   const supportById = new Map(site.supports.map((s) => [s.id, s]));
   const candidates: Candidate[] = [];
   const rejected: RejectedPlacement[] = [];
@@ -592,7 +819,7 @@ export function rankPlan(
         continue;
       }
       const elements = placedElements(p, rec.trimM);
-      const check = checkPlacement(prepared, elements);
+      const check = trimmedCheck(setup, q, p, rec.trimM, p !== q.proposal);
       if (!check.ok) {
         if (!postTrimFail.has(p.groupKey)) {
           postTrimFail.set(p.groupKey, {
@@ -875,6 +1102,7 @@ export function planFromSetup(setup: PlanSetup, project: Project, options: PlanO
       feasibleAtNominal: feasible,
       evaluations,
       cacheHits: before,
+      cuts: setup.cuts,
     },
   };
 }

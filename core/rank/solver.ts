@@ -62,13 +62,14 @@ export const solverEvaluator: Evaluator = (req) => {
     frequenciesHz: req.frequenciesHz,
     pattern: req.pattern,
     groundModel: PLAN_GROUND_MODEL,
+    // The planner reads the total gain on its grid and finds its own peak there (evaluate.ts).
+    gainGridOnly: true,
   });
   const diagnostics = res.diagnostics.filter((d) => d.level === 'warning').map((d) => d.message);
   return res.frequencies.map((f) => {
     // an array is fed through its network: the impedance at the feed is its first source's
     const feed = f.sources.length ? f.sources[0] : f.feeds[0];
-    const gain = new Float64Array(f.pattern.length);
-    for (let i = 0; i < f.pattern.length; i++) gain[i] = f.pattern[i].gainDbi;
+    const gain = f.gainGridDbi ?? new Float64Array(f.pattern.map((p) => p.gainDbi));
     return {
       freqHz: f.frequencyHz,
       zOhm: [feed.impedanceOhm[0], feed.impedanceOhm[1]],
@@ -96,3 +97,22 @@ export const solverEvaluator: Evaluator = (req) => {
     };
   });
 };
+
+/**
+ * Builds what every planning evaluation over `ground` at these frequencies reuses (the exact
+ * ground's remainder tables, core/em/halfspace/table.ts) by solving a small probe wire, so that a
+ * worker can do it while the plan is still being enumerated. Nothing is returned; the tables stay
+ * in this thread's module-level cache.
+ */
+export function warmGround(ground: EvalGround, frequenciesHz: readonly number[]): void {
+  if (ground === 'perfect' || ground === 'free-space' || frequenciesHz.length === 0) return;
+  const lambda = 299_792_458 / Math.max(...frequenciesHz);
+  // A sloping half-wave wire from 1 m up to a quarter wave: near and far pairs alike.
+  const model: AntennaModel = {
+    wires: [{ from: [0, 0, 1], to: [lambda / 2.2, 0, lambda / 4], radiusM: 0.001, segments: 10 }],
+    feeds: [{ wire: 0, position: 0.5 }],
+    radials: [],
+    ground: groundSpec(ground),
+  };
+  sweepImpedance(model, frequenciesHz, { groundModel: PLAN_GROUND_MODEL });
+}

@@ -1,9 +1,35 @@
 /**
  * Switchable directions (relay states) of an array: each state's pattern is the evaluated pattern
- * turned by the state's rotation (Design.states), each region is served by its best state, and the
- * score is the weighted mean of those best region gains, as for a fixed antenna.
+ * turned by the state's rotation, or mirrored first across a vertical plane when the array is
+ * mirror-symmetric rather than turn-symmetric (Design.states, `statePattern`), each region is
+ * served by its best state, and the score is the weighted mean of those best region gains, as for
+ * a fixed antenna.
  */
 import type { Design } from '../antennas/types.ts';
+import { PATTERN_GRID } from './pattern.ts';
+
+type StateSpec = NonNullable<Design['states']>[number];
+
+/**
+ * The canonical pattern (PATTERN_GRID, elevation-major) of one state: the evaluated pattern
+ * mirrored across the vertical plane at canonical bearing `mirrorAxisDeg` (az → 2φ − az) when the
+ * state has one; its `rotationDeg` is applied by the placement like any rotation. The axis must
+ * map the 2° grid onto itself (a whole number of degrees).
+ */
+export function statePattern(gainDbi: readonly number[], state: StateSpec): readonly number[] {
+  if (state.mirrorAxisDeg === undefined) return gainDbi;
+  const az = PATTERN_GRID.azimuthsDeg;
+  const nAz = az.length;
+  const step = 360 / nAz;
+  const out = new Array<number>(gainDbi.length);
+  const rows = gainDbi.length / nAz;
+  for (let j = 0; j < nAz; j++) {
+    const src = (((2 * state.mirrorAxisDeg - az[j]) % 360) + 360) % 360;
+    const k = Math.round(src / step) % nAz;
+    for (let i = 0; i < rows; i++) out[i * nAz + j] = gainDbi[i * nAz + k];
+  }
+  return out;
+}
 
 export type BaseScorer = (
   gainDbi: readonly number[],
@@ -43,10 +69,11 @@ export function scoreStates(
   const states = design.states?.length ? design.states : [{ name: 'fixed', rotationDeg: 0 }];
   const fixed = !design.states?.length;
   const results: StateResult[] = states.map((s) => {
-    const r = base(gainDbi, rot + s.rotationDeg);
+    const r = base(statePattern(gainDbi, s), rot + s.rotationDeg);
+    const beam = s.mirrorAxisDeg === undefined ? 0 : 2 * s.mirrorAxisDeg;
     return {
       name: s.name,
-      beamDeg: norm(fixed ? rot + peakAzDeg : rot + s.rotationDeg),
+      beamDeg: norm(fixed ? rot + peakAzDeg : rot + s.rotationDeg + beam),
       regionGains: r.regionGains,
       score: r.score,
     };

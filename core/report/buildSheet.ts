@@ -11,7 +11,7 @@
  * function every view calls is ./stationReport.ts.
  */
 import type { Project } from '../project/schema.ts';
-import { operatingSpan } from '../bands.ts';
+import { operatingFit, operatingSpan } from '../bands.ts';
 import type { Candidate, Shortlist } from '../rank/plan.ts';
 import { gainAt } from '../rank/pattern.ts';
 import { buildSite } from '../site/site.ts';
@@ -21,6 +21,7 @@ import { lengthsInText, type UnitSystem } from '../units/index.ts';
 import { CUT_ALLOWANCE_PER_END_M } from '../antennas/common.ts';
 import { candidateMatching, type CandidateMatching } from '../match/candidateMatch.ts';
 import { materialsOf, type BomItem, type Materials } from './bom.ts';
+import { arrayBom, arrayWiring, type ArrayWiring } from './arrayWiring.ts';
 import type { Caution } from './cautions.ts';
 import { estimateExposure, type ExposureEstimate, type Mode } from './exposure.ts';
 import { exposureOnLot, type ExposureOnLot } from './exposureZones.ts';
@@ -80,6 +81,8 @@ export interface BuildSheet {
   /** The estimate's distances on the lot: the places each zone reaches and the zone outlines. */
   exposureOnLot: ExposureOnLot;
   cautions: Caution[];
+  /** Arrays: the relay box, relays, control wiring, each direction and what the feed network achieves. */
+  array: ArrayWiring | null;
   /** Lot drawing in the site frame. */
   lot: {
     boundary: XY[];
@@ -96,6 +99,8 @@ export interface BuildSheet {
     radialBearingsDeg: number[];
     /** Ropes from the wire ends to their supports or ground anchors (the candidate's rope elements), site frame. */
     ropes: { label: string; from: XYZ; to: XYZ }[];
+    /** Arrays: the coax between the elements and the relay box, site frame. */
+    arrayCoax: { label: string; from: XYZ; to: XYZ }[];
   };
   /**
    * Elevation cuts: toward each target region (its centre bearing, with its elevation window),
@@ -147,11 +152,19 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     feedXYZ = c.wires[0].from;
     notes.push('The candidate carries no feed point: the feed is taken at the start of its first wire.');
   }
+  // An array with a relay box: the station's line ends at the box, on the ground.
+  const array = arrayWiring(c, new Map(c.regions.map((r) => [r.id, r.name])), station.powerW);
+  if (array?.boxXY) feedXYZ = [array.boxXY[0], array.boxXY[1], 0];
   const bends = (project.feedRoutes[c.id] ?? []).map((q) => site.frame.toLocal(q));
   const feedLine = feedLineOf(site.station, bends, feedXYZ, station.coax, c.feed.freqMHz);
 
   const supports = site.supports.map((s) => ({ id: s.id, name: s.name, xy: s.xy, heightM: s.heightM }));
   const m = materialsOf(c, supports, feedLine, L);
+  const bom = [...m.bom, ...arrayBom(c, array, feedLine.lengthM, L)];
+  if (array && c.states.length > 1)
+    notes.push(
+      `The patterns drawn are direction 1 (${c.states[0].name}); the other directions are the same pattern turned or mirrored (see Feed line, relay box).`,
+    );
 
   const g = c.groundSystem;
   const radialTable: RadialRow[] =
@@ -221,7 +234,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     operating: operatingOf(c, project),
     cutList: c.cutList,
     cutAllowance: `Cut lengths include ${L.small(CUT_ALLOWANCE_PER_END_M, 0)} per end for the loop through an insulator or the connection; trim after a first measurement.`,
-    bom: m.bom,
+    bom,
     wire: m.wire,
     radials: m.radials,
     radialTable,
@@ -235,6 +248,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     exposureOnLot: onLot,
     // The candidate's own list (core/report/cautions.ts through the planner): the same the app shows.
     cautions: c.cautions,
+    array,
     lot: {
       boundary: site.boundary,
       keepOuts: site.keepOuts.map((k) => ({ name: k.name, kind: k.kind, shape: k.shape })),
@@ -251,6 +265,9 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
       ropes: c.elements.flatMap((e) =>
         e.role === 'rope' ? [{ label: e.label, from: e.from, to: e.to }] : [],
       ),
+      arrayCoax: c.elements.flatMap((e) =>
+        e.role === 'coax' ? [{ label: e.label, from: e.from, to: e.to }] : [],
+      ),
     },
     pattern,
     notes,
@@ -260,10 +277,5 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
 /** The user's operating span on the candidate's band, and whether the candidate's 2:1 band covers it. */
 function operatingOf(c: Candidate, project: Project): BuildSheet['operating'] {
   const span = operatingSpan(c.band, project.settings.operating?.[c.band]);
-  const bw = c.bandwidth2to1;
-  const covered =
-    bw.widthKHz > 0 &&
-    (bw.lowMHz === null || bw.lowMHz <= span.lowMHz) &&
-    (bw.highMHz === null || bw.highMHz >= span.highMHz);
-  return { ...span, covered };
+  return { ...span, covered: operatingFit(c, span) === 'inside' };
 }

@@ -69,6 +69,10 @@ export function highVoltageEndsText(type: string): string | null {
       return null;
     case 'half-square':
       return 'The lower ends of the two drops carry high RF voltage when you transmit.';
+    case 'half-square-reflector':
+    case 'half-square-switched':
+    case 'half-square-l':
+      return 'The lower ends of all four drops carry high RF voltage when you transmit, the idle or reflecting half-square’s too.';
     case 'inverted-l':
       return 'The far end of the top part carries high RF voltage when you transmit.';
     case 'inverted-v':

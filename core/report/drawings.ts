@@ -180,6 +180,16 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
     out.push(
       `<line x1="${X(r.from[0])}" y1="${Y(r.from[1])}" x2="${X(r.to[0])}" y2="${Y(r.to[1])}" class="rope"><title>${e(r.label)}</title></line>`,
     );
+  // An array's coax to its relay box, and the box (a square) where it meets the ground.
+  for (const r of lot.arrayCoax)
+    out.push(
+      `<line x1="${X(r.from[0])}" y1="${Y(r.from[1])}" x2="${X(r.to[0])}" y2="${Y(r.to[1])}" class="coax"><title>${e(r.label)}</title></line>`,
+    );
+  const box = s.array?.boxXY;
+  if (box)
+    out.push(
+      `<rect x="${Number(X(box[0])) - 4}" y="${Number(Y(box[1])) - 4}" width="8" height="8" class="relay-box"><title>relay box</title></rect>`,
+    );
   // Labels spread outward from the antenna's middle, so those at one point do not sit on each other.
   const cx = c.wires.reduce((a, w) => a + w.from[0] + w.to[0], 0) / Math.max(1, 2 * c.wires.length);
   const verticalTops: XY[] = [];
@@ -251,9 +261,16 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
         text(Number(X(p[0])), Number(Y(p[1])), `h ${U.len(p[2])}`, 'hlabel', AROUND);
       }
     }
-    const f = feedLine.feedXYZ;
-    out.push(`<circle cx="${X(f[0])}" cy="${Y(f[1])}" r="5" class="feed"><title>feed point</title></circle>`);
-    text(Number(X(f[0])), Number(Y(f[1])), `feed, ${U.len(f[2])} up`, 'flabel', AROUND);
+    // Every feed point (an array has one per element); an array's station line ends at its box.
+    const box = s.array?.boxXY;
+    const feeds = box ? c.feedPoints.map((p) => p.xyz) : [feedLine.feedXYZ];
+    for (const f of feeds) {
+      out.push(
+        `<circle cx="${X(f[0])}" cy="${Y(f[1])}" r="5" class="feed"><title>feed point</title></circle>`,
+      );
+      text(Number(X(f[0])), Number(Y(f[1])), `feed, ${U.len(f[2])} up`, 'flabel', AROUND);
+    }
+    if (box) text(Number(X(box[0])), Number(Y(box[1])), 'relay box', 'flabel', AROUND);
   }
   for (const sp of lot.supports) {
     if (detail && !sp.used && !inView(sp.xy)) continue;

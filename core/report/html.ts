@@ -53,6 +53,48 @@ function table(head: string[], rows: Cell[][]): string {
 
 /* ---------------------------------------------------------------------------------------------- */
 
+/** An array's relay box, relays, control wiring, directions and achieved feed (./arrayWiring.ts). */
+function arrayHtml(s: BuildSheet): string {
+  const a = s.array;
+  if (!a) return '';
+  const U = sheetLengths(s.units);
+  const st = s.lot.station;
+  const box = a.boxXY
+    ? `${a.boxWhere}: ${U.len(Math.hypot(a.boxXY[0] - st[0], a.boxXY[1] - st[1]))} from the station point, at ${U.len(a.boxXY[0])} E, ${U.len(a.boxXY[1])} N in the site frame. The station's feed line ends at the box.`
+    : a.boxWhere;
+  return (
+    `<h3 id="array-wiring">Array: relay box and control wiring</h3><p>${e(box)}</p>` +
+    (a.relays.length ? `<ul>${a.relays.map((r) => `<li>${e(r)}</li>`).join('')}</ul>` : '') +
+    (a.directions.length
+      ? table(
+          ['Direction', 'Relay coils energised', 'Beam', 'What it does', 'Serves'],
+          a.directions.map((d) => [
+            String(d.n),
+            d.coils,
+            `${Math.round(d.beamDeg)}°`,
+            d.name,
+            d.serves.join(', ') || '—',
+          ]),
+        )
+      : '') +
+    (a.control.length ? `<ul>${a.control.map((r) => `<li>${e(r)}</li>`).join('')}</ul>` : '') +
+    (a.feed.length
+      ? `<h3>What the feed network achieves (direction 1)</h3>` +
+        table(
+          ['Element feed', 'Drive impedance', 'Current (relative, phase)'],
+          a.feed.map((f) => [f.label, f.zText, f.current]),
+        ) +
+        `<p class="note">${e(
+          `Solved with the wires and every line with its loss; currents relative to the element at 1.00.${
+            a.networkLossPercent !== null
+              ? ` The lines and stubs take ${a.networkLossPercent.toFixed(1)} % of the power.`
+              : ''
+          } The relay and control practice is common practice, no source; follow the relay maker's ratings.`,
+        )}</p>`
+      : '')
+  );
+}
+
 /* ---------------------------------------------------------------------------------------------- */
 
 const STYLE = `
@@ -80,6 +122,7 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .klabel { fill: #a33; }
 .radial { stroke: #8c7a4b; stroke-width: 0.7; }
 .rope { stroke: #6f7a80; stroke-width: 1; stroke-dasharray: 2 2; }
+.relay-box { fill: #fff; stroke: #1d232a; stroke-width: 2; }
 .feed { fill: #ffd45c; stroke: #1d232a; stroke-width: 1.5; }
 .flabel { fill: #1d232a; font-weight: 600; }
 .coax { fill: none; stroke: #555; stroke-width: 1.2; stroke-dasharray: 4 3; }
@@ -206,7 +249,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       `${planSvg(s, 'lot')}<p class="note">${e(
         `Site frame: x east, y north, ${U.units === 'imperial' ? 'feet' : 'metres'}. Red: antenna wires. Filled circles: supports used. Dashed grey: feed line from the station along its route. Thin brown: radials. Red shading and dashed red: keep-outs; dotted brown: paths. Violet shading: where a standing person would be inside the FCC general-population distance (with ground reflection); dashed teal: the same for the ICNIRP 2020 public level.`,
       )}</p><h3>Antenna detail</h3>${planSvg(s, 'detail')}<p class="note">${e(
-        'The same plan, closer: every wire with its length, the heights of the wire ends (h), the ropes (dotted grey) to their supports or ground anchors, and the feed point (yellow).',
+        `The same plan, closer: every wire with its length, the heights of the wire ends (h), the ropes (dotted grey) to their supports or ground anchors, and the feed point (yellow).${s.array?.boxXY ? ' The array’s coax (dashed grey) runs from each fed corner or base to the relay box (white square).' : ''}`,
       )}</p>`,
     ),
   );
@@ -262,7 +305,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
         .map(([k, v]) => `<dt>${e(k)}</dt><dd>${e(v)}</dd>`)
         .join(
           '',
-        )}</dl><p class="note">${e(`Length: ${fl.note}. Loss: ${fl.source}, scaled as √f; extra loss from SWR not included.`)}</p>`,
+        )}</dl><p class="note">${e(`Length: ${fl.note}. Loss: ${fl.source}, scaled as √f; extra loss from SWR not included.`)}</p>${arrayHtml(s)}`,
     ),
   );
   const t = s.tuning.measured;

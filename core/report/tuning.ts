@@ -21,6 +21,12 @@ export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {
     'Change both verticals by the same amount at their top ends; they stay identical (the relay box makes one the reflector).',
   'four-square':
     'Cut all four verticals alike and trim each one alone at its base before the feed box is connected (the box hides their reactance).',
+  'half-square-reflector':
+    'Change all four drops by the same amount at their lower ends (the reflector stays identical to the driven half-square; its stub makes it the reflector).',
+  'half-square-switched':
+    'Change all four drops by the same amount at their lower ends; the two half-squares stay identical (the relay box makes one the reflector).',
+  'half-square-l':
+    'Change all four drops by the same amount at their lower ends; the two half-squares stay identical.',
 };
 
 /** The trim text of a type; a general one for a type the table does not know. */

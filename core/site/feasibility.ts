@@ -20,7 +20,7 @@ import { booleanPointInPolygon } from '@turf/boolean-point-in-polygon';
 import { whereToChange } from '../project/settingLimits.ts';
 import { polygon as turfPolygon } from '@turf/helpers';
 import type { XY } from './frame.ts';
-import { distanceToRingEdges, pointPolylineDistance, sampleSegment, type XYZ } from './geometry.ts';
+import { distanceToRingEdges, pointPolylineDistance, type XYZ } from './geometry.ts';
 import type { Site, SiteKeepOut } from './site.ts';
 
 /** Extra horizontal margin beyond fall distance around a power line, metres (common practice, no source). */
@@ -38,6 +38,8 @@ export type Element =
       role?: 'radiator' | 'top-wire';
     }
   | { kind: 'rope'; label: string; from: XYZ; to: XYZ }
+  /** Coax an array's builder lays between its elements and its relay box (checked like a rope). */
+  | { kind: 'coax'; label: string; from: XYZ; to: XYZ }
   | { kind: 'radial'; label: string; from: XYZ; to: XYZ }
   | { kind: 'end'; label: string; at: XYZ }
   | { kind: 'anchor'; label: string; at: XYZ }
@@ -82,10 +84,55 @@ export function prepareSite(site: Site): PreparedSite {
   };
 }
 
+let edgeScratch = new Float64Array(64);
+
+/**
+ * Distance from p to the edges of a closed ring and whether p lies inside it, in one pass (the
+ * same arithmetic as pointSegmentDistance, geometry.ts). Inside is the even-odd crossing test;
+ * a point within 1e-9 m of an edge (where a crossing test and Turf may disagree by rounding) is
+ * decided by Turf, as before.
+ */
+function ringDistance(p: XY, ring: readonly XY[], poly: ReturnType<typeof turfPolygon> | null): number {
+  const px = p[0];
+  const py = p[1];
+  // Squared distances first; Math.hypot (as pointSegmentDistance computes it) only for the edges
+  // within rounding of the nearest, so the minimum is the one the per-edge distances give.
+  const nE = ring.length - 1;
+  if (edgeScratch.length < 3 * nE) edgeScratch = new Float64Array(3 * nE);
+  const q = edgeScratch;
+  let best = Infinity;
+  let inside = false;
+  for (let i = 0; i < nE; i++) {
+    const ax = ring[i][0];
+    const ay = ring[i][1];
+    const bx = ring[i + 1][0];
+    const by = ring[i + 1][1];
+    const dx = bx - ax;
+    const dy = by - ay;
+    const len2 = dx * dx + dy * dy;
+    let t = len2 === 0 ? 0 : ((px - ax) * dx + (py - ay) * dy) / len2;
+    t = Math.max(0, Math.min(1, t));
+    const qx = px - ax - t * dx;
+    const qy = py - ay - t * dy;
+    const q2 = qx * qx + qy * qy;
+    q[3 * i] = qx;
+    q[3 * i + 1] = qy;
+    q[3 * i + 2] = q2;
+    if (q2 < best) best = q2;
+    if (ay > py !== by > py && px < ((bx - ax) * (py - ay)) / (by - ay) + ax) inside = !inside;
+  }
+  let d = Infinity;
+  const within = best * (1 + 1e-9) + 1e-300;
+  for (let i = 0; i < nE; i++)
+    if (q[3 * i + 2] <= within) d = Math.min(d, Math.hypot(q[3 * i], q[3 * i + 1]));
+  if (poly === null) return d;
+  if (d < 1e-9) inside = booleanPointInPolygon(p, poly);
+  return inside ? d : -d;
+}
+
 /** Signed distance to the boundary: positive inside (distance to the nearest edge), negative outside. */
 export function boundaryDistance(ps: PreparedSite, p: XY): number {
-  const d = distanceToRingEdges(p, ps.site.boundary);
-  return booleanPointInPolygon(p, ps.boundaryPoly) ? d : -d;
+  return ringDistance(p, ps.site.boundary, ps.boundaryPoly);
 }
 
 /** Horizontal distance from p to a keep-out zone (0 inside a polygon). */
@@ -93,8 +140,9 @@ export function keepOutDistance(ps: PreparedSite, index: number, p: XY): number 
   const k = ps.site.keepOuts[index];
   if (k.shape.type === 'line') return pointPolylineDistance(p, k.shape.line);
   const poly = ps.keepOutPolys[index];
-  if (poly && booleanPointInPolygon(p, poly)) return 0;
-  return distanceToRingEdges(p, k.shape.ring);
+  if (!poly) return distanceToRingEdges(p, k.shape.ring);
+  const d = ringDistance(p, k.shape.ring, poly);
+  return d < 0 ? -d : 0;
 }
 
 /** Horizontal distance a point at height z must keep from a keep-out, or 0 if it may pass (high over a building). */
@@ -106,24 +154,41 @@ export function requiredClearance(k: SiteKeepOut, zM: number): number {
   return zM < top + k.clearanceM ? k.clearanceM : 0;
 }
 
-interface Sample {
-  p: XYZ;
+/**
+ * A rule missed at one check point, kept as numbers: the message is written once, for the worst
+ * point of each part and rule (writing it at every point cost most of a failed check).
+ */
+interface Miss {
+  code: ViolationCode;
   element: string;
-  kind: Element['kind'];
+  keepOutId?: string;
+  byM: number;
+  /** The number the message quotes: the height (end), boundary distance (lot, setback) or zone distance. */
+  value: number;
+  /** The keep-out's required distance, or the mast's height. */
+  need: number;
+  keepOut: number;
 }
 
-function samplesOf(e: Element): Sample[] {
-  switch (e.kind) {
-    case 'wire':
-    case 'rope':
-    case 'radial':
-      return sampleSegment(e.from, e.to, SAMPLE_STEP_M).map((p) => ({ p, element: e.label, kind: e.kind }));
-    case 'end':
-    case 'anchor':
-      return [{ p: e.at, element: e.label, kind: e.kind }];
-    case 'support':
-    case 'mast':
-      return [{ p: [e.at[0], e.at[1], e.heightM], element: e.label, kind: e.kind }];
+/** The words of a missed rule (as each was written at the point before the messages were deferred). */
+function missMessage(m: Miss, site: Site, setback: number, minEnd: number): string {
+  switch (m.code) {
+    case 'end-height':
+      return `${m.element} is ${f1(m.value)} m above ground, ${f1(m.byM)} m below the ${f1(minEnd)} m end-height limit${whereToChange('minEndHeightM')}`;
+    case 'mast-height':
+      return `${m.element} would be ${f1(m.value)} m tall, ${f1(m.byM)} m over the ${f1(site.settings.maxVerticalHeightM)} m self-supporting limit${whereToChange('maxVerticalHeightM')}`;
+    case 'outside-lot':
+      return `${m.element} leaves the lot by ${f1(-m.value)} m`;
+    case 'setback':
+      return `${m.element} comes ${f1(m.value)} m from the boundary, inside the ${f1(setback)} m setback by ${f1(m.byM)} m${whereToChange('setbackM')}`;
+    default: {
+      const k = site.keepOuts[m.keepOut];
+      return k.kind === 'power-line'
+        ? `${m.element} crosses the power-line clearance of "${k.name}" by ${f1(m.byM)} m (needs ${f1(m.need)} m, has ${f1(m.value)} m)`
+        : `${m.element} comes within ${f1(m.value)} m of "${k.name}" (clearance ${f1(k.clearanceM)} m${
+            k.heightM !== undefined ? ` below ${f1(k.heightM + k.clearanceM)} m` : ''
+          }) by ${f1(m.byM)} m`;
+    }
   }
 }
 
@@ -132,97 +197,132 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
   const { site } = ps;
   const setback = site.settings.setbackM;
   const minEnd = site.settings.minEndHeightM;
+  const keepOuts = site.keepOuts;
+  const nK = keepOuts.length;
   const violations: Violation[] = [];
-  const worst = new Map<string, Violation>();
-  const note = (key: string, v: Violation): void => {
+  const worst = new Map<string, Miss>();
+  const note = (key: string, v: Miss): void => {
     const old = worst.get(key);
     if (!old || v.byM > old.byM) worst.set(key, v);
   };
   let boundaryMargin = Infinity;
-  const closest = site.keepOuts.map(() => ({ spareM: Infinity, element: '', distM: 0, needM: 0 }));
+  const closest = keepOuts.map(() => ({ spareM: Infinity, element: '', distM: 0, needM: 0 }));
   let lowestEnd = Infinity;
+  const xy: [number, number] = [0, 0];
+
+  /** One check point of element `label` (of kind `kind`) at (x, y, z). */
+  const checkPoint = (label: string, kind: Element['kind'], x: number, y: number, z: number): void => {
+    xy[0] = x;
+    xy[1] = y;
+    if (kind !== 'support') {
+      const bd = boundaryDistance(ps, xy);
+      boundaryMargin = Math.min(boundaryMargin, bd);
+      if (bd < 0) {
+        note(`lot:${label}`, {
+          code: 'outside-lot',
+          element: label,
+          byM: -bd + setback,
+          value: bd,
+          need: 0,
+          keepOut: -1,
+        });
+      } else if (bd < setback - 1e-6) {
+        note(`setback:${label}`, {
+          code: 'setback',
+          element: label,
+          byM: setback - bd,
+          value: bd,
+          need: 0,
+          keepOut: -1,
+        });
+      }
+    }
+    for (let i = 0; i < nK; i++) {
+      const k = keepOuts[i];
+      // A used support: only the fall rule of power lines applies to it.
+      if (kind === 'support' && k.kind !== 'power-line') continue;
+      const need = requiredClearance(k, z);
+      const d = keepOutDistance(ps, i, xy);
+      const c = closest[i];
+      if (d - need < c.spareM) {
+        c.spareM = d - need;
+        c.element = label;
+        c.distM = d;
+        c.needM = need;
+      }
+      if (need > 0 && d < need - 1e-6) {
+        note(`ko:${k.id}:${label}`, {
+          code: k.kind === 'power-line' ? 'power-line' : 'keep-out',
+          element: label,
+          keepOutId: k.id,
+          byM: need - d,
+          value: d,
+          need,
+          keepOut: i,
+        });
+      }
+    }
+  };
 
   for (const e of elements) {
     if (e.kind === 'end') {
       lowestEnd = Math.min(lowestEnd, e.at[2]);
       if (e.at[2] < minEnd - 1e-6) {
-        const by = minEnd - e.at[2];
         note(`end:${e.label}`, {
           code: 'end-height',
           element: e.label,
-          byM: by,
-          message: `${e.label} is ${f1(e.at[2])} m above ground, ${f1(by)} m below the ${f1(minEnd)} m end-height limit${whereToChange('minEndHeightM')}`,
+          byM: minEnd - e.at[2],
+          value: e.at[2],
+          need: 0,
+          keepOut: -1,
         });
       }
     }
     if (e.kind === 'mast' && e.heightM > site.settings.maxVerticalHeightM + 1e-6) {
-      const by = e.heightM - site.settings.maxVerticalHeightM;
       note(`mast:${e.label}`, {
         code: 'mast-height',
         element: e.label,
-        byM: by,
-        message: `${e.label} would be ${f1(e.heightM)} m tall, ${f1(by)} m over the ${f1(site.settings.maxVerticalHeightM)} m self-supporting limit${whereToChange('maxVerticalHeightM')}`,
+        byM: e.heightM - site.settings.maxVerticalHeightM,
+        value: e.heightM,
+        need: 0,
+        keepOut: -1,
       });
     }
-    for (const s of samplesOf(e)) {
-      const xy: XY = [s.p[0], s.p[1]];
-      if (s.kind !== 'support') {
-        const bd = boundaryDistance(ps, xy);
-        boundaryMargin = Math.min(boundaryMargin, bd);
-        if (bd < 0) {
-          note(`lot:${s.element}`, {
-            code: 'outside-lot',
-            element: s.element,
-            byM: -bd + setback,
-            message: `${s.element} leaves the lot by ${f1(-bd)} m`,
-          });
-        } else if (bd < setback - 1e-6) {
-          note(`setback:${s.element}`, {
-            code: 'setback',
-            element: s.element,
-            byM: setback - bd,
-            message: `${s.element} comes ${f1(bd)} m from the boundary, inside the ${f1(setback)} m setback by ${f1(setback - bd)} m${whereToChange('setbackM')}`,
-          });
-        }
+    if ('from' in e) {
+      // A line element (wire, rope, radial, …): the points of sampleSegment(e.from, e.to,
+      // SAMPLE_STEP_M) (geometry.ts), with the same arithmetic.
+      const a = e.from;
+      const b = e.to;
+      const len = Math.hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
+      const n = Math.max(1, Math.ceil(len / SAMPLE_STEP_M));
+      for (let i = 0; i <= n; i++) {
+        const t = i / n;
+        checkPoint(
+          e.label,
+          e.kind,
+          a[0] + t * (b[0] - a[0]),
+          a[1] + t * (b[1] - a[1]),
+          a[2] + t * (b[2] - a[2]),
+        );
       }
-      site.keepOuts.forEach((k, i) => {
-        // A used support: only the fall rule of power lines applies to it.
-        if (s.kind === 'support' && k.kind !== 'power-line') return;
-        const need = requiredClearance(k, s.p[2]);
-        const d = keepOutDistance(ps, i, xy);
-        const c = closest[i];
-        if (d - need < c.spareM) {
-          c.spareM = d - need;
-          c.element = s.element;
-          c.distM = d;
-          c.needM = need;
-        }
-        if (need > 0 && d < need - 1e-6) {
-          const by = need - d;
-          const message =
-            k.kind === 'power-line'
-              ? `${s.element} crosses the power-line clearance of "${k.name}" by ${f1(by)} m (needs ${f1(need)} m, has ${f1(d)} m)`
-              : `${s.element} comes within ${f1(d)} m of "${k.name}" (clearance ${f1(k.clearanceM)} m${
-                  k.heightM !== undefined ? ` below ${f1(k.heightM + k.clearanceM)} m` : ''
-                }) by ${f1(by)} m`;
-          note(`ko:${k.id}:${s.element}`, {
-            code: k.kind === 'power-line' ? 'power-line' : 'keep-out',
-            element: s.element,
-            keepOutId: k.id,
-            byM: by,
-            message,
-          });
-        }
-      });
-    }
+    } else if (e.kind === 'support' || e.kind === 'mast')
+      checkPoint(e.label, e.kind, e.at[0], e.at[1], e.heightM);
+    else checkPoint(e.label, e.kind, e.at[0], e.at[1], e.at[2]);
   }
   // A part that leaves the lot needs no separate setback message.
   for (const [k, v] of worst) {
     if (v.code === 'setback' && worst.has(`lot:${v.element}`)) worst.delete(k);
   }
+  const missed: Violation[] = [...worst.values()].map((m) => ({
+    code: m.code,
+    element: m.element,
+    ...(m.keepOutId !== undefined ? { keepOutId: m.keepOutId } : {}),
+    byM: m.byM,
+    message: missMessage(m, site, setback, minEnd),
+  }));
   // One violation per rule and zone: the worst part, naming how many other parts miss it too.
   const byRule = new Map<string, { v: Violation; others: Set<string> }>();
-  for (const v of worst.values()) {
+  for (const v of missed) {
     const k = `${v.code}:${v.keepOutId ?? ''}`;
     const r = byRule.get(k);
     if (!r) byRule.set(k, { v, others: new Set() });

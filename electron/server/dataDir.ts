@@ -1,8 +1,8 @@
 /**
  * Where browser mode keeps its database: YARDWIRE_DATA_DIR if set, otherwise the platform's
  * per-user data folder (XDG_DATA_HOME or ~/.local/share on Linux, ~/Library/Application Support
- * on macOS, %APPDATA% on Windows), in a `Yardwire` subfolder. The Electron shell uses its
- * userData folder instead.
+ * on macOS, %APPDATA% on Windows), in a `Yardwire` subfolder. The Electron shell uses
+ * YARDWIRE_DATA_DIR too, otherwise its userData folder (electron/startFailure.ts desktopDataDir).
  */
 import { mkdirSync } from 'node:fs';
 import { homedir } from 'node:os';

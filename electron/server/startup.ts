@@ -4,10 +4,16 @@
  */
 import { defaultDataDir } from './dataDir.ts';
 
-/** Startup problems the user can fix, as one line saying what to change (no stack trace). */
-export function startupMessage(e: unknown, env: NodeJS.ProcessEnv = process.env): string {
+/**
+ * Startup problems the user can fix, as one line saying what to change (no stack trace). `dir` is
+ * the data folder in use (browser mode's unless the desktop shell gives its own).
+ */
+export function startupMessage(
+  e: unknown,
+  env: NodeJS.ProcessEnv = process.env,
+  dir: string = defaultDataDir(env),
+): string {
   const err = e as NodeJS.ErrnoException & { port?: number };
-  const dir = defaultDataDir(env);
   if (err?.code === 'EADDRINUSE')
     return `port ${err.port ?? env.YARDWIRE_PORT ?? 5719} is already in use (another Yardwire or another program): set YARDWIRE_PORT to another port, or to 0 for any free one`;
   if (err?.code === 'EACCES' && err.syscall === 'listen')

@@ -13,6 +13,10 @@ export declare function lonLatOf(e: number, n: number): [number, number];
 export declare function renderDemoAerial(): { width: number; height: number; rgb: Uint8Array };
 export declare const GEOKEYS_4326: number[];
 export declare function geoKeysProjected(epsg: number): number[];
+export declare function tiffLayout(
+  tags: [number, 3 | 4 | 12, number[]][],
+  patch: (dataOffset: number) => void,
+): { head: Uint8Array; dataOffset: number };
 export declare function encodeRgbTiff(
   width: number,
   height: number,

@@ -163,6 +163,54 @@ export const GEOKEYS_4326 = [1, 1, 0, 3, 1024, 0, 1, 2, 1025, 0, 1, 1, 2048, 0, 
 export const geoKeysProjected = (epsg) => [1, 1, 0, 3, 1024, 0, 1, 1, 1025, 0, 1, 1, 3072, 0, 1, epsg];
 
 /**
+ * The header and IFD of a little-endian classic TIFF with these tags ([tag, type, values], type 3
+ * SHORT, 4 LONG or 12 DOUBLE; sorted here), values longer than 4 bytes placed after the IFD.
+ * `patch(dataOffset)` is called before any value is written, so that tags giving where the pixel
+ * data lies (strip or tile offsets) can be set in place.
+ * @param {[number, 3 | 4 | 12, number[]][]} tags @param {(dataOffset: number) => void} patch
+ * @returns {{ head: Uint8Array, dataOffset: number }}
+ */
+export function tiffLayout(tags, patch) {
+  tags.sort((a, b) => a[0] - b[0]);
+  const size = { 3: 2, 4: 4, 12: 8 };
+  const ifdBytes = 2 + tags.length * 12 + 4;
+  let extra = 8 + ifdBytes;
+  const placed = tags.map(([tag, type, values]) => {
+    const bytes = size[type] * values.length;
+    if (bytes <= 4) return { tag, type, values, offset: -1 };
+    const offset = extra;
+    extra += bytes + (bytes % 2);
+    return { tag, type, values, offset };
+  });
+  const dataOffset = extra;
+  patch(dataOffset);
+  const out = new Uint8Array(dataOffset);
+  const v = new DataView(out.buffer);
+  const put = (type, at, value) =>
+    type === 3
+      ? v.setUint16(at, value, true)
+      : type === 4
+        ? v.setUint32(at, value, true)
+        : v.setFloat64(at, value, true);
+  out.set([0x49, 0x49, 42, 0], 0);
+  v.setUint32(4, 8, true);
+  v.setUint16(8, placed.length, true);
+  placed.forEach(({ tag, type, values, offset }, i) => {
+    const at = 10 + i * 12;
+    v.setUint16(at, tag, true);
+    v.setUint16(at + 2, type, true);
+    v.setUint32(at + 4, values.length, true);
+    if (offset < 0) values.forEach((x, k) => put(type, at + 8 + k * size[type], x));
+    else {
+      v.setUint32(at + 8, offset, true);
+      values.forEach((x, k) => put(type, offset + k * size[type], x));
+    }
+  });
+  v.setUint32(10 + placed.length * 12, 0, true);
+  return { head: out, dataOffset };
+}
+
+/**
  * Encode an uncompressed 8-bit RGB TIFF, little-endian, one strip. With `geo`, add
  * ModelPixelScale (33550), ModelTiepoint (33922, pixel (0,0) to `tiepoint`) and GeoKeyDirectory (34735).
  * @param {number} width @param {number} height @param {Uint8Array} rgb
@@ -187,41 +235,9 @@ export function encodeRgbTiff(width, height, rgb, geo) {
     tags.push([33922, 12, [0, 0, 0, geo.tiepoint[0], geo.tiepoint[1], 0]]);
     tags.push([34735, 3, geo.geoKeys]);
   }
-  const size = { 3: 2, 4: 4, 12: 8 };
-  const ifdBytes = 2 + tags.length * 12 + 4;
-  let extra = 8 + ifdBytes;
-  const placed = tags.map(([tag, type, values]) => {
-    const bytes = size[type] * values.length;
-    if (bytes <= 4) return { tag, type, values, offset: -1 };
-    const offset = extra;
-    extra += bytes + (bytes % 2);
-    return { tag, type, values, offset };
-  });
-  const dataOffset = extra;
-  placed.find((t) => t.tag === 273).values = [dataOffset];
+  const { head, dataOffset } = tiffLayout(tags, (d) => (tags.find((t) => t[0] === 273)[2][0] = d));
   const out = new Uint8Array(dataOffset + rgb.length);
-  const v = new DataView(out.buffer);
-  const put = (type, at, value) =>
-    type === 3
-      ? v.setUint16(at, value, true)
-      : type === 4
-        ? v.setUint32(at, value, true)
-        : v.setFloat64(at, value, true);
-  out.set([0x49, 0x49, 42, 0], 0);
-  v.setUint32(4, 8, true);
-  v.setUint16(8, placed.length, true);
-  placed.forEach(({ tag, type, values, offset }, i) => {
-    const at = 10 + i * 12;
-    v.setUint16(at, tag, true);
-    v.setUint16(at + 2, type, true);
-    v.setUint32(at + 4, values.length, true);
-    if (offset < 0) values.forEach((x, k) => put(type, at + 8 + k * size[type], x));
-    else {
-      v.setUint32(at + 8, offset, true);
-      values.forEach((x, k) => put(type, offset + k * size[type], x));
-    }
-  });
-  v.setUint32(10 + placed.length * 12, 0, true);
+  out.set(head, 0);
   out.set(rgb, dataOffset);
   return out;
 }

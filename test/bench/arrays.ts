@@ -1,11 +1,13 @@
 /**
  * Cost of one design evaluation per array type (not a timed test):
  * `npx tsx test/bench/arrays.ts [runs]`. Each type's first proposal on an invented 160 × 120 m lot
- * (two 24 m supports, 25 m self-supporting limit, 32 radials) on 80 m over average soil goes
+ * (two 24 m supports, 25 m self-supporting limit, 32 radials; the half-square arrays on the example
+ * lot data/examples/four-supports-near-a-rectangle.json) on 80 m over average soil goes
  * through the planner's evaluation (trim, ±2 % sweep, pattern on the planning grid) `runs` times
  * (default 3) after one warm-up that builds the ground tables; the median wall and CPU times are
  * printed with the number of solver calls and the load average (the machine may be shared).
  */
+import { readFileSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import { bandPlan } from '../../core/antennas/common.ts';
 import { builderFor } from '../../core/antennas/registry.ts';
@@ -13,14 +15,26 @@ import { evaluateDesign } from '../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../core/rank/solver.ts';
 import type { Evaluator } from '../../core/rank/evaluator.ts';
 import { twoSupportSite } from '../unit/site/lot.ts';
+import { parseProject } from '../../core/project/schema.ts';
+import { buildSite } from '../../core/site/site.ts';
+import { prepareSite } from '../../core/site/feasibility.ts';
 
 const runs = Number(process.argv[2] ?? 3);
 const site = twoSupportSite({ maxVerticalHeightM: 25, radialCount: 32 });
+const example = parseProject(
+  JSON.parse(
+    readFileSync(new URL('../../data/examples/four-supports-near-a-rectangle.json', import.meta.url), 'utf8'),
+  ),
+);
+if (!example.ok) throw new Error('the example lot does not parse');
+const rectSite = prepareSite(buildSite(example.value));
+const HALF_SQUARE_ARRAYS = ['half-square-reflector', 'half-square-switched', 'half-square-l'];
 const band = bandPlan('80m');
 const ground = { classId: 'average' } as const;
 const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-for (const type of ['vertical', 'half-square', 'vertical-pair', 'four-square']) {
-  const p = builderFor(type).propose({ site, band }).proposals[0];
+for (const type of ['vertical', 'half-square', 'vertical-pair', 'four-square', ...HALF_SQUARE_ARRAYS]) {
+  const on = HALF_SQUARE_ARRAYS.includes(type) ? rectSite : site;
+  const p = builderFor(type).propose({ site: on, band }).proposals[0];
   if (!p) {
     console.log(`${type}: no proposal on the bench lot`);
     continue;

@@ -276,7 +276,10 @@ if (asJson) {
     luRatio400: ratio(400),
     coldPlanDemoS: plan?.coldPlanDemoS ?? null,
     replanMedianS: plan?.replanMedianS ?? null,
+    livePreviewMedianS: plan?.livePreviewMedianS ?? null,
+    replanAfterRestMedianS: plan?.replanAfterRestMedianS ?? null,
     plan40SupportsS: plan?.plan40SupportsS ?? null,
+    plan500SupportsS: plan?.plan500SupportsS ?? null,
     loadAverage: loadavg(),
     cores: availableParallelism(),
   };

@@ -22,7 +22,7 @@ test('shows the demo lot with its supports, keep-outs and lot size', async ({ pa
   await expect(page.locator('.yw-support')).toHaveCount(8);
   await expect(page.locator('.leaflet-tooltip', { hasText: 'North oak · 22.0 m' })).toBeVisible();
   await expect(page.locator('.yw-side-label')).toHaveCount(4);
-  await expect(page.getByTestId('lot-summary')).toContainText('Lot 1.68 ha');
+  await expect(page.getByTestId('lot-summary')).toContainText('Lot 1.69 ha');
   await expect(
     page.locator('.leaflet-tooltip', { hasText: /Distribution line.*keep 25\.0 m clear/ }),
   ).toBeVisible();

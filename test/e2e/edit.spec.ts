@@ -1,5 +1,5 @@
 // Editing on the map: add a support and set its height, draw a lot boundary, undo and redo.
-import { clickMap, expect, openApp, phrase, shot, test, waitSaved } from './fixtures.ts';
+import { clickMap, expect, openApp, openSupport, phrase, shot, test, waitSaved } from './fixtures.ts';
 
 test('adds a support by clicking the map; its height survives a reload and a restart', async ({
   page,
@@ -36,10 +36,7 @@ test('adds a support by clicking the map; its height survives a reload and a res
 
 test('refuses an impossible height and says why', async ({ page, host }) => {
   await openApp(page, host);
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^West oak/ })
-    .click();
+  await openSupport(page, /^West oak/);
   await page.getByTestId('support-height').fill('-4');
   await page.getByTestId('support-height').press('Enter');
   await expect(
@@ -53,10 +50,7 @@ test('refuses an impossible height and says why', async ({ page, host }) => {
 
 test('deletes the selected support with the Delete key, and undo brings it back', async ({ page, host }) => {
   await openApp(page, host);
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^East ash/ })
-    .click();
+  await openSupport(page, /^East ash/);
   await page.getByTestId('support-name').blur();
   await page.keyboard.press('Delete');
   await expect(page.getByRole('heading', { name: 'Supports (7)' })).toBeVisible();
@@ -69,14 +63,14 @@ test('deletes the selected support with the Delete key, and undo brings it back'
 test('draws a new lot boundary; undo and redo walk over it', async ({ page, host }) => {
   await openApp(page, host);
   const summary = page.getByTestId('lot-summary');
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
   await page.keyboard.press('b');
   await clickMap(page, 0.3, 0.3);
   await clickMap(page, 0.7, 0.3);
   await clickMap(page, 0.7, 0.6);
   await clickMap(page, 0.3, 0.6);
   await page.keyboard.press('Enter');
-  await expect(summary).not.toContainText('1.68 ha');
+  await expect(summary).not.toContainText('1.69 ha');
   const drawn = (await summary.textContent())!;
   await expect(page.locator('.yw-side-label')).toHaveCount(4);
   await expect(page.getByRole('heading', { name: 'Lot boundary' })).toBeVisible();
@@ -84,7 +78,7 @@ test('draws a new lot boundary; undo and redo walk over it', async ({ page, host
   await shot(page, 'boundary-drawn');
 
   await page.keyboard.press('Control+z');
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
   await page.keyboard.press('Control+Shift+Z');
   await expect(summary).toHaveText(drawn);
   await page.keyboard.press('Control+z');
@@ -92,7 +86,7 @@ test('draws a new lot boundary; undo and redo walk over it', async ({ page, host
   await expect(summary).toHaveText(drawn);
   // The toolbar buttons do the same.
   await page.getByRole('button', { name: 'Undo' }).click();
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
   await page.getByRole('button', { name: 'Redo' }).click();
   await expect(summary).toHaveText(drawn);
   await waitSaved(page);
@@ -118,10 +112,7 @@ test('draws a power line and shows its clearance band and caution', async ({ pag
   ).toBeVisible();
   // A support now standing in the band is flagged.
   await page.getByRole('button', { name: 'Back to list' }).click();
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^North oak/ })
-    .click();
+  await openSupport(page, /^North oak/);
   await expect(
     page.getByRole('alert').filter({ hasText: /Inside the clearance of “Power line 1”/ }),
   ).toBeVisible();
@@ -172,40 +163,53 @@ test('moves a lot corner by dragging it', async ({ page, host }) => {
   await page.mouse.down();
   await page.mouse.move(ne.x + 60, ne.y - 40, { steps: 8 });
   await page.mouse.up();
-  await expect(summary).not.toContainText('1.68 ha');
+  await expect(summary).not.toContainText('1.69 ha');
   await expect(page.getByTestId('status-action')).toHaveText('move lot corner');
   await page.keyboard.press('Control+z');
-  await expect(summary).toContainText('1.68 ha');
+  await expect(summary).toContainText('1.69 ha');
 });
 
-test('draws a building keep-out', async ({ page, host }) => {
-  await openApp(page, host);
-  await page.keyboard.press('k');
-  await clickMap(page, 0.55, 0.62);
-  await clickMap(page, 0.62, 0.62);
-  await clickMap(page, 0.62, 0.68);
-  await clickMap(page, 0.55, 0.68);
-  await page.keyboard.press('Enter');
-  await expect(page.getByRole('heading', { name: 'Building' })).toBeVisible();
-  await expect(page.getByTestId('keepout-name')).toHaveValue('Building 1');
-  await expect(page.getByText(/^Area \d+ m²/)).toBeVisible();
-  await page.getByRole('button', { name: 'Back to list' }).click();
-  await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
-});
-
-test('draws a path where people walk, which blocks nothing by default', async ({ page, host }) => {
-  await openApp(page, host);
-  await page.keyboard.press('w');
-  await clickMap(page, 0.45, 0.5);
-  await clickMap(page, 0.52, 0.56);
-  await clickMap(page, 0.6, 0.58);
-  await page.keyboard.press('Enter');
-  await expect(page.getByRole('heading', { name: 'Path or play area' })).toBeVisible();
-  await expect(page.getByTestId('keepout-name')).toHaveValue('Path 1');
-  await expect(page.getByText(/^Length \d+/)).toBeVisible();
-  await page.getByRole('button', { name: 'Back to list' }).click();
-  await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
-});
+// Keep-outs drawn with their key: the corners or points clicked (fractions of the map), then the
+// inspector's heading, the default name and the measure it shows.
+for (const k of [
+  {
+    what: 'a building keep-out',
+    key: 'k',
+    at: [
+      [0.55, 0.62],
+      [0.62, 0.62],
+      [0.62, 0.68],
+      [0.55, 0.68],
+    ],
+    heading: 'Building',
+    name: 'Building 1',
+    measure: /^Area \d+ m²/,
+  },
+  {
+    what: 'a path where people walk, which blocks nothing by default',
+    key: 'w',
+    at: [
+      [0.45, 0.5],
+      [0.52, 0.56],
+      [0.6, 0.58],
+    ],
+    heading: 'Path or play area',
+    name: 'Path 1',
+    measure: /^Length \d+/,
+  },
+]) {
+  test(`draws ${k.what}`, async ({ page, host }) => {
+    await openApp(page, host);
+    await page.keyboard.press(k.key);
+    for (const [fx, fy] of k.at) await clickMap(page, fx!, fy!);
+    await page.keyboard.press('Enter');
+    await expect(page.getByRole('heading', { name: k.heading })).toBeVisible();
+    await expect(page.getByTestId('keepout-name')).toHaveValue(k.name);
+    await expect(page.getByText(k.measure)).toBeVisible();
+    await page.getByRole('button', { name: 'Back to list' }).click();
+    await expect(page.getByRole('heading', { name: 'Keep-outs (4)' })).toBeVisible();
+  });
+}
 
 test('Esc cancels a drawing half way and leaves the lot as it was', async ({ page, host }) => {
   await openApp(page, host);
@@ -216,6 +220,6 @@ test('Esc cancels a drawing half way and leaves the lot as it was', async ({ pag
   await page.keyboard.press('Escape');
   await expect(page.getByRole('status').filter({ hasText: 'Draw lot boundary' })).toHaveCount(0);
   await expect(page.getByRole('button', { name: 'Undo' })).toBeDisabled();
-  await expect(page.getByTestId('lot-summary')).toContainText('1.68 ha');
+  await expect(page.getByTestId('lot-summary')).toContainText('1.69 ha');
   await expect(page.locator('.yw-side-label')).toHaveCount(4);
 });

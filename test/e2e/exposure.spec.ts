@@ -2,9 +2,10 @@
 // are kept in the project, the distances follow 47 CFR §1.1310 Table 1 and FCC OET Bulletin 65
 // (S = 2.56·EIRP/(4πR²)), the zones are drawn on the map and flagged where they reach the demo's
 // garden path, and the feed line can be routed on the map, its length following.
-import { expect, openApp, planAndSelectFirst, shot, test } from './fixtures.ts';
+import { expect, openAndPlan, planAndSelectFirst, shot, test } from './fixtures.ts';
 
-test.describe.configure({ mode: 'serial' });
+// Each test plans 80 m first: up to 4 minutes on a busy machine.
+test.describe.configure({ mode: 'serial', timeout: 240_000 });
 
 const num = (s: string | null, re: RegExp): number => {
   const m = re.exec(s ?? '');
@@ -16,9 +17,7 @@ test('exposure distances, zones on the map, and a flag where a zone reaches the 
   page,
   host,
 }) => {
-  test.setTimeout(240_000);
-  await openApp(page, host);
-  await planAndSelectFirst(page, '80 m');
+  await openAndPlan(page, host, '80 m');
   const panel = page.getByTestId('exposure-panel');
   await expect(panel).toBeVisible();
 
@@ -62,9 +61,7 @@ test('exposure distances, zones on the map, and a flag where a zone reaches the 
 });
 
 test('the feed line is routed on the map and its length follows', async ({ page, host }) => {
-  test.setTimeout(240_000);
-  await openApp(page, host);
-  await planAndSelectFirst(page, '80 m');
+  await openAndPlan(page, host, '80 m');
   const run = page.getByTestId('feed-run');
   await expect(run).toContainText('straight from the station point');
   const before = num(await run.textContent(), /Feed line: ([\d.]+) m/);

@@ -3,7 +3,7 @@
  * its own temporary data folder), a page that may reach only the loopback host, and helpers to
  * restart the host on the same data and to save screenshots as artefacts.
  */
-import { test as base, expect, type Page } from '@playwright/test';
+import { test as base, expect, type APIRequestContext, type Page } from '@playwright/test';
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -121,6 +121,24 @@ export const test = base.extend<{ host: Host; blocked: string[] }>({
 
 export { expect };
 
+/** Call the host's API as the page would (token header), expecting success; returns the value. */
+export async function apiCall(
+  req: APIRequestContext,
+  host: Host,
+  name: string,
+  body: unknown,
+): Promise<unknown> {
+  const base = host.url.replace(/#.*$/, '');
+  const token = /#token=([A-Za-z0-9_-]+)/.exec(host.url)![1]!;
+  const res = await req.post(`${base}api/${name}`, {
+    headers: { 'content-type': 'application/json', 'x-yardwire-token': token },
+    data: body,
+  });
+  const out = (await res.json()) as { ok: boolean; value?: unknown; error?: unknown };
+  expect(out.ok, JSON.stringify(out.error)).toBe(true);
+  return out.value;
+}
+
 /** Open the app at the host's address and wait until the project is on screen. */
 export async function openApp(page: Page, host: Host): Promise<void> {
   await page.goto(host.url);
@@ -129,16 +147,80 @@ export async function openApp(page: Page, host: Host): Promise<void> {
   await expect(page.getByText('Opening the project…')).toHaveCount(0);
 }
 
-/** Wait until the last edit has reached the store. */
+/** Open the app, plan one band and select the plan's first candidate. */
+export async function openAndPlan(page: Page, host: Host, band: '160 m' | '80 m' | '40 m'): Promise<void> {
+  await openApp(page, host);
+  await planAndSelectFirst(page, band);
+}
+
+/** Create a new project of this name from the Project tab (it opens at once). */
+export async function newProject(page: Page, name: string): Promise<void> {
+  await page.getByRole('tab', { name: 'Project' }).click();
+  await page.getByRole('button', { name: 'New…' }).click();
+  await page.getByLabel('Name of the new project').fill(name);
+  await page.getByRole('button', { name: 'Create' }).click();
+  await expect(page.getByTestId('project-name')).toHaveValue(name);
+}
+
+/** Open the app, create a new project of this name and show its (empty) lot. */
+export async function openNewLot(page: Page, host: Host, name: string): Promise<void> {
+  await openApp(page, host);
+  await newProject(page, name);
+  await page.getByRole('tab', { name: 'Lot' }).click();
+}
+
+/** Open the support whose list entry matches `name` (e.g. /^West oak/) in the inspector. */
+export async function openSupport(page: Page, name: RegExp): Promise<void> {
+  await page.getByTestId('support-list').getByRole('button', { name }).click();
+}
+
+/** Metres per screen pixel, read from the map's scale bar (its label and drawn width). */
+export async function metresPerPixel(page: Page): Promise<number> {
+  const line = page.locator('.leaflet-control-scale-line').first();
+  const label = (await line.textContent())!.trim();
+  const m = /^([\d.]+)\s*(m|km)$/.exec(label);
+  expect(m, `scale bar label "${label}"`).not.toBeNull();
+  return (Number(m![1]) * (m![2] === 'km' ? 1000 : 1)) / (await line.boundingBox())!.width;
+}
+
+/** Click the map at an offset in metres (east, north) from the map's centre. */
+export async function clickAt(page: Page, mpp: number, east: number, north: number): Promise<void> {
+  const box = (await page.getByTestId('map').boundingBox())!;
+  await page.mouse.click(box.x + box.width / 2 + east / mpp, box.y + box.height / 2 - north / mpp);
+}
+
+/**
+ * Add supports with the keyboard (S, click, height, name), each [name, east m, north m, height as
+ * typed] from the map's centre, on a lot that had none; the list then counts just these.
+ */
+export async function addSupports(
+  page: Page,
+  mpp: number,
+  supports: [string, number, number, string][],
+): Promise<void> {
+  for (const [name, e, n, h] of supports) {
+    await page.keyboard.press('s');
+    await clickAt(page, mpp, e, n);
+    await expect(page.getByTestId('support-height')).toBeFocused();
+    await page.keyboard.type(h);
+    await page.keyboard.press('Enter');
+    await page.getByTestId('support-name').fill(name);
+    await page.getByTestId('support-name').press('Enter');
+    await page.getByRole('button', { name: 'Back to list' }).click();
+  }
+  await expect(page.getByRole('heading', { name: `Supports (${supports.length})` })).toBeVisible();
+}
+
 /** Tick only this band in the run bar (the others off) and start the plan. */
 export async function startPlan(page: Page, band: '160 m' | '80 m' | '40 m'): Promise<void> {
   const bar = page.getByTestId('run-bar');
-  for (const b of ['160 m', '80 m', '40 m'].filter((x) => x !== band)) {
-    const box = bar.getByRole('checkbox', { name: b });
-    if (await box.isChecked()) await box.uncheck();
-  }
+  // The band asked for first: the last ticked band cannot be unticked.
   const box = bar.getByRole('checkbox', { name: band });
   if (!(await box.isChecked())) await box.check();
+  for (const b of ['160 m', '80 m', '40 m'].filter((x) => x !== band)) {
+    const other = bar.getByRole('checkbox', { name: b });
+    if (await other.isChecked()) await other.uncheck();
+  }
   await bar.getByRole('button', { name: /Run plan|Run again/ }).click();
 }
 
@@ -154,6 +236,7 @@ export async function planAndSelectFirst(page: Page, band: '160 m' | '80 m' | '4
   await rows.first().click();
 }
 
+/** Wait until the last edit has reached the store. */
 export async function waitSaved(page: Page): Promise<void> {
   await expect(page.getByTestId('save-status')).toHaveText('Saved');
 }
@@ -162,6 +245,28 @@ export async function waitSaved(page: Page): Promise<void> {
 export async function clickMap(page: Page, fx: number, fy: number): Promise<void> {
   const box = (await page.getByTestId('map').boundingBox())!;
   await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
+}
+
+/**
+ * The "You went to" mark of a Go sits in the middle of the part of the map that the empty-lot
+ * card (when shown) leaves in view, with nothing of the app's own over it.
+ */
+export async function expectGoMarkInView(page: Page): Promise<void> {
+  const mark = (await page.locator('path.yw-goto').boundingBox())!;
+  const map = (await page.getByTestId('map').boundingBox())!;
+  const card = page.getByTestId('empty-lot');
+  const cardBox = (await card.isVisible()) ? await card.boundingBox() : null;
+  const left = cardBox ? cardBox.x + cardBox.width : map.x;
+  const x = mark.x + mark.width / 2;
+  const y = mark.y + mark.height / 2;
+  expect(Math.abs(x - (left + map.x + map.width) / 2)).toBeLessThan(3);
+  expect(Math.abs(y - (map.y + map.height / 2))).toBeLessThan(3);
+  const onTop = await page.evaluate(
+    ([px, py]) =>
+      document.elementFromPoint(px!, py!)?.closest('.leaflet-container, [data-testid]')?.className,
+    [x, mark.y + 1],
+  );
+  expect(onTop, 'what lies over the mark').toContain('leaflet-container');
 }
 
 /** Save a screenshot as a test artefact under test-results/screenshots/. */

@@ -4,27 +4,19 @@
 // candidates, export the CSV, reload and find everything kept. Also: every button on the main
 // screen has an accessible name.
 import type { Page } from '@playwright/test';
-import { expect, openApp, shot, test, waitSaved } from './fixtures.ts';
+import {
+  addSupports,
+  clickAt,
+  expect,
+  metresPerPixel,
+  openNewLot,
+  shot,
+  test,
+  waitSaved,
+} from './fixtures.ts';
 
 // An invented spot on open prairie; nothing here names a real station or lot.
 const PLACE = '47.2184, -101.6372';
-
-/** Metres per screen pixel, read from the map's scale bar (its label and drawn width). */
-async function metresPerPixel(page: Page): Promise<number> {
-  const line = page.locator('.leaflet-control-scale-line').first();
-  const label = (await line.textContent())!.trim();
-  const m = /^([\d.]+)\s*(m|km)$/.exec(label);
-  expect(m, `scale bar label "${label}"`).not.toBeNull();
-  const metres = Number(m![1]) * (m![2] === 'km' ? 1000 : 1);
-  const width = (await line.boundingBox())!.width;
-  return metres / width;
-}
-
-/** Click the map at an offset in metres (east, north) from the map's centre. */
-async function clickAt(page: Page, mpp: number, east: number, north: number): Promise<void> {
-  const box = (await page.getByTestId('map').boundingBox())!;
-  await page.mouse.click(box.x + box.width / 2 + east / mpp, box.y + box.height / 2 - north / mpp);
-}
 
 /** Every visible button has a non-empty accessible name. */
 async function expectNamedButtons(page: Page): Promise<number> {
@@ -44,15 +36,9 @@ test('plans a fresh lot end to end, exports the shortlist, and keeps it all over
 }) => {
   // About 20 s on an idle machine; the margin is for a machine busy with other work.
   test.setTimeout(120_000);
-  await openApp(page, host);
 
   // A new project, then an invented rural place.
-  await page.getByRole('tab', { name: 'Project' }).click();
-  await page.getByRole('button', { name: 'New…' }).click();
-  await page.getByLabel('Name of the new project').fill('Prairie quarter, test lot');
-  await page.getByRole('button', { name: 'Create' }).click();
-  await expect(page.getByTestId('project-name')).toHaveValue('Prairie quarter, test lot');
-  await page.getByRole('tab', { name: 'Lot' }).click();
+  await openNewLot(page, host, 'Prairie quarter, test lot');
   await expect(page.getByTestId('empty-lot')).toBeVisible();
   await shot(page, 'fresh-empty');
   const goTo = page.getByRole('textbox', { name: 'Go to a locator or coordinates' });
@@ -93,17 +79,7 @@ test('plans a fresh lot end to end, exports the shortlist, and keeps it all over
     ['East elm', 40, 22, '17.5'],
     ['South box elder', 5, -20, '16'],
   ];
-  for (const [name, e, n, h] of supports) {
-    await page.keyboard.press('s');
-    await clickAt(page, mpp, e, n);
-    await expect(page.getByTestId('support-height')).toBeFocused();
-    await page.keyboard.type(h);
-    await page.keyboard.press('Enter');
-    await page.getByTestId('support-name').fill(name);
-    await page.getByTestId('support-name').press('Enter');
-    await page.getByRole('button', { name: 'Back to list' }).click();
-  }
-  await expect(page.getByRole('heading', { name: 'Supports (4)' })).toBeVisible();
+  await addSupports(page, mpp, supports);
   // (A replaced layer's tooltip fades out for a moment: wait for the one that stays.)
   const elmTip = page.locator('.leaflet-tooltip', { hasText: 'East elm · 17.5 m' });
   await expect(elmTip).toHaveCount(1);

@@ -3,7 +3,7 @@
 // project and find no trace of the demo's plan in the table, on the lot map, on the bearing map
 // or in the print view; open the demo again, restart the host, and find it once more; edit the
 // lot and read what changed since the plan.
-import { expect, openApp, planAndSelectFirst, shot, test, type Host } from './fixtures.ts';
+import { expect, type Host, newProject, openAndPlan, openApp, openSupport, shot, test } from './fixtures.ts';
 import type { Page } from '@playwright/test';
 
 test.describe.configure({ mode: 'serial' });
@@ -32,8 +32,7 @@ test('keeps the plan with its project through a reload, a switch and a host rest
   host,
 }) => {
   test.setTimeout(420_000);
-  await openApp(page, host);
-  await planAndSelectFirst(page, '80 m');
+  await openAndPlan(page, host, '80 m');
   const detail = page.getByTestId('candidate-detail');
   // Compare the first with the second: the map draws both.
   await detail.getByRole('combobox').filter({ hasText: '—' }).selectOption({ index: 1 });
@@ -53,11 +52,7 @@ test('keeps the plan with its project through a reload, a switch and a host rest
   await shot(page, 'keep-after-reload');
 
   // Another project: no trace of the demo's plan anywhere.
-  await page.getByRole('tab', { name: 'Project' }).click();
-  await page.getByRole('button', { name: 'New…' }).click();
-  await page.getByLabel('Name of the new project').fill('Empty lot');
-  await page.getByRole('button', { name: 'Create' }).click();
-  await expect(page.getByTestId('project-name')).toHaveValue('Empty lot');
+  await newProject(page, 'Empty lot');
   const dock = page.getByTestId('plan-dock');
   await dock.getByRole('tab', { name: /Shortlist/ }).click();
   await expect(page.getByTestId('candidate-row')).toHaveCount(0);
@@ -92,10 +87,7 @@ test('keeps the plan with its project through a reload, a switch and a host rest
 
   // An edit the plan reads: the plan stays, marked out of date with what changed.
   await page.getByRole('tab', { name: 'Lot' }).click();
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^West oak/ })
-    .click();
+  await openSupport(page, /^West oak/);
   await page.getByRole('button', { name: 'Delete support' }).click();
   await expect(page.getByTestId('plan-stale')).toContainText(
     'Out of date: the supports changed since this plan',

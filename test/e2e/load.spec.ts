@@ -2,8 +2,8 @@
 // solve) is planned in the workers with progress, cancelled at two points, kept responsive, and
 // survives injected worker failures (a throw, a worker that closes itself) with the project
 // intact. The whole plan is never waited for: the test cancels instead.
-import type { APIRequestContext, Page } from '@playwright/test';
-import { expect, openApp, test, waitSaved, type Host } from './fixtures.ts';
+import type { Page } from '@playwright/test';
+import { apiCall, expect, openApp, test, waitSaved } from './fixtures.ts';
 
 test.describe.configure({ mode: 'serial' });
 
@@ -60,18 +60,6 @@ function fortySupportLot(): Record<string, unknown> & { supports: { id: string; 
   };
 }
 
-async function call(req: APIRequestContext, host: Host, name: string, body: unknown): Promise<unknown> {
-  const base = host.url.replace(/#.*$/, '');
-  const token = /#token=([A-Za-z0-9_-]+)/.exec(host.url)![1]!;
-  const res = await req.post(`${base}api/${name}`, {
-    headers: { 'content-type': 'application/json', 'x-yardwire-token': token },
-    data: body,
-  });
-  const out = (await res.json()) as { ok: boolean; value?: unknown; error?: unknown };
-  expect(out.ok, JSON.stringify(out.error)).toBe(true);
-  return out.value;
-}
-
 /** The page's JS heap in use, MB (Chromium, through the DevTools protocol). */
 async function heapMB(page: Page): Promise<number> {
   const cdp = await page.context().newCDPSession(page);
@@ -108,8 +96,8 @@ test('a 40-support lot plans with progress, cancels, stays responsive and surviv
 }) => {
   test.setTimeout(90_000);
   const lot = fortySupportLot();
-  await call(page.request, host, 'saveProject', { project: lot });
-  await call(page.request, host, 'openProject', { id: lot.id });
+  await apiCall(page.request, host, 'saveProject', { project: lot });
+  await apiCall(page.request, host, 'openProject', { id: lot.id });
   await openApp(page, host);
   await expect(page.getByRole('heading', { name: 'Supports (40)' })).toBeVisible();
   const heap: number[] = [await heapMB(page)];
@@ -196,7 +184,7 @@ test('a 40-support lot plans with progress, cancels, stays responsive and surviv
   // The project is intact after a reload: 40 supports, the same heights, the one edit kept.
   await page.reload();
   await expect(page.getByRole('heading', { name: 'Supports (40)' })).toBeVisible();
-  const stored = (await call(page.request, host, 'openProject', { id: lot.id })) as {
+  const stored = (await apiCall(page.request, host, 'openProject', { id: lot.id })) as {
     supports: { id: string; name: string; usableHeightM: number }[];
   };
   expect(stored.supports.map((s) => [s.id, s.usableHeightM])).toEqual(

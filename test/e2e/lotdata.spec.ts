@@ -2,11 +2,10 @@
 // 15N, tiled, generated here) under the map, the lot boundary from a zipped shapefile of three
 // invented parcels with a UTM .prj (chosen in the parcel chooser by its address), the parcel's
 // address as the project name, four supports traced on it, and a 40 m plan.
-import type { Page } from '@playwright/test';
 import proj4 from 'proj4';
 import { epsgProjectedKeys, tiledGeoTiffBytes } from '../helpers/geotiffWriter.ts';
-import { polygonShp, storedZip, textDbf, type Ring } from '../helpers/shapefileWriter.ts';
-import { expect, openApp, shot, test, waitSaved } from './fixtures.ts';
+import { clockwiseRect, parcelLayer, parcelRows, storedZip } from '../helpers/shapefileWriter.ts';
+import { addSupports, expect, metresPerPixel, openNewLot, shot, test, waitSaved } from './fixtures.ts';
 
 // An invented spot in farmland inside UTM zone 15; nothing here names a real station or lot.
 const PLACE: [number, number] = [-94.2184, 45.3121];
@@ -41,42 +40,15 @@ function aerial(): Buffer {
 
 /** Three parcels side by side, 100 m × 80 m each, in UTM metres; ours is in the middle. */
 function parcelsZip(): Buffer {
-  const rect = (e: number, n: number): Ring => [
-    [E0 + e - 50, N0 + n - 40],
-    [E0 + e - 50, N0 + n + 40],
-    [E0 + e + 50, N0 + n + 40],
-    [E0 + e + 50, N0 + n - 40],
-    [E0 + e - 50, N0 + n - 40],
-  ];
-  const fields = [
-    { name: 'PIN', length: 14 },
-    { name: 'SITEADDR', length: 32 },
-  ];
-  const rows = [
-    ['15-020-0100', '2100 Invented Prairie Rd'],
-    ['15-020-0101', '2102 Invented Prairie Rd'],
-    ['15-020-0102', '2104 Invented Prairie Rd'],
-  ];
-  return Buffer.from(
-    storedZip([
-      { name: 'parcels/parcels.shp', data: polygonShp([rect(-100, 0), rect(0, 0), rect(100, 0)]) },
-      { name: 'parcels/parcels.dbf', data: textDbf(fields, rows) },
-      { name: 'parcels/parcels.prj', data: new TextEncoder().encode(UTM15_PRJ) },
-    ]),
+  const rect = (e: number, n: number) => clockwiseRect(E0 + e - 50, N0 + n - 40, 100, 80);
+  // 15-020-0100, 2100 Invented Prairie Rd; then 0101, 2102 and 0102, 2104.
+  const rows = parcelRows(
+    (i) => `15-020-010${i}`,
+    (i) => `${2100 + 2 * i} Invented Prairie Rd`,
   );
-}
-
-async function metresPerPixel(page: Page): Promise<number> {
-  const line = page.locator('.leaflet-control-scale-line').first();
-  const label = (await line.textContent())!.trim();
-  const m = /^([\d.]+)\s*(m|km)$/.exec(label);
-  expect(m, `scale bar label "${label}"`).not.toBeNull();
-  return (Number(m![1]) * (m![2] === 'km' ? 1000 : 1)) / (await line.boundingBox())!.width;
-}
-
-async function clickAt(page: Page, mpp: number, east: number, north: number): Promise<void> {
-  const box = (await page.getByTestId('map').boundingBox())!;
-  await page.mouse.click(box.x + box.width / 2 + east / mpp, box.y + box.height / 2 - north / mpp);
+  return Buffer.from(
+    storedZip(parcelLayer('parcels/parcels', [rect(-100, 0), rect(0, 0), rect(100, 0)], rows, UTM15_PRJ)),
+  );
 }
 
 test('imports a projected aerial and a shapefile parcel, traces supports on them, and plans', async ({
@@ -84,12 +56,7 @@ test('imports a projected aerial and a shapefile parcel, traces supports on them
   host,
 }) => {
   test.setTimeout(150_000);
-  await openApp(page, host);
-  await page.getByRole('tab', { name: 'Project' }).click();
-  await page.getByRole('button', { name: 'New…' }).click();
-  await page.getByLabel('Name of the new project').fill('Lot data test');
-  await page.getByRole('button', { name: 'Create' }).click();
-  await page.getByRole('tab', { name: 'Lot' }).click();
+  await openNewLot(page, host, 'Lot data test');
   const goTo = page.getByRole('textbox', { name: 'Go to a locator or coordinates' });
   await goTo.fill(`${PLACE[1]}, ${PLACE[0]}`);
   await goTo.press('Enter');
@@ -132,23 +99,12 @@ test('imports a projected aerial and a shapefile parcel, traces supports on them
   // Four supports on the lot (the map is fitted to it, so its centre is the lot's).
   await page.getByRole('button', { name: 'Fold the planning panel' }).click();
   const mpp = await metresPerPixel(page);
-  const supports: [string, number, number, string][] = [
+  await addSupports(page, mpp, [
     ['West oak', -35, 15, '18'],
     ['Centre mast', 5, 15, '15'],
     ['East ash', 38, 18, '17'],
     ['South maple', 5, -22, '16'],
-  ];
-  for (const [name, e, n, h] of supports) {
-    await page.keyboard.press('s');
-    await clickAt(page, mpp, e, n);
-    await expect(page.getByTestId('support-height')).toBeFocused();
-    await page.keyboard.type(h);
-    await page.keyboard.press('Enter');
-    await page.getByTestId('support-name').fill(name);
-    await page.getByTestId('support-name').press('Enter');
-    await page.getByRole('button', { name: 'Back to list' }).click();
-  }
-  await expect(page.getByRole('heading', { name: 'Supports (4)' })).toBeVisible();
+  ]);
   await waitSaved(page);
   await shot(page, 'lotdata-traced');
 

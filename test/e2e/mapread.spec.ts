@@ -4,7 +4,7 @@
 // station's label; the zoom-to-lot control brings the lot back; screenshots at 1280 × 720 and
 // 1440 × 900 of the shortlist with a candidate shown.
 import type { Page } from '@playwright/test';
-import { expect, openApp, planAndSelectFirst, shot, test } from './fixtures.ts';
+import { expect, openAndPlan, shot, test } from './fixtures.ts';
 
 test.describe.configure({ mode: 'serial' });
 
@@ -86,8 +86,7 @@ test('labels keep clear of the selected antenna and of one another; the lot come
 }) => {
   test.setTimeout(300_000);
   await page.setViewportSize({ width: 1440, height: 900 });
-  await openApp(page, host);
-  await planAndSelectFirst(page, '80 m');
+  await openAndPlan(page, host, '80 m');
   const rows = page.getByTestId('candidate-row');
   const n = Math.min(6, await rows.count());
   for (let i = 0; i < n; i++) {

@@ -118,7 +118,7 @@ test('imports a lot boundary from GeoJSON and exports the lot and the shortlist'
     buffer: Buffer.from('{"type":"Point","coordinates":[1,2]}'),
   });
   await expect(page.getByRole('alert').filter({ hasText: /Polygon/ })).toBeVisible();
-  await expect(page.getByTestId('lot-summary')).toContainText('Lot 1.68 ha');
+  await expect(page.getByTestId('lot-summary')).toContainText('Lot 1.69 ha');
 
   // A good one replaces the boundary (a 100 m × 100 m square near the demo lot).
   const [lon, lat] = [-93.7505, 44.9025];

@@ -8,14 +8,13 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { REPORT_SECTIONS } from '../../core/report/html.ts';
-import { expect, openApp, planAndSelectFirst, shot, test } from './fixtures.ts';
+import { expect, openAndPlan, shot, test } from './fixtures.ts';
 
 const REPORT_BLUE = 'rgb(47, 93, 124)'; // the report's heading colour (core/report/html.ts)
 
 test('the build sheet opens in the print view and prints only the report', async ({ page, host }) => {
   test.setTimeout(240_000);
-  await openApp(page, host);
-  await planAndSelectFirst(page, '40 m');
+  await openAndPlan(page, host, '40 m');
   const detail = page.getByTestId('candidate-detail');
   const sheetButton = detail.getByRole('button', { name: 'Build sheet…' });
 

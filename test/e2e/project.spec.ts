@@ -1,5 +1,5 @@
 // The project panel: rename, new, recent list, open, duplicate, delete (with confirm), reset demo.
-import { expect, openApp, shot, test, waitSaved } from './fixtures.ts';
+import { expect, newProject, openApp, openSupport, shot, test, waitSaved } from './fixtures.ts';
 
 test('renames, creates, reopens, duplicates and deletes projects', async ({ page, host }) => {
   await openApp(page, host);
@@ -10,10 +10,7 @@ test('renames, creates, reopens, duplicates and deletes projects', async ({ page
   const list = page.getByTestId('project-list');
   await expect(list.getByRole('button', { name: /Demo, my edits/ })).toBeVisible();
 
-  await page.getByRole('button', { name: 'New…' }).click();
-  await page.getByLabel('Name of the new project').fill('Hilltop rental');
-  await page.getByRole('button', { name: 'Create' }).click();
-  await expect(page.getByTestId('project-name')).toHaveValue('Hilltop rental');
+  await newProject(page, 'Hilltop rental');
   await page.getByRole('tab', { name: 'Lot' }).click();
   await expect(page.getByTestId('empty-lot')).toContainText(
     'No lot boundary yet — press B and click the corners.',
@@ -42,10 +39,7 @@ test('renames, creates, reopens, duplicates and deletes projects', async ({ page
 
 test('resets the demo after a confirm', async ({ page, host }) => {
   await openApp(page, host);
-  await page
-    .getByTestId('support-list')
-    .getByRole('button', { name: /^West oak/ })
-    .click();
+  await openSupport(page, /^West oak/);
   await page.getByRole('button', { name: 'Delete support' }).click();
   await expect(page.getByRole('heading', { name: 'Supports (7)' })).toBeVisible();
   await waitSaved(page);

@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { runReport } from '../../core/cli/report.ts';
 import { REPORT_SECTIONS } from '../../core/report/html.ts';
-import { openApp, planAndSelectFirst, shot, test as appTest } from './fixtures.ts';
+import { openAndPlan, openApp, planAndSelectFirst, shot, test as appTest } from './fixtures.ts';
 
 test('the demo build sheet opens standalone with every section', async ({ page, context }) => {
   test.setTimeout(180_000);
@@ -72,8 +72,7 @@ test.describe('build sheet from the app', () => {
     'the candidate detail opens the build sheet, which saves as a standalone HTML file',
     async ({ page, host }) => {
       appTest.setTimeout(240_000);
-      await openApp(page, host);
-      await planAndSelectFirst(page, '40 m');
+      await openAndPlan(page, host, '40 m');
       const detail = page.getByTestId('candidate-detail');
       await detail.getByRole('button', { name: 'Build sheet…' }).click();
       const view = page.getByTestId('report-view');

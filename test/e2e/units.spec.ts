@@ -8,7 +8,7 @@ test('switches to imperial and back; heights typed in feet are kept', async ({ p
   await expect(list.getByRole('button', { name: /West oak\s*65\.6 ft/ })).toBeVisible();
   await expect(page.locator('.leaflet-tooltip', { hasText: 'North oak · 72.2 ft' })).toBeVisible();
   await expect(page.locator('.yw-side-label').first()).toContainText('ft');
-  await expect(page.getByTestId('lot-summary')).toContainText('4.16 acres');
+  await expect(page.getByTestId('lot-summary')).toContainText('4.17 acres');
   await expect(page.locator('.leaflet-control-scale-line')).toContainText('ft');
 
   await list.getByRole('button', { name: /^Yard maple/ }).click();
@@ -25,7 +25,7 @@ test('switches to imperial and back; heights typed in feet are kept', async ({ p
   );
   await page.getByRole('button', { name: 'Metric units (metres)' }).click();
   await expect(list.getByRole('button', { name: /Yard maple\s*15\.2 m/ })).toBeVisible();
-  await expect(page.getByTestId('lot-summary')).toContainText('1.68 ha');
+  await expect(page.getByTestId('lot-summary')).toContainText('1.69 ha');
 });
 
 test('settings take lengths in the chosen unit', async ({ page, host }) => {

@@ -15,3 +15,14 @@ export function expectClose(actual: number, expected: number, tol: number, sourc
 export function expectRelClose(actual: number, expected: number, rel: number, source: string): void {
   expectClose(actual, expected, rel * Math.abs(expected), source);
 }
+
+/** Largest element-wise difference of two arrays, relative to the largest magnitude in `ref`. */
+export function maxRelDifference(got: ArrayLike<number>, ref: ArrayLike<number>): number {
+  let d = 0;
+  let m = 0;
+  for (let i = 0; i < got.length; i++) {
+    d = Math.max(d, Math.abs(got[i]! - ref[i]!));
+    m = Math.max(m, Math.abs(ref[i]!));
+  }
+  return d / m;
+}

@@ -4,8 +4,11 @@
  * ModelTiepoint (33922), GeoKeyDirectory (34735) and GeoDoubleParams (34736).
  * Tiles are produced by a callback and written one at a time, so a file of any size is written
  * with memory for one tile (`writeTiledGeoTiff`), or built in memory for small test images.
+ * The header and IFD are laid out by the demo aerial's generator (`tiffLayout`), the one TIFF
+ * writer of the project.
  */
 import { closeSync, openSync, writeSync } from 'node:fs';
+import { tiffLayout as layout } from '../../renderer/demo/generate-aerial.mjs';
 
 export interface GeoKeyValue {
   key: number;
@@ -32,7 +35,6 @@ export interface TiledSpec {
 }
 
 type Tag = [number, 3 | 4 | 12, number[]];
-const SIZE = { 3: 2, 4: 4, 12: 8 } as const;
 
 function geoTags(geo: GeoSpec): Tag[] {
   const doubles: number[] = [];
@@ -51,46 +53,6 @@ function geoTags(geo: GeoSpec): Tag[] {
   ];
   if (doubles.length) tags.push([34736, 12, doubles]);
   return tags;
-}
-
-/** Header and IFD bytes for the given tags; `dataOffset` is where pixel data may start. */
-function layout(tags: Tag[], patch: (dataOffset: number) => void): { head: Uint8Array; dataOffset: number } {
-  tags.sort((a, b) => a[0] - b[0]);
-  const ifdBytes = 2 + tags.length * 12 + 4;
-  let extra = 8 + ifdBytes;
-  const placed = tags.map(([tag, type, values]) => {
-    const bytes = SIZE[type] * values.length;
-    if (bytes <= 4) return { tag, type, values, offset: -1 };
-    const offset = extra;
-    extra += bytes + (bytes % 2);
-    return { tag, type, values, offset };
-  });
-  const dataOffset = extra;
-  patch(dataOffset);
-  const out = new Uint8Array(dataOffset);
-  const v = new DataView(out.buffer);
-  const put = (type: 3 | 4 | 12, at: number, value: number): void =>
-    type === 3
-      ? v.setUint16(at, value, true)
-      : type === 4
-        ? v.setUint32(at, value, true)
-        : v.setFloat64(at, value, true);
-  out.set([0x49, 0x49, 42, 0], 0);
-  v.setUint32(4, 8, true);
-  v.setUint16(8, placed.length, true);
-  placed.forEach(({ tag, type, values, offset }, i) => {
-    const at = 10 + i * 12;
-    v.setUint16(at, tag, true);
-    v.setUint16(at + 2, type, true);
-    v.setUint32(at + 4, values.length, true);
-    if (offset < 0) values.forEach((x, k) => put(type, at + 8 + k * SIZE[type], x));
-    else {
-      v.setUint32(at + 8, offset, true);
-      values.forEach((x, k) => put(type, offset + k * SIZE[type], x));
-    }
-  });
-  v.setUint32(10 + placed.length * 12, 0, true);
-  return { head: out, dataOffset };
 }
 
 function tiledTags(spec: TiledSpec): { tags: Tag[]; offsets: number[]; tileBytes: number; count: number } {

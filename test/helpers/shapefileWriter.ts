@@ -81,6 +81,42 @@ export function textDbf(fields: { name: string; length: number }[], rows: string
   return out;
 }
 
+/** A rectangle from (x, y) of width w and height h, clockwise (as shapefile outer rings run), closed. */
+export const clockwiseRect = (x: number, y: number, w: number, h: number): Ring => [
+  [x, y],
+  [x, y + h],
+  [x + w, y + h],
+  [x + w, y],
+  [x, y],
+];
+
+/** The attributes county parcel exports carry: a parcel id and a site address. */
+export const PARCEL_FIELDS = [
+  { name: 'PIN', length: 14 },
+  { name: 'SITEADDR', length: 32 },
+];
+
+/** `n` rows of PARCEL_FIELDS, the i-th (from 0) with pinOf(i) and addressOf(i). */
+export const parcelRows = (
+  pinOf: (i: number) => string,
+  addressOf: (i: number) => string,
+  n = 3,
+): string[][] => Array.from({ length: n }, (_, i) => [pinOf(i), addressOf(i)]);
+
+/** A parcel layer's files `path`.shp, .dbf (PARCEL_FIELDS, these rows) and .prj (this text). */
+export function parcelLayer(
+  path: string,
+  rings: Ring[],
+  rows: string[][],
+  prj: string,
+): { name: string; data: Uint8Array }[] {
+  return [
+    { name: `${path}.shp`, data: polygonShp(rings) },
+    { name: `${path}.dbf`, data: textDbf(PARCEL_FIELDS, rows) },
+    { name: `${path}.prj`, data: new TextEncoder().encode(prj) },
+  ];
+}
+
 function crc32(data: Uint8Array): number {
   let c = 0xffffffff;
   for (const byte of data) {
@@ -104,27 +140,27 @@ export function storedZip(
     const crc = crc32(f.data);
     const body = deflateRaw ? deflateRaw(f.data) : f.data;
     const method = deflateRaw ? 8 : 0;
+    // The fields the local and the central header share, from "version needed" (at `at`) to the
+    // name's length; the central header has "version made by" before them.
+    const shared = (v: DataView, at: number): void => {
+      v.setUint16(at, 20, true);
+      v.setUint16(at + 4, method, true);
+      v.setUint32(at + 10, crc, true);
+      v.setUint32(at + 14, body.length, true);
+      v.setUint32(at + 18, f.data.length, true);
+      v.setUint16(at + 22, name.length, true);
+    };
     const local = new Uint8Array(30 + name.length + body.length);
     const lv = new DataView(local.buffer);
     lv.setUint32(0, 0x04034b50, true);
-    lv.setUint16(4, 20, true);
-    lv.setUint16(8, method, true);
-    lv.setUint32(14, crc, true);
-    lv.setUint32(18, body.length, true);
-    lv.setUint32(22, f.data.length, true);
-    lv.setUint16(26, name.length, true);
+    shared(lv, 4);
     local.set(name, 30);
     local.set(body, 30 + name.length);
     const central = new Uint8Array(46 + name.length);
     const cv = new DataView(central.buffer);
     cv.setUint32(0, 0x02014b50, true);
     cv.setUint16(4, 20, true);
-    cv.setUint16(6, 20, true);
-    cv.setUint16(10, method, true);
-    cv.setUint32(16, crc, true);
-    cv.setUint32(20, body.length, true);
-    cv.setUint32(24, f.data.length, true);
-    cv.setUint16(28, name.length, true);
+    shared(cv, 6);
     cv.setUint32(42, offset, true);
     central.set(name, 46);
     locals.push(local);

@@ -1,7 +1,7 @@
 // The one bands module (core/bands.ts): edges, segments and the user's operating choice, which
 // the planner designs for, the schema validates by name, and the SWR function is one.
 import { describe, expect, it } from 'vitest';
-import { BAND_INFO, operatingSpan } from '../../core/bands.ts';
+import { BAND_INFO, operatingFit, operatingSpan } from '../../core/bands.ts';
 import { DESIGN_FREQ_HZ, bandPlan } from '../../core/antennas/common.ts';
 import { buildDemoProject } from '../../core/demo/demoProject.ts';
 import { enumeratePlan } from '../../core/rank/plan.ts';
@@ -20,6 +20,22 @@ describe('bands', () => {
       expect(DESIGN_FREQ_HZ[b]).toBeCloseTo(i.defaultDesignMHz * 1e6, 3);
       expect(bandPlan(b).designFreqHz).toBe(DESIGN_FREQ_HZ[b]);
     }
+  });
+
+  it("says whether the user's span lies inside a candidate's 2:1 band", () => {
+    const cand = (swr: number, lowMHz: number | null, highMHz: number | null, widthKHz: number) => ({
+      feed: { swr },
+      bandwidth2to1: { lowMHz, highMHz, widthKHz },
+    });
+    const cw = operatingSpan('80m', { part: 'cw' }); // 3.5–3.6 MHz
+    expect(operatingFit(cand(1.2, 3.48, 3.62, 140), cw)).toBe('inside');
+    expect(operatingFit(cand(1.2, 3.52, 3.58, 60), cw)).toBe('partly');
+    expect(operatingFit(cand(1.2, 3.62, 3.7, 80), cw)).toBe('outside');
+    // An edge beyond the sweep (null) reaches past the span.
+    expect(operatingFit(cand(1.1, null, 3.61, 200), cw)).toBe('inside');
+    // SWR above 2 at the design frequency: no 2:1 band without a match.
+    expect(operatingFit(cand(2.4, 3.5, 3.6, 100), cw)).toBe('outside');
+    expect(operatingFit(cand(1.9, 3.5, 3.6, 0), cw)).toBe('outside');
   });
 
   it('a custom span is designed at its centre', () => {

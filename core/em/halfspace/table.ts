@@ -15,7 +15,7 @@
  * Cache: tables are kept by (frequency, εr, σ, range) so that a plan over many candidates
  * pays for each table once; a request inside an existing table's range reuses it.
  */
-import type { HalfSpace } from './medium.ts';
+import { halfSpace, type HalfSpace } from './medium.ts';
 import { CYL_LEN as CYL_LEN_IMPORTED, sommerfeldComponents, type SommerfeldOptions } from './sommerfeld.ts';
 
 /**
@@ -69,6 +69,8 @@ export class RemainderTable {
   constructor(
     readonly hs_: HalfSpace,
     readonly options: TableOptions,
+    /** The values of a table built with the same half-space and options (another thread's): no build. */
+    built?: { w: Float64Array; stats: TableStats },
   ) {
     const { rMinM, rMaxM, stepLn, thetaIntervals } = options;
     if (!(rMinM > 0) || !(rMaxM > rMinM))
@@ -81,6 +83,13 @@ export class RemainderTable {
     this.s0 = s0;
     this.nt = thetaIntervals + 1;
     this.ht = (0.5 * Math.PI) / thetaIntervals;
+    if (built) {
+      if (built.w.length !== CYL_LEN * this.ns * this.nt)
+        throw new RangeError('table values of another size');
+      this.w = built.w;
+      this.stats = built.stats;
+      return;
+    }
     this.w = new Float64Array(CYL_LEN * this.ns * this.nt);
     const t0 = performance.now();
     const so: SommerfeldOptions = { relTol: options.relTol, subtractStatic: true, maxTailIntervals: 200 };
@@ -228,6 +237,46 @@ export function remainderTable(
     cache.delete(first);
   }
   return table;
+}
+
+/** A cached table as plain data, to hand to another thread (structured-cloneable). */
+export interface RemainderTableData {
+  key: string;
+  soil: { freqHz: number; permittivity: number; conductivitySPerM: number };
+  options: TableOptions;
+  w: Float64Array;
+  stats: TableStats;
+}
+
+/** Every cached table as data (the values are a pure function of key and options). */
+export function exportRemainderTables(): RemainderTableData[] {
+  return [...cache].map(([key, t]) => ({
+    key,
+    soil: {
+      freqHz: t.hs_.freqHz,
+      permittivity: t.hs_.permittivity,
+      conductivitySPerM: t.hs_.conductivitySPerM,
+    },
+    options: t.options,
+    w: t.w,
+    stats: t.stats,
+  }));
+}
+
+/**
+ * Puts tables another thread built into this thread's cache, where a later request finds them as
+ * if built here (a table already cached under the same key is kept).
+ */
+export function importRemainderTables(tables: readonly RemainderTableData[]): void {
+  for (const d of tables) {
+    if (cache.has(d.key)) continue;
+    cache.set(d.key, new RemainderTable(halfSpace(d.soil), d.options, { w: d.w, stats: d.stats }));
+  }
+  while (cache.size > CACHE_LIMIT) {
+    const first = cache.keys().next().value;
+    if (first === undefined) break;
+    cache.delete(first);
+  }
 }
 
 /** Empties the table cache (tests, memory pressure). */

@@ -9,11 +9,16 @@ import type { KeepOut, LonLat, Project, Support } from '../../../core/project/sc
 import { formatLength, type UnitSystem } from '../../../core/units/index.ts';
 import { clearanceBand, ringSides, supportInDanger } from '../lib/geo.ts';
 import type { Selection } from '../state/project.svelte.ts';
+import type { DragMove } from '../plan/liveMove.ts';
 
 export interface LayerHandlers {
   select(s: Selection): void;
   moveSupport(id: string, to: LonLat): void;
   moveStation(to: LonLat): void;
+  /** A support or the station is being dragged and is now here (live re-ranking). */
+  dragging?(move: DragMove): void;
+  /** A drag ended (called after its move). */
+  dragEnd?(): void;
 }
 
 export interface LayerOptions {
@@ -131,7 +136,8 @@ export function buildLayers(p: Project, o: LayerOptions, h: LayerHandlers): Buil
     }).addTo(group);
     m.bindTooltip('Station', { permanent: true, direction: 'bottom', offset: [0, 10], className: 'yw-tip' });
     m.on('click', (e) => (stop(e), h.select({ kind: 'station' })));
-    m.on('dragend', () => h.moveStation(toLonLat(m.getLatLng())));
+    m.on('drag', () => h.dragging?.({ kind: 'station', to: toLonLat(m.getLatLng()) }));
+    m.on('dragend', () => (h.moveStation(toLonLat(m.getLatLng())), h.dragEnd?.()));
   }
   return { group, editable };
 }
@@ -178,7 +184,8 @@ function supportMarker(
     className: `yw-tip yw-support-tip${selected ? ' is-selected' : ''}`,
   });
   m.on('click', (e) => (stop(e), h.select({ kind: 'support', id: s.id })));
-  m.on('dragend', () => h.moveSupport(s.id, toLonLat(m.getLatLng())));
+  m.on('drag', () => h.dragging?.({ kind: 'support', id: s.id, to: toLonLat(m.getLatLng()) }));
+  m.on('dragend', () => (h.moveSupport(s.id, toLonLat(m.getLatLng())), h.dragEnd?.()));
   return m;
 }
 

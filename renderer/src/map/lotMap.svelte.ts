@@ -12,9 +12,12 @@ import { declutterLabels } from './declutter.ts';
 import { COLOURS, buildLayers, toLatLng, toLonLat, type Shape } from './layers.ts';
 import { drawOverlays } from './overlayLayers.svelte.ts';
 import type { LonLat, Project } from '../../../core/project/schema.ts';
+import { escapeHtml } from '../../../core/report/drawings.ts';
 import { footprintOf } from '../lib/aerial.ts';
+import { presetOfTemplate } from '../lib/imageryPresets.ts';
 import type { Session } from '../state/session.svelte.ts';
 import type { ToolId } from '../state/ui.svelte.ts';
+import { withMove, type DragMove } from '../plan/liveMove.ts';
 
 const DRAW_STYLE = { color: COLOURS.boundarySelected, weight: 2 };
 
@@ -76,6 +79,23 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       ui.setTool('select');
     });
 
+    // A drag with a plan shown re-ranks live: at most once per frame, the newest position.
+    let frame: { p: Project; move: DragMove } | null = null;
+    const live = (p: Project, move: DragMove): void => {
+      if (!frame)
+        requestAnimationFrame(() => {
+          const f = frame;
+          frame = null;
+          if (f) session.planning.liveMove(withMove(f.p, f.move));
+        });
+      frame = { p, move };
+    };
+
+    const liveEnd = (): void => {
+      frame = null;
+      session.planning.liveEnd();
+    };
+
     // Project layers, rebuilt on every change (a lot holds tens of items, not thousands).
     let current: L.LayerGroup | null = null;
     $effect(() => {
@@ -94,6 +114,8 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
           select: (s) => doc.select(s),
           moveSupport: (id, to) => doc.moveSupport(id, to),
           moveStation: (to) => doc.setStation(to),
+          dragging: (move) => live(p, move),
+          dragEnd: () => liveEnd(),
         },
       );
       current = built.group.addTo(map);
@@ -107,6 +129,25 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       const editable = built.editable.get(key);
       if (selecting && editable) {
         editable.pm.enable({ allowSelfIntersection: false, snappable: true, draggable: false });
+        const moveOf = (corners: LonLat[]): DragMove | null => {
+          if (key === 'boundary') return { kind: 'boundary', corners };
+          const k = doc.selectedKeepOut;
+          if (!k) return null;
+          return {
+            kind: 'keepOut',
+            id: k.id,
+            geometry:
+              k.geometry.type === 'Polygon'
+                ? { type: 'Polygon', coordinates: [[...corners, corners[0]!]] }
+                : { type: 'LineString', coordinates: corners },
+          };
+        };
+        editable.on('pm:markerdrag', () => {
+          const move = moveOf(cornersOf(editable));
+          if (move) live(p, move);
+        });
+        // pm:edit (the edit) comes with the end of a corner's drag; settle once both have run.
+        editable.on('pm:markerdragend', () => setTimeout(liveEnd, 0));
         editable.on('pm:edit', () => {
           const corners = cornersOf(editable);
           if (key === 'boundary') doc.setBoundary(corners, 'move lot corner');
@@ -175,11 +216,31 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       if (r && !map.getBounds().pad(-0.05).contains(toLatLng(r.at))) map.panTo(toLatLng(r.at));
     });
     // Go to a place: centre there, close in, and mark it (offline the map is grey: the mark and
-    // the scale show that it moved).
+    // the scale show that it moved). The mark goes once the lot's drawing changes or a candidate
+    // is drawn, so that it never covers the lot or an antenna.
+    let goMark: L.CircleMarker | null = null;
+    let goMarkFor = '';
+    // By value: an edit of anything else (a setting, the station) copies these arrays too.
+    const drawing = (): string => {
+      const p = doc.project;
+      return JSON.stringify([p?.id, p?.boundary, p?.supports, p?.keepOuts]);
+    };
+    $effect(() => {
+      const now = drawing();
+      const shown = session.mapOverlays.candidates.length > 0;
+      if (goMark && (shown || now !== goMarkFor)) {
+        goMark.remove();
+        goMark = null;
+      }
+    });
     $effect(() => {
       const g = ui.goTo;
       if (!g) return;
       map.setView(toLatLng(g.at), Math.max(map.getZoom(), 18), { animate: false });
+      // Centre the place in the part of the map no panel covers.
+      const cover = untrack(() => ui.mapCoverLeftPx);
+      if (cover > 0 && cover < map.getSize().x - 200) map.panBy([-cover / 2, 0], { animate: false });
+      if (untrack(() => session.mapOverlays.candidates.length) > 0) return;
       const mark = L.circleMarker(toLatLng(g.at), {
         radius: 9,
         color: '#0f6b73',
@@ -194,7 +255,12 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
           className: 'yw-tip yw-goto-label',
         })
         .addTo(map);
-      return () => mark.remove();
+      goMark = mark;
+      goMarkFor = untrack(drawing);
+      return () => {
+        mark.remove();
+        goMark = null;
+      };
     });
     map.on('moveend', () => {
       const c = map.getCenter();
@@ -210,12 +276,14 @@ export function lotMap(session: Session): Attachment<HTMLElement> {
       return () => scale.remove();
     });
 
-    // The user's own imagery tiles, only when a template is set (offline otherwise).
+    // Imagery tiles (the user's own server or a public service they chose), only when a template
+    // is set (offline otherwise). The credit is plain text: Leaflet would read it as HTML.
     $effect(() => {
       const url = doc.project?.settings.tileUrlTemplate ?? '';
-      const attribution = doc.project?.settings.tileAttribution ?? '';
+      const attribution = escapeHtml(doc.project?.settings.tileAttribution ?? '');
       if (!url) return;
-      const tiles = L.tileLayer(url, { attribution, maxZoom: 22, maxNativeZoom: 19 }).addTo(map);
+      const maxNativeZoom = presetOfTemplate(url)?.maxNativeZoom ?? 19;
+      const tiles = L.tileLayer(url, { attribution, maxZoom: 22, maxNativeZoom }).addTo(map);
       return () => tiles.remove();
     });
 

@@ -8,43 +8,23 @@ import { fireEvent, render, screen } from '@testing-library/svelte';
 import { describe, expect, it } from 'vitest';
 import { tuningText } from '../../../core/report/tuning.ts';
 import { ProjectState } from '../state/project.svelte.ts';
-import { createPlanHost } from '../workers/planHost.ts';
-import type { PlanWorker } from '../workers/pool.ts';
-import type { FromWorker, ToWorker } from '../workers/protocol.ts';
 import { Planning } from './planning.svelte.ts';
 import { demoPlanProject } from './testShortlist.ts';
+import { hostWorkers, until } from './testWorkers.ts';
 import TuningNote from './TuningNote.svelte';
 import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 
 const toyEvaluator = testEvaluator({ pattern: 'flat' });
-
-async function until(check: () => boolean, ms = 20_000): Promise<void> {
-  const t0 = Date.now();
-  while (!check()) {
-    if (Date.now() - t0 > ms) throw new Error('timed out');
-    await new Promise((r) => setTimeout(r, 1));
-  }
-}
 
 /** A planning state with a finished plan of the demo lot; `tunes` counts tune requests. */
 async function planned() {
   const doc = new ProjectState(async () => ({ ok: true, value: { updatedAt: 't' } }));
   doc.open(demoPlanProject());
   const counts = { tunes: 0 };
-  const start = (): PlanWorker[] =>
-    [0, 1].map(() => {
-      const host = createPlanHost(toyEvaluator, () => 0);
-      let handler: ((m: FromWorker) => void) | null = null;
-      return {
-        post(msg: ToWorker) {
-          if (msg.type === 'tune') counts.tunes++;
-          setTimeout(() => {
-            for (const r of host.handle(structuredClone(msg))) handler?.(structuredClone(r));
-          }, 5);
-        },
-        onMessage: (h) => (handler = h),
-        terminate: () => (handler = null),
-      };
+  const start = () =>
+    hostWorkers(2, toyEvaluator, {
+      delayMs: 5,
+      onPost: (msg) => void (msg.type === 'tune' && counts.tunes++),
     });
   const planning = new Planning(doc, start);
   planning.run();

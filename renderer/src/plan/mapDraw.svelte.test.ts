@@ -7,15 +7,21 @@ import { buildSite } from '../../../core/site/site.ts';
 import { candidateFrame, drawCandidate } from './mapDraw.ts';
 import { demoPlanProject, demoShortlist } from './testShortlist.ts';
 
+/** The demo plan and an 800 × 600 px SVG-drawn Leaflet map on its station, zoom 18. */
+function demoMap() {
+  const project = demoPlanProject();
+  const shortlist = demoShortlist();
+  const el = document.createElement('div');
+  Object.defineProperty(el, 'clientWidth', { value: 800 });
+  Object.defineProperty(el, 'clientHeight', { value: 600 });
+  document.body.append(el);
+  const map = L.map(el, { renderer: L.svg() }).setView([project.station![1], project.station![0]], 18);
+  return { project, shortlist, el, map };
+}
+
 describe('drawCandidate', () => {
   it('draws wires at the lon/lat the core frame gives and removes every layer on teardown', () => {
-    const project = demoPlanProject();
-    const shortlist = demoShortlist();
-    const el = document.createElement('div');
-    Object.defineProperty(el, 'clientWidth', { value: 800 });
-    Object.defineProperty(el, 'clientHeight', { value: 600 });
-    document.body.append(el);
-    const map = L.map(el, { renderer: L.svg() }).setView([project.station![1], project.station![0]], 18);
+    const { project, shortlist, map } = demoMap();
     // Layers other than Leaflet's shared vector renderer (which stays once made).
     const drawn = (): number => {
       let n = 0;
@@ -50,13 +56,7 @@ describe('drawCandidate', () => {
   });
 
   it('shows names as text, never as markup (a region or wire name with HTML in it)', () => {
-    const project = demoPlanProject();
-    const shortlist = demoShortlist();
-    const el = document.createElement('div');
-    Object.defineProperty(el, 'clientWidth', { value: 800 });
-    Object.defineProperty(el, 'clientHeight', { value: 600 });
-    document.body.append(el);
-    const map = L.map(el, { renderer: L.svg() }).setView([project.station![1], project.station![0]], 18);
+    const { shortlist, el, map } = demoMap();
     const c = shortlist.candidates[0]!;
     const hostile = '<img src=x onerror="window.__pwned=1">';
     const evil = {

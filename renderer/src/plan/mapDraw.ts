@@ -19,6 +19,7 @@ export const DRAW_COLOURS = {
   feed: '#ffd45c',
   broadside: '#0f6b73',
   end: '#c2410c',
+  coax: '#1f2528',
 };
 
 /** The site frame the candidate's metres are in (the frame the planner placed it in). */
@@ -123,20 +124,53 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
         r.bearingDeg.center,
       ]);
     });
-    candidate.broadsideDeg.forEach((b) => {
-      const line = L.polyline(ray(frame, centre, b, span * 0.6), {
+    // A switched array: one line per direction (its beam), numbered as in the shortlist.
+    const beams =
+      candidate.states.length > 1
+        ? candidate.states.map((s, i) => ({ deg: s.beamDeg, text: `direction ${i + 1}: ${s.name}, beam` }))
+        : candidate.broadsideDeg.map((deg) => ({ deg, text: 'broadside' }));
+    beams.forEach((b) => {
+      const line = L.polyline(ray(frame, centre, b.deg, span * 0.6), {
         color: DRAW_COLOURS.broadside,
         weight: 3,
         opacity: 0.7,
         dashArray: '8 5',
       }).addTo(g);
-      tip(line, `broadside ${Math.round(b)}°`);
+      tip(line, `${b.text} ${Math.round(b.deg)}°`);
     });
   }
 
   const faded = o.stale ? { opacity: 0.55, dashArray: '10 6' } : {};
+  const boxes = new Set<string>();
   for (const e of candidate.elements) {
     if (e.role === 'support' || e.role === 'feed-line') continue; // drawn by the lot and the feed route
+    if (e.role === 'coax') {
+      // An array's coax from a feed point to its relay box, and the box where it meets the ground.
+      const line = L.polyline([ll(frame, e.from), ll(frame, e.to)], {
+        color: DRAW_COLOURS.coax,
+        weight: 2,
+        dashArray: '6 3',
+        className: `${cls} yw-cand-coax`,
+      }).addTo(g);
+      const l = Math.hypot(e.to[0] - e.from[0], e.to[1] - e.from[1], e.to[2] - e.from[2]);
+      tip(line, `${e.label}: ${len(l)} straight (cut it to the length on the build sheet)`);
+      const boxKey = `${e.to[0].toFixed(1)}:${e.to[1].toFixed(1)}`;
+      if (e.to[2] === 0 && !boxes.has(boxKey)) {
+        boxes.add(boxKey);
+        const box = L.rectangle(
+          [ll(frame, [e.to[0] - 0.6, e.to[1] - 0.6]), ll(frame, [e.to[0] + 0.6, e.to[1] + 0.6])],
+          {
+            color: DRAW_COLOURS.coax,
+            weight: 2,
+            fillColor: '#fff',
+            fillOpacity: 1,
+            className: `${cls} yw-cand-box`,
+          },
+        ).addTo(g);
+        tip(box, 'relay box (on the ground)');
+      }
+      continue;
+    }
     if (e.role === 'radiator' || e.role === 'top-wire' || e.role === 'rope' || e.role === 'radial') {
       const wire = e.role === 'radiator' || e.role === 'top-wire';
       const style: L.PolylineOptions = wire
@@ -179,8 +213,9 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
       tip(m.addTo(g), `${e.label}, ${len(e.heightM)}`);
     }
   }
-  const f = candidate.feedPoints[0]?.xyz;
-  if (f) {
+  // Every feed point (an array has one per element; the first is driven in direction 1).
+  candidate.feedPoints.forEach((fp, i) => {
+    const f = fp.xyz;
     const m = L.circleMarker(ll(frame, f), {
       radius: 6,
       color: '#1f2528',
@@ -189,8 +224,12 @@ export function drawCandidate(map: L.Map, candidate: Candidate, o: DrawOptions):
       fillOpacity: 1,
       className: `${cls} yw-cand-feed`,
     }).addTo(g);
-    tip(m, `${compared ? `#${candidate.rank} ` : ''}feed point, ${len(f[2])} up`);
-  }
+    const which =
+      candidate.feedPoints.length > 1
+        ? ` ${i + 1} of ${candidate.feedPoints.length} (${candidate.arrayFeed?.elements[i]?.label ?? 'element'})`
+        : '';
+    tip(m, `${compared ? `#${candidate.rank} ` : ''}feed point${which}, ${len(f[2])} up`);
+  });
   if (o.stale && !compared) {
     L.tooltip({ permanent: true, direction: 'top', className: 'yw-tip yw-stale-label' })
       .setLatLng(ll(frame, centre))

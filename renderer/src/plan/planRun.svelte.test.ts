@@ -3,48 +3,18 @@
 import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import type { Evaluator } from '../../../core/rank/evaluator.ts';
-import { createPlanHost } from '../workers/planHost.ts';
-import type { PlanWorker } from '../workers/pool.ts';
-import type { FromWorker, ToWorker } from '../workers/protocol.ts';
 import { PlanRunner } from './planRun.svelte.ts';
+import { hostWorkers, until, type HostWorker } from './testWorkers.ts';
 import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 
 const toyEvaluator = testEvaluator({ pattern: 'directional' });
 
-interface Fake extends PlanWorker {
-  evaluated: number;
-}
-
-function fakePool(n: number, counter: { calls: number }): () => Fake[] {
-  return () =>
-    Array.from({ length: n }, () => {
-      const counting: Evaluator = (r) => {
-        counter.calls++;
-        return toyEvaluator(r);
-      };
-      const host = createPlanHost(counting, () => 0);
-      let handler: ((m: FromWorker) => void) | null = null;
-      const w: Fake = {
-        evaluated: 0,
-        post(msg: ToWorker) {
-          setTimeout(() => {
-            if (msg.type === 'evaluate') w.evaluated++;
-            for (const r of host.handle(structuredClone(msg))) handler?.(structuredClone(r));
-          }, 0);
-        },
-        onMessage: (h) => (handler = h),
-        terminate: () => (handler = null),
-      };
-      return w;
-    });
-}
-
-async function until(check: () => boolean, ms = 20_000): Promise<void> {
-  const t0 = Date.now();
-  while (!check()) {
-    if (Date.now() - t0 > ms) throw new Error('timed out');
-    await new Promise((r) => setTimeout(r, 1));
-  }
+function fakePool(n: number, counter: { calls: number }): () => HostWorker[] {
+  const counting: Evaluator = (r) => {
+    counter.calls++;
+    return toyEvaluator(r);
+  };
+  return () => hostWorkers(n, counting);
 }
 
 const project = (() => {
@@ -55,7 +25,7 @@ const project = (() => {
 describe('PlanRunner', () => {
   it('spreads jobs over the workers, reports progress and ends with the ranked shortlist', async () => {
     const counter = { calls: 0 };
-    let pool: Fake[] = [];
+    let pool: HostWorker[] = [];
     const runner = new PlanRunner(() => (pool = fakePool(3, counter)()));
     runner.run(project, ['80m']);
     expect(runner.status).toBe('enumerating');
@@ -69,7 +39,7 @@ describe('PlanRunner', () => {
     expect(runner.total).toBeGreaterThan(3);
     expect(runner.done).toBe(runner.total);
     expect(seen.size).toBeGreaterThan(2); // progress moved in steps
-    expect(pool.every((w) => w.evaluated > 0)).toBe(true);
+    expect(pool.every((w) => (w.posted.evaluate ?? 0) > 0)).toBe(true);
     const s = runner.shortlist!;
     expect(s.candidates.length).toBeGreaterThan(0);
     expect(s.candidates[0]!.rank).toBe(1);

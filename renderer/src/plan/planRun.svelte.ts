@@ -16,6 +16,7 @@ import type { EvalGround } from '../../../core/rank/evaluator.ts';
 import type { FromWorker, SweepPoint, TestFault } from '../workers/protocol.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import { takeTestFault } from '../workers/testFault.ts';
+import { LiveQueue } from './liveQueue.ts';
 
 /** How long the runner waits on workers that hold work and say nothing, by default (ms). */
 export const DEFAULT_STALL_MS = 180_000;
@@ -43,6 +44,31 @@ export type TuningState =
 type Pending =
   | { kind: 'sweep'; resolve: (p: SweepPoint[]) => void; reject: (e: Error) => void }
   | { kind: 'tune'; resolve: (t: TuningMeasurement) => void; reject: (e: Error) => void };
+
+/** What a plan is made for: the project (as it was, or as it would be at a drag's position) and the bands. */
+export interface MadeFor {
+  project: Project;
+  bands: Band[];
+}
+
+/**
+ * The provisional shortlist of a drag in progress (live re-ranking), never kept as the project's
+ * plan. `following`: the drag has moved on since this result (the worker is on a newer position);
+ * `settling`: the drag ended and the exact plan of the final position is running.
+ */
+export interface LiveView {
+  shortlist: Shortlist;
+  madeFor: MadeFor;
+  /** Placements ranked with a similar design's evaluation, and placements left out. */
+  borrowed: number;
+  leftOut: number;
+  /** How long the lead worker took for this result, ms. */
+  ms: number;
+  following: boolean;
+  settling: boolean;
+  /** The last live re-plan that failed, in words (the shown result stays). */
+  error: string | null;
+}
 
 export type RunStatus = 'idle' | 'enumerating' | 'evaluating' | 'ranking' | 'done' | 'cancelled' | 'error';
 
@@ -76,6 +102,8 @@ export class PlanRunner {
    * when a new plan replaces the shortlist.
    */
   tunings = $state.raw<Record<string, TuningState>>({});
+  /** While something is dragged with a plan shown: the provisional shortlist (see LiveView). */
+  live = $state.raw<LiveView | null>(null);
 
   running = $derived(
     this.status === 'enumerating' || this.status === 'evaluating' || this.status === 'ranking',
@@ -98,6 +126,13 @@ export class PlanRunner {
   // eslint-disable-next-line svelte/prefer-svelte-reactivity -- bookkeeping, never rendered
   #tuneWaits = new Map<string, Promise<TuningMeasurement>>();
   #shortlistSeq = 0;
+  readonly #liveQueue = new LiveQueue<MadeFor>((ask) =>
+    this.#lead().post({ type: 'preview', liveId: ask.seq, project: ask.what.project, bands: ask.what.bands }),
+  );
+  /** Designs the shown drag position lacks, solved while the drag rests (#warmNext). */
+  #warm: Job[] = [];
+  /** The run that settles a drag: its plan replaces the provisional one. */
+  #settleRun = 0;
 
   #stallMs: number;
   #takeFault: () => TestFault | null;
@@ -134,6 +169,11 @@ export class PlanRunner {
   /** Start a plan for these bands; a run in progress is cancelled first. */
   run(project: Project, bands: Band[]): void {
     if (this.running) this.cancel();
+    this.#dropLive();
+    this.#begin(project, bands);
+  }
+
+  #begin(project: Project, bands: Band[]): number {
     const lead = this.#lead();
     const id = ++this.#runSeq;
     const testFault = this.#takeFault();
@@ -157,10 +197,16 @@ export class PlanRunner {
     this.elapsedMs = 0;
     lead.post({ type: 'enumerate', runId: id, project, bands });
     this.#arm();
+    return id;
   }
 
-  /** Stop handing out work; what is in flight finishes into the cache. */
+  /** Stop handing out work; what is in flight finishes into the cache. A settling drag shows the kept plan again. */
   cancel(): void {
+    if (this.live?.settling) this.#dropLive();
+    this.#stopRun();
+  }
+
+  #stopRun(): void {
     if (!this.running || !this.#run) return;
     this.#run = null;
     this.status = 'cancelled';
@@ -168,9 +214,66 @@ export class PlanRunner {
     this.#arm();
   }
 
+  /**
+   * A position of a drag: re-rank the project as it would be there, provisionally (no solver
+   * work; see core/rank/preview.ts). Only the newest position waits while the lead worker is busy,
+   * and an answer older than the one shown is dropped. A run in progress is cancelled (the drag's
+   * end starts the exact one).
+   */
+  preview(project: Project, bands: Band[]): void {
+    this.#stopRun();
+    this.#settleRun = 0;
+    if (this.live) this.live = { ...this.live, following: true, settling: false };
+    this.#liveQueue.move({ project, bands });
+    this.#arm();
+  }
+
+  /**
+   * The drag ended. With the final project: run the exact plan; the provisional shortlist stays
+   * (marked settling) until its result replaces it. Without (nothing moved): show the kept plan again.
+   */
+  settle(final: MadeFor | null): void {
+    this.#liveQueue.end();
+    if (!final || !this.live) {
+      this.#dropLive();
+      if (final) this.run(final.project, final.bands);
+      return;
+    }
+    this.live = { ...this.live, following: false, settling: true };
+    this.#settleRun = this.#begin(final.project, final.bands);
+  }
+
+  /** True from a drag's first position until its end is settled (not reactive). */
+  get liveActive(): boolean {
+    return this.#liveQueue.active || this.live !== null;
+  }
+
+  /**
+   * While the drag rests (no newer position waiting), the lead worker solves the designs the shown
+   * position lacks, one at a time, into its cache: a newer position waits for one solve at most,
+   * and the exact plan at the drag's end finds them done.
+   */
+  #warmNext(): void {
+    const lead = this.#workers[0];
+    if (!lead || this.#run || !this.#liveQueue.active || this.#liveQueue.busy) return;
+    if (this.#busy.get(lead) !== null) return;
+    const job = this.#warm.shift();
+    if (!job) return;
+    this.#busy.set(lead, job.key);
+    lead.post({ type: 'evaluate', runId: 0, job });
+  }
+
+  #dropLive(): void {
+    this.#warm = [];
+    this.#liveQueue.end();
+    this.live = null;
+    this.#settleRun = 0;
+  }
+
   /** Show no plan: a run in progress is cancelled and the shown shortlist dropped. */
   clear(): void {
     this.cancel();
+    this.#dropLive();
     this.#setShortlist(null, null);
     this.status = 'idle';
     this.error = null;
@@ -179,6 +282,7 @@ export class PlanRunner {
   /** Show a plan made before (kept in the store): nothing runs. */
   restore(shortlist: Shortlist, madeFor: { project: Project; bands: Band[] }): void {
     this.cancel();
+    this.#dropLive();
     this.#setShortlist(shortlist, madeFor);
     this.status = 'done';
     this.error = null;
@@ -260,6 +364,7 @@ export class PlanRunner {
   }
 
   dispose(): void {
+    this.#dropLive();
     this.#stopPool();
     this.#run = null;
     if (this.running) this.status = 'cancelled';
@@ -267,6 +372,7 @@ export class PlanRunner {
   }
 
   #stopPool(): void {
+    this.#liveQueue.reset();
     for (const w of this.#workers) w.terminate();
     this.#workers = [];
     this.#busy.clear();
@@ -290,7 +396,7 @@ export class PlanRunner {
 
   /** True while some worker owes an answer: a run, a job of a cancelled run, a sweep or a tuning. */
   #owed(): boolean {
-    if (this.#run || this.#requests.size > 0) return true;
+    if (this.#run || this.#requests.size > 0 || this.#liveQueue.busy) return true;
     for (const k of this.#busy.values()) if (k !== null) return true;
     return false;
   }
@@ -314,6 +420,7 @@ export class PlanRunner {
   #fail(why: string): void {
     const message = workerFailure(why);
     const hadRun = this.#run !== null;
+    this.#dropLive();
     this.#stopPool();
     this.#run = null;
     if (hadRun) {
@@ -386,15 +493,36 @@ export class PlanRunner {
           this.done = run.evaluations;
           if (run.pending.size === 0) return this.#rank(run);
         }
+        if (!run) return this.#warmNext();
         return this.#dispatch();
       }
       case 'ranked': {
         if (!run || m.runId !== run.id) return;
         const madeFor = { project: run.project, bands: run.bands };
         this.#setShortlist(m.shortlist, madeFor);
+        this.#dropLive();
         this.status = 'done';
         this.#run = null;
         this.#onShortlist?.(m.shortlist, madeFor);
+        return;
+      }
+      case 'previewed': {
+        const asked = this.#liveQueue.answer(m.liveId);
+        if (!asked) return;
+        const { shortlist, borrowed, leftOut, ms } = m;
+        this.#warm = m.missing;
+        this.#warmNext();
+        const following = this.#liveQueue.following;
+        this.live = {
+          shortlist,
+          madeFor: asked,
+          borrowed,
+          leftOut,
+          ms,
+          following,
+          settling: false,
+          error: null,
+        };
         return;
       }
       case 'swept': {
@@ -410,12 +538,17 @@ export class PlanRunner {
         return;
       }
       case 'error': {
+        if (m.liveId !== undefined) {
+          if (this.#liveQueue.answer(m.liveId) && this.live) this.live = { ...this.live, error: m.message };
+          return;
+        }
         if (m.reqId !== undefined) {
           this.#take(m.reqId)?.reject(new Error(m.message));
           return;
         }
         if (m.key !== undefined) this.#busy.set(w, null);
         if (!run || (m.runId !== undefined && m.runId !== run.id)) return;
+        if (run.id === this.#settleRun) this.#dropLive();
         this.error = m.message;
         this.status = 'error';
         this.#run = null;

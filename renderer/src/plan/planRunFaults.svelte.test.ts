@@ -6,7 +6,9 @@ import { buildDemoProject } from '../../../data/demo/demoProject.ts';
 import { createPlanHost, workerLoop } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
 import type { FromWorker, TestFault, ToWorker } from '../workers/protocol.ts';
+import type { Candidate } from '../../../core/rank/plan.ts';
 import { PlanRunner, type RunStatus } from './planRun.svelte.ts';
+import { until } from './testWorkers.ts';
 import { testEvaluator } from '../../../test/helpers/testEvaluator.ts';
 
 const toyEvaluator = testEvaluator({ pattern: 'flat' });
@@ -72,13 +74,6 @@ function pools(n: number): Pools & { start: () => Fake[] } {
   return p;
 }
 
-async function until(check: () => boolean, ms = 20_000): Promise<void> {
-  const t0 = Date.now();
-  while (!check()) {
-    if (Date.now() - t0 > ms) throw new Error('timed out');
-    await new Promise((r) => setTimeout(r, 1));
-  }
-}
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 const project = (() => {
@@ -233,32 +228,36 @@ describe('PlanRunner with a failing worker', () => {
     await rerunEndsDone(runner);
   });
 
-  it('a crash after a plan fails the waiting sweep but keeps the shown shortlist', async () => {
+  /**
+   * After a finished plan, `ask` starts a request about its first candidate and a worker crashes:
+   * the request fails in words, the shown shortlist stays and every worker is stopped.
+   */
+  async function crashDuring(ask: (runner: PlanRunner, c: Candidate) => Promise<unknown>) {
     const { runner, p } = runnerWith(2);
     await rerunEndsDone(runner);
     const c = runner.shortlist!.candidates[0]!;
-    const sweep = runner.sweep(c.design, project.soil, c.trim.valueM, [3.5e6]);
+    const pending = ask(runner, c);
     p.all[0]!.send({ type: 'crashed', message: 'out of memory' });
-    await expect(sweep).rejects.toThrow(/a planning worker failed: out of memory/);
+    await expect(pending).rejects.toThrow(/a planning worker failed: out of memory/);
     expect(runner.status).toBe('done');
     expect(runner.shortlist).not.toBeNull();
     expect(p.all.every((w) => w.terminated)).toBe(true);
+    return { runner, p, c };
+  }
+
+  it('a crash after a plan fails the waiting sweep but keeps the shown shortlist', async () => {
+    const { runner } = await crashDuring((r, c) => r.sweep(c.design, project.soil, c.trim.valueM, [3.5e6]));
     await rerunEndsDone(runner);
   });
 
   it('a crash fails the waiting tuning in words; asked again, a fresh pool measures it', async () => {
-    const { runner, p } = runnerWith(2);
-    await rerunEndsDone(runner);
-    const c = runner.shortlist!.candidates[0]!;
-    const tuning = runner.requestTuning(c);
-    expect(runner.tuningOf(c.id)).toEqual({ status: 'measuring' });
-    p.all[0]!.send({ type: 'crashed', message: 'out of memory' });
-    await expect(tuning).rejects.toThrow(/a planning worker failed: out of memory/);
+    const { runner, p, c } = await crashDuring((r, c) => {
+      const tuning = r.requestTuning(c);
+      expect(r.tuningOf(c.id)).toEqual({ status: 'measuring' });
+      return tuning;
+    });
     expect(runner.tuningOf(c.id)).toEqual({ status: 'error', message: expect.stringMatching(FAILED) });
     expect(runner.measuredTuning(c.id)).toBeNull();
-    expect(runner.status).toBe('done');
-    expect(runner.shortlist).not.toBeNull();
-    expect(p.all.every((w) => w.terminated)).toBe(true);
     await sleep(20); // the stopped lead's late answer (if any) changes nothing
     expect(runner.tuningOf(c.id)?.status).toBe('error');
     // The new lead has never enumerated: it finds the design from the plan's project.

@@ -10,37 +10,18 @@ import type { EvalGround } from '../../../core/rank/evaluator.ts';
 import type { Candidate } from '../../../core/rank/plan.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 import { TUNING_STEP, type TuningMeasurement } from '../../../core/report/buildSheet.ts';
-import { createPlanHost } from '../workers/planHost.ts';
 import type { PlanWorker } from '../workers/pool.ts';
-import type { FromWorker, ToWorker } from '../workers/protocol.ts';
 import { PlanRunner } from './planRun.svelte.ts';
+import { hostWorkers, until as untilHolds } from './testWorkers.ts';
 
 /** Stand-in workers over the real host and the real solver; `posted` counts messages by type. */
 function solverPool(n: number, posted: Record<string, number>): () => PlanWorker[] {
   return () =>
-    Array.from({ length: n }, () => {
-      const host = createPlanHost(solverEvaluator, () => 0);
-      let handler: ((m: FromWorker) => void) | null = null;
-      return {
-        post(msg: ToWorker) {
-          posted[msg.type] = (posted[msg.type] ?? 0) + 1;
-          setTimeout(() => {
-            for (const r of host.handle(structuredClone(msg))) handler?.(structuredClone(r));
-          }, 0);
-        },
-        onMessage: (h) => (handler = h),
-        terminate: () => (handler = null),
-      };
-    });
+    hostWorkers(n, solverEvaluator, { onPost: (msg) => (posted[msg.type] = (posted[msg.type] ?? 0) + 1) });
 }
 
-async function until(check: () => boolean, ms = 30_000): Promise<void> {
-  const t0 = Date.now();
-  while (!check()) {
-    if (Date.now() - t0 > ms) throw new Error('timed out');
-    await new Promise((r) => setTimeout(r, 1));
-  }
-}
+/** The solver's plan takes longer than the toy's: wait up to 30 s. */
+const until = (check: () => boolean): Promise<void> => untilHolds(check, 30_000);
 
 const demo = buildDemoProject();
 /**

@@ -82,21 +82,29 @@ export class Planning {
   }
 
   bands: Band[] = $derived.by(() => this.#doc.project?.bands ?? ['80m']);
-  /** The shown plan, when it is the open project's (never another project's). */
+  /**
+   * The shown plan, when it is the open project's (never another project's): while something is
+   * dragged, the provisional one of the drag (`live`), else the plan made last.
+   */
   shortlist = $derived.by(() => {
-    const s = this.runner.shortlist;
+    const s = this.runner.live?.shortlist ?? this.runner.shortlist;
     return s && s.projectId === this.#doc.project?.id ? s : null;
   });
   /** The project the shown plan was made for (the frame of its candidates), when it is the open one's. */
   madeFor: Project | null = $derived.by(() =>
-    this.shortlist ? (this.runner.madeFor?.project ?? null) : null,
+    this.shortlist ? ((this.runner.live?.madeFor ?? this.runner.madeFor)?.project ?? null) : null,
   );
+  /** The provisional shortlist of a drag in progress, when one is shown (never kept). */
+  live = $derived.by(() => (this.shortlist && this.runner.live ? this.runner.live : null));
   candidates: Candidate[] = $derived.by(() => {
     const s = this.shortlist;
     return s ? sortCandidates(s.candidates, this.sort) : [];
   });
+  /** The selected candidate; during a drag, the provisional top candidate if the selected one is not ranked there. */
   selected: Candidate | null = $derived.by(
-    () => this.candidates.find((c) => c.id === this.selectedId) ?? null,
+    () =>
+      this.candidates.find((c) => c.id === this.selectedId) ??
+      (this.live ? (this.shortlist?.candidates[0] ?? null) : null),
   );
   compared: Candidate | null = $derived.by(
     () => this.candidates.find((c) => c.id === this.compareId && c.id !== this.selectedId) ?? null,
@@ -105,7 +113,7 @@ export class Planning {
   changes: PlanInputPart[] = $derived.by(() => {
     const m = this.madeWith;
     const p = this.#doc.project;
-    if (!m || !p || !this.shortlist) return [];
+    if (!m || !p || !this.shortlist || this.live) return [];
     return changedPlanInputs(m, planInputsHash(p, this.bands));
   });
   /** True when something the plan reads changed since the shown shortlist was made. */
@@ -158,10 +166,43 @@ export class Planning {
     if (this.tab === 'targets') this.tab = 'shortlist';
   }
 
+  /**
+   * Something is being dragged and the project would be `moved` at this position: re-rank it
+   * provisionally (live mode), but only while a plan of the open project is shown. The project
+   * itself is not touched (the drag's end is one edit).
+   */
+  liveMove(moved: Project): void {
+    const p = this.#doc.project;
+    if (!p || moved.id !== p.id || (!this.runner.live && !this.shortlist)) return;
+    this.runner.preview($state.snapshot(moved) as Project, [...this.bands]);
+  }
+
+  /**
+   * The drag ended (after its edit, if any): when the project now differs from what the kept plan
+   * was made for, the exact plan runs and is kept; otherwise the kept plan shows again.
+   */
+  liveEnd(): void {
+    if (!this.runner.liveActive) return;
+    const p = this.#doc.project;
+    const moved = p && planInputsHash(p, this.bands).hash !== this.madeWith?.hash;
+    this.runner.settle(moved ? { project: $state.snapshot(p) as Project, bands: [...this.bands] } : null);
+  }
+
   /** Compare the selected candidate with this one (null: no comparison). */
   setCompare(id: string | null): void {
     this.compareId = id;
     this.#keepView();
+  }
+
+  /** The plan also places arrays (the project's `settings.planArrays`). */
+  arrays: boolean = $derived.by(() => this.#doc.project?.settings.planArrays === true);
+
+  /** Turn the array types on or off for the next run (an undoable edit of the project's settings). */
+  setArrays(on: boolean): boolean {
+    return this.#doc.edit(on ? 'plan arrays too' : 'plan single antennas only', (q) => ({
+      ...q,
+      settings: { ...q.settings, planArrays: on },
+    }));
   }
 
   toggleBand(b: Band): boolean {

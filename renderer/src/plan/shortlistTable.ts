@@ -109,3 +109,32 @@ export const fmtLen = (m: number, units: UnitSystem): string => formatLength(m, 
 /** The type's short name for table cells (core/antennas/typeName.ts; the full label is in the detail). */
 export const shortType = (c: Candidate): string =>
   c.type === 'vertical' ? 'Vertical, radials' : typeName(c.type);
+
+/** A switched array's states in a few words ("2 directions: 154°, 244°"); empty for a fixed antenna. */
+export function statesText(c: Pick<Candidate, 'states'>): string {
+  if (c.states.length < 2) return '';
+  return `${c.states.length} directions: ${c.states.map((s) => `${Math.round(s.beamDeg) % 360}°`).join(', ')}`;
+}
+
+/**
+ * The state of a switched array that serves a region (its best there), numbered from 1; null for a
+ * fixed antenna. Ties go to the first state.
+ */
+export function servingState(
+  c: Pick<Candidate, 'states'>,
+  regionId: string,
+): { n: number; name: string; beamDeg: number } | null {
+  if (c.states.length < 2) return null;
+  let best = -1;
+  let bestGain = -Infinity;
+  c.states.forEach((s, i) => {
+    const g = s.regions.find((r) => r.id === regionId)?.gainDbi ?? -Infinity;
+    if (g > bestGain) {
+      bestGain = g;
+      best = i;
+    }
+  });
+  if (best < 0) return null;
+  const s = c.states[best]!;
+  return { n: best + 1, name: s.name, beamDeg: s.beamDeg };
+}

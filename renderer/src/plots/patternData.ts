@@ -6,6 +6,7 @@
 import { BAND_INFO } from '../../../core/bands.ts';
 import { PATTERN_GRID, azimuthAdvantage, gainAt } from '../../../core/rank/pattern.ts';
 import type { Candidate, Shortlist } from '../../../core/rank/plan.ts';
+import { statePattern } from '../../../core/rank/states.ts';
 import type { Band } from '../../../core/project/schema.ts';
 
 export interface PlacedPattern {
@@ -17,6 +18,25 @@ export interface PlacedPattern {
 export function placedPattern(shortlist: Shortlist, c: Candidate): PlacedPattern | null {
   const g = shortlist.patterns[c.evaluationKey];
   return g && g.length > 0 ? { gainDbi: g, rotationDeg: c.rotationDeg } : null;
+}
+
+/**
+ * Each direction (relay state) of a candidate as a placed pattern: the evaluated pattern, mirrored
+ * where the state says, turned by the state's rotation (core/rank/states.ts). One entry for a
+ * fixed antenna; empty when the shortlist has no pattern for it.
+ */
+export function statePatterns(
+  shortlist: Shortlist,
+  c: Candidate,
+): { name: string; beamDeg: number; p: PlacedPattern }[] {
+  const g = shortlist.patterns[c.evaluationKey];
+  if (!g || g.length === 0) return [];
+  const specs = c.design.states?.length ? c.design.states : [{ name: 'fixed', rotationDeg: 0 }];
+  return specs.map((s, i) => ({
+    name: s.name,
+    beamDeg: c.states[i]?.beamDeg ?? c.peak.azimuthDeg,
+    p: { gainDbi: statePattern(g, s), rotationDeg: c.rotationDeg + s.rotationDeg },
+  }));
 }
 
 /** Gain against elevation at one site bearing, on the core's elevation grid (1–90°). */

@@ -79,6 +79,11 @@ export class UiState {
   fitRequest = $state(0);
   /** A place the map should centre on (from "Go to"). */
   goTo = $state.raw<{ at: LonLat; seq: number } | null>(null);
+  /**
+   * Width in pixels of the map's left part that a panel covers (the empty-lot card), so that a
+   * Go centres the place in the part of the map left in view.
+   */
+  mapCoverLeftPx = $state(0);
   /** The centre of the lot map as last moved (where a typed boundary starts without a Go). */
   mapCentre = $state.raw<LonLat | null>(null);
 

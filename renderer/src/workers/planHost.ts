@@ -9,6 +9,8 @@ import { Z0_OHM, type Evaluator } from '../../../core/rank/evaluator.ts';
 import { swrOf } from '../../../core/em/swr.ts';
 import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import { enumeratePlan, planFromSetup, type PlanSetup } from '../../../core/rank/plan.ts';
+import { DesignIndex, previewPlan } from '../../../core/rank/preview.ts';
+import { feasibilityMemo } from '../../../core/site/feasibilityMemo.ts';
 import { measureTuning } from '../../../core/report/buildSheet.ts';
 import { tuningProblem } from '../../../core/report/tuning.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
@@ -26,13 +28,21 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
   const cache = new Map<string, EvaluationRecord>();
   /** The last enumeration, reused by the rank of the same run. */
   let last: { runId: number; setup: PlanSetup } | null = null;
+  /** The designs behind the cached evaluations, for the stand-ins of a live preview. */
+  const designs = new DesignIndex();
+  /**
+   * Feasibility results kept across runs: a moved support changes only the placements that use it
+   * (core/site/feasibilityMemo.ts), so a re-plan and a live preview check only those again.
+   */
+  const feasibility = feasibilityMemo().check;
 
   function handle(msg: ToWorker): FromWorker[] {
     switch (msg.type) {
       case 'enumerate': {
         try {
-          const setup = enumeratePlan(msg.project, { bands: msg.bands });
+          const setup = enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           last = { runId: msg.runId, setup };
+          for (const j of setup.jobs) designs.add(j);
           const missing = setup.jobs.filter((j) => !cache.has(j.key));
           return [
             {
@@ -54,6 +64,7 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
             cache.get(msg.job.key) ??
             evaluateDesign(msg.job.design, msg.job.ground, evaluator, msg.job.soilRange, msg.job.soilOnly);
           cache.set(msg.job.key, record);
+          designs.add(msg.job);
           return [{ type: 'evaluated', runId: msg.runId, key: msg.job.key, record, ms: now() - t0 }];
         } catch (e) {
           return [
@@ -69,11 +80,24 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
       case 'store':
         cache.set(msg.key, msg.record);
         return [];
+      case 'preview': {
+        const t0 = now();
+        try {
+          const setup = enumeratePlan(msg.project, { bands: msg.bands, feasibility });
+          const out = previewPlan(setup, msg.project, cache, designs);
+          const missing = setup.jobs.filter((j) => !cache.has(j.key));
+          return [{ type: 'previewed', liveId: msg.liveId, ...out, missing, ms: now() - t0 }];
+        } catch (e) {
+          return [{ type: 'error', liveId: msg.liveId, message: message(e) }];
+        }
+      }
       case 'rank': {
         const t0 = now();
         try {
           const setup =
-            last?.runId === msg.runId ? last.setup : enumeratePlan(msg.project, { bands: msg.bands });
+            last?.runId === msg.runId
+              ? last.setup
+              : enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           // planSite is planFromSetup(enumeratePlan(...)); the setup of this run's enumeration is reused.
           const shortlist = planFromSetup(setup, msg.project, { evaluator, cache, bands: msg.bands });
           shortlist.stats.evaluations = msg.evaluations;

@@ -21,6 +21,11 @@ export type ToWorker =
   | { type: 'evaluate'; runId: number; job: Job; testFault?: TestFault }
   /** Lead: keep an evaluation made by another worker. */
   | { type: 'store'; key: string; record: EvaluationRecord }
+  /**
+   * Lead: a provisional shortlist for a position of a drag (live re-ranking): ranked with the
+   * cached evaluations only, similar designs standing in for missing ones (core/rank/preview.ts).
+   */
+  | { type: 'preview'; liveId: number; project: Project; bands: Band[] }
   /** Lead: rank with every job in the cache (planSite evaluates nothing then). */
   | { type: 'rank'; runId: number; project: Project; bands: Band[]; evaluations: number; cacheHits: number }
   /**
@@ -57,9 +62,19 @@ export type FromWorker =
   | { type: 'enumerated'; runId: number; missing: Job[]; cached: number; total: number }
   | { type: 'evaluated'; runId: number; key: string; record: EvaluationRecord; ms: number }
   | { type: 'ranked'; runId: number; shortlist: Shortlist; ms: number }
+  | {
+      type: 'previewed';
+      liveId: number;
+      shortlist: Shortlist;
+      borrowed: number;
+      leftOut: number;
+      /** The designs of this position not yet solved (the runner has them solved while the drag rests). */
+      missing: Job[];
+      ms: number;
+    }
   | { type: 'swept'; reqId: number; points: SweepPoint[] }
   | { type: 'tuned'; reqId: number; tuning: TuningMeasurement }
-  | { type: 'error'; runId?: number; reqId?: number; key?: string; message: string }
+  | { type: 'error'; runId?: number; reqId?: number; liveId?: number; key?: string; message: string }
   /**
    * Not sent by a worker: what the pool reports when a worker itself failed (an uncaught error,
    * a message that could not be read). The runner ends the run and stops the pool.

@@ -198,25 +198,26 @@ const monopole = (x: number, y = 0, h = 0.25, radiusM = 1e-9): WireSpec => ({
   material: 'perfect',
 });
 
+/** Two monopoles over perfect ground, fed at their bases through ports 'a' and 'b', nothing else between. */
+const monopolePair = (wires: [WireSpec, WireSpec], sources: NetworkSpec['sources']): AntennaModel => ({
+  wires,
+  feeds: [
+    { wire: 0, position: 0 },
+    { wire: 1, position: 0 },
+  ],
+  ground: { kind: 'perfect' },
+  network: { portNodes: ['a', 'b'], elements: [], sources },
+});
+
 describe('two λ/4 monopoles over perfect ground', () => {
   // Thin-wire limit as in test/reference/em/mutual.test.ts; half its ±3 Ω dipole tolerance.
   const MONO_TOL = 1.5;
   for (const d of [0.1, 0.25, 0.5, 0.75]) {
     it(`mutual impedance at d = ${d} λ is half of Carter's dipole value (open second port)`, () => {
       // 1 A forced into port 1, port 2 open: V1 = Z11, V2 = Z21
-      const r = solve({
-        wires: [monopole(0), monopole(d)],
-        feeds: [
-          { wire: 0, position: 0 },
-          { wire: 1, position: 0 },
-        ],
-        ground: { kind: 'perfect' },
-        network: {
-          portNodes: ['a', 'b'],
-          elements: [],
-          sources: [{ node: 'a', kind: 'current', value: [1, 0] }],
-        },
-      });
+      const r = solve(
+        monopolePair([monopole(0), monopole(d)], [{ node: 'a', kind: 'current', value: [1, 0] }]),
+      );
       const z21 = c(r.feeds[1].voltageV[0], r.feeds[1].voltageV[1]);
       const half = carter(d);
       expectClose(z21.re, half.re / 2, MONO_TOL, CARTER);
@@ -233,22 +234,13 @@ describe('two forced-current verticals', () => {
     const az = [0, 30, 60, 90, 120, 150, 210, 300];
     const el = [5, 20, 40];
     const r = evaluateAntenna(
-      {
-        wires: [monopole(0, 0, 0.25, 1e-5), monopole(d, 0, 0.25, 1e-5)],
-        feeds: [
-          { wire: 0, position: 0 },
-          { wire: 1, position: 0 },
+      monopolePair(
+        [monopole(0, 0, 0.25, 1e-5), monopole(d, 0, 0.25, 1e-5)],
+        [
+          { node: 'a', kind: 'current', value: [0, 1] }, // leads by 90°: fires toward +x (east)
+          { node: 'b', kind: 'current', value: [1, 0] },
         ],
-        ground: { kind: 'perfect' },
-        network: {
-          portNodes: ['a', 'b'],
-          elements: [],
-          sources: [
-            { node: 'a', kind: 'current', value: [0, 1] }, // leads by 90°: fires toward +x (east)
-            { node: 'b', kind: 'current', value: [1, 0] },
-          ],
-        },
-      },
+      ),
       { frequenciesHz: [F_LAMBDA_1M], pattern: { elevationsDeg: el, azimuthsDeg: az } },
     ).frequencies[0];
     // element (λ/4 monopole, sinusoidal current): cos(π/2 sin Δ)/cos Δ; array factor of two

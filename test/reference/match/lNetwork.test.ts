@@ -61,58 +61,56 @@ const F_HZ = 1.83e6;
 const W = 2 * Math.PI * F_HZ;
 const Z0 = 50;
 
-describe('L-network: R_L < Z0 (a 160 m inverted-L near 25 Ω)', () => {
-  // Loads like the demo's 160 m inverted-Ls (22–29 Ω) and a vertical with reactance left.
-  for (const [RL, XL] of [
-    [22, 0],
-    [25, 12],
-    [29, -35],
-    [12.5, 80],
-  ] as const) {
+const ohms = (r: number, x: number): [number, number] => [r, x];
+
+/** One test per load R_L + jX_L: the L-network designs for it, which must be two (both arrangements). */
+function eachLoad(
+  loads: [number, number][],
+  check: (RL: number, XL: number, designs: ReturnType<typeof designLNetworks>) => void,
+): void {
+  for (const [RL, XL] of loads)
     it(`matches ${RL} ${XL < 0 ? '−' : '+'} j${Math.abs(XL)} Ω with both arrangements`, () => {
       const designs = designLNetworks([RL, XL], F_HZ, Z0);
       expect(designs).toHaveLength(2);
-      const expected = pozar56(RL, XL, Z0);
-      for (const [B, X] of expected) {
-        const d = designs.find((x) => Math.sign(x.susceptanceS) === Math.sign(B))!;
-        expect(d.nextToAntenna).toBe('series');
-        expectRelClose(d.susceptanceS, B, REL_FORMULA, POZAR);
-        expectRelClose(d.reactanceOhm, X, REL_FORMULA, POZAR);
-        // Component values from the reactances: L = X/ω, C = −1/(ωX) (series); shunt reactance −1/B.
-        const series = d.components.find((k) => k.position === 'series')!;
-        const shunt = d.components.find((k) => k.position === 'shunt')!;
-        if (X > 0) expectRelClose(series.value, (X / W) * 1e6, REL_FORMULA, 'L = X/ω');
-        else expectRelClose(series.value, (-1 / (W * X)) * 1e12, REL_FORMULA, 'C = −1/(ωX)');
-        if (B > 0) expectRelClose(shunt.value, (B / W) * 1e12, REL_FORMULA, 'C = B/ω');
-        else expectRelClose(shunt.value, (-1 / (W * B)) * 1e6, REL_FORMULA, 'L = −1/(ωB)');
-        const [r, x] = zIn(RL, XL, B, X, false);
-        expectClose(r, Z0, TOL_ZIN_OHM, CIRCUIT);
-        expectClose(x, 0, TOL_ZIN_OHM, CIRCUIT);
-      }
+      check(RL, XL, designs);
     });
-  }
+}
+
+describe('L-network: R_L < Z0 (a 160 m inverted-L near 25 Ω)', () => {
+  // Loads like the demo's 160 m inverted-Ls (22–29 Ω) and a vertical with reactance left.
+  eachLoad([ohms(22, 0), ohms(25, 12), ohms(29, -35), ohms(12.5, 80)], (RL, XL, designs) => {
+    const expected = pozar56(RL, XL, Z0);
+    for (const [B, X] of expected) {
+      const d = designs.find((x) => Math.sign(x.susceptanceS) === Math.sign(B))!;
+      expect(d.nextToAntenna).toBe('series');
+      expectRelClose(d.susceptanceS, B, REL_FORMULA, POZAR);
+      expectRelClose(d.reactanceOhm, X, REL_FORMULA, POZAR);
+      // Component values from the reactances: L = X/ω, C = −1/(ωX) (series); shunt reactance −1/B.
+      const series = d.components.find((k) => k.position === 'series')!;
+      const shunt = d.components.find((k) => k.position === 'shunt')!;
+      if (X > 0) expectRelClose(series.value, (X / W) * 1e6, REL_FORMULA, 'L = X/ω');
+      else expectRelClose(series.value, (-1 / (W * X)) * 1e12, REL_FORMULA, 'C = −1/(ωX)');
+      if (B > 0) expectRelClose(shunt.value, (B / W) * 1e12, REL_FORMULA, 'C = B/ω');
+      else expectRelClose(shunt.value, (-1 / (W * B)) * 1e6, REL_FORMULA, 'L = −1/(ωB)');
+      const [r, x] = zIn(RL, XL, B, X, false);
+      expectClose(r, Z0, TOL_ZIN_OHM, CIRCUIT);
+      expectClose(x, 0, TOL_ZIN_OHM, CIRCUIT);
+    }
+  });
 });
 
 describe('L-network: R_L > Z0', () => {
-  for (const [RL, XL] of [
-    [115, 0],
-    [200, -150],
-    [80, 60],
-  ] as const) {
-    it(`matches ${RL} ${XL < 0 ? '−' : '+'} j${Math.abs(XL)} Ω with both arrangements`, () => {
-      const designs = designLNetworks([RL, XL], F_HZ, Z0);
-      expect(designs).toHaveLength(2);
-      for (const [B, X] of pozar53(RL, XL, Z0)) {
-        const d = designs.find((x) => Math.abs(x.susceptanceS - B) <= 1e-12 * Math.abs(B))!;
-        expect(d, `solution B = ${B}`).toBeDefined();
-        expect(d.nextToAntenna).toBe('shunt');
-        expectRelClose(d.reactanceOhm, X, REL_FORMULA, POZAR);
-        const [r, x] = zIn(RL, XL, B, X, true);
-        expectClose(r, Z0, TOL_ZIN_OHM, CIRCUIT);
-        expectClose(x, 0, TOL_ZIN_OHM, CIRCUIT);
-      }
-    });
-  }
+  eachLoad([ohms(115, 0), ohms(200, -150), ohms(80, 60)], (RL, XL, designs) => {
+    for (const [B, X] of pozar53(RL, XL, Z0)) {
+      const d = designs.find((x) => Math.abs(x.susceptanceS - B) <= 1e-12 * Math.abs(B))!;
+      expect(d, `solution B = ${B}`).toBeDefined();
+      expect(d.nextToAntenna).toBe('shunt');
+      expectRelClose(d.reactanceOhm, X, REL_FORMULA, POZAR);
+      const [r, x] = zIn(RL, XL, B, X, true);
+      expectClose(r, Z0, TOL_ZIN_OHM, CIRCUIT);
+      expectClose(x, 0, TOL_ZIN_OHM, CIRCUIT);
+    }
+  });
 });
 
 describe('L-network: R_L = Z0', () => {

@@ -5,7 +5,7 @@ import type { Design, Proposal, WireModel } from '../../../core/antennas/types.t
 import { buildSite } from '../../../core/site/site.ts';
 import { prepareSite } from '../../../core/site/feasibility.ts';
 import { placeXYZ } from '../../../core/site/geometry.ts';
-import { testLot } from '../site/lot.ts';
+import { supportPair, testLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
 const EPS = 1e-9;
@@ -31,13 +31,7 @@ function first(
 describe('dipole', () => {
   const lambda = bandPlan('80m').wavelengthM;
   it('centres the wire with ropes when the span is longer than the wire', () => {
-    const p = first('dipole', {
-      halfX: 60,
-      supports: [
-        { id: 'a', x: -30, y: 0, h: 15 },
-        { id: 'b', x: 30, y: 0, h: 15 },
-      ],
-    });
+    const p = first('dipole', { halfX: 60, supports: supportPair(60, 15) });
     const m = builderFor('dipole').model(p.design, 40);
     expect(m.wires).toHaveLength(1);
     expectClose(total(m), 40, EPS, 'wire length equals the trim dimension by construction');
@@ -48,13 +42,7 @@ describe('dipole', () => {
   });
 
   it('hangs the ends down by half the excess when the span is short', () => {
-    const p = first('dipole', {
-      halfX: 40,
-      supports: [
-        { id: 'a', x: -15, y: 0, h: 15 },
-        { id: 'b', x: 15, y: 0, h: 15 },
-      ],
-    });
+    const p = first('dipole', { halfX: 40, supports: supportPair(30, 15) });
     const L = 0.48 * lambda;
     const m = builderFor('dipole').model(p.design, L);
     expectClose(total(m), L, 1e-9, 'total wire equals L');
@@ -63,13 +51,7 @@ describe('dipole', () => {
   });
 
   it('slopes the wire when the heights differ', () => {
-    const p = first('dipole', {
-      halfX: 60,
-      supports: [
-        { id: 'a', x: -30, y: 0, h: 20 },
-        { id: 'b', x: 30, y: 0, h: 10 },
-      ],
-    });
+    const p = first('dipole', { halfX: 60, supports: supportPair(60, 20, 10) });
     const m = builderFor('dipole').model(p.design, 40);
     expect(m.wires[0].from[2]).toBeGreaterThan(m.wires[0].to[2]);
     expectClose(total(m), 40, 1e-9, 'total wire equals L');
@@ -105,10 +87,7 @@ describe('half-square', () => {
   const lambda = bandPlan('80m').wavelengthM;
   const spec = {
     halfX: 70,
-    supports: [
-      { id: 'a', x: -24, y: 0, h: 22 },
-      { id: 'b', x: 24, y: 0, h: 22 },
-    ],
+    supports: supportPair(48, 22),
   };
   it('is a half-wave top and two drops fed at a top corner', () => {
     const p = first('half-square', spec);

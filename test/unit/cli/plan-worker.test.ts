@@ -11,7 +11,7 @@ describe('plan worker bundle', () => {
   it('bundles the worker with its inputs listed, reuses it while they are unchanged, rebuilds when one changes', () => {
     const out = workerBundle(dir);
     expect(out).toBe(join(dir, 'plan-worker.mjs'));
-    const manifest = JSON.parse(readFileSync(join(dir, 'manifest.json'), 'utf8')) as {
+    const manifest = JSON.parse(readFileSync(join(dir, 'plan-worker.manifest.json'), 'utf8')) as {
       inputs: Record<string, [number, number]>;
     };
     const inputs = Object.keys(manifest.inputs);
@@ -21,7 +21,7 @@ describe('plan worker bundle', () => {
     expect(workerBundle(dir)).toBe(out);
     expect(statSync(out as string).mtimeMs).toBe(built);
     // An input that looks changed (other modification time in the manifest) forces a rebuild.
-    const stale = join(dir, 'manifest.json');
+    const stale = join(dir, 'plan-worker.manifest.json');
     const m = { inputs: { ...manifest.inputs, [inputs[0]]: [manifest.inputs[inputs[0]][0], 1] } };
     writeFileSync(stale, JSON.stringify(m));
     utimesSync(out as string, new Date(0), new Date(0));

@@ -38,15 +38,25 @@ function storeRaw(file: string, id: string, doc: string): void {
   db.close();
 }
 
+/**
+ * A store of forty demo projects in the test folder, closed, its write-ahead log folded into the
+ * file; with journal 'delete' it also leaves WAL mode, so no -wal or -shm file stays beside it.
+ */
+function storeOfForty(opts: { journal?: 'wal' | 'delete' } = {}): string {
+  const file = join(dir, 'db.sqlite');
+  const s = new ProjectStore(file);
+  for (let i = 0; i < 40; i++) s.saveProject(project(`p${i}`));
+  s.close();
+  const db = new Database(file);
+  db.pragma('wal_checkpoint(TRUNCATE)');
+  if (opts.journal === 'delete') db.pragma('journal_mode = DELETE');
+  db.close();
+  return file;
+}
+
 describe('start-up integrity check', () => {
   it('finds random bytes written into the pages (header intact), refuses the file and leaves it unchanged', () => {
-    const file = join(dir, 'db.sqlite');
-    const s = new ProjectStore(file);
-    for (let i = 0; i < 40; i++) s.saveProject(project(`p${i}`));
-    s.close();
-    const db = new Database(file);
-    db.pragma('wal_checkpoint(TRUNCATE)');
-    db.close();
+    const file = storeOfForty();
     // seeded garbage over pages 3..6 (page 1 holds the header)
     let seed = 12345;
     const junk = Buffer.alloc(4 * 4096);
@@ -71,14 +81,7 @@ describe('start-up integrity check', () => {
   });
 
   it('refuses a truncated database without creating -wal or -shm files beside it', () => {
-    const file = join(dir, 'db.sqlite');
-    const s = new ProjectStore(file);
-    for (let i = 0; i < 40; i++) s.saveProject(project(`p${i}`));
-    s.close();
-    const db = new Database(file);
-    db.pragma('wal_checkpoint(TRUNCATE)');
-    db.pragma('journal_mode = DELETE');
-    db.close();
+    const file = storeOfForty({ journal: 'delete' });
     const whole = readFileSync(file);
     writeFileSync(file, whole.subarray(0, 3 * 4096));
     expect(() => new ProjectStore(file)).toThrow(/truncated/);

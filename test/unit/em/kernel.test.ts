@@ -115,98 +115,31 @@ const TOL_FAR = 2e-4;
 describe('segment-pair moments against brute-force quadrature', () => {
   const k = (2 * Math.PI) / 1; // wavelength 1 m
   const l = 1 / 40;
-  const cases: { name: string; P: Seg; Q: Seg; a: number; self?: boolean; tol: number }[] = [
-    {
-      name: 'self, a = 1e-5 λ',
-      P: { p: [0, 0, 0], t: [0, 0, 1], l },
-      Q: { p: [0, 0, 0], t: [0, 0, 1], l },
-      a: 1e-5,
-      self: true,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'self, thick a = 5e-3 λ',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [0, 0, 0], t: [1, 0, 0], l },
-      a: 5e-3,
-      self: true,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'collinear neighbour',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [l, 0, 0], t: [1, 0, 0], l },
-      a: 1e-4,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'collinear, unequal lengths',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [l, 0, 0], t: [1, 0, 0], l: 0.4 * l },
-      a: 1e-4,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'bent 90° at a shared end',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [l, 0, 0], t: [0, 0, 1], l },
-      a: 1e-4,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'bent 150° (acute V)',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [l, 0, 0], t: unit([-0.866, 0.5, 0]), l },
-      a: 1e-4,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'second neighbour',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [1.5 * l, 0, 0], t: [1, 0, 0], l },
-      a: 1e-4,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'parallel, 0.3 segment apart',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [0.2 * l, 0.3 * l, 0], t: [1, 0, 0], l },
-      a: 1e-4,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'image of a ground-touching vertical',
-      P: { p: [0, 0, 0], t: [0, 0, 1], l },
-      Q: { p: [0, 0, 0], t: [0, 0, -1], l },
-      a: 1e-4,
-      tol: TOL_NEAR,
-    },
-    {
-      name: 'far, 3 segments',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [0, 3 * l, 0], t: unit([1, 1, 0]), l },
-      a: 1e-4,
-      tol: TOL_FAR,
-    },
-    {
-      name: 'far, 6 segments',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [6 * l, 0, 0], t: [1, 0, 0], l },
-      a: 1e-4,
-      tol: TOL_FAR,
-    },
-    {
-      name: 'far, 20 segments',
-      P: { p: [0, 0, 0], t: [1, 0, 0], l },
-      Q: { p: [5 * l, 20 * l, 0], t: [0, 0, 1], l },
-      a: 1e-4,
-      tol: TOL_FAR,
-    },
+  // Segments of length l (or a fraction of it) starting at p along the unit vector t.
+  const seg = (p: V, t: V, frac = 1): Seg => ({ p, t, l: frac * l });
+  const O: V = [0, 0, 0];
+  const X: V = [1, 0, 0];
+  const Z: V = [0, 0, 1];
+  // Wire radius a = 1e-4 λ unless given.
+  const cases: { name: string; P: Seg; Q: Seg; a?: number; self?: boolean; tol: number }[] = [
+    { name: 'self, a = 1e-5 λ', P: seg(O, Z), Q: seg(O, Z), a: 1e-5, self: true, tol: TOL_NEAR },
+    { name: 'self, thick a = 5e-3 λ', P: seg(O, X), Q: seg(O, X), a: 5e-3, self: true, tol: TOL_NEAR },
+    { name: 'collinear neighbour', P: seg(O, X), Q: seg([l, 0, 0], X), tol: TOL_NEAR },
+    { name: 'collinear, unequal lengths', P: seg(O, X), Q: seg([l, 0, 0], X, 0.4), tol: TOL_NEAR },
+    { name: 'bent 90° at a shared end', P: seg(O, X), Q: seg([l, 0, 0], Z), tol: TOL_NEAR },
+    { name: 'bent 150° (acute V)', P: seg(O, X), Q: seg([l, 0, 0], unit([-0.866, 0.5, 0])), tol: TOL_NEAR },
+    { name: 'second neighbour', P: seg(O, X), Q: seg([1.5 * l, 0, 0], X), tol: TOL_NEAR },
+    { name: 'parallel, 0.3 segment apart', P: seg(O, X), Q: seg([0.2 * l, 0.3 * l, 0], X), tol: TOL_NEAR },
+    { name: 'image of a ground-touching vertical', P: seg(O, Z), Q: seg(O, [0, 0, -1]), tol: TOL_NEAR },
+    { name: 'far, 3 segments', P: seg(O, X), Q: seg([0, 3 * l, 0], unit([1, 1, 0])), tol: TOL_FAR },
+    { name: 'far, 6 segments', P: seg(O, X), Q: seg([6 * l, 0, 0], X), tol: TOL_FAR },
+    { name: 'far, 20 segments', P: seg(O, X), Q: seg([5 * l, 20 * l, 0], Z), tol: TOL_FAR },
   ];
   for (const c of cases) {
     it(c.name, () => {
-      const ref = bruteMoments(c.P, c.Q, c.a, k);
-      const got = fast(c.P, c.Q, c.a, k, c.self ?? false);
+      const a = c.a ?? 1e-4;
+      const ref = bruteMoments(c.P, c.Q, a, k);
+      const got = fast(c.P, c.Q, a, k, c.self ?? false);
       const scale = Math.hypot(ref[0], ref[1]);
       for (let i = 0; i < 8; i++) {
         expect(Math.abs(got[i] - ref[i]) / scale, `moment ${i}: ${got[i]} vs ${ref[i]}`).toBeLessThan(c.tol);

@@ -8,7 +8,16 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { importShapefile, parcelLabels, type InputFile } from '../../../core/project/importShapefile.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { polygonShp, storedZip, textDbf, type Ring } from '../../helpers/shapefileWriter.ts';
+import {
+  clockwiseRect,
+  PARCEL_FIELDS,
+  parcelLayer,
+  parcelRows,
+  polygonShp,
+  storedZip,
+  textDbf,
+  type Ring,
+} from '../../helpers/shapefileWriter.ts';
 
 const WGS84_PRJ =
   'GEOGCS["GCS_WGS_1984",DATUM["D_WGS_1984",SPHEROID["WGS_1984",6378137.0,298.257223563]],PRIMEM["Greenwich",0.0],UNIT["Degree",0.0174532925199433]]';
@@ -21,35 +30,26 @@ const NY_LI_M =
 const US_FT_M = 1200 / 3937;
 
 const enc = (s: string): Uint8Array => new TextEncoder().encode(s);
-/** A clockwise rectangle (shapefile outer rings run clockwise), closed. */
-const rect = (x: number, y: number, w: number, h: number): Ring => [
-  [x, y],
-  [x, y + h],
-  [x + w, y + h],
-  [x + w, y],
-  [x, y],
+// 27-118-0001, 100 Invented Lane; 27-118-0002, 102 Invented Lane; 27-118-0003, 104 Invented Lane.
+const ROWS = parcelRows(
+  (i) => `27-118-000${i + 1}`,
+  (i) => `${100 + 2 * i} Invented Lane`,
+);
+const LOT0 = clockwiseRect(-93.7512, 44.9021, 0.0021, 0.0009);
+const lots = [
+  LOT0,
+  clockwiseRect(-93.749, 44.9021, 0.002, 0.0009),
+  clockwiseRect(-93.7469, 44.9021, 0.0018, 0.0009),
 ];
-const FIELDS = [
-  { name: 'PIN', length: 12 },
-  { name: 'SITEADDR', length: 30 },
-];
-const ROWS = [
-  ['27-118-0001', '100 Invented Lane'],
-  ['27-118-0002', '102 Invented Lane'],
-  ['27-118-0003', '104 Invented Lane'],
-];
-const LOT0 = rect(-93.7512, 44.9021, 0.0021, 0.0009);
-const lots = [LOT0, rect(-93.749, 44.9021, 0.002, 0.0009), rect(-93.7469, 44.9021, 0.0018, 0.0009)];
 
 const file = (name: string, bytes: Uint8Array): InputFile => ({ name, bytes });
+/** One parcel as loose files `stem`.shp, .dbf (the first row) and .prj. */
+const oneParcel = (stem: string, ring: Ring, prj: string): InputFile[] =>
+  parcelLayer(stem, [ring], [ROWS[0]!], prj).map((f) => file(f.name, f.data));
 
 describe('importShapefile', () => {
   it('imports one parcel from loose files, with its attributes', async () => {
-    const r = await importShapefile([
-      file('lot.shp', polygonShp([LOT0])),
-      file('lot.dbf', textDbf(FIELDS, [ROWS[0]!])),
-      file('lot.prj', enc(WGS84_PRJ)),
-    ]);
+    const r = await importShapefile(oneParcel('lot', LOT0, WGS84_PRJ));
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.parcels).toHaveLength(1);
@@ -67,9 +67,7 @@ describe('importShapefile', () => {
 
   it('lists every parcel of a zipped layer, for the chooser', async () => {
     const zip = storedZip([
-      { name: 'county/parcels.shp', data: polygonShp(lots) },
-      { name: 'county/parcels.dbf', data: textDbf(FIELDS, ROWS) },
-      { name: 'county/parcels.prj', data: enc(WGS84_PRJ) },
+      ...parcelLayer('county/parcels', lots, ROWS, WGS84_PRJ),
       { name: '__MACOSX/county/._parcels.shp', data: enc('junk') },
     ]);
     const r = await importShapefile([file('parcels.zip', zip)]);
@@ -82,11 +80,7 @@ describe('importShapefile', () => {
 
   it('unpacks a deflated zip, as most archivers write it', async () => {
     const zip = storedZip(
-      [
-        { name: 'parcels.shp', data: polygonShp(lots) },
-        { name: 'parcels.dbf', data: textDbf(FIELDS, ROWS) },
-        { name: 'parcels.prj', data: enc(WGS84_PRJ) },
-      ],
+      parcelLayer('parcels', lots, ROWS, WGS84_PRJ),
       (d) => new Uint8Array(deflateRawSync(d)),
     );
     const r = await importShapefile([file('parcels.zip', zip)]);
@@ -99,12 +93,8 @@ describe('importShapefile', () => {
   });
 
   it('honours a .prj in US survey feet (corners within 0.5 m of proj4 with the published zone)', async () => {
-    const ftRing = rect(987_000, 195_000, 300, 150);
-    const r = await importShapefile([
-      file('ny.shp', polygonShp([ftRing])),
-      file('ny.dbf', textDbf(FIELDS, [ROWS[0]!])),
-      file('ny.prj', enc(NY_LI_FTUS_PRJ)),
-    ]);
+    const ftRing = clockwiseRect(987_000, 195_000, 300, 150);
+    const r = await importShapefile(oneParcel('ny', ftRing, NY_LI_FTUS_PRJ));
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     const got = r.parcels[0]!.boundary.coordinates[0]!;
@@ -119,7 +109,7 @@ describe('importShapefile', () => {
   });
 
   it('refuses a cut-off .dbf, naming the record and byte', async () => {
-    const dbf = textDbf(FIELDS, ROWS);
+    const dbf = textDbf(PARCEL_FIELDS, ROWS);
     const r = await importShapefile([
       file('parcels.shp', polygonShp(lots)),
       file('parcels.dbf', dbf.slice(0, dbf.length - 20)),
@@ -134,7 +124,7 @@ describe('importShapefile', () => {
   it('refuses a .dbf that does not belong to the .shp', async () => {
     const r = await importShapefile([
       file('parcels.shp', polygonShp(lots)),
-      file('parcels.dbf', textDbf(FIELDS, ROWS.slice(0, 2))),
+      file('parcels.dbf', textDbf(PARCEL_FIELDS, ROWS.slice(0, 2))),
     ]);
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors[0]!.message).toMatch(/holds 2 records but parcels\.shp holds 3/);
@@ -151,7 +141,7 @@ describe('importShapefile', () => {
   });
 
   it('refuses projected coordinates without a .prj, and an unreadable .prj', async () => {
-    const ft = [rect(987_000, 195_000, 300, 150)];
+    const ft = [clockwiseRect(987_000, 195_000, 300, 150)];
     const none = await importShapefile([file('ny.shp', polygonShp(ft))]);
     expect(none.ok).toBe(false);
     if (!none.ok) expect(none.errors[0]!.message).toMatch(/no \.prj/);
@@ -194,7 +184,7 @@ describe('importShapefile', () => {
 
   it('never throws on damaged files: random bytes spliced into a good layer (property test, seeded)', async () => {
     const shp = polygonShp(lots);
-    const dbf = textDbf(FIELDS, ROWS);
+    const dbf = textDbf(PARCEL_FIELDS, ROWS);
     const zip = storedZip([
       { name: 'p.shp', data: shp },
       { name: 'p.dbf', data: dbf },

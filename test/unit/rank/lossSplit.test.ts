@@ -1,7 +1,7 @@
 // The loss split a ham reads (issue 13 point 5): radial-field efficiency apart from the soil loss
 // every antenna suffers and from conductor loss.
 import { describe, expect, it } from 'vitest';
-import { evaluateAntenna } from '../../../core/em/evaluate.ts';
+import { evaluateAntenna, type FrequencyResult } from '../../../core/em/evaluate.ts';
 import type { AntennaModel, GroundSpec } from '../../../core/em/types.ts';
 import { efficiencySplit, efficiencySummary, lossParts } from '../../../core/rank/lossSplit.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
@@ -23,45 +23,54 @@ function vertical(ground: GroundSpec, radials = 32): AntennaModel {
   };
 }
 
+/** The split of 1 W in: radiated, conductor and ground loss, and the ground loss's named parts. */
+const oneWatt = (
+  radiatedW: number,
+  conductorLossW: number,
+  groundLossW: number,
+  parts: { groundSystemLossW?: number; bareContactLossW?: number } = {},
+) => efficiencySplit({ inputW: 1, radiatedW, conductorLossW, groundLossW, ...parts });
+
+/** The split of one solved frequency, its radial fields' losses as the ground system's. */
+const splitOf = (r: FrequencyResult) =>
+  efficiencySplit({
+    inputW: r.inputPowerW,
+    radiatedW: r.radiatedPowerW,
+    conductorLossW: r.conductorLossW,
+    groundLossW: r.groundLossW,
+    groundSystemLossW: r.groundSystems.reduce((s, g) => s + g.lossW, 0),
+  });
+
+/** The bar shows these parts, in this order, and they fill it. */
+function expectParts(e: ReturnType<typeof efficiencySplit>, keys: string[]): void {
+  const parts = lossParts(e);
+  expect(parts.map((p) => p.key)).toEqual(keys);
+  expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 10);
+}
+
 describe('efficiency split', () => {
   it('the parts add up to the input power and the bar shows four parts with radials', () => {
-    const e = efficiencySplit({
-      inputW: 1,
-      radiatedW: 0.4,
-      conductorLossW: 0.02,
-      groundLossW: 0.58,
-      groundSystemLossW: 0.1,
-    });
+    const e = oneWatt(0.4, 0.02, 0.58, { groundSystemLossW: 0.1 });
     expect(e.radiatedW + e.conductorLossW + e.groundSystemLossW + e.reflectionLossW).toBeCloseTo(1, 12);
     expect(e.groundSystemEfficiencyPercent).toBeCloseTo(90, 12);
     expect(e.percent).toBeCloseTo(40, 12);
-    const parts = lossParts(e);
-    expect(parts.map((p) => p.key)).toEqual(['radiated', 'ground-system', 'soil-beyond', 'conductor']);
-    expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 10);
+    expectParts(e, ['radiated', 'ground-system', 'soil-beyond', 'conductor']);
     expect(efficiencySummary(e)).toContain('radial field efficiency 90 %');
     expect(efficiencySummary(e)).toContain('lost in the soil beyond, as for every antenna over this soil');
   });
   it('without a ground connection there is no radial efficiency and all soil loss is the soil’s', () => {
-    const e = efficiencySplit({ inputW: 1, radiatedW: 0.7, conductorLossW: 0.05, groundLossW: 0.25 });
+    const e = oneWatt(0.7, 0.05, 0.25);
     expect(e.groundSystemEfficiencyPercent).toBeNull();
     expect(e.reflectionLossW).toBeCloseTo(0.25, 12);
-    expect(lossParts(e).map((p) => p.key)).toEqual(['radiated', 'soil-beyond', 'conductor']);
+    expectParts(e, ['radiated', 'soil-beyond', 'conductor']);
     expect(efficiencySummary(e)).not.toContain('radial');
   });
   it('a grounded tower without radials near a dipole: its loss is apart, and no radial efficiency is claimed', () => {
-    const e = efficiencySplit({
-      inputW: 1,
-      radiatedW: 0.6,
-      conductorLossW: 0.02,
-      groundLossW: 0.38,
-      bareContactLossW: 0.08,
-    });
+    const e = oneWatt(0.6, 0.02, 0.38, { bareContactLossW: 0.08 });
     expect(e.groundSystemEfficiencyPercent).toBeNull();
     expect(e.bareContactLossW).toBeCloseTo(0.08, 12);
     expect(e.reflectionLossW).toBeCloseTo(0.3, 12);
-    const parts = lossParts(e);
-    expect(parts.map((p) => p.key)).toEqual(['radiated', 'bare-contact', 'soil-beyond', 'conductor']);
-    expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 10);
+    expectParts(e, ['radiated', 'bare-contact', 'soil-beyond', 'conductor']);
     expect(efficiencySummary(e)).toContain('lost where grounded supports meet bare soil');
   });
   it('a quarter-wave vertical with 32 radials: radial efficiency as hams compute it, Rr/(Rr + Rg)', () => {
@@ -72,13 +81,7 @@ describe('efficiency split', () => {
     const perfect = evaluateAntenna(vertical({ kind: 'perfect' }), opts).frequencies[0];
     const rr = perfect.feeds[0].impedanceOhm[0];
     const rg = soil.groundSystems[0].lossResistanceOhm;
-    const e = efficiencySplit({
-      inputW: soil.inputPowerW,
-      radiatedW: soil.radiatedPowerW,
-      conductorLossW: soil.conductorLossW,
-      groundLossW: soil.groundLossW,
-      groundSystemLossW: soil.groundSystems.reduce((s, g) => s + g.lossW, 0),
-    });
+    const e = splitOf(soil);
     const trade = (100 * rr) / (rr + rg);
     // within 2 points: the solver's feed resistance over soil is not exactly Rr + Rg
     expect(Math.abs((e.groundSystemEfficiencyPercent ?? 0) - trade)).toBeLessThan(2);
@@ -86,13 +89,7 @@ describe('efficiency split', () => {
     expect(e.groundSystemEfficiencyPercent).toBeGreaterThan(85);
     // and the soil beyond is lost whatever the radials: more radials leave it about the same
     const more = evaluateAntenna(vertical(AVERAGE, 120), opts).frequencies[0];
-    const eMore = efficiencySplit({
-      inputW: more.inputPowerW,
-      radiatedW: more.radiatedPowerW,
-      conductorLossW: more.conductorLossW,
-      groundLossW: more.groundLossW,
-      groundSystemLossW: more.groundSystems.reduce((s, g) => s + g.lossW, 0),
-    });
+    const eMore = splitOf(more);
     expect(eMore.groundSystemEfficiencyPercent!).toBeGreaterThan(e.groundSystemEfficiencyPercent!);
     expect(Math.abs(eMore.reflectionLossDb - e.reflectionLossDb)).toBeLessThan(0.3);
   });

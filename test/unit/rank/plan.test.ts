@@ -10,28 +10,22 @@ import { expectClose } from '../../helpers/expectClose.ts';
 import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
 describe('trim loop', () => {
+  /** The demo's first dipole trimmed over the test evaluator resonant at L0 = `wavelengths`·λ (design frequency). */
+  const trimAt = (wavelengths: number) => {
+    const job = enumeratePlan(buildDemoProject(), { types: ['dipole'] }).jobs[0];
+    const L0 = wavelengths * wavelengthM(job.design.designFreqHz);
+    return { L0, rec: evaluateDesign(job.design, job.ground, testEvaluator({ resonantM: () => L0 })) };
+  };
+
   it('lands on the length where the reactance is zero', () => {
-    const p = buildDemoProject();
-    const setup = enumeratePlan(p, { types: ['dipole'] });
-    const job = setup.jobs[0];
-    const ev = testEvaluator({ resonantM: () => 0.471 * wavelengthM(job.design.designFreqHz) });
-    const rec = evaluateDesign(job.design, job.ground, ev);
+    const { L0, rec } = trimAt(0.471);
     expect(rec.resonant).toBe(true);
     expect(Math.abs(rec.zOhm[1])).toBeLessThan(0.5);
-    expectClose(
-      rec.trimM,
-      0.471 * wavelengthM(job.design.designFreqHz),
-      0.5 / 20,
-      'X = 20 Ω/m·(L − L0) by construction',
-    );
+    expectClose(rec.trimM, L0, 0.5 / 20, 'X = 20 Ω/m·(L − L0) by construction');
   });
 
   it('says so when no resonance lies inside the limits', () => {
-    const p = buildDemoProject();
-    const setup = enumeratePlan(p, { types: ['dipole'] });
-    const job = setup.jobs[0];
-    const ev = testEvaluator({ resonantM: () => 10 * wavelengthM(job.design.designFreqHz) });
-    const rec = evaluateDesign(job.design, job.ground, ev);
+    const { rec } = trimAt(10);
     expect(rec.resonant).toBe(false);
     expect(rec.diagnostics.join(' ')).toMatch(/no resonance within/);
   });
@@ -142,23 +136,12 @@ describe('planSite mechanics', () => {
 
 describe('rejections through the whole plan', () => {
   it('rejects a dipole whose wire would cross a power-line clearance, with the reason', async () => {
-    const { testLot, ll } = await import('../site/lot.ts');
+    const { testLot, powerLine, supportPair } = await import('../site/lot.ts');
     const project = testLot({
       halfX: 60,
       halfY: 40,
-      supports: [
-        { id: 'a', x: -25, y: -20, h: 14 },
-        { id: 'b', x: 25, y: -20, h: 14 },
-      ],
-      keepOuts: [
-        {
-          id: 'line',
-          name: 'Line',
-          kind: 'power-line',
-          geometry: { type: 'LineString', coordinates: [ll(-80, -35), ll(80, -35)] },
-          clearanceM: 10,
-        },
-      ],
+      supports: supportPair(50, 14, 14, -20),
+      keepOuts: [powerLine('Line', -35, 10, 80)],
     });
     const ev = testEvaluator({ resonantM: resonantAt(0.47) });
     const s = planSite(project, { evaluator: ev, types: ['dipole'] });

@@ -1,7 +1,8 @@
 // Switchable directions (core/rank/states.ts): each region is served by its best state, and a
 // fixed antenna scores exactly as before (one state).
 import { describe, expect, it } from 'vitest';
-import { scoreStates, type BaseScorer } from '../../../core/rank/states.ts';
+import { scoreStates, statePattern, type BaseScorer } from '../../../core/rank/states.ts';
+import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 
 // An invented pattern scorer over two regions, one north (bearing 0°) and one south (180°): the
 // "pattern" beams toward its rotation, 6 dB in the beam and −4 dB behind.
@@ -34,5 +35,31 @@ describe('relay states', () => {
     expect(r.regionGains[1]).toBeCloseTo(6, 12); // south served by 'south'
     expect(r.score).toBeCloseTo(6, 12);
     expect(r.score).toBeGreaterThan(Math.max(...r.states.map((s) => s.score)));
+  });
+
+  it('a mirrored state reads the pattern across its axis (az → 2φ − az) on every elevation row', () => {
+    const az = PATTERN_GRID.azimuthsDeg;
+    const rows = PATTERN_GRID.elevationsDeg.length;
+    // an invented pattern that peaks at 10° on each row, distinct per row
+    const g = Array.from({ length: rows * az.length }, (_, i) => {
+      const a = az[i % az.length];
+      return Math.floor(i / az.length) + Math.cos(((a - 10) * Math.PI) / 180);
+    });
+    const m = statePattern(g, { name: 'mirrored', rotationDeg: 0, mirrorAxisDeg: 45 });
+    const at = (p: readonly number[], row: number, deg: number) => p[row * az.length + az.indexOf(deg)];
+    for (const row of [0, 7, rows - 1]) {
+      expect(at(m, row, 80)).toBeCloseTo(at(g, row, 10), 12); // the peak moves to 2·45 − 10
+      expect(at(m, row, 90)).toBeCloseTo(at(g, row, 0), 12);
+      expect(at(m, row, 270)).toBeCloseTo(at(g, row, 180), 12);
+    }
+    expect(statePattern(g, { name: 'turned', rotationDeg: 90 })).toBe(g);
+    // beam bearing of the mirrored state: canonical north mirrored (90°) plus the placement's 30°
+    const r = scoreStates(base, [1, 1], g, 30, {
+      states: [
+        { name: 'one', rotationDeg: 0 },
+        { name: 'two', rotationDeg: 0, mirrorAxisDeg: 45 },
+      ],
+    });
+    expect(r.states.map((s) => s.beamDeg)).toEqual([30, 120]);
   });
 });

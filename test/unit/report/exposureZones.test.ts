@@ -14,7 +14,7 @@ import {
 } from '../../../core/report/exposureZones.ts';
 import { estimateExposure } from '../../../core/report/exposure.ts';
 import { buildSite } from '../../../core/site/site.ts';
-import { ring, testLot, box } from '../site/lot.ts';
+import { ring, testLot, box, walkway } from '../site/lot.ts';
 
 const area = (rings: [number, number][][]): number => rings.reduce((s, r) => s + Math.abs(ringArea(r)), 0);
 
@@ -77,15 +77,7 @@ describe('places a zone reaches', () => {
         kind: 'building',
         geometry: box(8, -5, 18, 5),
       },
-      {
-        id: 'walk',
-        name: 'Garden path',
-        kind: 'path',
-        geometry: {
-          type: 'LineString',
-          coordinates: [ring([[-4, -20]])[0], ring([[-4, 20]])[0]],
-        },
-      },
+      walkway('Garden path', -4),
     ],
     station: [0, 25],
   });
@@ -123,14 +115,7 @@ describe('places a zone reaches', () => {
 describe('where a flag goes', () => {
   it('on the place, at its point nearest the antenna', () => {
     const project = testLot({
-      keepOuts: [
-        {
-          id: 'walk',
-          name: 'Walk',
-          kind: 'path',
-          geometry: { type: 'LineString', coordinates: [ring([[-4, -20]])[0], ring([[-4, 20]])[0]] },
-        },
-      ],
+      keepOuts: [walkway('Walk', -4)],
     });
     const site = buildSite(project);
     const o = site.frame.toLocal(site.frame.toLonLat([0, 3]));

@@ -8,7 +8,7 @@ import {
   type Element,
 } from '../../../core/site/feasibility.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { box, ll, testLot } from './lot.ts';
+import { box, powerLine, testLot } from './lot.ts';
 
 // The site frame's origin is the centre of the boundary's box; a symmetric lot puts it at (0, 0)
 // to within the projection's millimetres, so metre-level test geometry can be written directly.
@@ -52,15 +52,7 @@ describe('placement feasibility', () => {
 
   it('rejects a wire crossing the power-line clearance with the distance it misses by', () => {
     // Line along y = −25; a wire at 14 m needs 14 + margin; it runs along y = −10, 15 m away.
-    const s = site([
-      {
-        id: 'line',
-        name: 'Road line',
-        kind: 'power-line',
-        geometry: { type: 'LineString', coordinates: [ll(-60, -25), ll(60, -25)] },
-        clearanceM: 5,
-      },
-    ]);
+    const s = site([powerLine('Road line', -25, 5)]);
     const r = checkPlacement(s, [wire('top wire', [-20, -10, 14], [20, -10, 14])]);
     expect(r.ok).toBe(false);
     const v = r.violations.find((x) => x.code === 'power-line');
@@ -81,15 +73,7 @@ describe('placement feasibility', () => {
   });
 
   it('counts a used support with its full height against a power line', () => {
-    const s = site([
-      {
-        id: 'line',
-        name: 'Line',
-        kind: 'power-line',
-        geometry: { type: 'LineString', coordinates: [ll(-60, -25), ll(60, -25)] },
-        clearanceM: 0,
-      },
-    ]);
+    const s = site([powerLine('Line', -25, 0)]);
     const r = checkPlacement(s, [
       { kind: 'support', label: 'support A', supportId: 'a', at: [0, -7], heightM: 20 },
     ]);

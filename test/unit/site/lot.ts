@@ -43,6 +43,29 @@ export interface LotSpec {
   station?: [number, number];
 }
 
+/** Two supports 'a' (west) and 'b' (east), spanM apart, centred on x = 0 at y, heights hA and hB. */
+export const supportPair = (spanM: number, hA: number, hB = hA, y = 0): NonNullable<LotSpec['supports']> => [
+  { id: 'a', x: -spanM / 2, y, h: hA },
+  { id: 'b', x: spanM / 2, y, h: hB },
+];
+
+/** A power line running east–west along y from x = −halfLengthM to +halfLengthM, as a keep-out. */
+export const powerLine = (name: string, y: number, clearanceM: number, halfLengthM = 60) => ({
+  id: 'line',
+  name,
+  kind: 'power-line' as const,
+  geometry: { type: 'LineString' as const, coordinates: [ll(-halfLengthM, y), ll(halfLengthM, y)] },
+  clearanceM,
+});
+
+/** A path where people walk, north–south along x from y = −halfLengthM to +halfLengthM, as a keep-out. */
+export const walkway = (name: string, x: number, halfLengthM = 20) => ({
+  id: 'walk',
+  name,
+  kind: 'path' as const,
+  geometry: { type: 'LineString' as const, coordinates: [ll(x, -halfLengthM), ll(x, halfLengthM)] },
+});
+
 export function testLot(spec: LotSpec): Project {
   const hx = spec.halfX ?? 50;
   const hy = spec.halfY ?? 30;
@@ -77,10 +100,7 @@ export function twoSupportSite(settings: Partial<Project['settings']> = {}) {
       testLot({
         halfX: 80,
         halfY: 60,
-        supports: [
-          { id: 'a', x: -22, y: -40, h: 24 },
-          { id: 'b', x: 22, y: -40, h: 24 },
-        ],
+        supports: supportPair(44, 24, 24, -40),
         settings,
       }),
     ),

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { addCylindricalDyadic, addPerfectImageDyadic } from '../../../../core/em/halfspace/image.ts';
 import { halfSpace, type HalfSpace } from '../../../../core/em/halfspace/medium.ts';
 import { CYL_LEN, sommerfeldComponents } from '../../../../core/em/halfspace/sommerfeld.ts';
-import { expectClose } from '../../../helpers/expectClose.ts';
+import { expectClose, maxRelDifference } from '../../../helpers/expectClose.ts';
 
 /** The whole reflected field by direct (un-split) integration of R_TM, R_TE. */
 function wholeField(hs: HalfSpace, rho: number, zeta: number): Float64Array {
@@ -17,15 +17,6 @@ function image(hs: HalfSpace, rho: number, zeta: number, wr: number, wi: number)
   const D = new Float64Array(18);
   addPerfectImageDyadic(hs.k0, rho, 0, zeta, wr, wi, D);
   return D;
-}
-function maxRel(a: Float64Array, b: Float64Array): number {
-  let d = 0;
-  let m = 0;
-  for (let i = 0; i < a.length; i++) {
-    d = Math.max(d, Math.abs(a[i] - b[i]));
-    m = Math.max(m, Math.abs(b[i]));
-  }
-  return d / m;
 }
 
 /** Fresnel coefficients, written out from core/REFERENCES.md §3 (Beckmann & Spizzichino 1963). */
@@ -53,7 +44,7 @@ describe('exact ground: limits', () => {
     // about √10 per decade of σ.
     const errs = [1e3, 1e5, 1e7].map((s) => {
       const hs = halfSpace({ freqHz: 3.6e6, permittivity: 10, conductivitySPerM: s });
-      return maxRel(wholeField(hs, 8, 5), image(hs, 8, 5, 1, 0));
+      return maxRelDifference(wholeField(hs, 8, 5), image(hs, 8, 5, 1, 0));
     });
     expect(errs[2]).toBeLessThan(1e-4);
     expect(errs[1] / errs[0]).toBeLessThan(0.15);
@@ -67,7 +58,7 @@ describe('exact ground: limits', () => {
     const k2 = Math.hypot(hs.k2Re, hs.k2Im);
     const rel = [0.1, 0.01].map((x) => {
       const R = x / k2;
-      return maxRel(wholeField(hs, 0.6 * R, 0.8 * R), image(hs, 0.6 * R, 0.8 * R, hs.kRe, hs.kIm));
+      return maxRelDifference(wholeField(hs, 0.6 * R, 0.8 * R), image(hs, 0.6 * R, 0.8 * R, hs.kRe, hs.kIm));
     });
     expect(rel[1]).toBeLessThan(1e-5);
     expectClose(rel[0] / rel[1], 100, 20, 'quadratic approach to the static image (Jackson §4.4)');

@@ -5,19 +5,10 @@ import { addCylindricalDyadic, addPerfectImageDyadic } from '../../../../core/em
 import { halfSpace } from '../../../../core/em/halfspace/medium.ts';
 import { CYL_LEN, sommerfeldComponents } from '../../../../core/em/halfspace/sommerfeld.ts';
 import { reflectedDyadic } from '../../../../core/em/halfspace/index.ts';
+import { maxRelDifference } from '../../../helpers/expectClose.ts';
 
 const AVERAGE_80M = { freqHz: 3.6e6, permittivity: 13, conductivitySPerM: 0.005 };
 const SPLIT_TOL = 1e-9;
-
-function maxRel(a: Float64Array, b: Float64Array): number {
-  let d = 0;
-  let m = 0;
-  for (let i = 0; i < a.length; i++) {
-    d = Math.max(d, Math.abs(a[i] - b[i]));
-    m = Math.max(m, Math.abs(b[i]));
-  }
-  return d / m;
-}
 
 describe('Sommerfeld integrals', () => {
   it('spectral identity λ²P − R_TE = R_TM (makes Gzρ = −Gρz)', () => {
@@ -83,7 +74,7 @@ describe('Sommerfeld integrals', () => {
       addPerfectImageDyadic(hs.k0, rho, 0, zeta, hs.kRe, hs.kIm, Ds);
       addCylindricalDyadic(a, 1, 0, Ds);
       addCylindricalDyadic(b, 1, 0, Du);
-      expect(maxRel(Ds, Du), `ρ=${rho} ζ=${zeta}`).toBeLessThan(SPLIT_TOL);
+      expect(maxRelDifference(Ds, Du), `ρ=${rho} ζ=${zeta}`).toBeLessThan(SPLIT_TOL);
     }
   });
 
@@ -129,7 +120,7 @@ describe('Sommerfeld integrals', () => {
       for (const tol of [1e-6, 1e-8]) {
         const a = new Float64Array(CYL_LEN);
         sommerfeldComponents(hs, rho, zeta, a, { relTol: tol, subtractStatic: true, maxTailIntervals: 400 });
-        expect(maxRel(a, ref), `ρ=${rho} ζ=${zeta} tol ${tol}`).toBeLessThan(10 * tol);
+        expect(maxRelDifference(a, ref), `ρ=${rho} ζ=${zeta} tol ${tol}`).toBeLessThan(10 * tol);
       }
     }
   });
