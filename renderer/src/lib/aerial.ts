@@ -482,8 +482,8 @@ export async function decodeGeoTiff(input: ArrayBuffer | Blob, maxSidePx = 2048)
   return { ...r, crs: source.georef.crs.label };
 }
 
-/** Paint decoded pixels to a canvas and return a PNG data URL (browser only). */
-export function aerialToPngDataUrl(a: Pick<RenderedAerial, 'width' | 'height' | 'rgba'>): string {
+/** Paint decoded pixels onto a new canvas (browser only). */
+export function aerialCanvas(a: Pick<RenderedAerial, 'width' | 'height' | 'rgba'>): HTMLCanvasElement {
   const canvas = document.createElement('canvas');
   canvas.width = a.width;
   canvas.height = a.height;
@@ -492,5 +492,10 @@ export function aerialToPngDataUrl(a: Pick<RenderedAerial, 'width' | 'height' | 
   const pixels = new Uint8ClampedArray(a.rgba.length);
   pixels.set(a.rgba);
   ctx.putImageData(new ImageData(pixels, a.width, a.height), 0, 0);
-  return canvas.toDataURL('image/png');
+  return canvas;
+}
+
+/** Paint decoded pixels to a canvas and return a PNG data URL (browser only). */
+export function aerialToPngDataUrl(a: Pick<RenderedAerial, 'width' | 'height' | 'rgba'>): string {
+  return aerialCanvas(a).toDataURL('image/png');
 }

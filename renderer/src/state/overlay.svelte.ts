@@ -11,6 +11,7 @@ import { sameFile, type AerialReference } from '../../../core/project/aerialRefe
 import {
   AerialImportError,
   AerialSource,
+  aerialCanvas,
   aerialToPngDataUrl,
   decodeGeoTiff,
   type LatLngBox,
@@ -241,14 +242,7 @@ export class OverlayState {
 }
 
 async function toBlobUrl(r: RenderedAerial): Promise<string> {
-  const canvas = document.createElement('canvas');
-  canvas.width = r.width;
-  canvas.height = r.height;
-  const ctx = canvas.getContext('2d');
-  if (!ctx) throw new AerialImportError('This window cannot draw images (no 2D canvas).');
-  const pixels = new Uint8ClampedArray(r.rgba.length);
-  pixels.set(r.rgba);
-  ctx.putImageData(new ImageData(pixels, r.width, r.height), 0, 0);
+  const canvas = aerialCanvas(r);
   const blob = await new Promise<Blob | null>((res) => canvas.toBlob(res, 'image/png'));
   if (!blob) throw new AerialImportError('The view could not be drawn.');
   return URL.createObjectURL(blob);

@@ -2,7 +2,7 @@
  * Keyboard shortcuts of the editor. Tool keys act only when the focus is not in a text field;
  * undo/redo and Escape work everywhere except inside a field being typed in.
  */
-import type { ToolId } from './ui.svelte.ts';
+import { TOOLS, type ToolId } from './ui.svelte.ts';
 
 export interface ShortcutTarget {
   setTool(id: ToolId): void;
@@ -23,15 +23,8 @@ export interface KeyLike {
   target: { tagName?: string; isContentEditable?: boolean; type?: string } | null;
 }
 
-const TOOL_KEYS: Record<string, ToolId> = {
-  v: 'select',
-  s: 'support',
-  b: 'boundary',
-  k: 'building',
-  p: 'power-line',
-  w: 'path',
-  t: 'station',
-};
+/** Each tool's key as the tool rail shows it (ui.svelte.ts TOOLS), in lower case. */
+const TOOL_KEYS: Record<string, ToolId> = Object.fromEntries(TOOLS.map((t) => [t.key.toLowerCase(), t.id]));
 
 export const SHORTCUTS: readonly { keys: string; does: string }[] = [
   { keys: 'V', does: 'Select and move' },

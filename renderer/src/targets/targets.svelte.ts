@@ -15,7 +15,7 @@ import {
 } from '../../../core/project/schema.ts';
 import { ringReferencePoint } from '../../../core/site/frame.ts';
 import type { ProjectState } from '../state/project.svelte.ts';
-import { newId } from '../lib/geo.ts';
+import { newId, parsePlace } from '../lib/geo.ts';
 
 /** Most targets a project may hold (the schema's limit). */
 export const MAX_TARGETS = 100;
@@ -96,21 +96,9 @@ export function parseCorners(text: string): { corners: LonLat[]; error: string |
   return { corners, error: null };
 }
 
-/** A locator (2 to 8 characters, the centre of its cell) or "lat, lon" in decimal degrees. */
-export function parsePoint(text: string): LonLat | null {
-  const t = text.trim();
-  const m = /^(-?\d+(?:\.\d+)?)\s*[, ]\s*(-?\d+(?:\.\d+)?)$/.exec(t);
-  if (m) {
-    const lat = Number(m[1]);
-    const lon = Number(m[2]);
-    return Math.abs(lat) <= 90 && Math.abs(lon) <= 180 ? [lon, lat] : null;
-  }
-  try {
-    return fromLocator(t).center;
-  } catch {
-    return null;
-  }
-}
+/** A locator (2 to 8 characters, the centre of its cell) or "lat, lon" in decimal degrees: the
+ * same reading as the Go-to box (lib/geo.ts parsePlace). */
+export const parsePoint = parsePlace;
 
 export class TargetsState {
   #doc: ProjectState;
