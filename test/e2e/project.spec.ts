@@ -13,7 +13,7 @@ test('renames, creates, reopens, duplicates and deletes projects', async ({ page
   await newProject(page, 'Hilltop rental');
   await page.getByRole('tab', { name: 'Lot' }).click();
   await expect(page.getByTestId('empty-lot')).toContainText(
-    'No lot boundary yet — press B and click the corners.',
+    'No lot boundary yet — press B and click the corners, or type it below.',
   );
   await expect(page.getByText('No supports yet')).toBeVisible();
   await shot(page, 'new-project');
