@@ -78,6 +78,8 @@ export const test = base.extend<{ host: Host; blocked: string[] }>({
       url: running.url,
       dataDir,
       restart: async () => {
+        // The window may ask while the server is down (a refused connection is expected then).
+        host.wasStopped = true;
         await stopHost(running.child);
         running = await startHost(dataDir);
         host.url = running.url;
