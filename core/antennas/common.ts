@@ -129,6 +129,8 @@ export interface ProposalList {
   rejections: Rejection[];
   /** Record that a placement (or the type) was not proposed, with the reasons in plain words. */
   reject(supports: string[], where: string, ...reasons: string[]): void;
+  /** A measurable miss: `shortfall` as in Rejection (what it lacks over what it needs, ≥ 0). */
+  rejectBy(shortfall: number, supports: string[], where: string, ...reasons: string[]): void;
   /** A design of this type on this band. */
   design(params: DesignParams, trim: Design['trim'], states?: Design['states']): Design;
   /** What `Builder.propose` returns. */
@@ -143,6 +145,9 @@ export function proposalList(type: AntennaTypeId, band: BandPlan): ProposalList 
     rejections,
     reject(supports, where, ...reasons) {
       rejections.push({ type, band: band.band, supports, where, reasons });
+    },
+    rejectBy(shortfall, supports, where, ...reasons) {
+      rejections.push({ type, band: band.band, supports, where, reasons, shortfall: Math.max(0, shortfall) });
     },
     design(params, trim, states) {
       const d: Design = { type, band: band.band, designFreqHz: band.designFreqHz, params, trim };

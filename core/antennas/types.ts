@@ -11,6 +11,7 @@ import type { Element, PreparedSite } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
 import type { SupportConductor } from './conductors.ts';
 import type { NetworkSpec } from '../em/network.ts';
+import type { LoadSpec } from '../em/types.ts';
 
 export type AntennaTypeId =
   | 'dipole'
@@ -56,6 +57,12 @@ export interface WireModel {
   wires: ModelWire[];
   feeds: ModelFeed[];
   radials: ModelRadials[];
+  /**
+   * Lumped loads on the wires (a loading coil with its loss resistance from a stated Q): wire
+   * index and fraction along it, as the solver takes them (core/em/types.ts). Their dissipation
+   * is reported as `loadLossW`.
+   */
+  loads?: LoadSpec[];
   /** Arrays: the feed network between the feeds (core/em/network.ts); its first source is the feed the trim reads. */
   network?: NetworkSpec;
   /** Arrays of verticals: the radial fields meet and are bonded (core/em/bondedRadials.ts). */
@@ -115,6 +122,12 @@ export interface Rejection {
   supports: string[];
   where: string;
   reasons: string[];
+  /**
+   * How far this placement is from working, as a fraction of what it needs (0 = just fits; "the
+   * pair is 24 m apart, it needs 30 m" is 0.2). Builders set it on measurable misses so that the
+   * planner can name the single closest miss per type and band; absent when the miss has no size.
+   */
+  shortfall?: number;
 }
 
 export interface BandPlan {

@@ -260,6 +260,7 @@ function evaluateDesignOrThrow(
       groundLossW,
       ...(main.groundSystemLossW !== undefined ? { groundSystemLossW: main.groundSystemLossW } : {}),
       ...(main.bareContactLossW !== undefined ? { bareContactLossW: main.bareContactLossW } : {}),
+      ...(main.loadLossW !== undefined ? { loadLossW: main.loadLossW } : {}),
       efficiency: inputPowerW > 0 ? radiatedPowerW / inputPowerW : 0,
     },
     bandwidth: { lowHz, highHz, widthHz, extrapolated: swr0 <= 2 && extrapolated },

@@ -33,6 +33,8 @@ export interface EvalFrequency {
   inputPowerW?: number;
   radiatedPowerW?: number;
   conductorLossW?: number;
+  /** Loss in the model's lumped loads (loading coils), watts; absent when it has none. */
+  loadLossW?: number;
   groundLossW?: number;
   /** Loss in the radial field(s) near the base; absent when no wire with radials touches the soil. */
   groundSystemLossW?: number;

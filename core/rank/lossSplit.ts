@@ -29,6 +29,8 @@ export interface PowerSplitIn {
   groundSystemLossW?: number;
   /** Loss where wires without radials meet the soil (grounded supports, bare stakes); absent when none do. */
   bareContactLossW?: number;
+  /** Loss in lumped loads (loading coils, from their stated Q); absent when the model has none. */
+  loadLossW?: number;
 }
 
 export interface EfficiencySplit {
@@ -55,6 +57,9 @@ export interface EfficiencySplit {
   /** Lost in the soil beyond the radial field (far-field reflection): every antenna over this soil. */
   reflectionLossW: number;
   reflectionLossDb: number;
+  /** Lost in loading coils (their stated Q); 0 when the antenna has none. */
+  loadLossW: number;
+  loadLossDb: number;
 }
 
 /** dB lost to one mechanism: 10·log10(input / (input − loss)). */
@@ -76,6 +81,8 @@ export function efficiencySplit(p: PowerSplitIn): EfficiencySplit {
     groundLossDb: lossDb(p.groundLossW, p.inputW),
     groundSystemLossW: gs,
     groundSystemLossDb: lossDb(gs, p.inputW),
+    loadLossW: p.loadLossW ?? 0,
+    loadLossDb: lossDb(p.loadLossW ?? 0, p.inputW),
     groundSystemEfficiencyPercent:
       p.groundSystemLossW === undefined || !(p.inputW > 0) ? null : 100 * (1 - gs / p.inputW),
     bareContactLossW: bare,
@@ -86,7 +93,7 @@ export function efficiencySplit(p: PowerSplitIn): EfficiencySplit {
 }
 
 export interface LossPart {
-  key: 'radiated' | 'ground-system' | 'bare-contact' | 'soil-beyond' | 'conductor';
+  key: 'radiated' | 'ground-system' | 'bare-contact' | 'soil-beyond' | 'conductor' | 'loading';
   label: string;
   /** Share of the input power, percent. */
   pct: number;
@@ -129,6 +136,9 @@ export function lossParts(e: EfficiencySplit): LossPart[] {
       db: e.reflectionLossDb,
     },
     { key: 'conductor', label: 'conductor loss', pct: share(e.conductorLossW), db: e.conductorLossDb },
+    ...(e.loadLossW > 0
+      ? [{ key: 'loading' as const, label: 'loading coil loss', pct: share(e.loadLossW), db: e.loadLossDb }]
+      : []),
   ];
 }
 
@@ -148,5 +158,6 @@ export function efficiencySummary(e: EfficiencySplit): string {
     `${db2(e.reflectionLossDb)} lost in the soil${e.groundSystemEfficiencyPercent !== null ? ' beyond' : ''}, as for every antenna over this soil`,
   );
   parts.push(`conductor loss ${db2(e.conductorLossDb)}`);
+  if (e.loadLossW > 0) parts.push(`loading coil loss ${db2(e.loadLossDb)}`);
   return parts.join('; ');
 }

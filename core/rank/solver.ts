@@ -45,6 +45,7 @@ export const solverEvaluator: Evaluator = (req) => {
       radiusM: r.radiusM,
     })),
     ground: groundSpec(req.ground),
+    ...(req.model.loads?.length ? { loads: req.model.loads } : {}),
     ...(req.model.network ? { network: req.model.network } : {}),
     ...(req.model.radialsBonded ? { radialsBonded: true } : {}),
   };
@@ -76,6 +77,7 @@ export const solverEvaluator: Evaluator = (req) => {
       inputPowerW: f.inputPowerW,
       radiatedPowerW: f.radiatedPowerW,
       conductorLossW: f.conductorLossW,
+      ...(model.loads?.length ? { loadLossW: f.loadLossW } : {}),
       groundLossW: f.groundLossW,
       ...(f.groundSystems.some((g) => g.radials > 0)
         ? { groundSystemLossW: f.groundSystems.reduce((s, g) => s + (g.radials > 0 ? g.lossW : 0), 0) }
