@@ -111,6 +111,12 @@ export interface Proposal {
   groupKey: string;
   /** Short human description of where it goes. */
   where: string;
+  /**
+   * What was changed from the type's plain form to fit these supports, in plain words ("top
+   * shortened to 34.0 m, drops lengthened"; "loading coil 2.0 m above the base"); absent when
+   * nothing was. Every view shows it beside `where`.
+   */
+  adaptations?: string[];
   /** Bearings of strongest broadside radiation in plan, degrees (empty for an omnidirectional vertical). */
   broadsideDeg: number[];
 }

@@ -219,6 +219,8 @@ export interface Candidate {
   type: AntennaTypeId;
   typeLabel: string;
   where: string;
+  /** What was changed from the type's plain form to fit (Proposal.adaptations); absent when nothing. */
+  adaptations?: string[];
   bestOfType: boolean;
   supports: { id: string; name: string; usableHeightM: number }[];
   broadsideDeg: number[];
@@ -926,6 +928,7 @@ export function rankPlan(
         type: p.design.type,
         typeLabel: builder.label,
         where: p.where,
+        ...(p.adaptations?.length ? { adaptations: p.adaptations } : {}),
         bestOfType:
           i >= chosen.length || !chosen.slice(0, i).some((c) => c.best.p.design.type === p.design.type),
         supports: p.supports.map((id) => {

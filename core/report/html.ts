@@ -221,6 +221,9 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       `<dl>${[
         ['Antenna', `${c.typeLabel}, #${c.rank} on the ${c.band.replace('m', ' m')} band`],
         ['Where', c.where],
+        ...(c.adaptations?.length
+          ? [['Fitted to the lot', c.adaptations.join('; ')] as [string, string]]
+          : []),
         [
           'Supports',
           c.supports.map((p) => `${p.name} (${U.len(p.usableHeightM)})`).join(', ') ||
