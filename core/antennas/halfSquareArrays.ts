@@ -49,15 +49,7 @@ import type { NetworkSpec } from '../em/network.ts';
 import { whereToChange } from '../project/settingLimits.ts';
 import { arr, cut, lambdaOf, num, proposalList, round, supportPairs, wire } from './common.ts';
 import { sides, TOP_FRACTION, type Side } from './halfSquare.ts';
-import {
-  COAX_LOSS_DB_PER_100M,
-  COAX_LOSS_REFERENCE_MHZ,
-  COAX_VELOCITY_FACTOR,
-  COAX_Z0_OHM,
-  halfWaveCoaxM,
-  pairNetwork,
-  stubLengthM,
-} from './verticalPair.ts';
+import { COAX_LINE, COAX_VELOCITY_FACTOR, halfWaveCoaxM, pairNetwork, stubLengthM } from './verticalPair.ts';
 import type {
   AntennaTypeId,
   BandPlan,
@@ -96,12 +88,20 @@ export const COAX_RUN_SLACK_M = 1;
 /** Proposals kept per band and type, best first (the nearest to 0.15 λ spacing and the highest). */
 export const ARRAY_PROPOSALS_PER_BAND = 3;
 
-const coax = {
-  z0Ohm: COAX_Z0_OHM,
-  velocityFactor: COAX_VELOCITY_FACTOR,
-  lossDbPer100m: COAX_LOSS_DB_PER_100M,
-  lossReferenceMHz: COAX_LOSS_REFERENCE_MHZ,
-};
+const coax = COAX_LINE;
+
+/** Two elements' wires, each fed at its first wire's start, joined by `network`. */
+function twoFedElements(a: ModelWire[], b: ModelWire[], network: NetworkSpec): WireModel {
+  return {
+    wires: [...a, ...b],
+    feeds: [
+      { wire: 0, position: 0 },
+      { wire: a.length, position: 0 },
+    ],
+    radials: [],
+    network,
+  };
+}
 
 /** Loading reactance for a spacing in wavelengths (REFLECTOR_REACTANCE_BY_SPACING, clamped). */
 export function reflectorReactanceOhm(spacingWavelengths: number): number {
@@ -240,15 +240,7 @@ function rectModel(d: Design, dropM: number, switched: boolean): WireModel {
         elements: [{ kind: 'line', a: 'b', b: 'common', lengthM: num(d, 'stubLengthM'), ...coax }],
         sources: [{ node: 'a', kind: 'voltage', value: [1, 0] }],
       };
-  return {
-    wires: [...a, ...b],
-    feeds: [
-      { wire: 0, position: 0 },
-      { wire: a.length, position: 0 },
-    ],
-    radials: [],
-    network,
-  };
+  return twoFedElements(a, b, network);
 }
 
 function rectElements(d: Design, dropM: number, switched: boolean): Element[] {
@@ -628,22 +620,14 @@ function lModel(d: Design, dropM: number): WireModel {
   const a = elementWires(d, dropM, m1, 'leg 1');
   const b = elementWires(d, dropM, m2, 'leg 2');
   const line = num(d, 'lineLengthM');
-  return {
-    wires: [...a, ...b],
-    feeds: [
-      { wire: 0, position: 0 },
-      { wire: a.length, position: 0 },
+  return twoFedElements(a, b, {
+    portNodes: ['p1', 'p2'],
+    elements: [
+      { kind: 'line', a: 'box-1', b: 'p1', lengthM: line, ...coax },
+      { kind: 'line', a: 'box-2', b: 'p2', lengthM: line, ...coax },
     ],
-    radials: [],
-    network: {
-      portNodes: ['p1', 'p2'],
-      elements: [
-        { kind: 'line', a: 'box-1', b: 'p1', lengthM: line, ...coax },
-        { kind: 'line', a: 'box-2', b: 'p2', lengthM: line, ...coax },
-      ],
-      sources: [{ node: 'box-1', kind: 'voltage', value: [1, 0] }],
-    },
-  };
+    sources: [{ node: 'box-1', kind: 'voltage', value: [1, 0] }],
+  });
 }
 
 function lElements(d: Design, dropM: number): Element[] {

@@ -45,7 +45,8 @@ export const PAIR_AXES_DEG = [0, 90];
 /** Spots proposed per band. */
 export const PAIR_SPOT_COUNT = 2;
 
-const coax = {
+/** The array's coax as a line of the feed network (core/em/network.ts), less its length. */
+export const COAX_LINE = {
   z0Ohm: COAX_Z0_OHM,
   velocityFactor: COAX_VELOCITY_FACTOR,
   lossDbPer100m: COAX_LOSS_DB_PER_100M,
@@ -69,9 +70,9 @@ export function pairNetwork(d: Design): NetworkSpec {
   return {
     portNodes: ['a', 'b'],
     elements: [
-      { kind: 'line', a: 'box-a', b: 'a', lengthM: line, ...coax },
-      { kind: 'line', a: 'box-b', b: 'b', lengthM: line, ...coax },
-      { kind: 'line', a: 'box-b', b: 'common', lengthM: num(d, 'stubLengthM'), ...coax },
+      { kind: 'line', a: 'box-a', b: 'a', lengthM: line, ...COAX_LINE },
+      { kind: 'line', a: 'box-b', b: 'b', lengthM: line, ...COAX_LINE },
+      { kind: 'line', a: 'box-b', b: 'common', lengthM: num(d, 'stubLengthM'), ...COAX_LINE },
     ],
     sources: [{ node: 'box-a', kind: 'voltage', value: [1, 0] }],
   };
