@@ -219,11 +219,31 @@ export function zoneRings(wires: readonly ZoneWire[], radiusM: number, headM = H
   const oy = y0 - pad - cell;
   const nx = Math.ceil((x1 - x0 + 2 * pad) / cell) + 3;
   const ny = Math.ceil((y1 - y0 + 2 * pad) / cell) + 3;
-  // Field value: distance − R (negative inside the zone).
+  // Field value: distance − R (negative inside the zone). Each sample writes its squared distance
+  // only into the nodes within R + 2 cells of it; nodes no sample reaches are farther than that
+  // from every sample, so their value only needs the right sign and keeps the cap.
+  const reach = radiusM + 2 * cell;
+  const d2 = new Float64Array(nx * ny).fill(reach * reach);
+  for (const s of samples) {
+    const dz = Math.max(0, s[2] - headM);
+    if (dz >= reach) continue;
+    const rh = Math.sqrt(reach * reach - dz * dz);
+    const i0 = Math.max(0, Math.floor((s[0] - rh - ox) / cell));
+    const i1 = Math.min(nx - 1, Math.ceil((s[0] + rh - ox) / cell));
+    const j0 = Math.max(0, Math.floor((s[1] - rh - oy) / cell));
+    const j1 = Math.min(ny - 1, Math.ceil((s[1] + rh - oy) / cell));
+    for (let j = j0; j <= j1; j++) {
+      const dy = oy + j * cell - s[1];
+      for (let i = i0; i <= i1; i++) {
+        const dx = ox + i * cell - s[0];
+        const v = dx * dx + dy * dy + dz * dz;
+        const k = j * nx + i;
+        if (v < d2[k]) d2[k] = v;
+      }
+    }
+  }
   const f = new Float64Array(nx * ny);
-  for (let j = 0; j < ny; j++)
-    for (let i = 0; i < nx; i++)
-      f[j * nx + i] = personDistanceM(samples, [ox + i * cell, oy + j * cell], headM) - radiusM;
+  for (let k = 0; k < f.length; k++) f[k] = Math.sqrt(d2[k]) - radiusM;
   return marchingSquares(f, nx, ny, ox, oy, cell);
 }
 
