@@ -8,6 +8,13 @@
  * dimension). When h − d would fall below the end height e, the drop goes down to e and its last
  * d − (h − e) metres bend inward, horizontally at e: the lower ends carry little current but high
  * voltage, so they must stay at or above e.
+ *
+ * Span shorter than the half-wave top (issue 19): the top is shortened to the span (the longest
+ * top the pair allows, tied at the supports) down to MIN_TOP_FRACTION of a wave, and the drops,
+ * still the trim dimension, are lengthened by what the top lost (their nominal length; the trim
+ * finds the resonant one), bending inward at the end height as above. The proposal says so in
+ * `adaptations`. A pair closer than MIN_TOP_FRACTION λ, or too low for the lengthened drops, is
+ * rejected with its shortfall.
  */
 import type { Element } from '../site/feasibility.ts';
 import { whereToChange } from '../project/settingLimits.ts';
@@ -28,6 +35,28 @@ import type { Builder, Design, ModelWire, WireModel } from './types.ts';
 
 /** Top wire length as a fraction of the wavelength (common practice, no source). */
 export const TOP_FRACTION = 0.5;
+/**
+ * Shortest top wire tried when the supports stand closer than half a wave, as a fraction of the
+ * wavelength: below it the drops would carry most of the current and the antenna is no longer a
+ * half-square but a pair of bent verticals (a modelling choice of this planner, no source).
+ */
+export const MIN_TOP_FRACTION = 0.3;
+/** Nominal drop of the full-size half-square, as a fraction of the wavelength (common practice, no source). */
+export const DROP_FRACTION = 0.245;
+
+/**
+ * Nominal drop of a half-square with top `topM`: the full-size drop plus half of what the top
+ * lost, so that the wire keeps its length (a starting point only: the solver trims the drop).
+ */
+export function nominalDropM(topM: number, lambdaM: number): number {
+  return DROP_FRACTION * lambdaM + Math.max(0, TOP_FRACTION * lambdaM - topM) / 2;
+}
+
+/** Longest drop the design allows: its bent end may not reach past 1 m short of the top's middle. */
+export function longestDropM(topM: number, heightM: number, endHeightM: number, lambdaM: number): number {
+  const lost = Math.max(0, TOP_FRACTION * lambdaM - topM) / 2;
+  return Math.min(0.33 * lambdaM + lost, heightM - endHeightM + topM / 2 - 1);
+}
 
 export interface Side {
   corner: XYZ;
@@ -66,33 +95,69 @@ export const halfSquareBuilder: Builder = {
     const out = proposalList('half-square', band);
     const e = site.site.settings.minEndHeightM;
     const T = TOP_FRACTION * band.wavelengthM;
+    const minTop = MIN_TOP_FRACTION * band.wavelengthM;
     for (let [a, b] of supportPairs(site.site.supports)) {
       const s = dist2(a.xy, b.xy);
       const where = `between ${a.name} and ${b.name}`;
-      const reasons: string[] = [];
-      if (s < T) reasons.push(`span ${s.toFixed(1)} m is shorter than the ${T.toFixed(1)} m top wire`);
-      else if ((s - T) / 2 > site.site.settings.maxRopeM) {
-        reasons.push(
-          `span ${s.toFixed(1)} m needs ropes of ${((s - T) / 2).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
-        );
-      }
       const h = Math.min(a.heightM, b.heightM);
-      if (h - e < 0.05 * band.wavelengthM) {
-        reasons.push(
-          `the lower support (${h.toFixed(1)} m) leaves too little height above the ${e.toFixed(1)} m end height`,
+      // The top: half a wave, or the span when the supports stand closer (shortened, drops longer).
+      const top = Math.min(T, s);
+      if (s < minTop) {
+        const drop = nominalDropM(minTop, band.wavelengthM);
+        out.rejectBy(
+          (minTop - s) / minTop,
+          [a.id, b.id],
+          where,
+          `the supports are ${s.toFixed(1)} m apart; a half-square needs at least ${minTop.toFixed(1)} m ` +
+            `(its shortest top, ${MIN_TOP_FRACTION} λ) with drops of about ${drop.toFixed(1)} m`,
         );
-      }
-      if (reasons.length) {
-        out.reject([a.id, b.id], where, ...reasons);
         continue;
       }
+      if ((s - T) / 2 > site.site.settings.maxRopeM) {
+        out.reject(
+          [a.id, b.id],
+          where,
+          `span ${s.toFixed(1)} m needs ropes of ${((s - T) / 2).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
+        );
+        continue;
+      }
+      if (h - e < 0.05 * band.wavelengthM) {
+        out.rejectBy(
+          (0.05 * band.wavelengthM - (h - e)) / (0.05 * band.wavelengthM),
+          [a.id, b.id],
+          where,
+          `the lower support (${h.toFixed(1)} m) leaves ${(h - e).toFixed(1)} m above the ${e.toFixed(1)} m end height; ` +
+            `a half-square needs at least ${(0.05 * band.wavelengthM).toFixed(1)} m`,
+        );
+        continue;
+      }
+      const nominalM = nominalDropM(top, band.wavelengthM);
+      const maxM = longestDropM(top, h, e, band.wavelengthM);
+      if (nominalM > maxM) {
+        out.rejectBy(
+          (nominalM - maxM) / nominalM,
+          [a.id, b.id],
+          where,
+          `with the ${top.toFixed(1)} m top the drops need about ${nominalM.toFixed(1)} m each, but the lower support ` +
+            `(${h.toFixed(1)} m) leaves room for ${maxM.toFixed(1)} m with the lower end bent inward at ${e.toFixed(1)} m`,
+        );
+        continue;
+      }
+      const adaptations =
+        top < T - 1e-6
+          ? [
+              `top shortened to ${top.toFixed(1)} m (${(top / band.wavelengthM).toFixed(2)} λ, the span) from the ` +
+                `${T.toFixed(1)} m half wave; drops lengthened (nominal ${nominalM.toFixed(1)} m each, trimmed), ` +
+                `bending inward at the ${e.toFixed(1)} m end height when they reach it`,
+            ]
+          : undefined;
       // Feed at the corner nearer the station: make that support A (canonical −x).
       if (dist2(b.xy, site.site.station) < dist2(a.xy, site.site.station)) [a, b] = [b, a];
       out.proposals.push({
         design: out.design(
           {
             spanM: round(s, 3),
-            topM: round(T, 3),
+            topM: round(top, 3),
             heightM: h,
             endHeightM: e,
             supportAM: a.heightM,
@@ -100,16 +165,17 @@ export const halfSquareBuilder: Builder = {
           },
           {
             name: 'length of each drop',
-            nominalM: 0.245 * band.wavelengthM,
+            nominalM,
             minM: 0.15 * band.wavelengthM,
             // Bent ends may not reach past the middle of the top wire.
-            maxM: Math.min(0.33 * band.wavelengthM, h - e + T / 2 - 1),
+            maxM,
           },
         ),
         ...acrossSupports(a, b),
         supports: [a.id, b.id],
         groupKey: `half-square:${[a.id, b.id].sort().join(':')}`,
         where: `${where}, fed at the ${a.name} corner`,
+        ...(adaptations ? { adaptations } : {}),
       });
     }
     return out.result();
