@@ -19,8 +19,15 @@ import type { Builder, Design, WireModel } from './types.ts';
 export const INVERTED_L_NOMINAL_FRACTION = 0.26;
 /** Tallest vertical part for which an inverted-L is proposed, as a fraction of the wavelength. */
 export const INVERTED_L_MAX_VERTICAL_FRACTION = 0.2;
-/** How many far supports (nearest usable first) an inverted-L tries from each base support: the top part is short, so its direction changes the pattern little. */
-export const INVERTED_L_FAR_SUPPORTS = 1;
+/**
+ * Time budget of the far-support search: every usable far support in reach of a base support (the
+ * top part's length plus the rope limit, not too close) is tried, up to this many per base, the
+ * tallest first (then the nearest). Each try costs one radial-field clip and one site check, so a
+ * band costs at most PLAN_BOUNDS.supports × INVERTED_L_MAX_FAR_SUPPORTS = 40 × 8 = 320 tries
+ * (core/rank/plan.ts). The nearest far support alone was often the wrong one: its rope may cross
+ * a keep-out or its direction leave the base's radials a smaller field.
+ */
+export const INVERTED_L_MAX_FAR_SUPPORTS = 8;
 
 function shape(d: Design, L: number): { top: XYZ; end: XYZ; far: XYZ } {
   const hA = num(d, 'heightAM');
@@ -46,39 +53,49 @@ export const invertedLBuilder: Builder = {
       // Tall enough for a plain vertical (or nearly: the top part would be a stub).
       if (a.heightM >= INVERTED_L_MAX_VERTICAL_FRACTION * lambda) continue;
       if (a.heightM < 0.08 * lambda) {
-        out.reject(
+        out.rejectBy(
+          (0.08 * lambda - a.heightM) / (0.08 * lambda),
           [a.id],
           `up ${a.name}`,
           `${a.name} at ${a.heightM.toFixed(1)} m is too short for the vertical part (at least ${(0.08 * lambda).toFixed(1)} m)`,
         );
         continue;
       }
-      let tried = 0;
-      const byDistance = sup.filter((b) => b !== a).sort((p, q) => dist2(a.xy, p.xy) - dist2(a.xy, q.xy));
-      for (const b of byDistance) {
+      const inReach: { b: (typeof sup)[number]; s: number; run: number }[] = [];
+      for (const b of sup) {
+        if (b === a) continue;
         const s = dist2(a.xy, b.xy);
         const run = Math.hypot(s, b.heightM - a.heightM);
         const horiz = nominal - a.heightM;
         const where = `up ${a.name} toward ${b.name}`;
-        if (run < horiz * 1.1 || run - horiz > site.site.settings.maxRopeM) {
+        if (run < horiz * 1.1) {
+          out.rejectBy(
+            (horiz * 1.1 - run) / (horiz * 1.1),
+            [a.id, b.id],
+            where,
+            `${b.name} is ${s.toFixed(1)} m away, too close for a ${horiz.toFixed(1)} m top wire`,
+          );
+        } else if (run - horiz > st.maxRopeM) {
+          out.rejectBy(
+            (run - horiz - st.maxRopeM) / (run - horiz),
+            [a.id, b.id],
+            where,
+            `${b.name} is ${s.toFixed(1)} m away: the rope would be ${(run - horiz).toFixed(1)} m, over the ${st.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
+          );
+        } else inReach.push({ b, s, run });
+      }
+      // Tallest first (the top part sags least toward it), then nearest, within the budget.
+      inReach.sort((p, q) => q.b.heightM - p.b.heightM || p.s - q.s);
+      for (const [k, { b, s, run }] of inReach.entries()) {
+        const where = `up ${a.name} toward ${b.name}`;
+        if (k >= INVERTED_L_MAX_FAR_SUPPORTS) {
           out.reject(
             [a.id, b.id],
             where,
-            run < horiz * 1.1
-              ? `${b.name} is ${s.toFixed(1)} m away, too close for a ${horiz.toFixed(1)} m top wire`
-              : `${b.name} is ${s.toFixed(1)} m away: the rope would be ${(run - horiz).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
+            `only the ${INVERTED_L_MAX_FAR_SUPPORTS} tallest far supports in reach are tried for an inverted-L up ${a.name}`,
           );
           continue;
         }
-        if (tried >= INVERTED_L_FAR_SUPPORTS) {
-          out.reject(
-            [a.id, b.id],
-            where,
-            `only the ${INVERTED_L_FAR_SUPPORTS} nearest usable far supports are tried for an inverted-L up ${a.name}`,
-          );
-          continue;
-        }
-        tried++;
         // Radials are listed from canonical north; the placement rotates by bearing − 90, so re-clip in that frame.
         const rot = bearingOf(a.xy, b.xy) - 90;
         const lengths = clippedRadials(

@@ -3,7 +3,7 @@
  * the search for free spots on the lot, the radials of each base, and the wires, masts and radials
  * of a group of self-supporting verticals in the canonical frame.
  */
-import { boundaryDistance, clipRadial, keepOutDistance, requiredClearance } from '../site/feasibility.ts';
+import { boundaryDistance, clearanceRule, clipRadial, keepOutDistance } from '../site/feasibility.ts';
 import type { Element, PreparedSite } from '../site/feasibility.ts';
 import { boxOf, type XY } from '../site/frame.ts';
 import { placeXY } from '../site/geometry.ts';
@@ -32,7 +32,11 @@ export const SPOT_SCORE_RADIALS = 8;
 export function mastFits(site: PreparedSite, p: XY, heightM: number): boolean {
   return (
     boundaryDistance(site, p) >= site.site.settings.setbackM &&
-    !site.site.keepOuts.some((k, i) => keepOutDistance(site, i, p) < requiredClearance(k, heightM))
+    !site.site.keepOuts.some(
+      (k, i) =>
+        keepOutDistance(site, i, p) <
+        (clearanceRule(k, 'mast', heightM, site.site.settings.buriedClearanceM)?.needM ?? 0),
+    )
   );
 }
 

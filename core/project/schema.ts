@@ -168,9 +168,11 @@ export function supportConducts(s: Pick<Support, 'kind' | 'material'>): boolean 
 /**
  * Keep-out kinds. A `path` is a walkway, drive or play area where people walk and linger: wires
  * may pass over it (the end-height rule still holds), and the RF-exposure zones are checked
- * against it.
+ * against it. A `buried` zone is a buried cable or pipe (a line, or an area such as a drain
+ * field): wires pass over it freely; buried radials, anchors and masts keep settings.buriedClearanceM
+ * (or the zone's own clearance, if larger) from it (core/site/feasibility.ts).
  */
-export const KEEP_OUT_KINDS = ['building', 'power-line', 'path', 'other'] as const;
+export const KEEP_OUT_KINDS = ['building', 'power-line', 'path', 'buried', 'other'] as const;
 export type KeepOutKind = (typeof KEEP_OUT_KINDS)[number];
 
 export const KeepOutSchema = z
@@ -331,6 +333,13 @@ export const SettingsSchema = z.object({
   maxVerticalHeightM: finite.refine((v) => v >= 0 && v <= 60, 'must be between 0 and 60 m').default(12),
   /** Longest rope from a wire end to its support or anchor, metres (was a fixed 40 m). */
   maxRopeM: finite.refine((v) => v >= 1 && v <= 200, 'must be between 1 and 200 m').default(40),
+  /**
+   * Distance buried radials keep from a power line's poles and from buried cables and pipes
+   * (`buried` keep-outs), metres. Default 3 m: clear of a pole's ground rod and down conductor
+   * and of where a buried line may really run, which is seldom exactly where it is drawn (common
+   * practice, no source). The overhead line's fall clearance does not apply to buried radials.
+   */
+  buriedClearanceM: finite.refine((v) => v >= 0 && v <= 20, 'must be between 0 and 20 m').default(3),
   /**
    * The part of each band the user operates in (core/bands.ts): 'cw', 'phone', or their own
    * frequency or span; the planner designs and trims for its centre. Unset: the CW end.

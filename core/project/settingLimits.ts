@@ -8,6 +8,7 @@ export const LIMIT_SETTINGS = {
   minEndHeightM: 'Lowest wire end above ground',
   maxVerticalHeightM: 'Largest self-supporting vertical',
   maxRopeM: 'Longest rope from a wire end to its support',
+  buriedClearanceM: 'Radials from poles and buried lines',
 } as const;
 
 export type LimitSetting = keyof typeof LIMIT_SETTINGS;

@@ -10,7 +10,13 @@
  *  - Power lines: each point at height z keeps a horizontal distance of at least
  *    max(clearanceM, z + POWER_LINE_MARGIN_M) from the line, so that nothing that falls or swings
  *    (a wire, a rope, a support of height z) can reach it. A used support counts with its full
- *    usable height; a radial on the ground counts with z = 0.
+ *    usable height.
+ *  - Buried radials cannot fall onto a line: the fall rule does not apply to them. They keep
+ *    settings.buriedClearanceM from the line's poles (every vertex of a drawn power line, its
+ *    ends included, is taken as a pole: its ground rod and down conductor are there) and from every
+ *    `buried` keep-out (a buried cable or pipe; the larger of that distance and the zone's own
+ *    clearance). Anchors and self-supporting masts, which are driven into the ground, keep the same
+ *    distance from `buried` zones; wires, ropes and ends pass over a buried zone freely.
  *  - Existing supports are not subject to the setback (they stand where they stand), but wires
  *    tied to them are.
  * Wires and ropes are checked at points at most SAMPLE_STEP_M apart (the result is exact to
@@ -27,6 +33,34 @@ import type { Site, SiteKeepOut } from './site.ts';
 export const POWER_LINE_MARGIN_M = 3;
 /** Spacing of the check points along wires and ropes, metres. */
 export const SAMPLE_STEP_M = 0.5;
+
+/** Element kinds that go into the ground (checked against poles and buried zones, not the fall rule). */
+const GROUND_KINDS: ReadonlySet<Element['kind']> = new Set(['radial', 'anchor', 'mast']);
+
+/**
+ * How a point of an element of `kind` at height zM is held off keep-out k: the distance it must
+ * keep and what that distance is measured to ('zone': the zone itself; 'poles': the vertices of a
+ * power line), or null when the rule does not apply to it (a wire over a buried pipe).
+ */
+export function clearanceRule(
+  k: SiteKeepOut,
+  kind: Element['kind'],
+  zM: number,
+  buriedClearanceM: number,
+): { needM: number; to: 'zone' | 'poles' } | null {
+  if (k.kind === 'buried')
+    return GROUND_KINDS.has(kind) ? { needM: Math.max(k.clearanceM, buriedClearanceM), to: 'zone' } : null;
+  if (kind === 'radial' && k.kind === 'power-line') return { needM: buriedClearanceM, to: 'poles' };
+  return { needM: requiredClearance(k, zM), to: 'zone' };
+}
+
+/** Horizontal distance from p to the nearest pole (vertex) of a line or polygon keep-out. */
+export function poleDistance(k: SiteKeepOut, p: XY): number {
+  const pts = k.shape.type === 'line' ? k.shape.line : k.shape.ring;
+  let d = Infinity;
+  for (const q of pts) d = Math.min(d, Math.hypot(p[0] - q[0], p[1] - q[1]));
+  return d;
+}
 
 export type Element =
   | {
@@ -147,6 +181,8 @@ export function keepOutDistance(ps: PreparedSite, index: number, p: XY): number 
 
 /** Horizontal distance a point at height z must keep from a keep-out, or 0 if it may pass (high over a building). */
 export function requiredClearance(k: SiteKeepOut, zM: number): number {
+  // A buried cable or pipe: only what goes into the ground keeps clear of it (clearanceRule).
+  if (k.kind === 'buried') return 0;
   if (k.kind === 'power-line') return Math.max(k.clearanceM, zM + POWER_LINE_MARGIN_M);
   // A path is walked on, not built up: wires may pass over it; its clearance keeps anchors and
   // low parts off it. Other zones of unknown height reach up without limit.
@@ -168,6 +204,8 @@ interface Miss {
   /** The keep-out's required distance, or the mast's height. */
   need: number;
   keepOut: number;
+  /** The rule measured to a power line's poles or a buried zone (a part in the ground). */
+  ground?: 'poles' | 'buried';
 }
 
 /** The words of a missed rule (as each was written at the point before the messages were deferred). */
@@ -183,6 +221,10 @@ function missMessage(m: Miss, site: Site, setback: number, minEnd: number): stri
       return `${m.element} comes ${f1(m.value)} m from the boundary, inside the ${f1(setback)} m setback by ${f1(m.byM)} m${whereToChange('setbackM')}`;
     default: {
       const k = site.keepOuts[m.keepOut];
+      if (m.ground === 'poles')
+        return `${m.element} comes ${f1(m.value)} m from a pole of "${k.name}", ${f1(m.byM)} m inside the ${f1(m.need)} m kept around poles and buried lines${whereToChange('buriedClearanceM')}`;
+      if (m.ground === 'buried')
+        return `${m.element} comes ${f1(m.value)} m from the buried "${k.name}", ${f1(m.byM)} m inside the ${f1(m.need)} m kept from buried lines${whereToChange('buriedClearanceM')}`;
       return k.kind === 'power-line'
         ? `${m.element} crosses the power-line clearance of "${k.name}" by ${f1(m.byM)} m (needs ${f1(m.need)} m, has ${f1(m.value)} m)`
         : `${m.element} comes within ${f1(m.value)} m of "${k.name}" (clearance ${f1(k.clearanceM)} m${
@@ -197,6 +239,7 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
   const { site } = ps;
   const setback = site.settings.setbackM;
   const minEnd = site.settings.minEndHeightM;
+  const buriedM = site.settings.buriedClearanceM;
   const keepOuts = site.keepOuts;
   const nK = keepOuts.length;
   const violations: Violation[] = [];
@@ -207,6 +250,8 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
   };
   let boundaryMargin = Infinity;
   const closest = keepOuts.map(() => ({ spareM: Infinity, element: '', distM: 0, needM: 0 }));
+  /** The same for the parts in the ground measured to a power line's poles or a buried zone. */
+  const closestGround = keepOuts.map(() => ({ spareM: Infinity, element: '', distM: 0, needM: 0 }));
   let lowestEnd = Infinity;
   const xy: [number, number] = [0, 0];
 
@@ -241,9 +286,12 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
       const k = keepOuts[i];
       // A used support: only the fall rule of power lines applies to it.
       if (kind === 'support' && k.kind !== 'power-line') continue;
-      const need = requiredClearance(k, z);
-      const d = keepOutDistance(ps, i, xy);
-      const c = closest[i];
+      const rule = clearanceRule(k, kind, z, buriedM);
+      if (!rule) continue;
+      const need = rule.needM;
+      const ground = rule.to === 'poles' ? 'poles' : k.kind === 'buried' ? 'buried' : undefined;
+      const d = rule.to === 'poles' ? poleDistance(k, xy) : keepOutDistance(ps, i, xy);
+      const c = ground ? closestGround[i] : closest[i];
       if (d - need < c.spareM) {
         c.spareM = d - need;
         c.element = label;
@@ -251,14 +299,15 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
         c.needM = need;
       }
       if (need > 0 && d < need - 1e-6) {
-        note(`ko:${k.id}:${label}`, {
-          code: k.kind === 'power-line' ? 'power-line' : 'keep-out',
+        note(`ko:${k.id}:${ground ?? ''}:${label}`, {
+          code: k.kind === 'power-line' && !ground ? 'power-line' : 'keep-out',
           element: label,
           keepOutId: k.id,
           byM: need - d,
           value: d,
           need,
           keepOut: i,
+          ...(ground ? { ground } : {}),
         });
       }
     }
@@ -313,17 +362,18 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
   for (const [k, v] of worst) {
     if (v.code === 'setback' && worst.has(`lot:${v.element}`)) worst.delete(k);
   }
-  const missed: Violation[] = [...worst.values()].map((m) => ({
+  const missed: (Violation & { ground?: string })[] = [...worst.values()].map((m) => ({
     code: m.code,
     element: m.element,
     ...(m.keepOutId !== undefined ? { keepOutId: m.keepOutId } : {}),
     byM: m.byM,
     message: missMessage(m, site, setback, minEnd),
+    ...(m.ground ? { ground: m.ground } : {}),
   }));
   // One violation per rule and zone: the worst part, naming how many other parts miss it too.
   const byRule = new Map<string, { v: Violation; others: Set<string> }>();
-  for (const v of missed) {
-    const k = `${v.code}:${v.keepOutId ?? ''}`;
+  for (const { ground, ...v } of missed) {
+    const k = `${v.code}:${v.keepOutId ?? ''}:${ground ?? ''}`;
     const r = byRule.get(k);
     if (!r) byRule.set(k, { v, others: new Set() });
     else if (v.byM > r.v.byM) {
@@ -354,6 +404,15 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
             : `clear of "${k.name}": closest ${c.element} at ${f1(c.distM)} m${c.needM > 0 ? ` (needs ${f1(c.needM)} m)` : ', passing above it'}`,
       );
     });
+    site.keepOuts.forEach((k, i) => {
+      const c = closestGround[i];
+      if (!Number.isFinite(c.spareM)) return;
+      fits.push(
+        k.kind === 'buried'
+          ? `clear of the buried "${k.name}": closest ${c.element} at ${f1(c.distM)} m (keeps ${f1(c.needM)} m)`
+          : `buried radials keep clear of the poles of "${k.name}": closest ${c.element} at ${f1(c.distM)} m (keeps ${f1(c.needM)} m)`,
+      );
+    });
     if (Number.isFinite(lowestEnd)) {
       fits.push(`lowest wire end ${f1(lowestEnd)} m above ground (limit ${f1(minEnd)} m)`);
     }
@@ -363,8 +422,8 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
 
 /**
  * Longest buried radial, up to `nominalM`, from `base` along `bearingDeg` that stays inside the lot
- * minus the setback and outside every keep-out with its ground-level clearance. Clipped to
- * RADIAL_STEP_M.
+ * minus the setback and outside every keep-out with its ground-level clearance (from a power line:
+ * settings.buriedClearanceM from its poles only; clearanceRule). Clipped to RADIAL_STEP_M.
  */
 export const RADIAL_STEP_M = 0.25;
 export function clipRadial(ps: PreparedSite, base: XY, bearingDeg: number, nominalM: number): number {
@@ -372,14 +431,18 @@ export function clipRadial(ps: PreparedSite, base: XY, bearingDeg: number, nomin
   const ux = Math.sin(r);
   const uy = Math.cos(r);
   const setback = ps.site.settings.setbackM;
+  const buriedM = ps.site.settings.buriedClearanceM;
   let ok = 0;
   for (let t = RADIAL_STEP_M; t <= nominalM + 1e-9; t += RADIAL_STEP_M) {
     const p: XY = [base[0] + ux * t, base[1] + uy * t];
     if (boundaryDistance(ps, p) < setback) break;
     let blocked = false;
     for (let i = 0; i < ps.site.keepOuts.length && !blocked; i++) {
-      const need = requiredClearance(ps.site.keepOuts[i], 0);
-      if (keepOutDistance(ps, i, p) < need) blocked = true;
+      const k = ps.site.keepOuts[i];
+      const rule = clearanceRule(k, 'radial', 0, buriedM);
+      if (!rule) continue;
+      const d = rule.to === 'poles' ? poleDistance(k, p) : keepOutDistance(ps, i, p);
+      if (d < rule.needM) blocked = true;
     }
     if (blocked) break;
     ok = t;

@@ -122,7 +122,9 @@ export class ProjectState extends ProjectHistory {
           ? 'Building'
           : kind === 'path'
             ? 'Path'
-            : 'Keep-out';
+            : kind === 'buried'
+              ? 'Buried line'
+              : 'Keep-out';
     const k: KeepOut = {
       id,
       kind,
@@ -132,8 +134,8 @@ export class ProjectState extends ProjectHistory {
         p.keepOuts.map((x) => x.name),
       ),
       // A path only marks where people walk (checked by the exposure zones); it blocks nothing
-      // until the user gives it a clearance.
-      clearanceM: kind === 'power-line' ? 15 : kind === 'path' ? 0 : 1,
+      // until the user gives it a clearance. A buried line is kept by settings.buriedClearanceM.
+      clearanceM: kind === 'power-line' ? 15 : kind === 'path' || kind === 'buried' ? 0 : 1,
       notes: '',
       ...extra,
     };
