@@ -94,6 +94,8 @@ export interface PlanOptions {
   bands?: readonly Band[];
   /** Number of placements in the shortlist per band before the best of each missing type is added (default 10). */
   shortlistSize?: number;
+  /** Placements of one type among those (default SHORTLIST_PER_TYPE). */
+  shortlistPerType?: number;
   layerHeightsM?: readonly number[];
   /** Only these antenna types (default: every registered type, arrays only with `arrays`, else the project's `settings.planArrays`). */
   types?: readonly AntennaTypeId[];
@@ -122,6 +124,13 @@ export type Feasibility = (ps: PreparedSite, elements: readonly Element[]) => Fe
  * radials, then every type by the mean height of its wires (0.5 m steps), then by how squarely its
  * broadside faces the weighted targets. What was left out is reported (`PlanCut`).
  */
+/**
+ * Placements of one antenna type among a band's first `shortlistSize` candidates (a chosen bound:
+ * more near-equal variants of one type add little to a decision and crowd out the other types;
+ * the placements passed over are not listed).
+ */
+export const SHORTLIST_PER_TYPE = 3;
+
 export const PLAN_BOUNDS = { supports: 40, placements: 2000, designs: 32 } as const;
 
 /** Where a bound of PLAN_BOUNDS left placements out, for the plan's output. */
@@ -727,10 +736,11 @@ export function soilRangeJobs(
   cache: EvaluationCache,
   project: Project,
   shortlistSize = 10,
+  perType = SHORTLIST_PER_TYPE,
 ): Job[] {
   const soils = soilRangeOf(project);
   if (!soils.length) return [];
-  const ranked = rankPlan(setup, cache, project, shortlistSize);
+  const ranked = rankPlan(setup, cache, project, shortlistSize, perType);
   const designs = new Map<string, Design>();
   for (const j of [...setup.jobs, ...(setup.conductorJobs ?? [])]) designs.set(j.key, j.design);
   const jobs = new Map<string, Job>();
@@ -761,6 +771,7 @@ export function rankPlan(
   cache: EvaluationCache,
   project: Project,
   shortlistSize = 10,
+  perType = SHORTLIST_PER_TYPE,
 ): Omit<Shortlist, 'stats'> {
   const { site, paths } = setup;
   const supportById = new Map(site.supports.map((s) => [s.id, s]));
@@ -873,9 +884,22 @@ export function rankPlan(
     const groups = [...byGroup.values()].sort(
       (x, y) => y.best.score - x.best.score || (x.best.p.groupKey < y.best.p.groupKey ? -1 : 1),
     );
-    const chosen = groups.slice(0, shortlistSize);
+    // At most `perType` placements of one type among the first shortlistSize, so that near-equal
+    // variants of one type (nine inverted-Ls within 0.4 dB) do not crowd out the other types; the
+    // order stays the solver's.
+    const ofType = new Map<string, number>();
+    const chosen: typeof groups = [];
+    const passedOver: typeof groups = [];
+    for (const g of groups) {
+      const t = g.best.p.design.type;
+      const n = ofType.get(t) ?? 0;
+      if (chosen.length < shortlistSize && n < perType) {
+        chosen.push(g);
+        ofType.set(t, n + 1);
+      } else passedOver.push(g);
+    }
     const types = new Set(chosen.map((g) => g.best.p.design.type));
-    const extra = groups.slice(shortlistSize).filter((g) => {
+    const extra = passedOver.filter((g) => {
       if (types.has(g.best.p.design.type)) return false;
       types.add(g.best.p.design.type);
       return true;
@@ -1094,9 +1118,9 @@ export function planFromSetup(setup: PlanSetup, project: Project, options: PlanO
   let evaluations = evaluateJobs(setup.jobs, options.evaluator, cache, options.onProgress);
   const second = conductorJobs(setup, cache, project);
   evaluations += evaluateJobs(second, options.evaluator, cache, options.onProgress);
-  const third = soilRangeJobs(setup, cache, project, options.shortlistSize ?? 10);
+  const third = soilRangeJobs(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
   evaluateJobs(third, options.evaluator, cache, options.onProgress);
-  const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10);
+  const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
   const feasible = setup.bands.reduce((s, b) => s + b.proposed.length, 0);
   return {
     ...ranked,

@@ -83,7 +83,12 @@ describe('support metal', () => {
 describe('metal supports in the plan', () => {
   const project = buildDemoProject();
   const ev = testEvaluator({ resonantM: resonantAt(0.47) });
-  const s = planSite(project, { evaluator: ev, types: ['inverted-v', 'dipole', 'vertical'] });
+  // Every placement listed (no cap per type), so that one on the field mast is among them.
+  const s = planSite(project, {
+    evaluator: ev,
+    types: ['inverted-v', 'dipole', 'vertical'],
+    shortlistPerType: 10,
+  });
   const lambda = wavelengthM(3.55e6);
 
   it('puts the tower into every candidate within 0.5 λ of it, and into one hung from it', () => {
