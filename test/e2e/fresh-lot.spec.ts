@@ -163,7 +163,8 @@ test('plans a fresh lot end to end, exports the shortlist, and keeps it all over
   expect(await expectNamedButtons(page)).toBeGreaterThan(20);
   await shot(page, 'fresh-compare');
 
-  // The shortlist as CSV: a header and one row per candidate, all for 40 m.
+  // The shortlist as CSV (from the Shortlist tab): a header and one row per candidate, all for 40 m.
+  await page.getByRole('tab', { name: /^Shortlist/ }).click();
   const download = page.waitForEvent('download');
   await page.getByRole('button', { name: 'Shortlist CSV' }).click();
   const file = await download;
