@@ -187,7 +187,9 @@ export const dipoleBuilder: Builder = {
       const where = `between ${a.name} and ${b.name}`;
       const ropeM = (s - nominal) / 2;
       if (ropeM > site.site.settings.maxRopeM) {
-        out.reject(
+        // Shortfall: the rope it would need beyond the limit, over the rope it needs.
+        out.rejectBy(
+          (ropeM - site.site.settings.maxRopeM) / ropeM,
           [a.id, b.id],
           where,
           `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,

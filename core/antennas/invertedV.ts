@@ -218,10 +218,11 @@ export const invertedVBuilder: Builder = {
     const setback = site.site.settings.setbackM;
     for (const s of site.site.supports) {
       if (s.heightM <= e + 1) {
-        out.reject(
+        out.rejectBy(
+          (e + 1 - s.heightM) / (e + 1),
           [s.id],
           `from ${s.name}`,
-          `${s.name} at ${s.heightM.toFixed(1)} m is not above the ${e.toFixed(1)} m end height`,
+          `${s.name} at ${s.heightM.toFixed(1)} m is not above the ${e.toFixed(1)} m end height by the 1 m an inverted-V needs at least`,
         );
         continue;
       }
