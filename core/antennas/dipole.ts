@@ -91,9 +91,11 @@ function shape(d: Design, L: number): Shape {
   const lineLen = Math.hypot(s, hB - hA);
   const at = (t: number): XYZ => [A[0] + t * s, 0, hA + t * (hB - hA)];
   const form = endForm(d);
-  if (form === FOLDED) {
+  // Folded: the wire grows continuously with the trim; up to the turn it is the plain shape (ropes
+  // below the span's length, then the turns down as short hanging ends), beyond it the folds.
+  if (form === FOLDED && (L - lineLen) / 2 > FOLD_GAP_M + FOLD_MIN_M) {
     // Each fold runs back along the top, FOLD_GAP_M below it, from the support toward the feed.
-    const fold = Math.max(FOLD_MIN_M, (L - lineLen - 2 * FOLD_GAP_M) / 2);
+    const fold = (L - lineLen - 2 * FOLD_GAP_M) / 2;
     const t = fold / lineLen;
     const down = (p: XYZ): XYZ => [p[0], 0, p[2] - FOLD_GAP_M];
     const tipA = down(at(t));
@@ -185,7 +187,9 @@ export const dipoleBuilder: Builder = {
       const where = `between ${a.name} and ${b.name}`;
       const ropeM = (s - nominal) / 2;
       if (ropeM > site.site.settings.maxRopeM) {
-        out.reject(
+        // Shortfall: the rope it would need beyond the limit, over the rope it needs.
+        out.rejectBy(
+          (ropeM - site.site.settings.maxRopeM) / ropeM,
           [a.id, b.id],
           where,
           `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
@@ -238,7 +242,7 @@ export const dipoleBuilder: Builder = {
             {
               name: 'total wire length (folds included)',
               nominalM: foldedNominal,
-              minM: lineLen + 2 * FOLD_GAP_M + 2 * FOLD_MIN_M,
+              minM: 0.9 * lineLen,
               maxM: foldedMax,
             },
           ),

@@ -114,7 +114,9 @@ export const halfSquareBuilder: Builder = {
         continue;
       }
       if ((s - T) / 2 > site.site.settings.maxRopeM) {
-        out.reject(
+        // Shortfall: the rope it would need beyond the limit, over the rope it needs.
+        out.rejectBy(
+          ((s - T) / 2 - site.site.settings.maxRopeM) / ((s - T) / 2),
           [a.id, b.id],
           where,
           `span ${s.toFixed(1)} m needs ropes of ${((s - T) / 2).toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,

@@ -30,7 +30,6 @@ import {
   coilLoad,
   FOLD_GAP_M,
   FOLD_MAX_FRACTION,
-  FOLD_MIN_M,
   LOADING_COIL_Q,
   loadingReactanceOhm,
   microhenries,
@@ -40,6 +39,8 @@ import {
 const NOMINAL_FRACTION = 0.47;
 /** A folded inverted-V's nominal wire over the straight one's (as the dipole's, core/antennas/dipole.ts). */
 const FOLDED_LENGTH_FACTOR = 1.15;
+/** Shortest piece of a folded end modelled, metres (shorter ones are left out; the wire grows continuously). */
+const TINY_M = 0.02;
 /** Shortest plan reach of a leg for the reach-limited design, in wavelengths (a choice, no source). */
 export const MIN_REACH_FRACTION = 0.06;
 /** The loaded design's coil is sized for a tip this share of the room beyond it (trim both ways). */
@@ -121,7 +122,7 @@ interface Leg {
   from: XYZ;
   to: XYZ;
   /** Folded end: the turn at the leg's end and the fold back toward the apex. */
-  fold?: { link: [XYZ, XYZ]; back: [XYZ, XYZ] };
+  fold?: { link: [XYZ, XYZ]; back?: [XYZ, XYZ] };
   /** Loaded: the coil's place on the leg (the leg is split there). */
   coil?: XYZ;
   /** The free end of the wire (high voltage: at or above the end height). */
@@ -180,14 +181,18 @@ function shape(d: Design, L: number): Shape {
       return { from: apex, to: end, coil: at(inner), end, tie: end };
     }
     // Folded: up by FOLD_GAP_M across the leg (in its vertical plane), then back toward the apex.
+    // The wire grows continuously with the trim: first the straight leg, then the turn, then the fold.
+    if (leg <= straight + TINY_M) {
+      const end: XYZ = [apex[0] - dir[0] * leg, apex[1] - dir[1] * leg, h - dir[2] * leg];
+      return { from: apex, to: end, end, tie: end };
+    }
     const horiz = Math.hypot(dir[0], dir[1]);
     const n: XYZ = [(-dir[0] * dir[2]) / horiz, (-dir[1] * dir[2]) / horiz, horiz];
-    const turn: XYZ = [
-      legEnd[0] + n[0] * FOLD_GAP_M,
-      legEnd[1] + n[1] * FOLD_GAP_M,
-      legEnd[2] + n[2] * FOLD_GAP_M,
-    ];
-    const f = Math.max(FOLD_MIN_M, leg - straight - FOLD_GAP_M);
+    const up = Math.min(FOLD_GAP_M, leg - straight);
+    const turn: XYZ = [legEnd[0] + n[0] * up, legEnd[1] + n[1] * up, legEnd[2] + n[2] * up];
+    const f = leg - straight - FOLD_GAP_M;
+    if (f <= TINY_M)
+      return { from: apex, to: legEnd, fold: { link: [legEnd, turn] }, end: turn, tie: legEnd };
     const tipF: XYZ = [turn[0] + dir[0] * f, turn[1] + dir[1] * f, turn[2] + dir[2] * f];
     return {
       from: apex,
@@ -213,10 +218,11 @@ export const invertedVBuilder: Builder = {
     const setback = site.site.settings.setbackM;
     for (const s of site.site.supports) {
       if (s.heightM <= e + 1) {
-        out.reject(
+        out.rejectBy(
+          (e + 1 - s.heightM) / (e + 1),
           [s.id],
           `from ${s.name}`,
-          `${s.name} at ${s.heightM.toFixed(1)} m is not above the ${e.toFixed(1)} m end height`,
+          `${s.name} at ${s.heightM.toFixed(1)} m is not above the ${e.toFixed(1)} m end height by the 1 m an inverted-V needs at least`,
         );
         continue;
       }
@@ -271,7 +277,7 @@ export const invertedVBuilder: Builder = {
             {
               name: 'total wire length (folds included)',
               nominalM: L,
-              minM: APEX_WIRE_M + 2 * (straight + FOLD_GAP_M + FOLD_MIN_M),
+              minM: APEX_WIRE_M + 2 * 0.8 * straight,
               maxM: APEX_WIRE_M + 2 * (straight * (1 + FOLD_MAX_FRACTION) + FOLD_GAP_M),
             },
           );
@@ -324,7 +330,8 @@ export const invertedVBuilder: Builder = {
       } else wires.push(wire(leg.from, leg.to, lambda, `leg ${name}`));
       if (leg.fold) {
         wires.push(wire(leg.fold.link[0], leg.fold.link[1], lambda, `leg ${name} turn`));
-        wires.push(wire(leg.fold.back[0], leg.fold.back[1], lambda, `leg ${name} folded back`));
+        if (leg.fold.back)
+          wires.push(wire(leg.fold.back[0], leg.fold.back[1], lambda, `leg ${name} folded back`));
       }
     }
     return {
@@ -351,12 +358,8 @@ export const invertedVBuilder: Builder = {
     for (const [name, leg] of legs)
       if (leg.fold) {
         els.push({ kind: 'wire', label: `leg ${name} turn`, from: leg.fold.link[0], to: leg.fold.link[1] });
-        els.push({
-          kind: 'wire',
-          label: `leg ${name} folded back`,
-          from: leg.fold.back[0],
-          to: leg.fold.back[1],
-        });
+        const back = leg.fold.back;
+        if (back) els.push({ kind: 'wire', label: `leg ${name} folded back`, from: back[0], to: back[1] });
       }
     const ground = (leg: Leg): XYZ => [leg.tie[0], leg.tie[1], 0];
     for (const [name, leg] of legs) els.push({ kind: 'end', label: `end of leg ${name}`, at: leg.end });

@@ -19,8 +19,8 @@ import type { LoadSpec } from '../em/types.ts';
 export const FOLD_GAP_M = 0.3;
 /** Longest fold-back, as a fraction of the half it folds back along (a choice of this planner, no source). */
 export const FOLD_MAX_FRACTION = 0.6;
-/** Shortest fold-back modelled, metres (a shorter one is left straight). */
-export const FOLD_MIN_M = 0.5;
+/** Shortest fold-back modelled, metres (below it the end is left as a short turn down). */
+export const FOLD_MIN_M = 0.05;
 /** Q of a loading coil: a typical air-wound coil at these frequencies (common practice, no source). */
 export const LOADING_COIL_Q = 200;
 /** Where the coil sits in each half, as a fraction of the way from the feed to the end (common practice, no source). */

@@ -226,6 +226,7 @@ function describe(c: Candidate): string {
   lines.push(
     `    score ${f2(c.score)} dBi   peak ${f1(c.peak.gainDbi)} dBi at ${f1(c.peak.elevationDeg)}° elevation, ${f1(c.peak.azimuthDeg)}°`,
   );
+  if (c.adaptations?.length) lines.push(`    fitted to the lot: ${c.adaptations.join('; ')}`);
   if (c.broadsideDeg.length)
     lines.push(`    broadside ${c.broadsideDeg.map((b) => `${f1(b)}°`).join(' / ')}`);
   lines.push(

@@ -386,7 +386,7 @@ const wireGeometry = (model: WireModel): unknown[] =>
 
 /**
  * Cache key of a design over a ground: hash of its solver model (wire geometry to the millimetre,
- * feeds, radials, feed network), trim limits, conducting supports (canonical frame), ground and
+ * feeds, radials, lumped loads such as loading coils, feed network), trim limits, conducting supports (canonical frame), ground and
  * frequency, and, for types not in KEY_BY_GEOMETRY, its parameters. A design with no conducting
  * support near it has one key for every placement (its pattern is read rotated); with one, the
  * key holds the supports' positions relative to the placement.
@@ -411,6 +411,7 @@ export function designKey(design: Design, ground: EvalGround): string {
       geom: wireGeometry(model),
       feeds: model.feeds,
       radials: model.radials,
+      ...(model.loads?.length ? { loads: model.loads } : {}),
       ...(model.network ? { net: model.network, bonded: model.radialsBonded === true } : {}),
       ground,
       ...(design.conductors?.length ? { sc: design.conductors } : {}),

@@ -25,7 +25,9 @@ const lambda = band.wavelengthM;
 
 function propose(spanM: number, heightM = 14) {
   return builderFor('half-square').propose({
-    site: prepareSite(buildSite(testLot({ halfX: 40, supports: supportPair(spanM, heightM) }))),
+    site: prepareSite(
+      buildSite(testLot({ halfX: Math.max(40, spanM / 2 + 5), supports: supportPair(spanM, heightM) })),
+    ),
     band,
   });
 }
@@ -50,6 +52,13 @@ describe('half-square on a span shorter than its half-wave top', () => {
     expect(r.reasons[0]).toContain(`${span.toFixed(1)} m apart`);
     expect(r.reasons[0]).toContain(`at least ${need.toFixed(1)} m`);
     expect(r.shortfall).toBeCloseTo((need - span) / need, 9);
+  });
+
+  it('rejects a pair too far apart for the rope limit, with the excess rope as its shortfall', () => {
+    const span = 0.5 * lambda + 2 * 50; // ropes of 50 m each against the default 40 m limit
+    const r = propose(span).rejections[0];
+    expect(r.reasons[0]).toMatch(/needs ropes of 50\.0 m, over the 40 m rope limit/);
+    expect(r.shortfall).toBeCloseTo(10 / 50, 6);
   });
 
   it('rejects with its shortfall a pair too low for the lengthened drops', () => {

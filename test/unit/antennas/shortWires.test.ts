@@ -13,6 +13,8 @@ import { buildSite } from '../../../core/site/site.ts';
 import { checkPlacement, prepareSite } from '../../../core/site/feasibility.ts';
 import { supportPair, testLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
+import { evaluateDesign } from '../../../core/rank/evaluate.ts';
+import { solverEvaluator } from '../../../core/rank/solver.ts';
 
 type Band = '160m' | '80m' | '40m';
 const site = (span: number, hA: number, hB = hA) =>
@@ -122,4 +124,121 @@ describe('dipole on a short span between low supports', () => {
     expect(r.reasons[0]).toMatch(/even with loading coils a dipole needs at least 24\.6 m/);
     expectClose(r.shortfall ?? -1, (0.15 * lambda - 15) / (0.15 * lambda), 1e-9, 'shortfall = lack / need');
   });
+});
+
+describe('inverted-V on a lot too small for its legs', () => {
+  const small = (half: number, h: number) =>
+    prepareSite(buildSite(testLot({ halfX: half, halfY: half, supports: [{ id: 's', x: 0, y: 0, h }] })));
+  const variants = (half: number, h: number, band: Band) =>
+    builderFor('inverted-v')
+      .propose({ site: small(half, h), band: bandPlan(band) })
+      .proposals.filter((p) => p.design.params.reachM !== undefined);
+
+  it('offers no reach-limited design where the plain legs fit', () => {
+    expect(variants(60, 15, '80m')).toHaveLength(0);
+  });
+
+  it('folds its ends back along the legs, FOLD_GAP_M above them, in the same groups as the plain designs', () => {
+    const vs = variants(14, 12, '80m').filter((p) => p.design.params.endForm === 1);
+    expect(vs.length).toBeGreaterThan(0);
+    const p = vs[0];
+    expect(p.groupKey).toMatch(/^inverted-v:s:\d+$/);
+    expect(p.adaptations?.[0]).toMatch(
+      /legs shortened to reach .* folded back along its leg, 0\.3 m above it/,
+    );
+    const b = builderFor('inverted-v');
+    const L = p.design.trim.nominalM;
+    const m = b.model(p.design, L);
+    expectClose(
+      m.wires.reduce((s, w) => s + len(w), 0),
+      L,
+      1e-9,
+      'the whole wire, folds included, is the trim dimension',
+    );
+    // Each fold is parallel to its leg, FOLD_GAP_M from it.
+    for (const side of ['L', 'R']) {
+      const leg = m.wires.find((w) => w.label === `leg ${side}`)!;
+      const fold = m.wires.find((w) => w.label === `leg ${side} folded back`)!;
+      const u = [0, 1, 2].map((k) => (leg.to[k] - leg.from[k]) / len(leg));
+      for (const q of [fold.from, fold.to]) {
+        const r = [0, 1, 2].map((k) => q[k] - leg.from[k]);
+        const along = r[0] * u[0] + r[1] * u[1] + r[2] * u[2];
+        const perp = Math.sqrt(Math.max(0, r[0] ** 2 + r[1] ** 2 + r[2] ** 2 - along ** 2));
+        expectClose(perp, FOLD_GAP_M, 1e-9, 'fold 0.3 m from its leg');
+      }
+    }
+    const els = b.elements(p.design, L);
+    expectAllListedV(m, els);
+    const fits = vs.some(
+      (q) => checkPlacement(small(14, 12), placeElements(b.elements(q.design, L), q.placement)).ok,
+    );
+    expect(fits).toBe(true);
+  });
+
+  it('takes loading coils on a lot too small for folds, with their value, place and Q', () => {
+    const vs = variants(14, 12, '160m').filter((p) => p.design.params.endForm === 2);
+    expect(vs.length).toBeGreaterThan(0);
+    const p = vs[0];
+    expect(p.adaptations?.[0]).toMatch(
+      /loading coils of \d+ µH \(Q 200\) \d+\.\d m down each leg from the apex/,
+    );
+    const b = builderFor('inverted-v');
+    const m = b.model(p.design, p.design.trim.minM);
+    expect(m.loads).toHaveLength(2);
+    for (const l of m.loads ?? []) {
+      expect(m.wires[l.wire].label).toMatch(/beyond the loading coil/);
+      expect(l.position).toBe(0);
+    }
+    expectAllListedV(m, b.elements(p.design, p.design.trim.minM));
+  });
+});
+
+/** As expectAllListed, for a one-support design (the feed wire's ends are junctions). */
+function expectAllListedV(m: WireModel, els: Element[]): void {
+  const wires = els.filter((e): e is Extract<Element, { kind: 'wire' }> => e.kind === 'wire');
+  for (const w of m.wires)
+    expect(
+      wires.some(
+        (e) => (same(e.from, w.from) && same(e.to, w.to)) || (same(e.from, w.to) && same(e.to, w.from)),
+      ),
+      `model wire "${w.label}" listed as an element`,
+    ).toBe(true);
+  const pts = m.wires.flatMap((w) => [w.from, w.to]);
+  const ends = els.filter((e): e is Extract<Element, { kind: 'end' }> => e.kind === 'end');
+  for (const p of pts) {
+    if (pts.filter((q) => same(p, q)).length > 1) continue;
+    expect(
+      ends.some((e) => same(e.at, p)),
+      `free end ${p.join(', ')} listed`,
+    ).toBe(true);
+  }
+  expect(els.filter((e) => e.kind === 'anchor')).toHaveLength(2);
+  expect(els.filter((e) => e.kind === 'support')).toHaveLength(1);
+}
+
+describe('the adapted forms reach resonance inside their trim limits (field solver, perfect ground)', () => {
+  // The nominal lengths and coil values are estimates (core/antennas/loading.ts); the trim limits
+  // must leave the solver's resonance inside them, or the planner would keep a mismatched wire.
+  const ivs = (band: Band, form: number) =>
+    builderFor('inverted-v')
+      .propose({
+        site: prepareSite(
+          buildSite(testLot({ halfX: 14, halfY: 14, supports: [{ id: 's', x: 0, y: 0, h: 12 }] })),
+        ),
+        band: bandPlan(band),
+      })
+      .proposals.find((p) => p.design.params.endForm === form)!;
+  const cases: [string, Proposal][] = [
+    ['dipole, folded ends (80 m)', dipole(33, 4, 4, '80m')],
+    ['dipole, loading coils (40 m)', dipole(10, 4, 4, '40m')],
+    ['inverted-V, folded ends (80 m)', ivs('80m', 1)],
+    ['inverted-V, loading coils (160 m)', ivs('160m', 2)],
+  ];
+  for (const [name, p] of cases)
+    it(name, () => {
+      const r = evaluateDesign(p.design, 'perfect', solverEvaluator);
+      expect(r.resonant, r.diagnostics.join('; ')).toBe(true);
+      expect(r.trimM).toBeGreaterThan(p.design.trim.minM);
+      expect(r.trimM).toBeLessThan(p.design.trim.maxM);
+    });
 });
