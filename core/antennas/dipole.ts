@@ -87,7 +87,8 @@ export const dipoleBuilder: Builder = {
       const where = `between ${a.name} and ${b.name}`;
       const ropeM = (s - nominal) / 2;
       if (ropeM > site.site.settings.maxRopeM) {
-        out.reject(
+        out.rejectBy(
+          (ropeM - site.site.settings.maxRopeM) / ropeM,
           [a.id, b.id],
           where,
           `span ${s.toFixed(1)} m needs ropes of ${ropeM.toFixed(1)} m, over the ${site.site.settings.maxRopeM} m rope limit${whereToChange('maxRopeM')}`,
@@ -100,7 +101,8 @@ export const dipoleBuilder: Builder = {
       const maxM = Math.min(0.56 * band.wavelengthM, lineLen + 2 * (Math.min(a.heightM, b.heightM) - e));
       const minM = 0.4 * band.wavelengthM;
       if (maxM < 0.9 * nominal) {
-        out.reject(
+        out.rejectBy(
+          (0.9 * nominal - maxM) / (0.9 * nominal),
           [a.id, b.id],
           where,
           `span ${s.toFixed(1)} m is too short: a ${nominal.toFixed(1)} m wire's ends would hang below the ${e.toFixed(1)} m end height`,

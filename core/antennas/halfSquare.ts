@@ -70,6 +70,10 @@ export const halfSquareBuilder: Builder = {
       const s = dist2(a.xy, b.xy);
       const where = `between ${a.name} and ${b.name}`;
       const reasons: string[] = [];
+      let short = 0; // Rejection.shortfall: the worst of the misses below
+      if (s < T) short = (T - s) / T;
+      else if ((s - T) / 2 > site.site.settings.maxRopeM)
+        short = ((s - T) / 2 - site.site.settings.maxRopeM) / ((s - T) / 2);
       if (s < T) reasons.push(`span ${s.toFixed(1)} m is shorter than the ${T.toFixed(1)} m top wire`);
       else if ((s - T) / 2 > site.site.settings.maxRopeM) {
         reasons.push(
@@ -78,12 +82,13 @@ export const halfSquareBuilder: Builder = {
       }
       const h = Math.min(a.heightM, b.heightM);
       if (h - e < 0.05 * band.wavelengthM) {
+        short = Math.max(short, (0.05 * band.wavelengthM - (h - e)) / (0.05 * band.wavelengthM));
         reasons.push(
           `the lower support (${h.toFixed(1)} m) leaves too little height above the ${e.toFixed(1)} m end height`,
         );
       }
       if (reasons.length) {
-        out.reject([a.id, b.id], where, ...reasons);
+        out.rejectBy(short, [a.id, b.id], where, ...reasons);
         continue;
       }
       // Feed at the corner nearer the station: make that support A (canonical −x).

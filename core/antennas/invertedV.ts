@@ -63,7 +63,8 @@ export const invertedVBuilder: Builder = {
     const e = site.site.settings.minEndHeightM;
     for (const s of site.site.supports) {
       if (s.heightM <= e + 1) {
-        out.reject(
+        out.rejectBy(
+          (e + 1 - s.heightM) / (e + 1),
           [s.id],
           `from ${s.name}`,
           `${s.name} at ${s.heightM.toFixed(1)} m is not above the ${e.toFixed(1)} m end height`,
