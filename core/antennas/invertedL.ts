@@ -51,7 +51,14 @@ export const invertedLBuilder: Builder = {
     const sup = site.site.supports;
     for (const a of sup) {
       // Tall enough for a plain vertical (or nearly: the top part would be a stub).
-      if (a.heightM >= INVERTED_L_MAX_VERTICAL_FRACTION * lambda) continue;
+      if (a.heightM >= INVERTED_L_MAX_VERTICAL_FRACTION * lambda) {
+        out.reject(
+          [a.id],
+          `up ${a.name}`,
+          `${a.name} at ${a.heightM.toFixed(1)} m is tall enough for a vertical: an inverted-L is proposed up supports under ${(INVERTED_L_MAX_VERTICAL_FRACTION * lambda).toFixed(1)} m`,
+        );
+        continue;
+      }
       if (a.heightM < 0.08 * lambda) {
         out.rejectBy(
           (0.08 * lambda - a.heightM) / (0.08 * lambda),

@@ -11,18 +11,24 @@ import type { CutItem, ModelRadials, ModelWire, WireModel } from './types.ts';
 /** Radial wire radius: 1.6 mm diameter (common practice, no source). */
 export const RADIAL_RADIUS_M = 0.0008;
 
-/** Radial elements of a ground system at `base` (canonical), lengths in canonical bearing order. */
+/**
+ * Radial elements of a ground system at `base` (canonical), lengths in canonical bearing order k·360°/N
+ * (a length of 0 is a radial left out: it keeps its bearing's place and lays nothing).
+ */
 export function radialElements(lengthsM: readonly number[], base: XYZ = [0, 0, 0]): Element[] {
   const n = lengthsM.length;
-  return lengthsM.map((len, k) => {
+  const out: Element[] = [];
+  lengthsM.forEach((len, k) => {
+    if (len <= 0) return;
     const b = (k * 2 * Math.PI) / n;
-    return {
+    out.push({
       kind: 'radial' as const,
       label: `radial ${k + 1}`,
       from: base,
       to: [base[0] + len * Math.sin(b), base[1] + len * Math.cos(b), 0] as XYZ,
-    };
+    });
   });
+  return out;
 }
 
 /** Shortest radial worth laying, metres; shorter clipped radials are left out (common practice, no source). */
@@ -31,7 +37,9 @@ export const MIN_RADIAL_M = 1;
 /**
  * Radial lengths for a ground system at site point `baseXY`, `count` radials of `nominalM` at equal
  * bearings from canonical north (site bearing = canonical + rotationDeg), each clipped by the lot and
- * keep-outs. Radials shorter than MIN_RADIAL_M are left out.
+ * keep-outs. Radials shorter than MIN_RADIAL_M are left out: their length is 0, so that every
+ * other radial keeps its bearing (the elements, the drawings and the build sheet read the bearing
+ * from the position in the list).
  */
 export function clippedRadials(
   clip: (bearingDeg: number, nominalM: number) => number,
@@ -42,16 +50,20 @@ export function clippedRadials(
   const out: number[] = [];
   for (let k = 0; k < count; k++) {
     const len = clip(rotationDeg + (k * 360) / count, nominalM);
-    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
+    out.push(len >= MIN_RADIAL_M ? round(len, 2) : 0);
   }
   return out;
 }
 
 /** The solver's radial set at the base of wire `wireIndex` (none when every radial was clipped away). */
 export function radialsOn(wireIndex: number, lengthsM: number[]): ModelRadials[] {
-  return lengthsM.length
-    ? [{ wire: wireIndex, count: lengthsM.length, lengthsM, radiusM: RADIAL_RADIUS_M }]
-    : [];
+  const laid = lengthsM.filter((l) => l > 0);
+  if (!laid.length) return [];
+  const set: ModelRadials = { wire: wireIndex, count: laid.length, lengthsM: laid, radiusM: RADIAL_RADIUS_M };
+  // Some left out: the others are not equally spaced; say where they lie.
+  if (laid.length < lengthsM.length)
+    set.bearingsDeg = lengthsM.flatMap((l, k) => (l > 0 ? [(k * 360) / lengthsM.length] : []));
+  return [set];
 }
 
 /** A ground-mounted radiator: fed at the base of its first wire, against radials of these lengths there. */
@@ -62,7 +74,7 @@ export function baseFedModel(wires: ModelWire[], radialLengthsM: number[]): Wire
 /** Cut-list rows of buried radials: one row per length, longest first. */
 export function radialCuts(lengthsM: readonly number[]): CutItem[] {
   const byLen = new Map<number, number>();
-  for (const l of lengthsM) byLen.set(l, (byLen.get(l) ?? 0) + 1);
+  for (const l of lengthsM) if (l > 0) byLen.set(l, (byLen.get(l) ?? 0) + 1);
   return [...byLen.entries()]
     .sort((p, q) => q[0] - p[0])
     .map(([l, n]) => cut('buried radial', n, l, 1, 'radial'));
@@ -94,7 +106,7 @@ export function radialsCutAtMidlines(
       if (along > 1e-9) meet = Math.min(meet, (dx * dx + dy * dy) / (2 * along));
     }
     const len = Math.min(clip(rotationDeg + (k * 360) / count, nominalM), meet);
-    if (len >= MIN_RADIAL_M) out.push(round(len, 2));
+    out.push(len >= MIN_RADIAL_M ? round(len, 2) : 0);
   }
   return out;
 }

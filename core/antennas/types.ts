@@ -50,6 +50,11 @@ export interface ModelRadials {
   /** One length per radial, metres, in order of bearing from the design's canonical north, equally spaced. */
   lengthsM: number[];
   radiusM: number;
+  /**
+   * Canonical bearing of each radial, degrees, when they are not equally spaced (radials the lot
+   * clipped away were left out; core/antennas/radials.ts). The solver reads lengths only.
+   */
+  bearingsDeg?: number[];
 }
 
 /** Wire geometry in the canonical frame, in the solver's input form (less frequencies, ground and pattern). */
@@ -134,6 +139,11 @@ export interface Rejection {
    * planner can name the single closest miss per type and band; absent when the miss has no size.
    */
   shortfall?: number;
+  /**
+   * For a placement the builder proposed but the lot refused (set by the planner): its worst
+   * violation of the site rules, metres (core/site/feasibility.ts). Absent otherwise.
+   */
+  missByM?: number;
 }
 
 export interface BandPlan {

@@ -66,7 +66,8 @@ export const verticalBuilder: Builder = {
       });
     for (const s of site.site.supports) {
       if (s.heightM < nominal) {
-        out.reject(
+        out.rejectBy(
+          (nominal - s.heightM) / nominal,
           [s.id],
           `hung from ${s.name}`,
           `${s.name} at ${s.heightM.toFixed(1)} m is shorter than a quarter-wave vertical (about ${nominal.toFixed(1)} m)`,
@@ -82,7 +83,8 @@ export const verticalBuilder: Builder = {
     }
     const free = 'self-supporting at a free spot';
     if (nominal > st.maxVerticalHeightM) {
-      out.reject(
+      out.rejectBy(
+        (nominal - st.maxVerticalHeightM) / nominal,
         [],
         free,
         `a quarter-wave vertical (about ${nominal.toFixed(1)} m) is taller than your ${st.maxVerticalHeightM.toFixed(1)} m self-supporting limit${whereToChange('maxVerticalHeightM')}`,

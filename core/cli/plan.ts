@@ -301,6 +301,11 @@ function humanReport(project: Project, s: Shortlist, seconds: number): string {
   }
   out.push('');
   for (const c of s.candidates) out.push(describe(c), '');
+  if (s.missing.length) {
+    out.push('Why not? (each type without a placement on a band, its closest miss):');
+    for (const m of s.missing) out.push(`  ${m.band} ${m.closestMiss}`);
+    out.push('');
+  }
   out.push('Rejected:');
   for (const r of s.rejected) out.push(`  ${r.band} ${r.type} ${r.where}: ${r.reasons.join('; ')}`);
   return out.join('\n') + '\n';

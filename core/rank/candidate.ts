@@ -140,7 +140,10 @@ export function groundSystemOf(model: WireModel, placement: Placement, frame: Si
     kind: 'radials',
     count: n,
     lengthsM: lengthsM.map(r2),
-    bearingsDeg: lengthsM.map((_, k) => r2(((((k * 360) / n + placement.rotationDeg) % 360) + 360) % 360)),
+    bearingsDeg: (model.radials.some((x) => x.bearingsDeg)
+      ? model.radials.flatMap((x) => x.bearingsDeg ?? x.lengthsM.map((_, k) => (k * 360) / x.count))
+      : lengthsM.map((_, k) => (k * 360) / n)
+    ).map((b) => r2((((b + placement.rotationDeg) % 360) + 360) % 360)),
     radiusM: r.radiusM,
     baseXY,
     baseLonLat: frame.toLonLat(baseXY),

@@ -57,6 +57,7 @@ import {
   type PreparedSite,
 } from '../site/feasibility.ts';
 import { INVERTED_L_MAX_VERTICAL_FRACTION } from '../antennas/invertedL.ts';
+import { closestMiss, type MissingType } from './missing.ts';
 import { convexHull, placeXYZ } from '../site/geometry.ts';
 import { buildSite, type Site } from '../site/site.ts';
 import { evaluateDesign, type EvaluationRecord } from './evaluate.ts';
@@ -172,7 +173,13 @@ export interface PlanSetup {
   site: Site;
   prepared: PreparedSite;
   paths: RegionPath[];
-  bands: { band: Band; proposed: Proposed[]; rejections: Rejection[] }[];
+  bands: {
+    band: Band;
+    proposed: Proposed[];
+    rejections: Rejection[];
+    /** The types planned on this band (for the closest miss of each type without a candidate). */
+    types?: AntennaTypeId[];
+  }[];
   /** Step-1 jobs: every design alone, one evaluation for all its orientations. */
   jobs: Job[];
   /**
@@ -196,6 +203,10 @@ export interface RejectedPlacement {
   where: string;
   supports: string[];
   reasons: string[];
+  /** How far from working, as a fraction of what it needs (the builder's measure; Rejection.shortfall). */
+  shortfall?: number;
+  /** Worst violation of the site rules, metres, for a placement the lot refused (Rejection.missByM). */
+  missByM?: number;
 }
 
 export interface RegionResult {
@@ -314,6 +325,11 @@ export interface Shortlist {
   }[];
   candidates: Candidate[];
   rejected: RejectedPlacement[];
+  /**
+   * One entry per planned type and band without a candidate in the shortlist: the single closest
+   * miss in plain words (closestMiss, core/rank/missing.ts).
+   */
+  missing: MissingType[];
   stats: {
     proposals: number;
     feasibleAtNominal: number;
@@ -598,11 +614,12 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
           supports: f.p.supports,
           where: f.p.where,
           reasons: f.reasons,
+          missByM: f.worst,
         });
       }
       options.onProgress?.({ phase: 'enumerate', done: ++step, total: steps });
     }
-    return { band, proposed, rejections };
+    return { band, proposed, rejections, types: builders.map((b) => b.type) };
   });
   return {
     site,
@@ -778,6 +795,7 @@ export function rankPlan(
   const supportById = new Map(site.supports.map((s) => [s.id, s]));
   const candidates: Candidate[] = [];
   const rejected: RejectedPlacement[] = [];
+  const missing: MissingType[] = [];
   const patterns: Record<string, number[]> = {};
   const pathWeights = paths.map((path) => path.weight);
   const ownSoil = projectSoilId(project);
@@ -797,7 +815,7 @@ export function rankPlan(
       unknownMetal: string[];
     };
     const byGroup = new Map<string, { best: Scored; count: number }>();
-    const postTrimFail = new Map<string, { p: Proposal; reasons: string[] }>();
+    const postTrimFail = new Map<string, { p: Proposal; reasons: string[]; missByM?: number }>();
     const pendingVariants = new Map<string, number>();
     const chosenForConductors = setup.conductorChoice?.get(b.band);
     const groupsWithChoice = new Set(
@@ -841,6 +859,7 @@ export function rankPlan(
             reasons: check.violations.map(
               (v) => `after trimming (${p.design.trim.name} ${rec.trimM.toFixed(2)} m): ${v.message}`,
             ),
+            missByM: Math.max(...check.violations.map((v) => v.byM)),
           });
         }
         continue;
@@ -880,6 +899,7 @@ export function rankPlan(
           where: f.p.where,
           supports: f.p.supports,
           reasons: f.reasons,
+          ...(f.missByM !== undefined ? { missByM: f.missByM } : {}),
         });
     }
     const groups = [...byGroup.values()].sort(
@@ -1059,6 +1079,19 @@ export function rankPlan(
     });
     // Ranks over each soil of the range, among this band's shortlisted candidates.
     const bandCands = candidates.slice(bandStart);
+    const shown = new Set(bandCands.map((c) => c.type));
+    const planned = b.types ?? [
+      ...new Set([...b.proposed.map((q) => q.proposal.design.type), ...b.rejections.map((r) => r.type)]),
+    ];
+    for (const type of planned)
+      if (!shown.has(type))
+        missing.push(
+          closestMiss(
+            type,
+            b.band,
+            rejected.filter((r) => r.type === type && r.band === b.band),
+          ),
+        );
     const soils = [ownSoil, ...rangeSoils.filter((id) => soilScores.every((m) => m.has(id)))];
     const rankAt = new Map<string, number[]>();
     for (const soil of soils) {
@@ -1103,6 +1136,7 @@ export function rankPlan(
     })),
     candidates,
     rejected,
+    missing,
     patterns,
   };
 }

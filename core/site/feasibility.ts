@@ -432,20 +432,23 @@ export function clipRadial(ps: PreparedSite, base: XY, bearingDeg: number, nomin
   const uy = Math.cos(r);
   const setback = ps.site.settings.setbackM;
   const buriedM = ps.site.settings.buriedClearanceM;
-  let ok = 0;
-  for (let t = RADIAL_STEP_M; t <= nominalM + 1e-9; t += RADIAL_STEP_M) {
+  const clear = (t: number): boolean => {
     const p: XY = [base[0] + ux * t, base[1] + uy * t];
-    if (boundaryDistance(ps, p) < setback) break;
-    let blocked = false;
-    for (let i = 0; i < ps.site.keepOuts.length && !blocked; i++) {
+    if (boundaryDistance(ps, p) < setback) return false;
+    for (let i = 0; i < ps.site.keepOuts.length; i++) {
       const k = ps.site.keepOuts[i];
       const rule = clearanceRule(k, 'radial', 0, buriedM);
       if (!rule) continue;
       const d = rule.to === 'poles' ? poleDistance(k, p) : keepOutDistance(ps, i, p);
-      if (d < rule.needM) blocked = true;
+      if (d < rule.needM) return false;
     }
-    if (blocked) break;
+    return true;
+  };
+  let ok = 0;
+  for (let t = RADIAL_STEP_M; t <= nominalM + 1e-9; t += RADIAL_STEP_M) {
+    if (!clear(t)) return ok;
     ok = t;
   }
-  return ok + RADIAL_STEP_M > nominalM ? nominalM : ok;
+  // The last part, shorter than a step, is checked at its end too (it was taken unchecked before).
+  return ok + 1e-9 >= nominalM || clear(nominalM) ? nominalM : ok;
 }

@@ -132,6 +132,35 @@ describe('buried keep-outs', () => {
     expectClose(r.violations[0].byM, 2, 0.02, '1 m from the pipe, 3 m kept');
   });
 
+  it('radials the lot clips away are left out without turning the others toward the obstacle', () => {
+    // A tree 3.5 m west of a buried pipe: the radials toward the pipe stop within 1 m and are left
+    // out; every other radial keeps its own bearing, so the placement still passes its check
+    // (before, the remaining radials were re-spread evenly and some crossed the pipe).
+    const ps = siteOf({
+      supports: [{ id: 'a', x: 0, y: 0, h: 15 }],
+      keepOuts: [
+        { ...pipe, geometry: { type: 'LineString' as const, coordinates: [ll(3.5, -30), ll(3.5, 30)] } },
+      ],
+    });
+    const out = builderFor('vertical').propose({ site: ps, band: bandPlan('40m') });
+    const p = out.proposals.find((q) => q.groupKey === 'vertical:a')!;
+    const lengths = p.design.params.radialLengthsM as number[];
+    expect(lengths).toHaveLength(32);
+    expect(lengths.filter((l) => l === 0).length).toBeGreaterThan(0);
+    const model = builderFor('vertical').model(p.design, p.design.trim.nominalM);
+    expect(model.radials[0].count).toBe(lengths.filter((l) => l > 0).length);
+    expect(model.radials[0].bearingsDeg).toHaveLength(model.radials[0].count);
+    const placed = placeElements(
+      builderFor('vertical').elements(p.design, p.design.trim.nominalM),
+      p.placement,
+    );
+    expect(checkPlacement(ps, placed).violations).toEqual([]);
+    // Radial k keeps bearing k·360°/32: radial 9 (east, 90°) is left out, radial 25 (west) is laid.
+    const labels = placed.filter((e) => e.kind === 'radial').map((e) => e.label);
+    expect(labels).not.toContain('radial 9');
+    expect(labels).toContain('radial 25');
+  });
+
   it('a project file written before the setting and kind existed still loads, with the default', () => {
     const doc = JSON.parse(JSON.stringify(testLot({})));
     delete doc.settings.buriedClearanceM;

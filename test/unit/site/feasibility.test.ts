@@ -119,6 +119,13 @@ describe('radial clipping', () => {
     expectClose(clipRadial(s, [40, 0], 270, 20), 20, 1e-9, 'nothing in the way');
   });
 
+  it('checks the last part of a radial shorter than a step at its end', () => {
+    const s = site();
+    // 9 m of room east of x = 40 (edge at 50, setback 1): a 9.1 m radial stops at 9 m, a 8.9 m one is whole.
+    expectClose(clipRadial(s, [40, 0], 90, 9.1), 9, TOL, 'the last 0.1 m would enter the setback');
+    expectClose(clipRadial(s, [40, 0], 90, 8.9), 8.9, 1e-9, 'fits whole');
+  });
+
   it('clips a radial at a building with its clearance', () => {
     const s = site([
       {
