@@ -6,20 +6,21 @@ import { describe, expect, it } from 'vitest';
 import { closestMiss } from '../../../core/rank/missing.ts';
 import { planSite } from '../../../core/rank/plan.ts';
 import { bandPlan } from '../../../core/antennas/common.ts';
-import { TOP_FRACTION } from '../../../core/antennas/halfSquare.ts';
+import { MIN_TOP_FRACTION } from '../../../core/antennas/halfSquare.ts';
 import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 import { testLot } from '../site/lot.ts';
 
 describe('closest miss per type and band', () => {
   it('names the half-square pair distance and what it needs when no pair is far enough apart', () => {
-    // Three trees 24, 30 and 18 m apart: the 80 m half-square's top wire is 0.5 λ ≈ 42 m.
+    // Three trees 20, 12 and 23.3 m apart: the 80 m half-square's shortest top (MIN_TOP_FRACTION λ,
+    // a shortened top with longer drops) is about 25 m.
     const project = testLot({
       halfX: 30,
       halfY: 30,
       supports: [
-        { id: 'oak', x: -12, y: 0, h: 16 },
-        { id: 'ash', x: 12, y: 0, h: 16 },
-        { id: 'elm', x: 12, y: 18, h: 16 },
+        { id: 'oak', x: -10, y: 0, h: 16 },
+        { id: 'ash', x: 10, y: 0, h: 16 },
+        { id: 'elm', x: 10, y: 12, h: 16 },
       ],
       bands: ['80m'],
     });
@@ -30,12 +31,13 @@ describe('closest miss per type and band', () => {
     expect(s.candidates.some((c) => c.type === 'half-square')).toBe(false);
     const hs = s.missing.filter((m) => m.type === 'half-square');
     expect(hs).toHaveLength(1);
-    const T = TOP_FRACTION * bandPlan('80m').wavelengthM;
-    // The widest pair (oak–elm, 30.0 m) is the closest miss, short by (T − 30)/T.
+    const T = MIN_TOP_FRACTION * bandPlan('80m').wavelengthM;
+    const widest = Math.hypot(20, 12);
+    // The widest pair (oak–elm, 23.3 m) is the closest miss, short by (T − 23.3)/T.
     expect(hs[0].closestMiss).toMatch(/^Half-square: /);
-    expect(hs[0].closestMiss).toContain('30.0 m');
+    expect(hs[0].closestMiss).toContain(`${widest.toFixed(1)} m`);
     expect(hs[0].closestMiss).toContain(`${T.toFixed(1)} m`);
-    expect(hs[0].shortfall).toBeCloseTo((T - 30) / T, 3);
+    expect(hs[0].shortfall).toBeCloseTo((T - widest) / T, 3);
     // A type that has a candidate is not missing; every entry is for a planned band.
     for (const m of s.missing)
       expect(s.candidates.some((c) => c.type === m.type && c.band === m.band)).toBe(false);
