@@ -8,6 +8,7 @@ import { PLACE_WORD } from './exposureZones.ts';
 import type { BuildSheet } from './buildSheet.ts';
 import { escapeHtml, planSvg, polarSvg, radialSvg } from './drawings.ts';
 import { sheetLengths } from './format.ts';
+import { lengthsInText } from '../units/index.ts';
 import { tuningText } from './tuning.ts';
 import { matchingText } from '../match/matchText.ts';
 import { TUNING_STEP, TUNING_STEP_TEXT } from './tuningMeasure.ts';
@@ -222,7 +223,7 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
         ['Antenna', `${c.typeLabel}, #${c.rank} on the ${c.band.replace('m', ' m')} band`],
         ['Where', c.where],
         ...(c.adaptations?.length
-          ? [['Fitted to the lot', c.adaptations.join('; ')] as [string, string]]
+          ? [['Fitted to the lot', lengthsInText(c.adaptations.join('; '), s.units)] as [string, string]]
           : []),
         [
           'Supports',
