@@ -8,6 +8,8 @@ import { invertedLBuilder } from './invertedL.ts';
 import { invertedVBuilder } from './invertedV.ts';
 import type { AntennaTypeId, Builder } from './types.ts';
 import { verticalBuilder } from './vertical.ts';
+import { loadedVerticalBuilder, tTopVerticalBuilder, topHatVerticalBuilder } from './shortVerticals.ts';
+import { sloperBuilder, slopingVerticalBuilder } from './slopers.ts';
 import { verticalPairBuilder } from './verticalPair.ts';
 import { fourSquareBuilder } from './fourSquare.ts';
 import {
@@ -22,6 +24,11 @@ export const BUILDERS: readonly Builder[] = [
   halfSquareBuilder,
   verticalBuilder,
   invertedLBuilder,
+  topHatVerticalBuilder,
+  tTopVerticalBuilder,
+  loadedVerticalBuilder,
+  sloperBuilder,
+  slopingVerticalBuilder,
   verticalPairBuilder,
   fourSquareBuilder,
   halfSquareReflectorBuilder,

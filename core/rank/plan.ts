@@ -58,6 +58,7 @@ import {
 } from '../site/feasibility.ts';
 import { INVERTED_L_MAX_VERTICAL_FRACTION } from '../antennas/invertedL.ts';
 import { closestMiss, type MissingType } from './missing.ts';
+import { SHORT_SUPPORT_TYPES, isShortSupport } from '../antennas/shortVerticals.ts';
 import { convexHull, placeXYZ } from '../site/geometry.ts';
 import { buildSite, type Site } from '../site/site.ts';
 import { evaluateDesign, type EvaluationRecord } from './evaluate.ts';
@@ -469,7 +470,8 @@ function facing(broadsideDeg: readonly number[], paths: readonly RegionPath[]): 
 
 /**
  * The supports a builder of `type` is given on a lot with more than PLAN_BOUNDS.supports: the
- * tallest (for an inverted-L, the tallest of those short enough for its vertical part first), in
+ * tallest (for an inverted-L, the tallest of those short enough for its vertical part first; for
+ * the loaded and sloping verticals, of those shorter than a quarter wave), in
  * the lot's order.
  */
 /** Shortest support an inverted-L is proposed on, as a fraction of the wavelength (core/antennas/invertedL.ts). */
@@ -483,7 +485,9 @@ function supportsFor(prepared: PreparedSite, type: AntennaTypeId, wavelengthM: n
       ? Number(
           h < INVERTED_L_MAX_VERTICAL_FRACTION * wavelengthM && h >= INVERTED_L_MIN_FRACTION * wavelengthM,
         )
-      : 1;
+      : SHORT_SUPPORT_TYPES.has(type)
+        ? Number(isShortSupport(type, h, wavelengthM))
+        : 1;
   const chosen = new Set(
     all
       .map((s, i) => ({ s, i }))

@@ -75,6 +75,16 @@ export function highVoltageEndsText(type: string): string | null {
       return 'The lower ends of all four drops carry high RF voltage when you transmit, the idle or reflecting half-square’s too.';
     case 'inverted-l':
       return 'The far end of the top part carries high RF voltage when you transmit.';
+    case 'sloping-vertical':
+      return null;
+    case 'top-hat-vertical':
+      return 'The outer ends of the top-hat wires carry high RF voltage when you transmit.';
+    case 't-top-vertical':
+      return 'The far ends of both top wires carry high RF voltage when you transmit.';
+    case 'loaded-vertical':
+      return 'The loading coil and the wire above it carry high RF voltage when you transmit; a coil at the base is within reach, so fence it or box it.';
+    case 'sloper':
+      return 'Both ends of the sloper carry high RF voltage when you transmit, and its lower end hangs low.';
     case 'inverted-v':
       return 'Both ends of the inverted-V carry high RF voltage when you transmit, and they hang lowest.';
     case 'dipole':

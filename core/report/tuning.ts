@@ -17,6 +17,12 @@ export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {
   'half-square': 'Change both drops by the same amount (at their lower ends).',
   vertical: 'Change the length of the vertical wire at its top end.',
   'inverted-l': 'Change the wire at its far (top) end.',
+  'top-hat-vertical': 'Change all the top-hat wires by the same amount at their outer ends.',
+  't-top-vertical': 'Change both top wires by the same amount at their far ends.',
+  'loaded-vertical':
+    'Add or take off turns of the loading coil (a tap or a sliding clip on the winding makes it quick); the wire stays as it is.',
+  sloper: 'Take equal amounts off both ends (half of the change at each end).',
+  'sloping-vertical': 'Change the wire at its top end, where it meets the rope.',
   'vertical-pair':
     'Change both verticals by the same amount at their top ends; they stay identical (the relay box makes one the reflector).',
   'four-square':

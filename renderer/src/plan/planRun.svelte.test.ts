@@ -153,13 +153,15 @@ describe('candidates as drawn: their own elements and feed points', () => {
     const s = runner.shortlist!;
     for (const c of s.candidates) {
       expect(c.elements.some((e) => e.role === 'radiator' || e.role === 'top-wire')).toBe(true);
-      // The feed lies on one of the candidate's placed wires (to a centimetre: it is rounded to one).
+      // The feed lies on one of the candidate's placed wires (to a centimetre: each coordinate is
+      // rounded to one, so it lies within √3·0.005 m of the wire).
       const f = c.feedPoints[0]!.xyz;
       const onWire = c.wires.some((w) => {
-        const ab = Math.hypot(w.to[0] - w.from[0], w.to[1] - w.from[1], w.to[2] - w.from[2]);
-        const af = Math.hypot(f[0] - w.from[0], f[1] - w.from[1], f[2] - w.from[2]);
-        const fb = Math.hypot(w.to[0] - f[0], w.to[1] - f[1], w.to[2] - f[2]);
-        return Math.abs(af + fb - ab) < 1e-2;
+        const d = [0, 1, 2].map((k) => w.to[k] - w.from[k]);
+        const q = [0, 1, 2].map((k) => f[k] - w.from[k]);
+        const dd = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+        const t = Math.max(0, Math.min(1, (q[0] * d[0] + q[1] * d[1] + q[2] * d[2]) / dd));
+        return Math.hypot(q[0] - t * d[0], q[1] - t * d[1], q[2] - t * d[2]) < 1e-2;
       });
       expect(onWire, c.id).toBe(true);
     }
