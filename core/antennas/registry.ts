@@ -15,6 +15,7 @@ import {
   halfSquareReflectorBuilder,
   halfSquareSwitchedBuilder,
 } from './halfSquareArrays.ts';
+import { phasedPairBuilder } from './phasedPair.ts';
 
 export const BUILDERS: readonly Builder[] = [
   dipoleBuilder,
@@ -27,6 +28,7 @@ export const BUILDERS: readonly Builder[] = [
   halfSquareReflectorBuilder,
   halfSquareSwitchedBuilder,
   halfSquareLBuilder,
+  phasedPairBuilder,
 ];
 
 export function builderFor(type: AntennaTypeId): Builder {

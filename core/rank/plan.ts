@@ -313,7 +313,10 @@ export interface Shortlist {
     /** Where the enumeration's bounds (PLAN_BOUNDS) left placements out; empty when none did. */
     cuts: PlanCut[];
   };
-  /** Canonical patterns by evaluation key (for comparisons; large, left out of compact output). */
+  /**
+   * Canonical patterns by evaluation key (for comparisons; large, left out of compact output); an
+   * array's other phasings under variantPatternKey(key, k).
+   */
   patterns: Record<string, number[]>;
 }
 
@@ -695,6 +698,8 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
         rec.gainDbi,
         q.proposal.placement.rotationDeg,
         q.proposal.design,
+        0,
+        variantPatterns(rec),
       );
       const prev = best.get(q.proposal.groupKey);
       if (!prev || score > prev.score) best.set(q.proposal.groupKey, { i, score });
@@ -710,6 +715,16 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
   setup.conductorJobs = [...jobs.values()];
   setup.conductorChoice = choice;
   return setup.conductorJobs;
+}
+
+/** The patterns of an array's other phasings (EvaluationRecord.variants), in order. */
+export function variantPatterns(rec: EvaluationRecord): number[][] {
+  return (rec.variants ?? []).map((v) => v.gainDbi);
+}
+
+/** Key in Shortlist.patterns of variant k's pattern of the design of evaluation key `key`. */
+export function variantPatternKey(key: string, k: number): string {
+  return `${key}~variant~${k}`;
 }
 
 /** Cache key of the soil-range record of the design of evaluation key `key`. */
@@ -841,6 +856,7 @@ export function rankPlan(
         rot,
         p.design,
         rec.peak.azimuthDeg,
+        variantPatterns(rec),
       );
       const s: Scored = {
         p,
@@ -890,7 +906,15 @@ export function rankPlan(
         if (alt && alt.gainDbi.length)
           perSoil.set(
             id,
-            scoreStates(scoreOf, pathWeights, alt.gainDbi, p.placement.rotationDeg, p.design).score,
+            scoreStates(
+              scoreOf,
+              pathWeights,
+              alt.gainDbi,
+              p.placement.rotationDeg,
+              p.design,
+              0,
+              alt.variants ?? [],
+            ).score,
           );
       }
       soilScores.push(perSoil);
@@ -900,6 +924,7 @@ export function rankPlan(
       );
       const builder = builderFor(p.design.type);
       patterns[key] = rec.gainDbi;
+      variantPatterns(rec).forEach((g, k) => (patterns[variantPatternKey(key, k + 1)] = g));
       const plan: XY[] = [];
       for (const e of elements) {
         if ('from' in e) plan.push([e.from[0], e.from[1]], [e.to[0], e.to[1]]);

@@ -10,6 +10,7 @@
  * control cable along the feed line; relays whose contacts carry the station's RF current
  * (√(P / 50 Ω) into a 50 Ω line) with margin.
  */
+import type { ElementFeed } from '../antennas/arrayFeed.ts';
 import type { Candidate } from '../rank/plan.ts';
 import type { XY } from '../site/frame.ts';
 import type { BomItem } from './bom.ts';
@@ -27,6 +28,17 @@ export interface ArrayWiring {
   /** Per element: drive impedance and the current relative to the reference element (direction 1). */
   feed: { label: string; zText: string; current: string }[];
   networkLossPercent: number | null;
+  /**
+   * Directions of another phasing (a state with `variant`): the impedance the station's line sees
+   * there and what that network achieves, per element.
+   */
+  otherPhasings: {
+    n: number;
+    name: string;
+    feedText: string;
+    feed: { label: string; zText: string; current: string }[];
+    networkLossPercent: number;
+  }[];
 }
 
 const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
@@ -34,6 +46,7 @@ const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
   'half-square-switched': 'on the ground midway between the feet of the two fed drops',
   'half-square-l': 'on the ground midway between the feet of the two fed drops, near the corner support',
   'four-square': 'at the centre of the square',
+  'phased-pair': 'on the ground midway between the two verticals',
 };
 
 /** The relays of each array type and the coils each direction energises (common practice, no source). */
@@ -58,6 +71,14 @@ function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
           'K1, single-pole double-throw: its common contact takes the station line; the normally closed contact goes to the line to leg 1, the normally open one to the line to leg 2. The idle line stays open at the relay (do not ground it: a whole number of half waves repeats the open circuit at the idle half-square).',
         ],
         coils: ['none', 'K1'],
+      };
+    case 'phased-pair':
+      return {
+        relays: [
+          'K1, double-pole double-throw, swaps the two element lines: coil off, the line to vertical R goes to the junction of the station line and the line to vertical F to the far end of the delay line; coil on, the other way round.',
+          'K2, double-pole double-throw, takes the delay line out: coil off, the delay line runs from the junction to K1; coil on, both ends of the delay line are disconnected (left open) and K1’s delayed side is joined straight to the junction.',
+        ],
+        coils: ['none', 'K1', 'K2'],
       };
     case 'four-square':
       return {
@@ -123,14 +144,30 @@ export function arrayWiring(
         `Relay contacts rated for at least ${amps.toFixed(1)} A RF (√(${powerW} W / 50 Ω)) with margin; switch only while not transmitting.`,
       ]
     : [];
-  const feed = (c.arrayFeed?.elements ?? []).map((el) => ({
-    label: el.label,
-    zText: fmtZ(el.driveImpedanceOhm, el.currentRatio),
-    current:
-      el.currentRatio < 1e-3
-        ? '≈ 0'
-        : `${el.currentRatio.toFixed(2)} at ${el.currentPhaseDeg >= 0 ? '+' : '−'}${Math.abs(el.currentPhaseDeg).toFixed(0)}°`,
-  }));
+  const feedRows = (els: readonly ElementFeed[]) =>
+    els.map((el) => ({
+      label: el.label,
+      zText: fmtZ(el.driveImpedanceOhm, el.currentRatio),
+      current:
+        el.currentRatio < 1e-3
+          ? '≈ 0'
+          : `${el.currentRatio.toFixed(2)} at ${el.currentPhaseDeg >= 0 ? '+' : '−'}${Math.abs(el.currentPhaseDeg).toFixed(0)}°`,
+    }));
+  const feed = feedRows(c.arrayFeed?.elements ?? []);
+  const specs = c.design.states ?? [];
+  const otherPhasings = specs.flatMap((s, i) => {
+    const v = s.variant !== undefined ? c.arrayFeed?.variants?.[s.variant - 1] : undefined;
+    if (!v) return [];
+    return [
+      {
+        n: i + 1,
+        name: s.name,
+        feedText: `${fmtZ(v.feedZOhm, 1)}, SWR ${v.swr.toFixed(2)} on 50 Ω`,
+        feed: feedRows(v.elements),
+        networkLossPercent: 100 * v.networkLossShare,
+      },
+    ];
+  });
   return {
     boxXY,
     boxWhere: ARRAYS_WITH_BOX[c.type] ?? 'no relay box: the array has one direction',
@@ -139,6 +176,7 @@ export function arrayWiring(
     control,
     feed,
     networkLossPercent: c.arrayFeed ? 100 * c.arrayFeed.networkLossShare : null,
+    otherPhasings,
   };
 }
 
@@ -160,7 +198,7 @@ export function arrayBom(
       detail: lines.map((i) => `${i.count} × ${L.cut(i.cutLengthM)} (${i.label})`).join('; '),
       source: 'the cut list (lengths designed from the velocity factor); connectors at each end',
     });
-  const relayCount = w.relays.length === 0 ? 0 : c.type === 'four-square' ? 4 : 1;
+  const relayCount = w.relays.length === 0 ? 0 : c.type === 'four-square' ? 4 : w.relays.length;
   if (relayCount) {
     out.push({
       item: 'Relays, 12 V DC coil',

@@ -66,6 +66,7 @@ export function highVoltageEndsText(type: string): string | null {
     case 'vertical':
     case 'vertical-pair':
     case 'four-square':
+    case 'phased-pair':
       return null;
     case 'half-square':
       return 'The lower ends of the two drops carry high RF voltage when you transmit.';

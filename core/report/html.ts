@@ -91,7 +91,20 @@ function arrayHtml(s: BuildSheet): string {
               : ''
           } The relay and control practice is common practice, no source; follow the relay maker's ratings.`,
         )}</p>`
-      : '')
+      : '') +
+    a.otherPhasings
+      .map(
+        (o) =>
+          `<h3>What the feed network achieves (direction ${o.n}: ${e(o.name)})</h3>` +
+          table(
+            ['Element feed', 'Drive impedance', 'Current (relative, phase)'],
+            o.feed.map((f) => [f.label, f.zText, f.current]),
+          ) +
+          `<p class="note">${e(
+            `The station's line sees ${o.feedText} at the box in this direction; the lines take ${o.networkLossPercent.toFixed(1)} % of the power.`,
+          )}</p>`,
+      )
+      .join('')
   );
 }
 
