@@ -8,7 +8,7 @@ import { invertedLBuilder } from './invertedL.ts';
 import { invertedVBuilder } from './invertedV.ts';
 import type { AntennaTypeId, Builder } from './types.ts';
 import { verticalBuilder } from './vertical.ts';
-import { verticalPairBuilder } from './verticalPair.ts';
+import { directorPairBuilder, verticalPairBuilder } from './verticalPair.ts';
 import { fourSquareBuilder } from './fourSquare.ts';
 import {
   halfSquareLBuilder,
@@ -29,6 +29,7 @@ export const BUILDERS: readonly Builder[] = [
   halfSquareSwitchedBuilder,
   halfSquareLBuilder,
   phasedPairBuilder,
+  directorPairBuilder,
 ];
 
 export function builderFor(type: AntennaTypeId): Builder {

@@ -25,6 +25,7 @@ export type AntennaTypeId =
   | 'half-square-switched'
   | 'half-square-l'
   | 'phased-pair'
+  | 'vertical-pair-director'
   | (string & {});
 
 /** One straight conductor of the model. */

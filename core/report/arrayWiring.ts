@@ -47,6 +47,7 @@ const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
   'half-square-l': 'on the ground midway between the feet of the two fed drops, near the corner support',
   'four-square': 'at the centre of the square',
   'phased-pair': 'on the ground midway between the two verticals',
+  'vertical-pair-director': 'on the ground midway between the two verticals',
 };
 
 /** The relays of each array type and the coils each direction energises (common practice, no source). */
@@ -69,6 +70,13 @@ function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
       return {
         relays: [
           'K1, single-pole double-throw: its common contact takes the station line; the normally closed contact goes to the line to leg 1, the normally open one to the line to leg 2. The idle line stays open at the relay (do not ground it: a whole number of half waves repeats the open circuit at the idle half-square).',
+        ],
+        coils: ['none', 'K1'],
+      };
+    case 'vertical-pair-director':
+      return {
+        relays: [
+          'K1, double-pole double-throw. Pole 1: the line to the vertical B goes to the station line (coil off) or to the director stub (coil on). Pole 2: the line to the vertical A goes to the director stub (coil off) or to the station line (coil on). The stub’s far end stays open: tape and seal it.',
         ],
         coils: ['none', 'K1'],
       };

@@ -67,6 +67,7 @@ export function highVoltageEndsText(type: string): string | null {
     case 'vertical-pair':
     case 'four-square':
     case 'phased-pair':
+    case 'vertical-pair-director':
       return null;
     case 'half-square':
       return 'The lower ends of the two drops carry high RF voltage when you transmit.';
