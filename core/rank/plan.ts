@@ -35,6 +35,7 @@ import type {
   WireModel,
 } from '../antennas/types.ts';
 import type { Caution } from '../report/cautions.ts';
+import { relayBoxXY } from '../report/arrayWiring.ts';
 import {
   candidateCautions,
   conductingSupportElements,
@@ -937,9 +938,16 @@ export function rankPlan(
       ]);
       const model = builder.model(p.design, rec.trimM);
       const feedPoints = feedPointsOf(model, p.placement, site.frame);
+      const withRoles = elementsWithRoles(elements);
+      // an array's station line ends at its relay box, on the ground (core/report/arrayWiring.ts)
+      const box =
+        (builder.elementCount ?? 1) >= 2 ? relayBoxXY(p.design.type, withRoles, p.placement.originXY) : null;
       const placed = [
-        ...elementsWithRoles(elements),
-        ...feedLineElement(site.station, feedPoints[0]),
+        ...withRoles,
+        ...feedLineElement(
+          site.station,
+          box ? { xyz: [box[0], box[1], 0], lonLat: site.frame.toLonLat(box) } : feedPoints[0],
+        ),
         ...conductingSupportElements(p.design.conductors ?? [], p.placement),
       ];
       const peakAz = (rec.peak.azimuthDeg + p.placement.rotationDeg + 360) % 360;

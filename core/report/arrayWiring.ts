@@ -12,6 +12,7 @@
  */
 import type { ElementFeed } from '../antennas/arrayFeed.ts';
 import type { Candidate } from '../rank/plan.ts';
+import type { PlacedElement } from '../rank/candidate.ts';
 import type { XY } from '../site/frame.ts';
 import type { BomItem } from './bom.ts';
 import type { SheetLengths } from './format.ts';
@@ -49,6 +50,34 @@ const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
   'phased-pair': 'on the ground midway between the two verticals',
   'vertical-pair-director': 'on the ground midway between the two verticals',
 };
+
+/**
+ * Where an array's relay box sits on the site: where the array's coax meets the ground, else (a
+ * group of verticals) the array's centre; null for a type without a box. The station's feed line
+ * ends there (the build sheet's feed run, the plan's feed-line element, the app's route).
+ */
+export function relayBoxXY(
+  type: string,
+  elements: readonly PlacedElement[],
+  originXY: readonly [number, number],
+): XY | null {
+  const ground = elements.flatMap((e) =>
+    e.role === 'coax' && 'to' in e && e.to[2] === 0 ? [[e.to[0], e.to[1]] as XY] : [],
+  );
+  if (ground.length) return ground[0];
+  return ARRAYS_WITH_BOX[type] ? [originXY[0], originXY[1]] : null;
+}
+
+/**
+ * Where the station's feed line ends for a candidate: an array's relay box (on the ground), else
+ * its first feed point; null without either.
+ */
+export function stationLineEnd(c: Candidate): [number, number, number] | null {
+  const box = c.elementCount >= 2 ? relayBoxXY(c.type, c.elements, c.placement.originXY) : null;
+  if (box) return [box[0], box[1], 0];
+  const f = c.feedPoints[0]?.xyz;
+  return f ? [f[0], f[1], f[2]] : null;
+}
 
 /** The relays of each array type and the coils each direction energises (common practice, no source). */
 function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
@@ -119,14 +148,7 @@ export function arrayWiring(
   powerW: number,
 ): ArrayWiring | null {
   if (c.elementCount < 2) return null;
-  const coax = c.elements.filter((e) => e.role === 'coax');
-  const ground = coax.flatMap((e) => ('to' in e && e.to[2] === 0 ? [[e.to[0], e.to[1]] as XY] : []));
-  // the box: where the array's coax meets on the ground, else (verticals) the array's centre
-  const boxXY: XY | null = ground.length
-    ? ground[0]
-    : ARRAYS_WITH_BOX[c.type]
-      ? [c.placement.originXY[0], c.placement.originXY[1]]
-      : null;
+  const boxXY = relayBoxXY(c.type, c.elements, c.placement.originXY);
   const { relays, coils } = relaysOf(c);
   const directions =
     c.states.length > 1
