@@ -21,6 +21,11 @@ export interface ElementFeed {
 export interface ArrayFeed {
   elements: ElementFeed[];
   networkLossShare: number;
+  /**
+   * States of another phasing (Design.states[].variant; variant k is variants[k − 1]): what that
+   * network achieves and the impedance the station's line sees there.
+   */
+  variants?: { elements: ElementFeed[]; networkLossShare: number; feedZOhm: [number, number]; swr: number }[];
 }
 
 /** Drive impedances and current ratios of the feeds, relative to feed `reference`. */

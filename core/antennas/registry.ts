@@ -10,13 +10,14 @@ import type { AntennaTypeId, Builder } from './types.ts';
 import { verticalBuilder } from './vertical.ts';
 import { loadedVerticalBuilder, tTopVerticalBuilder, topHatVerticalBuilder } from './shortVerticals.ts';
 import { sloperBuilder, slopingVerticalBuilder } from './slopers.ts';
-import { verticalPairBuilder } from './verticalPair.ts';
+import { directorPairBuilder, verticalPairBuilder } from './verticalPair.ts';
 import { fourSquareBuilder } from './fourSquare.ts';
 import {
   halfSquareLBuilder,
   halfSquareReflectorBuilder,
   halfSquareSwitchedBuilder,
 } from './halfSquareArrays.ts';
+import { phasedPairBuilder } from './phasedPair.ts';
 
 export const BUILDERS: readonly Builder[] = [
   dipoleBuilder,
@@ -34,6 +35,8 @@ export const BUILDERS: readonly Builder[] = [
   halfSquareReflectorBuilder,
   halfSquareSwitchedBuilder,
   halfSquareLBuilder,
+  phasedPairBuilder,
+  directorPairBuilder,
 ];
 
 export function builderFor(type: AntennaTypeId): Builder {

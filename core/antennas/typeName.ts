@@ -22,6 +22,8 @@ const TYPE_NAMES: Record<string, string> = {
   'half-square-reflector': 'Half-square + reflector',
   'half-square-switched': 'Switched half-square pair',
   'half-square-l': 'Half-square L (switched)',
+  'phased-pair': 'Phased vertical pair',
+  'vertical-pair-director': 'Switched vertical pair (director)',
 };
 
 /** The short display name of a type; an id this version does not know reads as its words, capitalised. */

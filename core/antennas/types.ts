@@ -29,6 +29,8 @@ export type AntennaTypeId =
   | 'half-square-reflector'
   | 'half-square-switched'
   | 'half-square-l'
+  | 'phased-pair'
+  | 'vertical-pair-director'
   | (string & {});
 
 /** One straight conductor of the model. */
@@ -77,6 +79,11 @@ export interface WireModel {
   network?: NetworkSpec;
   /** Arrays of verticals: the radial fields meet and are bonded (core/em/bondedRadials.ts). */
   radialsBonded?: boolean;
+  /**
+   * Arrays with states of another phasing (Design.states[].variant): the network of each such
+   * variant, in order (variant k is stateNetworks[k − 1]), in place of `network`.
+   */
+  stateNetworks?: NetworkSpec[];
   /** Arrays: the feed whose current the achieved current ratios refer to (default 0). */
   referenceFeed?: number;
 }
@@ -103,7 +110,19 @@ export interface Design {
    * `rotationDeg` in the canonical frame (core/rank/states.ts); a fixed antenna has none. State 1
    * beams toward canonical north.
    */
-  states?: { name: string; rotationDeg: number; mirrorAxisDeg?: number }[];
+  states?: {
+    name: string;
+    rotationDeg: number;
+    mirrorAxisDeg?: number;
+    /**
+     * A state whose pattern is not a turn or mirror of state 1's (other phasing): solved on its own
+     * with the model's `stateNetworks[variant − 1]` at the same trim (EvaluationRecord.variants);
+     * its mirror and rotation then apply to that pattern.
+     */
+    variant?: number;
+    /** Canonical bearing of the state's beam before its rotation (default 0, or twice the mirror axis). */
+    beamDeg?: number;
+  }[];
 }
 
 /** Canonical frame → site: rotate clockwise (compass sense) by rotationDeg about the origin, then translate. */

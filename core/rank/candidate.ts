@@ -62,6 +62,14 @@ export type GroundSystem =
       radiusM: number;
       baseXY: XY;
       baseLonLat: LonLat;
+      /**
+       * Each base's radials apart (an array of verticals has one field per vertical; the fields
+       * above are their union, the base the first's): the wire's label, its base on the site,
+       * and its radials' lengths and compass bearings. Absent in plans saved before it was added.
+       */
+      fields?: { label: string; baseXY: XY; lengthsM: number[]; bearingsDeg: number[] }[];
+      /** The fields meet and are cut and bonded on the lines midway between the bases. */
+      bonded?: boolean;
     };
 
 const r2 = (v: number): number => Math.round(v * 100) / 100;
@@ -134,16 +142,29 @@ export function groundSystemOf(model: WireModel, placement: Placement, frame: Si
   const base = w.from[2] <= w.to[2] ? w.from : w.to;
   const q = placeXYZ(base, placement.rotationDeg, placement.originXY);
   const baseXY: XY = [r2(q[0]), r2(q[1])];
-  const lengthsM = model.radials.flatMap((x) => x.lengthsM);
-  const n = lengthsM.length;
+  // each field's radials are equally spaced from the design's canonical north, in order
+  const fields = model.radials.map((x) => {
+    const wx = model.wires[x.wire];
+    const b = wx.from[2] <= wx.to[2] ? wx.from : wx.to;
+    const p = placeXYZ(b, placement.rotationDeg, placement.originXY);
+    const n = x.lengthsM.length;
+    return {
+      label: wx.label,
+      baseXY: [r2(p[0]), r2(p[1])] as XY,
+      lengthsM: x.lengthsM.map(r2),
+      bearingsDeg: (x.bearingsDeg ?? x.lengthsM.map((_, k) => (k * 360) / n)).map((b) =>
+        r2((((b + placement.rotationDeg) % 360) + 360) % 360),
+      ),
+    };
+  });
+  const lengthsM = fields.flatMap((f) => f.lengthsM);
   return {
     kind: 'radials',
-    count: n,
-    lengthsM: lengthsM.map(r2),
-    bearingsDeg: (model.radials.some((x) => x.bearingsDeg)
-      ? model.radials.flatMap((x) => x.bearingsDeg ?? x.lengthsM.map((_, k) => (k * 360) / x.count))
-      : lengthsM.map((_, k) => (k * 360) / n)
-    ).map((b) => r2((((b + placement.rotationDeg) % 360) + 360) % 360)),
+    count: lengthsM.length,
+    lengthsM,
+    bearingsDeg: fields.flatMap((f) => f.bearingsDeg),
+    fields,
+    bonded: model.radialsBonded === true && fields.length > 1,
     radiusM: r.radiusM,
     baseXY,
     baseLonLat: frame.toLonLat(baseXY),

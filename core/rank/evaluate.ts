@@ -14,7 +14,7 @@
  */
 import { evaluationModel } from '../antennas/conductors.ts';
 import { ModelError } from '../em/errors.ts';
-import type { Design } from '../antennas/types.ts';
+import type { Design, WireModel } from '../antennas/types.ts';
 import { swrEdges, swrOf } from '../em/swr.ts';
 import { quadraticThrough } from '../numeric/fit.ts';
 import { trimToResonance } from '../numeric/roots.ts';
@@ -51,7 +51,7 @@ export interface EvaluationRecord {
    * The pattern over other soil classes (the soil range), at the trim found over the project's
    * soil: gain on PATTERN_GRID, one entry per class asked for. Absent when none was asked.
    */
-  soilRange?: { soilId: string; gainDbi: number[] }[];
+  soilRange?: { soilId: string; gainDbi: number[]; variants?: number[][] }[];
   /**
    * Set when the field solver refused the design (core/em ModelError: coincident wires from
    * supports at one place, a wire on the ground, …): the reason. The plan rejects the placement
@@ -59,6 +59,20 @@ export interface EvaluationRecord {
    */
   unsolvable?: string;
   /** Arrays: what the feed network achieves at f0 (core/antennas/arrayFeed.ts). */
+  arrayFeed?: ArrayFeed;
+  /**
+   * Arrays with states of another phasing (Design.states[].variant): each variant's network
+   * (WireModel.stateNetworks) solved at f0 at the same trim, with its pattern, the impedance the
+   * station's line sees and what the network achieves. Variant k is variants[k − 1].
+   */
+  variants?: VariantRecord[];
+}
+
+/** One variant of an array's feed network, solved at the design's trim (EvaluationRecord.variants). */
+export interface VariantRecord {
+  gainDbi: number[];
+  zOhm: [number, number];
+  swr: number;
   arrayFeed?: ArrayFeed;
 }
 
@@ -105,8 +119,9 @@ function one(
   ground: EvalGround,
   freqs: number[],
   pattern: boolean,
+  variant = 0,
 ): EvalFrequency[] {
-  const model = evaluationModel(design, trimM);
+  const model = variantModel(evaluationModel(design, trimM), variant);
   return evaluator({
     model,
     ground,
@@ -115,6 +130,41 @@ function one(
       ? { elevationsDeg: PATTERN_GRID.elevationsDeg, azimuthsDeg: PATTERN_GRID.azimuthsDeg }
       : null,
   });
+}
+
+/** The model with variant k's network in place of its own (k = 0: the model itself). */
+function variantModel(model: WireModel, k: number): WireModel {
+  if (k === 0) return model;
+  const net = model.stateNetworks?.[k - 1];
+  if (!net) throw new Error(`the model has no network for variant ${k}`);
+  return { ...model, network: net };
+}
+
+/** How many variants (other phasings) the design's model has. */
+function variantCount(design: Design): number {
+  return evaluationModel(design, design.trim.nominalM).stateNetworks?.length ?? 0;
+}
+
+/** Each variant of the design solved at f0 at `trimM`, with pattern (EvaluationRecord.variants). */
+function variantRecords(
+  design: Design,
+  trimM: number,
+  ground: EvalGround,
+  evaluator: Evaluator,
+): VariantRecord[] {
+  const out: VariantRecord[] = [];
+  for (let k = 1; k <= variantCount(design); k++) {
+    const r = one(evaluator, design, trimM, ground, [design.designFreqHz], true, k)[0];
+    out.push({
+      gainDbi: r.gainDbi ? Array.from(r.gainDbi) : [],
+      zOhm: r.zOhm,
+      swr: swrOf(r.zOhm[0], r.zOhm[1], Z0_OHM),
+      ...(r.ports
+        ? { arrayFeed: arrayFeedOf(design, trimM, r.ports, r.networkLossW ?? 0, r.inputPowerW ?? 0) }
+        : {}),
+    });
+  }
+  return out;
 }
 
 /**
@@ -143,7 +193,12 @@ function soilRangeRecord(
     diagnostics: [],
     soilRange: soilRange.map((soilId) => {
       const r = one(evaluator, design, trimM, { classId: soilId }, [f0], true)[0];
-      return { soilId, gainDbi: r.gainDbi ? Array.from(r.gainDbi) : [] };
+      const variants = variantRecords(design, trimM, { classId: soilId }, evaluator).map((v) => v.gainDbi);
+      return {
+        soilId,
+        gainDbi: r.gainDbi ? Array.from(r.gainDbi) : [],
+        ...(variants.length ? { variants } : {}),
+      };
     }),
   };
 }
@@ -246,6 +301,7 @@ function evaluateDesignOrThrow(
   const range = soilRange.length
     ? (soilRangeRecord(design, evaluator, soilRange, trimM).soilRange ?? [])
     : [];
+  const variants = variantRecords(design, trimM, ground, evaluator);
   return {
     trimM,
     resonant,
@@ -273,7 +329,22 @@ function evaluateDesignOrThrow(
     diagnostics: [...new Set(diagnostics)],
     ...(range.length ? { soilRange: range } : {}),
     ...(main.ports
-      ? { arrayFeed: arrayFeedOf(design, trimM, main.ports, main.networkLossW ?? 0, inputPowerW) }
+      ? {
+          arrayFeed: {
+            ...arrayFeedOf(design, trimM, main.ports, main.networkLossW ?? 0, inputPowerW),
+            ...(variants.length
+              ? {
+                  variants: variants.map((v) => ({
+                    elements: v.arrayFeed?.elements ?? [],
+                    networkLossShare: v.arrayFeed?.networkLossShare ?? 0,
+                    feedZOhm: v.zOhm,
+                    swr: v.swr,
+                  })),
+                }
+              : {}),
+          },
+        }
       : {}),
+    ...(variants.length ? { variants } : {}),
   };
 }

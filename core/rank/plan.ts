@@ -35,6 +35,7 @@ import type {
   WireModel,
 } from '../antennas/types.ts';
 import type { Caution } from '../report/cautions.ts';
+import { relayBoxXY } from '../report/arrayWiring.ts';
 import {
   candidateCautions,
   conductingSupportElements,
@@ -339,7 +340,10 @@ export interface Shortlist {
     /** Where the enumeration's bounds (PLAN_BOUNDS) left placements out; empty when none did. */
     cuts: PlanCut[];
   };
-  /** Canonical patterns by evaluation key (for comparisons; large, left out of compact output). */
+  /**
+   * Canonical patterns by evaluation key (for comparisons; large, left out of compact output); an
+   * array's other phasings under variantPatternKey(key, k).
+   */
   patterns: Record<string, number[]>;
 }
 
@@ -726,6 +730,8 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
         rec.gainDbi,
         q.proposal.placement.rotationDeg,
         q.proposal.design,
+        0,
+        variantPatterns(rec),
       );
       const prev = best.get(q.proposal.groupKey);
       if (!prev || score > prev.score) best.set(q.proposal.groupKey, { i, score });
@@ -741,6 +747,16 @@ export function conductorJobs(setup: PlanSetup, cache: EvaluationCache, project:
   setup.conductorJobs = [...jobs.values()];
   setup.conductorChoice = choice;
   return setup.conductorJobs;
+}
+
+/** The patterns of an array's other phasings (EvaluationRecord.variants), in order. */
+export function variantPatterns(rec: EvaluationRecord): number[][] {
+  return (rec.variants ?? []).map((v) => v.gainDbi);
+}
+
+/** Key in Shortlist.patterns of variant k's pattern of the design of evaluation key `key`. */
+export function variantPatternKey(key: string, k: number): string {
+  return `${key}~variant~${k}`;
 }
 
 /** Cache key of the soil-range record of the design of evaluation key `key`. */
@@ -876,6 +892,7 @@ export function rankPlan(
         rot,
         p.design,
         rec.peak.azimuthDeg,
+        variantPatterns(rec),
       );
       const s: Scored = {
         p,
@@ -939,7 +956,15 @@ export function rankPlan(
         if (alt && alt.gainDbi.length)
           perSoil.set(
             id,
-            scoreStates(scoreOf, pathWeights, alt.gainDbi, p.placement.rotationDeg, p.design).score,
+            scoreStates(
+              scoreOf,
+              pathWeights,
+              alt.gainDbi,
+              p.placement.rotationDeg,
+              p.design,
+              0,
+              alt.variants ?? [],
+            ).score,
           );
       }
       soilScores.push(perSoil);
@@ -949,6 +974,7 @@ export function rankPlan(
       );
       const builder = builderFor(p.design.type);
       patterns[key] = rec.gainDbi;
+      variantPatterns(rec).forEach((g, k) => (patterns[variantPatternKey(key, k + 1)] = g));
       const plan: XY[] = [];
       for (const e of elements) {
         if ('from' in e) plan.push([e.from[0], e.from[1]], [e.to[0], e.to[1]]);
@@ -961,9 +987,16 @@ export function rankPlan(
       ]);
       const model = builder.model(p.design, rec.trimM);
       const feedPoints = feedPointsOf(model, p.placement, site.frame);
+      const withRoles = elementsWithRoles(elements);
+      // an array's station line ends at its relay box, on the ground (core/report/arrayWiring.ts)
+      const box =
+        (builder.elementCount ?? 1) >= 2 ? relayBoxXY(p.design.type, withRoles, p.placement.originXY) : null;
       const placed = [
-        ...elementsWithRoles(elements),
-        ...feedLineElement(site.station, feedPoints[0]),
+        ...withRoles,
+        ...feedLineElement(
+          site.station,
+          box ? { xyz: [box[0], box[1], 0], lonLat: site.frame.toLonLat(box) } : feedPoints[0],
+        ),
         ...conductingSupportElements(p.design.conductors ?? [], p.placement),
       ];
       const peakAz = (rec.peak.azimuthDeg + p.placement.rotationDeg + 360) % 360;

@@ -1,7 +1,8 @@
 /**
  * Switchable directions (relay states) of an array: each state's pattern is the evaluated pattern
  * turned by the state's rotation, or mirrored first across a vertical plane when the array is
- * mirror-symmetric rather than turn-symmetric (Design.states, `statePattern`), each region is
+ * mirror-symmetric rather than turn-symmetric (Design.states, `statePattern`); a state of another
+ * phasing (`variant`) starts from its own solved pattern (EvaluationRecord.variants). Each region is
  * served by its best state, and the score is the weighted mean of those best region gains, as for
  * a fixed antenna.
  */
@@ -11,12 +12,22 @@ import { PATTERN_GRID } from './pattern.ts';
 type StateSpec = NonNullable<Design['states']>[number];
 
 /**
- * The canonical pattern (PATTERN_GRID, elevation-major) of one state: the evaluated pattern
- * mirrored across the vertical plane at canonical bearing `mirrorAxisDeg` (az → 2φ − az) when the
+ * The canonical pattern (PATTERN_GRID, elevation-major) of one state: the evaluated pattern (or,
+ * for a state with `variant` k, `variants[k − 1]`, the pattern of that phasing) mirrored across the vertical plane at canonical bearing `mirrorAxisDeg` (az → 2φ − az) when the
  * state has one; its `rotationDeg` is applied by the placement like any rotation. The axis must
  * map the 2° grid onto itself (a whole number of degrees).
  */
-export function statePattern(gainDbi: readonly number[], state: StateSpec): readonly number[] {
+export function statePattern(
+  gainDbi: readonly number[],
+  state: StateSpec,
+  variants: readonly (readonly number[])[] = [],
+): readonly number[] {
+  if (state.variant !== undefined) {
+    const v = variants[state.variant - 1];
+    if (!v || v.length !== gainDbi.length)
+      throw new Error(`statePattern: the pattern of variant ${state.variant} is missing`);
+    gainDbi = v;
+  }
   if (state.mirrorAxisDeg === undefined) return gainDbi;
   const az = PATTERN_GRID.azimuthsDeg;
   const nAz = az.length;
@@ -51,6 +62,13 @@ export interface StatesScore {
   states: StateResult[];
 }
 
+/** Canonical bearing of a state's beam before its rotation: its own, else twice its mirror axis, else 0. */
+export function stateBeamDeg(s: StateSpec): number {
+  if (s.beamDeg !== undefined)
+    return s.mirrorAxisDeg === undefined ? s.beamDeg : 2 * s.mirrorAxisDeg - s.beamDeg;
+  return s.mirrorAxisDeg === undefined ? 0 : 2 * s.mirrorAxisDeg;
+}
+
 const norm = (deg: number): number => Math.round((((deg % 360) + 360) % 360) * 10) / 10;
 
 /**
@@ -65,12 +83,13 @@ export function scoreStates(
   rot: number,
   design: Pick<Design, 'states'>,
   peakAzDeg = 0,
+  variants: readonly (readonly number[])[] = [],
 ): StatesScore {
   const states = design.states?.length ? design.states : [{ name: 'fixed', rotationDeg: 0 }];
   const fixed = !design.states?.length;
   const results: StateResult[] = states.map((s) => {
-    const r = base(statePattern(gainDbi, s), rot + s.rotationDeg);
-    const beam = s.mirrorAxisDeg === undefined ? 0 : 2 * s.mirrorAxisDeg;
+    const r = base(statePattern(gainDbi, s, variants), rot + s.rotationDeg);
+    const beam = stateBeamDeg(s);
     return {
       name: s.name,
       beamDeg: norm(fixed ? rot + peakAzDeg : rot + s.rotationDeg + beam),

@@ -10,7 +10,9 @@
  * control cable along the feed line; relays whose contacts carry the station's RF current
  * (√(P / 50 Ω) into a 50 Ω line) with margin.
  */
+import type { ElementFeed } from '../antennas/arrayFeed.ts';
 import type { Candidate } from '../rank/plan.ts';
+import type { PlacedElement } from '../rank/candidate.ts';
 import type { XY } from '../site/frame.ts';
 import type { BomItem } from './bom.ts';
 import type { SheetLengths } from './format.ts';
@@ -27,6 +29,17 @@ export interface ArrayWiring {
   /** Per element: drive impedance and the current relative to the reference element (direction 1). */
   feed: { label: string; zText: string; current: string }[];
   networkLossPercent: number | null;
+  /**
+   * Directions of another phasing (a state with `variant`): the impedance the station's line sees
+   * there and what that network achieves, per element.
+   */
+  otherPhasings: {
+    n: number;
+    name: string;
+    feedText: string;
+    feed: { label: string; zText: string; current: string }[];
+    networkLossPercent: number;
+  }[];
 }
 
 const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
@@ -34,7 +47,37 @@ const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
   'half-square-switched': 'on the ground midway between the feet of the two fed drops',
   'half-square-l': 'on the ground midway between the feet of the two fed drops, near the corner support',
   'four-square': 'at the centre of the square',
+  'phased-pair': 'on the ground midway between the two verticals',
+  'vertical-pair-director': 'on the ground midway between the two verticals',
 };
+
+/**
+ * Where an array's relay box sits on the site: where the array's coax meets the ground, else (a
+ * group of verticals) the array's centre; null for a type without a box. The station's feed line
+ * ends there (the build sheet's feed run, the plan's feed-line element, the app's route).
+ */
+export function relayBoxXY(
+  type: string,
+  elements: readonly PlacedElement[],
+  originXY: readonly [number, number],
+): XY | null {
+  const ground = elements.flatMap((e) =>
+    e.role === 'coax' && 'to' in e && e.to[2] === 0 ? [[e.to[0], e.to[1]] as XY] : [],
+  );
+  if (ground.length) return ground[0];
+  return ARRAYS_WITH_BOX[type] ? [originXY[0], originXY[1]] : null;
+}
+
+/**
+ * Where the station's feed line ends for a candidate: an array's relay box (on the ground), else
+ * its first feed point; null without either.
+ */
+export function stationLineEnd(c: Candidate): [number, number, number] | null {
+  const box = c.elementCount >= 2 ? relayBoxXY(c.type, c.elements, c.placement.originXY) : null;
+  if (box) return [box[0], box[1], 0];
+  const f = c.feedPoints[0]?.xyz;
+  return f ? [f[0], f[1], f[2]] : null;
+}
 
 /** The relays of each array type and the coils each direction energises (common practice, no source). */
 function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
@@ -58,6 +101,21 @@ function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
           'K1, single-pole double-throw: its common contact takes the station line; the normally closed contact goes to the line to leg 1, the normally open one to the line to leg 2. The idle line stays open at the relay (do not ground it: a whole number of half waves repeats the open circuit at the idle half-square).',
         ],
         coils: ['none', 'K1'],
+      };
+    case 'vertical-pair-director':
+      return {
+        relays: [
+          'K1, double-pole double-throw. Pole 1: the line to the vertical B goes to the station line (coil off) or to the director stub (coil on). Pole 2: the line to the vertical A goes to the director stub (coil off) or to the station line (coil on). The stub’s far end stays open: tape and seal it.',
+        ],
+        coils: ['none', 'K1'],
+      };
+    case 'phased-pair':
+      return {
+        relays: [
+          'K1, double-pole double-throw, swaps the two element lines: coil off, the line to vertical R goes to the junction of the station line and the line to vertical F to the far end of the delay line; coil on, the other way round.',
+          'K2, double-pole double-throw, takes the delay line out: coil off, the delay line runs from the junction to K1; coil on, both ends of the delay line are disconnected (left open) and K1’s delayed side is joined straight to the junction.',
+        ],
+        coils: ['none', 'K1', 'K2'],
       };
     case 'four-square':
       return {
@@ -90,14 +148,7 @@ export function arrayWiring(
   powerW: number,
 ): ArrayWiring | null {
   if (c.elementCount < 2) return null;
-  const coax = c.elements.filter((e) => e.role === 'coax');
-  const ground = coax.flatMap((e) => ('to' in e && e.to[2] === 0 ? [[e.to[0], e.to[1]] as XY] : []));
-  // the box: where the array's coax meets on the ground, else (verticals) the array's centre
-  const boxXY: XY | null = ground.length
-    ? ground[0]
-    : ARRAYS_WITH_BOX[c.type]
-      ? [c.placement.originXY[0], c.placement.originXY[1]]
-      : null;
+  const boxXY = relayBoxXY(c.type, c.elements, c.placement.originXY);
   const { relays, coils } = relaysOf(c);
   const directions =
     c.states.length > 1
@@ -123,14 +174,30 @@ export function arrayWiring(
         `Relay contacts rated for at least ${amps.toFixed(1)} A RF (√(${powerW} W / 50 Ω)) with margin; switch only while not transmitting.`,
       ]
     : [];
-  const feed = (c.arrayFeed?.elements ?? []).map((el) => ({
-    label: el.label,
-    zText: fmtZ(el.driveImpedanceOhm, el.currentRatio),
-    current:
-      el.currentRatio < 1e-3
-        ? '≈ 0'
-        : `${el.currentRatio.toFixed(2)} at ${el.currentPhaseDeg >= 0 ? '+' : '−'}${Math.abs(el.currentPhaseDeg).toFixed(0)}°`,
-  }));
+  const feedRows = (els: readonly ElementFeed[]) =>
+    els.map((el) => ({
+      label: el.label,
+      zText: fmtZ(el.driveImpedanceOhm, el.currentRatio),
+      current:
+        el.currentRatio < 1e-3
+          ? '≈ 0'
+          : `${el.currentRatio.toFixed(2)} at ${el.currentPhaseDeg >= 0 ? '+' : '−'}${Math.abs(el.currentPhaseDeg).toFixed(0)}°`,
+    }));
+  const feed = feedRows(c.arrayFeed?.elements ?? []);
+  const specs = c.design.states ?? [];
+  const otherPhasings = specs.flatMap((s, i) => {
+    const v = s.variant !== undefined ? c.arrayFeed?.variants?.[s.variant - 1] : undefined;
+    if (!v) return [];
+    return [
+      {
+        n: i + 1,
+        name: s.name,
+        feedText: `${fmtZ(v.feedZOhm, 1)}, SWR ${v.swr.toFixed(2)} on 50 Ω`,
+        feed: feedRows(v.elements),
+        networkLossPercent: 100 * v.networkLossShare,
+      },
+    ];
+  });
   return {
     boxXY,
     boxWhere: ARRAYS_WITH_BOX[c.type] ?? 'no relay box: the array has one direction',
@@ -139,6 +206,7 @@ export function arrayWiring(
     control,
     feed,
     networkLossPercent: c.arrayFeed ? 100 * c.arrayFeed.networkLossShare : null,
+    otherPhasings,
   };
 }
 
@@ -160,7 +228,7 @@ export function arrayBom(
       detail: lines.map((i) => `${i.count} × ${L.cut(i.cutLengthM)} (${i.label})`).join('; '),
       source: 'the cut list (lengths designed from the velocity factor); connectors at each end',
     });
-  const relayCount = w.relays.length === 0 ? 0 : c.type === 'four-square' ? 4 : 1;
+  const relayCount = w.relays.length === 0 ? 0 : c.type === 'four-square' ? 4 : w.relays.length;
   if (relayCount) {
     out.push({
       item: 'Relays, 12 V DC coil',

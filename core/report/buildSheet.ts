@@ -50,9 +50,54 @@ export const DEFAULT_STATION: StationOptions = STATION_DEFAULTS;
 
 /** One radial as laid: its compass bearing from the base and its length. */
 export interface RadialRow {
+  /** Number of the radial at its base (1, 2, … in bearing order; per vertical in an array). */
   n: number;
   bearingDeg: number;
   lengthM: number;
+  /** The vertical whose base it leaves ("vertical F"); '' for a single ground connection. */
+  vertical: string;
+  /** Where it ends when not at full length: on the line midway to another base (bonded there), or cut short by the lot. */
+  end: string;
+}
+
+/** A radial end nearer than this to the line midway between two bases ends on it, metres (the lengths are rounded to 1 cm). */
+export const MIDLINE_TOL_M = 0.05;
+
+/**
+ * Every radial of every base (one table, grouped by vertical and in bearing order within each),
+ * with where each ends: at full length, on the line midway to another vertical where the fields
+ * are bonded, or shortened where the lot or a keep-out ends it.
+ */
+export function radialRows(g: Candidate['groundSystem']): RadialRow[] {
+  if (g.kind !== 'radials') return [];
+  const fields = g.fields?.length
+    ? g.fields
+    : [{ label: '', baseXY: g.baseXY, lengthsM: g.lengthsM, bearingsDeg: g.bearingsDeg }];
+  const many = fields.length > 1;
+  return fields.flatMap((f, i) => {
+    const full = Math.max(...f.lengthsM);
+    return f.lengthsM
+      .map((lengthM, k) => ({ bearingDeg: f.bearingsDeg[k], lengthM }))
+      .sort((a, b) => a.bearingDeg - b.bearingDeg)
+      .map((r, k): RadialRow => {
+        const b = (r.bearingDeg * Math.PI) / 180;
+        const end: XY = [f.baseXY[0] + r.lengthM * Math.sin(b), f.baseXY[1] + r.lengthM * Math.cos(b)];
+        const meets = fields.find((o, j) => {
+          if (j === i) return false;
+          const d = Math.hypot(o.baseXY[0] - f.baseXY[0], o.baseXY[1] - f.baseXY[1]);
+          const u: XY = [(o.baseXY[0] - f.baseXY[0]) / d, (o.baseXY[1] - f.baseXY[1]) / d];
+          const m: XY = [(o.baseXY[0] + f.baseXY[0]) / 2, (o.baseXY[1] + f.baseXY[1]) / 2];
+          return Math.abs((end[0] - m[0]) * u[0] + (end[1] - m[1]) * u[1]) < MIDLINE_TOL_M;
+        });
+        const endText =
+          meets && g.bonded
+            ? `ends on the line midway to ${meets.label}: bond it there`
+            : r.lengthM < full - MIDLINE_TOL_M
+              ? 'shortened where the lot or a keep-out ends it'
+              : '';
+        return { n: k + 1, ...r, vertical: many ? f.label : '', end: endText };
+      });
+  });
 }
 
 export interface BuildSheet {
@@ -97,6 +142,8 @@ export interface BuildSheet {
     radialLengthsM: number[];
     /** Compass bearing of each radial, degrees (same order as radialLengthsM). */
     radialBearingsDeg: number[];
+    /** The base each radial leaves (same order; an array of verticals has several). */
+    radialBasesXY: XY[];
     /** Ropes from the wire ends to their supports or ground anchors (the candidate's rope elements), site frame. */
     ropes: { label: string; from: XYZ; to: XYZ }[];
     /** Arrays: the coax between the elements and the relay box, site frame. */
@@ -163,17 +210,15 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const bom = [...m.bom, ...arrayBom(c, array, feedLine.lengthM, L)];
   if (array && c.states.length > 1)
     notes.push(
-      `The patterns drawn are direction 1 (${c.states[0].name}); the other directions are the same pattern turned or mirrored (see Feed line, relay box).`,
+      `The patterns drawn are direction 1 (${c.states[0].name}); the other directions are the same pattern turned or mirrored${
+        c.design.states?.some((s) => s.variant !== undefined)
+          ? ', except those of another phasing, which are solved on their own'
+          : ''
+      } (see Feed line, relay box).`,
     );
 
   const g = c.groundSystem;
-  const radialTable: RadialRow[] =
-    g.kind === 'radials'
-      ? g.lengthsM
-          .map((lengthM, k) => ({ bearingDeg: g.bearingsDeg[k], lengthM }))
-          .sort((a, b) => a.bearingDeg - b.bearingDeg)
-          .map((r, k) => ({ n: k + 1, ...r }))
-      : [];
+  const radialTable = radialRows(c.groundSystem);
 
   const measured = input.tuning ?? null;
   const how = trimHow(c.type);
@@ -262,6 +307,12 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
       radialBase: g.kind === 'radials' ? g.baseXY : null,
       radialLengthsM: g.kind === 'radials' ? g.lengthsM : [],
       radialBearingsDeg: g.kind === 'radials' ? g.bearingsDeg : [],
+      radialBasesXY:
+        g.kind === 'radials'
+          ? g.fields?.length
+            ? g.fields.flatMap((f) => f.lengthsM.map(() => f.baseXY))
+            : g.lengthsM.map(() => g.baseXY)
+          : [],
       ropes: c.elements.flatMap((e) =>
         e.role === 'rope' ? [{ label: e.label, from: e.from, to: e.to }] : [],
       ),

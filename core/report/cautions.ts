@@ -66,6 +66,8 @@ export function highVoltageEndsText(type: string): string | null {
     case 'vertical':
     case 'vertical-pair':
     case 'four-square':
+    case 'phased-pair':
+    case 'vertical-pair-director':
       return null;
     case 'half-square':
       return 'The lower ends of the two drops carry high RF voltage when you transmit.';

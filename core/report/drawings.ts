@@ -160,8 +160,9 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
     klabels.push(() => text(Number(X(at[0])), Number(Y(at[1])), k.name, 'klabel', AROUND));
   }
   if (lot.radialBase) {
-    const [x0, y0] = lot.radialBase;
+    const base0 = lot.radialBase;
     lot.radialLengthsM.forEach((len, k) => {
+      const [x0, y0] = lot.radialBasesXY?.[k] ?? base0;
       const b = (lot.radialBearingsDeg[k]! * Math.PI) / 180;
       out.push(
         `<line x1="${X(x0)}" y1="${Y(y0)}" x2="${X(x0 + len * Math.sin(b))}" y2="${Y(y0 + len * Math.cos(b))}" class="radial"/>`,
@@ -384,6 +385,9 @@ export function polarSvg(
 export function radialSvg(s: BuildSheet): string {
   const rows = s.radialTable;
   if (!rows.length) return '';
+  const g = s.candidate.groundSystem;
+  if (g.kind === 'radials' && (g.fields?.length ?? 0) > 1)
+    return radialFieldsSvg(s, g.fields!, g.bonded === true);
   const U = sheetLengths(s.units);
   const W = 420;
   const cx = W / 2;
@@ -413,6 +417,96 @@ export function radialSvg(s: BuildSheet): string {
   out.push(
     `<text x="8" y="${W - 8}" class="tick">${e(`circle: ${U.len(maxL)} (the longest radial)`)}</text>`,
   );
+  out.push('</svg>');
+  return out.join('');
+}
+
+/**
+ * The radial fields of an array of verticals seen from above, to scale and north up: every
+ * vertical's radials from its base, the base named, each radial numbered just beyond its end as in
+ * the radial table, and the bonding wire on each line midway between two bases where the fields
+ * are bonded (dashed).
+ */
+function radialFieldsSvg(
+  s: BuildSheet,
+  fields: readonly { label: string; baseXY: XY; lengthsM: number[]; bearingsDeg: number[] }[],
+  bonded: boolean,
+): string {
+  const U = sheetLengths(s.units);
+  const W = 520;
+  const pad = 30;
+  const ends = fields.flatMap((f) =>
+    f.lengthsM.map((len, k): XY => {
+      const b = (f.bearingsDeg[k]! * Math.PI) / 180;
+      return [f.baseXY[0] + len * Math.sin(b), f.baseXY[1] + len * Math.cos(b)];
+    }),
+  );
+  const pts = [...ends, ...fields.map((f) => f.baseXY)];
+  const minX = Math.min(...pts.map((p) => p[0]));
+  const maxX = Math.max(...pts.map((p) => p[0]));
+  const minY = Math.min(...pts.map((p) => p[1]));
+  const maxY = Math.max(...pts.map((p) => p[1]));
+  const k = (W - 2 * pad) / Math.max(maxX - minX, maxY - minY, 1);
+  const H = Math.round((maxY - minY) * k + 2 * pad);
+  const X = (x: number) => (pad + (x - minX) * k).toFixed(1);
+  const Y = (y: number) => (H - pad - (y - minY) * k).toFixed(1);
+  const out: string[] = [
+    `<svg class="radials" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="Radial layout of every vertical" xmlns="http://www.w3.org/2000/svg">`,
+  ];
+  let e0 = 0;
+  for (const f of fields) {
+    const name = f.label.replace(/^vertical /, '');
+    const order = f.bearingsDeg.map((b, i) => ({ b, i })).sort((p, q) => p.b - q.b);
+    order.forEach(({ i }, n) => {
+      const [ex, ey] = ends[e0 + i]!;
+      const b = (f.bearingsDeg[i]! * Math.PI) / 180;
+      out.push(
+        `<line x1="${X(f.baseXY[0])}" y1="${Y(f.baseXY[1])}" x2="${X(ex)}" y2="${Y(ey)}" class="radial"><title>${e(`${name} ${n + 1}: ${f1(f.bearingsDeg[i]!)}°, ${U.len(f.lengthsM[i]!)}`)}</title></line>`,
+      );
+      const tx = Number(X(ex)) + 9 * Math.sin(b);
+      const ty = Number(Y(ey)) - 9 * Math.cos(b) + 3;
+      out.push(
+        `<text x="${tx.toFixed(1)}" y="${ty.toFixed(1)}" text-anchor="middle" class="tick">${n + 1}</text>`,
+      );
+    });
+    e0 += f.lengthsM.length;
+    out.push(`<circle cx="${X(f.baseXY[0])}" cy="${Y(f.baseXY[1])}" r="4" class="feed"/>`);
+    out.push(
+      `<text x="${(Number(X(f.baseXY[0])) + 7).toFixed(1)}" y="${(Number(Y(f.baseXY[1])) - 7).toFixed(1)}" class="hlabel">${e(name)}</text>`,
+    );
+  }
+  if (bonded)
+    for (let i = 0; i < fields.length; i++)
+      for (let j = i + 1; j < fields.length; j++) {
+        const a = fields[i]!.baseXY;
+        const b = fields[j]!.baseXY;
+        const d = Math.hypot(b[0] - a[0], b[1] - a[1]);
+        // only neighbours: no other base nearer the midpoint than these two
+        const m: XY = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+        if (
+          fields.some(
+            (o, q) => q !== i && q !== j && Math.hypot(o.baseXY[0] - m[0], o.baseXY[1] - m[1]) < d / 2 - 0.01,
+          )
+        )
+          continue;
+        const u: XY = [-(b[1] - a[1]) / d, (b[0] - a[0]) / d];
+        // the bonding wire: the stretch of the midline the radials reach
+        const along = ends
+          .map((p) => (p[0] - m[0]) * u[0] + (p[1] - m[1]) * u[1])
+          .filter(
+            (t, q) =>
+              Math.abs(
+                ((ends[q]![0] - m[0]) * (b[0] - a[0])) / d + ((ends[q]![1] - m[1]) * (b[1] - a[1])) / d,
+              ) < 0.05 && Number.isFinite(t),
+          );
+        if (!along.length) continue;
+        const t0 = Math.min(...along);
+        const t1 = Math.max(...along);
+        out.push(
+          `<line x1="${X(m[0] + t0 * u[0])}" y1="${Y(m[1] + t0 * u[1])}" x2="${X(m[0] + t1 * u[0])}" y2="${Y(m[1] + t1 * u[1])}" class="bond"><title>bonding wire</title></line>`,
+        );
+      }
+  out.push(`<text x="${W - 16}" y="16" text-anchor="middle">N ↑</text>`);
   out.push('</svg>');
   return out.join('');
 }

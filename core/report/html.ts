@@ -92,7 +92,20 @@ function arrayHtml(s: BuildSheet): string {
               : ''
           } The relay and control practice is common practice, no source; follow the relay maker's ratings.`,
         )}</p>`
-      : '')
+      : '') +
+    a.otherPhasings
+      .map(
+        (o) =>
+          `<h3>What the feed network achieves (direction ${o.n}: ${e(o.name)})</h3>` +
+          table(
+            ['Element feed', 'Drive impedance', 'Current (relative, phase)'],
+            o.feed.map((f) => [f.label, f.zText, f.current]),
+          ) +
+          `<p class="note">${e(
+            `The station's line sees ${o.feedText} at the box in this direction; the lines take ${o.networkLossPercent.toFixed(1)} % of the power.`,
+          )}</p>`,
+      )
+      .join('')
   );
 }
 
@@ -122,6 +135,7 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .keepout.line { fill: none; stroke-width: 2; stroke-dasharray: 6 3; }
 .klabel { fill: #a33; }
 .radial { stroke: #8c7a4b; stroke-width: 0.7; }
+.bond { stroke: #1d232a; stroke-width: 1.2; stroke-dasharray: 4 3; }
 .rope { stroke: #6f7a80; stroke-width: 1; stroke-dasharray: 2 2; }
 .relay-box { fill: #fff; stroke: #1d232a; stroke-width: 2; }
 .feed { fill: #ffd45c; stroke: #1d232a; stroke-width: 1.5; }
@@ -266,10 +280,27 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
       ) +
         `<p class="note">${e(s.cutAllowance)}</p>` +
         (s.radialTable.length
-          ? `<h3>Radials: bearing and length of each</h3><div class="radial-layout">${radialSvg(s)}${table(
-              ['Radial', 'Bearing from the base', 'Length'],
-              s.radialTable.map((r) => [String(r.n), `${f1(r.bearingDeg)}°`, U.len(r.lengthM, 2)]),
-            )}</div><p class="note">${e('Bearings are compass bearings (clockwise from true north) from the feed point at the base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.')}</p>`
+          ? `<h3>Radials: bearing and length of each</h3><div class="radial-layout">${radialSvg(s)}${
+              s.radialTable.some((r) => r.vertical)
+                ? table(
+                    ['Vertical', 'Radial', 'Bearing from its base', 'Length', 'Where it ends'],
+                    s.radialTable.map((r) => [
+                      r.vertical,
+                      String(r.n),
+                      `${f1(r.bearingDeg)}°`,
+                      U.len(r.lengthM, 2),
+                      r.end || 'full length',
+                    ]),
+                  )
+                : table(
+                    ['Radial', 'Bearing from the base', 'Length'],
+                    s.radialTable.map((r) => [String(r.n), `${f1(r.bearingDeg)}°`, U.len(r.lengthM, 2)]),
+                  )
+            }</div><p class="note">${e(
+              s.radialTable.some((r) => r.vertical)
+                ? 'Each vertical has its own radials, numbered from 1 at its base. Bearings are compass bearings (clockwise from true north) from that vertical’s base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled. Where a radial ends on the line midway to the next vertical, lay a bonding wire along that line (dashed in the drawing) and join every radial that ends on it to it, as the field solver models the fields (common practice, no source).'
+                : 'Bearings are compass bearings (clockwise from true north) from the feed point at the base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.',
+            )}</p>`
           : ''),
     ),
   );

@@ -33,6 +33,10 @@ export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {
     'Change all four drops by the same amount at their lower ends; the two half-squares stay identical (the relay box makes one the reflector).',
   'half-square-l':
     'Change all four drops by the same amount at their lower ends; the two half-squares stay identical.',
+  'vertical-pair-director':
+    'Change both verticals by the same amount at their top ends; they stay identical (the relay box makes one the director).',
+  'phased-pair':
+    'Cut both verticals alike and trim each one alone at its base before the relay box is connected (the phasing lines are designed for resonant verticals).',
 };
 
 /** The trim text of a type; a general one for a type the table does not know. */

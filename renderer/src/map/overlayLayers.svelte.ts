@@ -8,6 +8,7 @@ import { untrack } from 'svelte';
 import type L from './leaflet.ts';
 import type { LonLat } from '../../../core/project/schema.ts';
 import { formatLength } from '../../../core/units/index.ts';
+import { stationLineEnd } from '../../../core/report/arrayWiring.ts';
 import { candidateFrame, drawCandidate } from '../plan/mapDraw.ts';
 import { drawExposure, drawFeedRoute } from '../plan/mapSafety.ts';
 import type { MapOverlays, RouteOverlay } from '../state/mapOverlays.svelte.ts';
@@ -36,7 +37,8 @@ export function drawOverlays(map: L.Map, overlays: MapOverlays, afterDraw: () =>
     const r = JSON.parse(key) as RouteOverlay;
     const c = untrack(() => overlays.selected);
     if (!c || c.id !== r.candidateId) return;
-    const feed = c.feedPoints[0]!.xyz;
+    const feed = stationLineEnd(c);
+    if (!feed) return;
     const bends: LonLat[] = r.bends ?? untrack(() => overlays.bendsOf(r.candidateId));
     const run = untrack(() => overlays.feedRun(c, bends, r.coax));
     if (!run) return;

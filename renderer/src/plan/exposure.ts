@@ -13,6 +13,7 @@ import {
 } from '../../../core/report/exposure.ts';
 import { exposureOnLot, type ExposureOnLot } from '../../../core/report/exposureZones.ts';
 import { buildSite } from '../../../core/site/site.ts';
+import { stationLineEnd } from '../../../core/report/arrayWiring.ts';
 import { coaxLossDbPer100m, feedRun } from '../../../core/report/buildSheet.ts';
 import type { LonLat } from '../../../core/project/schema.ts';
 import type { XY } from '../../../core/site/frame.ts';
@@ -26,14 +27,18 @@ export interface CandidateFeedRun {
   per100: number;
 }
 
-/** The feed-line run of a candidate along the user's bends, and its matched loss; null without a feed point. */
+/**
+ * The feed-line run of a candidate along the user's bends to its feed point (an array's relay
+ * box), and its matched loss; null without a feed point.
+ */
 export function candidateFeedRun(
   madeFor: Project,
   bends: readonly LonLat[],
   coax: StationSettings['coax'],
   c: Candidate,
 ): CandidateFeedRun | null {
-  const feed = c.feedPoints[0]?.xyz;
+  // an array's station line ends at its relay box (core/report/arrayWiring.ts)
+  const feed = stationLineEnd(c);
   if (!feed) return null;
   const site = buildSite(madeFor);
   const r = feedRun(

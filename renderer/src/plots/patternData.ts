@@ -5,7 +5,7 @@
  */
 import { BAND_INFO } from '../../../core/bands.ts';
 import { PATTERN_GRID, azimuthAdvantage, gainAt } from '../../../core/rank/pattern.ts';
-import type { Candidate, Shortlist } from '../../../core/rank/plan.ts';
+import { variantPatternKey, type Candidate, type Shortlist } from '../../../core/rank/plan.ts';
 import { statePattern } from '../../../core/rank/states.ts';
 import type { Band } from '../../../core/project/schema.ts';
 
@@ -21,8 +21,9 @@ export function placedPattern(shortlist: Shortlist, c: Candidate): PlacedPattern
 }
 
 /**
- * Each direction (relay state) of a candidate as a placed pattern: the evaluated pattern, mirrored
- * where the state says, turned by the state's rotation (core/rank/states.ts). One entry for a
+ * Each direction (relay state) of a candidate as a placed pattern: the evaluated pattern (or that of
+ * the state's own phasing), mirrored where the state says, turned by the state's rotation
+ * (core/rank/states.ts). One entry for a
  * fixed antenna; empty when the shortlist has no pattern for it.
  */
 export function statePatterns(
@@ -32,10 +33,14 @@ export function statePatterns(
   const g = shortlist.patterns[c.evaluationKey];
   if (!g || g.length === 0) return [];
   const specs = c.design.states?.length ? c.design.states : [{ name: 'fixed', rotationDeg: 0 }];
+  const variants: number[][] = [];
+  for (let k = 1; shortlist.patterns[variantPatternKey(c.evaluationKey, k)]; k++)
+    variants.push(shortlist.patterns[variantPatternKey(c.evaluationKey, k)]!);
+  if (specs.some((s) => s.variant !== undefined && !variants[s.variant - 1])) return [];
   return specs.map((s, i) => ({
     name: s.name,
     beamDeg: c.states[i]?.beamDeg ?? c.peak.azimuthDeg,
-    p: { gainDbi: statePattern(g, s), rotationDeg: c.rotationDeg + s.rotationDeg },
+    p: { gainDbi: statePattern(g, s, variants), rotationDeg: c.rotationDeg + s.rotationDeg },
   }));
 }
 

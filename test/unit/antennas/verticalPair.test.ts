@@ -7,7 +7,9 @@ import {
   COAX_LOSS_DB_PER_100M,
   COAX_VELOCITY_FACTOR,
   COAX_Z0_OHM,
+  DIRECTOR_REACTANCE_OHM,
   REFLECTOR_REACTANCE_OHM,
+  directorPairBuilder,
   verticalPairBuilder,
 } from '../../../core/antennas/verticalPair.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
@@ -128,5 +130,56 @@ describe('two switched verticals', () => {
     expect(feed.networkLossShare).toBeLessThan(0.3);
     // the driven element's resistance drops with the close reflector (mutual coupling): below one vertical's
     expect(pair.zOhm[0]).toBeLessThan(one.zOhm[0]);
+  });
+});
+
+describe('two switched verticals, driven + director', () => {
+  const band40 = bandPlan('40m');
+  const lambda = band40.wavelengthM;
+  const site = prepareSite(
+    buildSite(testLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM: 15, radialCount: 16 } })),
+  );
+  const p = directorPairBuilder.propose({ site, band: band40 }).proposals[0];
+
+  it('is registered, 0.1 λ apart, the director loaded by an open stub of −j20 Ω (Pozar §2.3)', () => {
+    expect(builderFor('vertical-pair-director')).toBe(directorPairBuilder);
+    expect(p).toBeDefined();
+    expectClose(p.design.params.spacingM as number, 0.1 * lambda, 0.01, 'spacing 0.1 λ');
+    const stub = p.design.params.stubLengthM as number;
+    const lineLambda = (COAX_VELOCITY_FACTOR * SPEED_OF_LIGHT_M_PER_S) / p.design.designFreqHz;
+    // open lossless stub: Z = −j Z0 cot βℓ
+    expectClose(
+      -COAX_Z0_OHM / Math.tan((2 * Math.PI * stub) / lineLambda),
+      DIRECTOR_REACTANCE_OHM,
+      0.5,
+      'Pozar §2.3',
+    );
+    const net = directorPairBuilder.model(p.design, 10).network!;
+    // the stub ends at a node of its own (open), not at the common return
+    expect(net.elements.some((e) => e.kind === 'line' && e.b === 'stub-open-end')).toBe(true);
+  });
+
+  it('beats one vertical forward toward the director, with a rear (over average soil, 40 m)', () => {
+    const ground = { classId: 'average' } as const;
+    const pair = evaluateDesign(p.design, ground, solverEvaluator);
+    expect(pair.resonant).toBe(true);
+    const single: Design = {
+      type: 'vertical',
+      band: '40m',
+      designFreqHz: p.design.designFreqHz,
+      params: { radialLengthsM: Array(16).fill(lambda / 4), supportHeightM: 0, selfSupporting: 1 },
+      trim: { name: 'height', nominalM: 0.245 * lambda, minM: 0.2 * lambda, maxM: 0.3 * lambda },
+    };
+    const one = evaluateDesign(single, ground, solverEvaluator);
+    const fwd = gainAt(pair.gainDbi, 15, 0);
+    // Loose, marked checks (common practice, no source): a two-element parasitic array gains over
+    // one vertical, a director pair somewhat less than a reflector pair, and has a rear of some dB.
+    expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeGreaterThan(0.5);
+    expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeLessThan(3);
+    expect(fwd - gainAt(pair.gainDbi, 15, 180)).toBeGreaterThan(3);
+    // the director's current lags the driven element's by more than 90° (it is the front element)
+    const [A] = pair.arrayFeed!.elements;
+    expect(A.currentRatio).toBeGreaterThan(0.3);
+    expect(Math.abs(A.currentPhaseDeg)).toBeGreaterThan(90);
   });
 });

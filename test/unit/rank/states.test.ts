@@ -62,4 +62,31 @@ describe('relay states', () => {
     });
     expect(r.states.map((s) => s.beamDeg)).toEqual([30, 120]);
   });
+
+  it('a state of another phasing reads its own solved pattern, and its beam bearing', () => {
+    const n = PATTERN_GRID.azimuthsDeg.length * PATTERN_GRID.elevationsDeg.length;
+    const g = Array.from({ length: n }, () => 1);
+    const v = Array.from({ length: n }, () => 2);
+    const s = { name: 'broadside', rotationDeg: 0, variant: 1, beamDeg: 90 };
+    expect(statePattern(g, s, [v])).toBe(v);
+    expect(() => statePattern(g, s, [])).toThrow(/variant 1/);
+    // the scorer sees the variant's pattern: here the base scorer reads only the rotation, so the
+    // beam bearing is what is checked (canonical 90° plus the placement's 30°)
+    const r = scoreStates(base, [1, 1], g, 30, { states: [{ name: 'one', rotationDeg: 0 }, s] }, 0, [v]);
+    expect(r.states.map((x) => x.beamDeg)).toEqual([30, 120]);
+    const seen: (readonly number[])[] = [];
+    scoreStates(
+      (gain, rot) => {
+        seen.push(gain);
+        return base(gain, rot);
+      },
+      [1, 1],
+      g,
+      0,
+      { states: [{ name: 'one', rotationDeg: 0 }, s] },
+      0,
+      [v],
+    );
+    expect(seen).toEqual([g, v]);
+  });
 });
