@@ -79,7 +79,7 @@ export const sloperBuilder: Builder = {
           1 - s.heightM / needM,
           [s.id],
           where,
-          `${s.name} at ${s.heightM.toFixed(1)} m is too short for a half-wave sloper on this band: sloping at least ${SLOPER_MIN_SLOPE_DEG}° with its lower end above the ${minEnd.toFixed(1)} m end-height limit${whereToChange('minEndHeightM')} needs about ${needM.toFixed(1)} m`,
+          `${s.name} at ${s.heightM.toFixed(1)} m is too short for a half-wave sloper on this band: sloping at least ${SLOPER_MIN_SLOPE_DEG}° with its lower end above the ${minEnd.toFixed(1)} m end-height limit, it needs a support of about ${needM.toFixed(1)} m${whereToChange('minEndHeightM')}`,
         );
         continue;
       }
@@ -172,7 +172,7 @@ export const slopingVerticalBuilder: Builder = {
           1 - s.heightM / need,
           [s.id],
           where,
-          `from ${s.name} at ${s.heightM.toFixed(1)} m a ${reach.toFixed(1)} m line to the ground slopes only ${slope.toFixed(1)}°; at least ${SLOPING_MIN_SLOPE_DEG}° needs about ${need.toFixed(1)} m`,
+          `from ${s.name} at ${s.heightM.toFixed(1)} m a ${reach.toFixed(1)} m line to the ground slopes only ${slope.toFixed(1)}°; at least ${SLOPING_MIN_SLOPE_DEG}° needs a support of about ${need.toFixed(1)} m`,
         );
         continue;
       }

@@ -74,8 +74,9 @@ test('plans the half-square arrays on a lot with four supports near a rectangle'
     ['Half-square L (switched)', 'arrays-l-map'],
     ['Half-square + reflector', 'arrays-reflector-map'],
   ] as const) {
-    const row = rows.filter({ hasText: name });
-    await expect(row).toHaveCount(1);
+    // The best placement of each (the L may stand on more than one set of three supports).
+    const row = rows.filter({ hasText: name }).first();
+    await expect(row).toBeVisible();
     await row.click();
     await expect(page.locator('path.yw-cand-feed')).toHaveCount(2);
     await shot(page, file);

@@ -18,6 +18,8 @@ test('exposure distances, zones on the map, and a flag where a zone reaches the 
   host,
 }) => {
   await openAndPlan(page, host, '80 m');
+  // The vertical hung from North oak, whose radials reach toward the garden path.
+  await page.getByTestId('candidate-row').filter({ hasText: 'wire hung from North oak' }).first().click();
   const panel = page.getByTestId('exposure-panel');
   await expect(panel).toBeVisible();
 

@@ -202,7 +202,7 @@ describe('sloping wires', () => {
 
   it('half-wave sloper: rejected on 160 m from a 15 m tree, with the height it would need', () => {
     const r = propose('sloper', '160m').rejections.find((x) => x.supports[0] === 'oak');
-    expectNumbered(r, /too short for a half-wave sloper .* needs about \d+\.\d m/);
+    expectNumbered(r, /too short for a half-wave sloper .* needs a support of about \d+\.\d m/);
     expect(r!.shortfall).toBeGreaterThan(0);
   });
 
@@ -225,6 +225,6 @@ describe('sloping wires', () => {
 
   it('sloping quarter-wave: rejected on 160 m from a 15 m tree, with its slope and the height it needs', () => {
     const r = propose('sloping-vertical', '160m').rejections.find((x) => x.supports[0] === 'oak');
-    expectNumbered(r, /slopes only 18\.\d°; at least 30° needs about 23\.2 m/);
+    expectNumbered(r, /slopes only 18\.\d°; at least 30° needs a support of about 23\.2 m/);
   });
 });
