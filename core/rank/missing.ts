@@ -33,7 +33,13 @@ export interface MissInput {
   missByM?: number;
 }
 
-export function closestMiss(type: AntennaTypeId, band: Band, rejected: readonly MissInput[]): MissingType {
+export function closestMiss(
+  type: AntennaTypeId,
+  band: Band,
+  rejected: readonly MissInput[],
+  /** Said when nothing was tried, instead of "nothing on the lot to try it on" (a type not needed here). */
+  notTried?: string,
+): MissingType {
   const name = typeName(type);
   const say = (r: MissInput): string =>
     `${name}: ${r.where ? `${r.where}, ` : ''}${r.reasons.join('; ') || 'refused without a stated reason'}`;
@@ -65,6 +71,6 @@ export function closestMiss(type: AntennaTypeId, band: Band, rejected: readonly 
   return {
     type,
     band,
-    closestMiss: `${name}: nothing on the lot to try it on (no support or free spot it could use)`,
+    closestMiss: `${name}: ${notTried ?? 'nothing on the lot to try it on (no support or free spot it could use)'}`,
   };
 }

@@ -1127,6 +1127,9 @@ export function rankPlan(
             type,
             b.band,
             rejected.filter((r) => r.type === type && r.band === b.band),
+            SHORT_SUPPORT_TYPES.has(type)
+              ? 'not tried: it is for a support shorter than a full-size quarter-wave vertical on this band but at least 0.05 λ tall, and no support here is of that height'
+              : undefined,
           ),
         );
     const soils = [ownSoil, ...rangeSoils.filter((id) => soilScores.every((m) => m.has(id)))];
