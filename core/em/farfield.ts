@@ -448,22 +448,206 @@ export function integrateRadiatedPower(src: FarFieldSource, eta: number): Radiat
           [-1, 0, nMu],
           [0, 1, nMu],
         ];
-  const out = new Float64Array(2);
+  const azs = Array.from({ length: nAz }, (_, j) => (2 * Math.PI * j) / nAz);
   let sum = 0;
   let count = 0;
   for (const [mu0, mu1, n] of panels) {
     const g = gaussLegendre01(n);
+    const els = Array.from({ length: n }, (_, i) => Math.asin(mu0 + (mu1 - mu0) * g.x[i]));
+    const ut = new Float64Array(n * nAz);
+    const up = new Float64Array(n * nAz);
+    radiationIntensityGrid(src, els, azs, eta, ut, up);
     for (let i = 0; i < n; i++) {
-      const mu = mu0 + (mu1 - mu0) * g.x[i];
-      const el = Math.asin(mu);
       let ring = 0;
       for (let j = 0; j < nAz; j++) {
-        radiationIntensity(src, el, (2 * Math.PI * j) / nAz, eta, out);
-        ring += out[0] + out[1];
+        ring += ut[i * nAz + j] + up[i * nAz + j];
         count++;
       }
       sum += g.w[i] * (mu1 - mu0) * ring * ((2 * Math.PI) / nAz);
     }
   }
   return { watts: sum, directions: count };
+}
+
+/**
+ * Radiation intensity (U_θ, U_φ) on a product grid of directions, the same figures as
+ * radiationIntensity direction by direction (index iEl·nAz + iAz into uTheta, uPhi), with what
+ * depends on one angle only (the angles' sines and cosines, the ground's reflection coefficients,
+ * each wire's height phase) computed once per row or column.
+ */
+export function radiationIntensityGrid(
+  src: FarFieldSource,
+  elsRad: readonly number[],
+  azsRad: readonly number[],
+  eta: number,
+  uTheta: Float64Array,
+  uPhi: Float64Array,
+): void {
+  const { mesh, nodeCurrents: I, k, ground } = src;
+  if (seriesOn && (series === null || series.src !== src || series.currents !== I)) series = wireSeries(src);
+  const coef = seriesOn && series !== null ? series.coef : null;
+  const nW = mesh.nWires;
+  const nAz = azsRad.length;
+  const sa = new Float64Array(nAz);
+  const ca = new Float64Array(nAz);
+  for (let j = 0; j < nAz; j++) {
+    sa[j] = Math.sin(azsRad[j]);
+    ca[j] = Math.cos(azsRad[j]);
+  }
+  // per wire: direction, midpoint (series) or first node (direct sum), segment length and count
+  const tx = new Float64Array(nW);
+  const ty = new Float64Array(nW);
+  const tz = new Float64Array(nW);
+  const px = new Float64Array(nW);
+  const py = new Float64Array(nW);
+  const pz = new Float64Array(nW);
+  const zr = new Float64Array(nW);
+  const zi = new Float64Array(nW);
+  for (let w = 0; w < nW; w++) {
+    const s0 = mesh.wireSegStart[w];
+    const nS = mesh.wireSegStart[w + 1] - s0;
+    const hl = coef !== null && coef[w] !== null ? 0.5 * nS * mesh.len[s0] : 0;
+    tx[w] = mesh.tx[s0];
+    ty[w] = mesh.ty[s0];
+    tz[w] = mesh.tz[s0];
+    px[w] = mesh.sx[s0] + hl * tx[w];
+    py[w] = mesh.sy[s0] + hl * ty[w];
+    pz[w] = mesh.sz[s0] + hl * tz[w];
+  }
+  const f = (eta * k * k) / (32 * Math.PI * Math.PI);
+  const r = new Float64Array(4);
+  let idx = 0;
+  for (const el of elsRad) {
+    const ce = Math.cos(el);
+    const se = Math.sin(el);
+    if (ground && se < 0) {
+      for (let j = 0; j < nAz; j++, idx++) {
+        uTheta[idx] = 0;
+        uPhi[idx] = 0;
+      }
+      continue;
+    }
+    if (ground) ground.farFieldReflection(se, r);
+    for (let w = 0; w < nW; w++) {
+      zr[w] = Math.cos(k * se * pz[w]);
+      zi[w] = Math.sin(k * se * pz[w]);
+    }
+    for (let j = 0; j < nAz; j++, idx++) {
+      const ux = ce * sa[j];
+      const uy = ce * ca[j];
+      let nxr = 0,
+        nxi = 0,
+        nyr = 0,
+        nyi = 0,
+        nzr = 0,
+        nzi = 0,
+        mxr = 0,
+        mxi = 0,
+        myr = 0,
+        myi = 0,
+        mzr = 0,
+        mzi = 0;
+      for (let w = 0; w < nW; w++) {
+        const wtx = tx[w];
+        const wty = ty[w];
+        const wtz = tz[w];
+        const xh = ux * wtx + uy * wty;
+        const hp = k * (ux * px[w] + uy * py[w]);
+        const hr = Math.cos(hp);
+        const hi = Math.sin(hp);
+        const tab = coef === null ? null : coef[w];
+        // direct wire: S = e^{jk(ux px + uy py)} e^{jk uz pz} h(r̂·t̂)
+        let ar: number, ai: number;
+        if (tab) {
+          clenshaw(tab, xh + se * wtz);
+          ar = cl[0];
+          ai = cl[1];
+        } else {
+          const s0 = mesh.wireSegStart[w];
+          const d = mesh.len[s0];
+          wireSum(I, mesh.wireNodeStart[w], mesh.wireSegStart[w + 1] - s0, d, k * d * (xh + se * wtz), 0);
+          ar = ws[0];
+          ai = ws[1];
+        }
+        const gr = hr * zr[w] - hi * zi[w];
+        const gi = hr * zi[w] + hi * zr[w];
+        const sr = ar * gr - ai * gi;
+        const si = ar * gi + ai * gr;
+        nxr += sr * wtx;
+        nxi += si * wtx;
+        nyr += sr * wty;
+        nyi += si * wty;
+        nzr += sr * wtz;
+        nzi += si * wtz;
+        if (ground) {
+          // image: current −I along (tx, ty, −tz) from the mirrored point, e^{−jk uz pz}
+          if (wtz !== 0) {
+            if (tab) {
+              clenshaw(tab, xh - se * wtz);
+              ar = cl[0];
+              ai = cl[1];
+            } else {
+              const s0 = mesh.wireSegStart[w];
+              const d = mesh.len[s0];
+              wireSum(I, mesh.wireNodeStart[w], mesh.wireSegStart[w + 1] - s0, d, k * d * (xh - se * wtz), 0);
+              ar = ws[0];
+              ai = ws[1];
+            }
+          }
+          const qr = hr * zr[w] + hi * zi[w];
+          const qi = hi * zr[w] - hr * zi[w];
+          const jr = -(ar * qr - ai * qi);
+          const ji = -(ar * qi + ai * qr);
+          mxr += jr * wtx;
+          mxi += ji * wtx;
+          myr += jr * wty;
+          myi += ji * wty;
+          mzr -= jr * wtz;
+          mzi -= ji * wtz;
+        }
+      }
+      const thx = se * sa[j];
+      const thy = se * ca[j];
+      const thz = -ce;
+      const phx = ca[j];
+      const phy = -sa[j];
+      let ntr = nxr * thx + nyr * thy + nzr * thz;
+      let nti = nxi * thx + nyi * thy + nzi * thz;
+      let npr = nxr * phx + nyr * phy;
+      let npi = nxi * phx + nyi * phy;
+      if (ground) {
+        const itr = mxr * thx + myr * thy + mzr * thz;
+        const iti = mxi * thx + myi * thy + mzi * thz;
+        const ipr = mxr * phx + myr * phy;
+        const ipi = mxi * phx + myi * phy;
+        ntr += r[0] * itr - r[1] * iti;
+        nti += r[0] * iti + r[1] * itr;
+        npr += -(r[2] * ipr - r[3] * ipi);
+        npi += -(r[2] * ipi + r[3] * ipr);
+      }
+      uTheta[idx] = f * (ntr * ntr + nti * nti);
+      uPhi[idx] = f * (npr * npr + npi * npi);
+    }
+  }
+}
+
+const cl = new Float64Array(2);
+
+/** Clenshaw's recurrence for Σ c_m T_m(x), complex coefficients interleaved: writes (re, im) to cl. */
+function clenshaw(tab: Float64Array, x: number): void {
+  const x2 = 2 * x;
+  let b1r = 0,
+    b1i = 0,
+    b2r = 0,
+    b2i = 0;
+  for (let m = tab.length - 2; m >= 2; m -= 2) {
+    const tr = tab[m] + x2 * b1r - b2r;
+    const ti = tab[m + 1] + x2 * b1i - b2i;
+    b2r = b1r;
+    b2i = b1i;
+    b1r = tr;
+    b1i = ti;
+  }
+  cl[0] = tab[0] + x * b1r - b2r;
+  cl[1] = tab[1] + x * b1i - b2i;
 }

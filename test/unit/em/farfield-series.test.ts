@@ -3,7 +3,12 @@
 // over its nodes, on random wire models in free space, over perfect ground and over soil.
 import { describe, it, expect, afterEach } from 'vitest';
 import { frequencyResult, prepareFor } from '../../../core/em/evaluate.ts';
-import { radiationIntensity, seriesOrder, useWireSeries } from '../../../core/em/farfield.ts';
+import {
+  radiationIntensity,
+  radiationIntensityGrid,
+  seriesOrder,
+  useWireSeries,
+} from '../../../core/em/farfield.ts';
 import { ETA0 } from '../../../core/em/constants.ts';
 import { createWorkspace, solveFrequency } from '../../../core/em/solver.ts';
 import type { AntennaModel } from '../../../core/em/types.ts';
@@ -69,6 +74,23 @@ describe('far field: wire series against the direct sum (internal consistency)',
         const peak = Math.max(...direct);
         expect(peak).toBeGreaterThan(0);
         for (let i = 0; i < dirs.length; i++) expect(Math.abs(fast[i] - direct[i])).toBeLessThan(1e-9 * peak);
+        // the product-grid routine against the direct sum direction by direction
+        const els = Array.from({ length: 7 }, () =>
+          ground.kind === 'free-space' ? Math.PI * (rnd() - 0.5) : 1.5 * rnd(),
+        );
+        const azs = Array.from({ length: 11 }, () => 2 * Math.PI * rnd());
+        const gt = new Float64Array(77);
+        const gp = new Float64Array(77);
+        radiationIntensityGrid(src, els, azs, ETA0, gt, gp);
+        useWireSeries(false);
+        els.forEach((el, i) =>
+          azs.forEach((az, j) => {
+            radiationIntensity(src, el, az, ETA0, u);
+            expect(Math.abs(gt[i * 11 + j] - u[0])).toBeLessThan(1e-9 * peak);
+            expect(Math.abs(gp[i * 11 + j] - u[1])).toBeLessThan(1e-9 * peak);
+          }),
+        );
+        useWireSeries(true);
         // and the radiated power, efficiency and peak of the assembled result
         const opts = { frequenciesHz: [f] };
         useWireSeries(false);
@@ -76,7 +98,9 @@ describe('far field: wire series against the direct sum (internal consistency)',
         useWireSeries(true);
         const b = frequencyResult(pm, sol, opts);
         expect(Math.abs(b.radiatedPowerW - a.radiatedPowerW)).toBeLessThan(1e-9 * a.radiatedPowerW);
-        expect(Math.abs(b.peak.gainDbi - a.peak.gainDbi)).toBeLessThan(1e-8);
+        // the peak search stops at 1e-4° (Brent), so rounding-level differences can end it elsewhere
+        // within that tolerance
+        expect(Math.abs(b.peak.gainDbi - a.peak.gainDbi)).toBeLessThan(1e-3);
       }
     });
 
