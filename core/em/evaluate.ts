@@ -18,7 +18,12 @@
 import { brentMinimize } from '../numeric/roots.ts';
 import { ETA0 } from './constants.ts';
 import { ModelError, type Diagnostic } from './errors.ts';
-import { integrateRadiatedPower, radiationIntensity, type FarFieldSource } from './farfield.ts';
+import {
+  integrateRadiatedPower,
+  radiationIntensity,
+  radiationIntensityGrid,
+  type FarFieldSource,
+} from './farfield.ts';
 import type { GroundModel, GroundModelChoice } from './ground.ts';
 import { groundAbsorption, groundAbsorptionWork } from './halfspace/absorption.ts';
 import { ExactGroundAt, type ExactGroundModel } from './halfspace/ground.ts';
@@ -272,7 +277,6 @@ export function frequencyResult(
       : (pin - prad - losses - groundAbsorbedW) / pin
     : (pin - prad - losses) / pin;
   const grid = opts.pattern ?? DEFAULT_PATTERN;
-  const tmp = new Float64Array(2);
   const pattern: PatternPoint[] = [];
   const isDefault = grid === DEFAULT_PATTERN;
   const only = opts.gainGridOnly === true;
@@ -282,11 +286,22 @@ export function frequencyResult(
   let top = -1;
   let topEl = 0;
   let topAz = 0;
+  const nDir = grid.elevationsDeg.length * grid.azimuthsDeg.length;
+  const uTheta = new Float64Array(nDir);
+  const uPhi = new Float64Array(nDir);
+  radiationIntensityGrid(
+    src,
+    grid.elevationsDeg.map((el) => el * D2R),
+    grid.azimuthsDeg.map((az) => az * D2R),
+    ETA0,
+    uTheta,
+    uPhi,
+  );
+  let di = 0;
   for (const el of grid.elevationsDeg)
     for (const az of grid.azimuthsDeg) {
-      radiationIntensity(src, el * D2R, az * D2R, ETA0, tmp);
-      const gv = (4 * Math.PI * tmp[0]) / pin;
-      const gh = (4 * Math.PI * tmp[1]) / pin;
+      const gv = (4 * Math.PI * uTheta[di]) / pin;
+      const gh = (4 * Math.PI * uPhi[di++]) / pin;
       if (gains) gains[gi++] = gv + gh;
       if (only) {
         if (gv + gh > top) {

@@ -46,6 +46,201 @@ const C1 = new Float64Array(12);
   }
 }
 
+/** Result of wireSum: (re, im). */
+const ws = new Float64Array(2);
+
+/**
+ * One straight wire's radiation integral Δ Σ ∫ I(s) e^{j(ph0 + ψ s/Δ)} ds over its nS equal
+ * segments of length d (node currents from node n0 of I), ψ = kΔ r̂·t̂: writes (re, im) to ws.
+ */
+function wireSum(I: Float64Array, n0: number, nS: number, d: number, psi: number, ph0: number): void {
+  const cp = Math.cos(psi);
+  const sp = Math.sin(psi);
+  // A = Σ I_n P_n with P_n = e^{j(ph0 + nψ)}, summed in four interleaved chains (P_n,
+  // P_{n+1}, P_{n+2}, P_{n+3} each rotated by e^{4jψ}) so that the recurrence does not
+  // serialise the loop.
+  const p0r = Math.cos(ph0);
+  const p0i = Math.sin(ph0);
+  const c2 = cp * cp - sp * sp;
+  const s2 = 2 * cp * sp;
+  const c4 = c2 * c2 - s2 * s2;
+  const s4 = 2 * c2 * s2;
+  let qr0 = p0r;
+  let qi0 = p0i;
+  let qr1 = p0r * cp - p0i * sp;
+  let qi1 = p0r * sp + p0i * cp;
+  let qr2 = p0r * c2 - p0i * s2;
+  let qi2 = p0r * s2 + p0i * c2;
+  let qr3 = qr1 * c2 - qi1 * s2;
+  let qi3 = qr1 * s2 + qi1 * c2;
+  let ar0 = 0,
+    ai0 = 0,
+    ar1 = 0,
+    ai1 = 0;
+  let n = 0;
+  const base = 2 * n0;
+  for (; n + 4 <= nS; n += 4) {
+    const o2 = base + 2 * n;
+    const i0r = I[o2];
+    const i0i = I[o2 + 1];
+    const i1r = I[o2 + 2];
+    const i1i = I[o2 + 3];
+    const i2r = I[o2 + 4];
+    const i2i = I[o2 + 5];
+    const i3r = I[o2 + 6];
+    const i3i = I[o2 + 7];
+    ar0 += i0r * qr0 - i0i * qi0 + (i2r * qr2 - i2i * qi2);
+    ai0 += i0r * qi0 + i0i * qr0 + (i2r * qi2 + i2i * qr2);
+    ar1 += i1r * qr1 - i1i * qi1 + (i3r * qr3 - i3i * qi3);
+    ai1 += i1r * qi1 + i1i * qr1 + (i3r * qi3 + i3i * qr3);
+    let t = qr0 * c4 - qi0 * s4;
+    qi0 = qr0 * s4 + qi0 * c4;
+    qr0 = t;
+    t = qr1 * c4 - qi1 * s4;
+    qi1 = qr1 * s4 + qi1 * c4;
+    qr1 = t;
+    t = qr2 * c4 - qi2 * s4;
+    qi2 = qr2 * s4 + qi2 * c4;
+    qr2 = t;
+    t = qr3 * c4 - qi3 * s4;
+    qi3 = qr3 * s4 + qi3 * c4;
+    qr3 = t;
+  }
+  // remaining nodes n … nS (one to four), continuing from chain 0, so P ends at P_N
+  let pr = qr0;
+  let pi = qi0;
+  let ar = ar0 + ar1;
+  let ai = ai0 + ai1;
+  for (; n <= nS; n++) {
+    const ir = I[base + 2 * n];
+    const ii = I[base + 2 * n + 1];
+    ar += ir * pr - ii * pi;
+    ai += ir * pi + ii * pr;
+    if (n < nS) {
+      const t = pr * cp - pi * sp;
+      pi = pr * sp + pi * cp;
+      pr = t;
+    }
+  }
+  // pr, pi now P_N
+  let e0r: number, e0i: number, e1r: number, e1i: number;
+  if (Math.abs(psi) < 0.5) {
+    // E0 = Σ (jψ)^m/(m+1)!, E1 = Σ (jψ)^m/((m+2)·m!): even powers real, odd imaginary (Horner in ψ²)
+    const p2 = psi * psi;
+    e0r = C0[0] + p2 * (C0[2] + p2 * (C0[4] + p2 * (C0[6] + p2 * (C0[8] + p2 * C0[10]))));
+    e0i = psi * (C0[1] + p2 * (C0[3] + p2 * (C0[5] + p2 * (C0[7] + p2 * (C0[9] + p2 * C0[11])))));
+    e1r = C1[0] + p2 * (C1[2] + p2 * (C1[4] + p2 * (C1[6] + p2 * (C1[8] + p2 * C1[10]))));
+    e1i = psi * (C1[1] + p2 * (C1[3] + p2 * (C1[5] + p2 * (C1[7] + p2 * (C1[9] + p2 * C1[11])))));
+  } else {
+    // jψ = (0, ψ); (e^{jψ} − 1)/(jψ) = (sin ψ, 1 − cos ψ)/ψ
+    e0r = sp / psi;
+    e0i = (1 - cp) / psi;
+    // e^{jψ}/(jψ) = (cos ψ + j sin ψ)(−j/ψ) = (sin ψ, −cos ψ)/ψ ; E0/(jψ) = E0·(−j/ψ)
+    e1r = sp / psi - e0i / psi;
+    e1i = -cp / psi + e0r / psi;
+  }
+  // S = Δ[(E0 − E1)(A − I_N P_N) + E1 e^{−jψ}(A − I_0 P_0)]
+  const iNr = I[2 * (n0 + nS)];
+  const iNi = I[2 * (n0 + nS) + 1];
+  const i0r = I[2 * n0];
+  const i0i = I[2 * n0 + 1];
+  const xr = ar - (iNr * pr - iNi * pi);
+  const xi = ai - (iNr * pi + iNi * pr);
+  const yr0 = ar - (i0r * p0r - i0i * p0i);
+  const yi0 = ai - (i0r * p0i + i0i * p0r);
+  // e^{−jψ}(…)
+  const yr = yr0 * cp + yi0 * sp;
+  const yi = yi0 * cp - yr0 * sp;
+  const fr = e0r - e1r;
+  const fi = e0i - e1i;
+  ws[0] = d * (fr * xr - fi * xi + e1r * yr - e1i * yi);
+  ws[1] = d * (fr * xi + fi * xr + e1r * yi + e1i * yr);
+}
+
+/**
+ * Chebyshev series of each wire's radiation integral, per source (built on first use).
+ *
+ * About its midpoint a wire's integral is h(x) = Δ ∫₀^N I(u) e^{jkΔx(u − N/2)} du with
+ * x = r̂·t̂ ∈ [−1, 1]: a function of one variable of exponential type b = kL/2 (L = NΔ, the wire's
+ * length). Its Chebyshev coefficients are a_m = 2jᵐ Δ ∫ I(u) J_m(kΔ(u − N/2)) du, so
+ * |a_m| ≤ 2 Δ∫|I| (b/2)ᵐ/m! by |J_m(β)| ≤ |β/2|ᵐ/m! (Abramowitz & Stegun, Handbook of
+ * Mathematical Functions, 1964, eq. 9.1.62), and the interpolant at M + 1 Chebyshev points is
+ * within 2 Σ_{m>M} |a_m| of h (Trefethen, Approximation Theory and Approximation Practice, 2013,
+ * Thm 8.2). M is the smallest order that makes that bound ≤ SERIES_TOL · Δ∫|I|; the values at the
+ * points come from the closed-form sum (wireSum). A wire whose series would be longer than its
+ * node count keeps the direct sum.
+ */
+const SERIES_TOL = 1e-15;
+let seriesOn = true;
+let series: { src: FarFieldSource; currents: Float64Array; coef: (Float64Array | null)[] } | null = null;
+
+/** Use the wires' Chebyshev series (default) or the direct sum for every direction; returns the previous setting. */
+export function useWireSeries(on: boolean): boolean {
+  const was = seriesOn;
+  seriesOn = on;
+  series = null;
+  return was;
+}
+
+/** The series order M for a wire of half-length kL/2 = b: 4 (b/2)^{M+1}/(M+1)! ≤ tol, terms falling by half. */
+export function seriesOrder(b: number, tol = SERIES_TOL): number {
+  const h = b / 2;
+  let term = h; // (b/2)^{M+1}/(M+1)! for M = 0
+  let m = 0;
+  while (m < 200 && (4 * term > tol || h / (m + 2) > 0.5)) {
+    m++;
+    term *= h / (m + 1);
+  }
+  return m;
+}
+
+function wireSeries(src: FarFieldSource): {
+  src: FarFieldSource;
+  currents: Float64Array;
+  coef: (Float64Array | null)[];
+} {
+  const { mesh, nodeCurrents: I, k } = src;
+  const coef: (Float64Array | null)[] = [];
+  for (let w = 0; w < mesh.nWires; w++) {
+    const s0 = mesh.wireSegStart[w];
+    const nS = mesh.wireSegStart[w + 1] - s0;
+    const n0 = mesh.wireNodeStart[w];
+    const d = mesh.len[s0];
+    const m = seriesOrder((k * d * nS) / 2);
+    if (m > nS + 8) {
+      coef.push(null);
+      continue;
+    }
+    // values at the Chebyshev points x_i = cos(π(i + ½)/(M + 1)), the midpoint's phase removed
+    const np = m + 1;
+    const vr = new Float64Array(np);
+    const vi = new Float64Array(np);
+    for (let i = 0; i < np; i++) {
+      const x = Math.cos((Math.PI * (i + 0.5)) / np);
+      const psi = k * d * x;
+      wireSum(I, n0, nS, d, psi, -0.5 * nS * psi);
+      vr[i] = ws[0];
+      vi[i] = ws[1];
+    }
+    // c_m = (2/(M+1)) Σ_i v_i cos(πm(i + ½)/(M + 1)), c_0 halved
+    const c = new Float64Array(2 * np);
+    for (let j = 0; j < np; j++) {
+      let cr = 0;
+      let ci = 0;
+      for (let i = 0; i < np; i++) {
+        const t = Math.cos((Math.PI * j * (i + 0.5)) / np);
+        cr += vr[i] * t;
+        ci += vi[i] * t;
+      }
+      const f = (j === 0 ? 1 : 2) / np;
+      c[2 * j] = f * cr;
+      c[2 * j + 1] = f * ci;
+    }
+    coef.push(c);
+  }
+  return { src, currents: I, coef };
+}
+
 /** Radiation-vector sums of all wires (and images) for one direction: out = [Nx, Ny, Nz] real/imag for real and image parts. */
 function radiationVectors(
   src: FarFieldSource,
@@ -56,6 +251,11 @@ function radiationVectors(
   out: Float64Array,
 ): void {
   const { mesh, nodeCurrents: I, k } = src;
+  let coef: (Float64Array | null)[] | null = null;
+  if (seriesOn) {
+    if (series === null || series.src !== src || series.currents !== I) series = wireSeries(src);
+    coef = series.coef;
+  }
   out.fill(0);
   for (let w = 0; w < mesh.nWires; w++) {
     const s0 = mesh.wireSegStart[w];
@@ -71,109 +271,44 @@ function radiationVectors(
       const wty = mesh.ty[s0];
       const wtz = zs * mesh.tz[s0];
       const d = mesh.len[s0];
-      const psi = k * d * (ux * wtx + uy * wty + uz * wtz);
-      const ph0 = k * (ux * mesh.sx[s0] + uy * mesh.sy[s0] + uz * zs * mesh.sz[s0]);
-      const cp = Math.cos(psi);
-      const sp = Math.sin(psi);
-      // A = Σ I_n P_n with P_n = e^{j(ph0 + nψ)}, summed in four interleaved chains (P_n,
-      // P_{n+1}, P_{n+2}, P_{n+3} each rotated by e^{4jψ}) so that the recurrence does not
-      // serialise the loop.
-      const p0r = Math.cos(ph0);
-      const p0i = Math.sin(ph0);
-      const c2 = cp * cp - sp * sp;
-      const s2 = 2 * cp * sp;
-      const c4 = c2 * c2 - s2 * s2;
-      const s4 = 2 * c2 * s2;
-      let qr0 = p0r;
-      let qi0 = p0i;
-      let qr1 = p0r * cp - p0i * sp;
-      let qi1 = p0r * sp + p0i * cp;
-      let qr2 = p0r * c2 - p0i * s2;
-      let qi2 = p0r * s2 + p0i * c2;
-      let qr3 = qr1 * c2 - qi1 * s2;
-      let qi3 = qr1 * s2 + qi1 * c2;
-      let ar0 = 0,
-        ai0 = 0,
-        ar1 = 0,
-        ai1 = 0;
-      let n = 0;
-      const base = 2 * n0;
-      for (; n + 4 <= nS; n += 4) {
-        const o2 = base + 2 * n;
-        const i0r = I[o2];
-        const i0i = I[o2 + 1];
-        const i1r = I[o2 + 2];
-        const i1i = I[o2 + 3];
-        const i2r = I[o2 + 4];
-        const i2i = I[o2 + 5];
-        const i3r = I[o2 + 6];
-        const i3i = I[o2 + 7];
-        ar0 += i0r * qr0 - i0i * qi0 + (i2r * qr2 - i2i * qi2);
-        ai0 += i0r * qi0 + i0i * qr0 + (i2r * qi2 + i2i * qr2);
-        ar1 += i1r * qr1 - i1i * qi1 + (i3r * qr3 - i3i * qi3);
-        ai1 += i1r * qi1 + i1i * qr1 + (i3r * qi3 + i3i * qr3);
-        let t = qr0 * c4 - qi0 * s4;
-        qi0 = qr0 * s4 + qi0 * c4;
-        qr0 = t;
-        t = qr1 * c4 - qi1 * s4;
-        qi1 = qr1 * s4 + qi1 * c4;
-        qr1 = t;
-        t = qr2 * c4 - qi2 * s4;
-        qi2 = qr2 * s4 + qi2 * c4;
-        qr2 = t;
-        t = qr3 * c4 - qi3 * s4;
-        qi3 = qr3 * s4 + qi3 * c4;
-        qr3 = t;
-      }
-      // remaining nodes n … nS (one to four), continuing from chain 0, so P ends at P_N
-      let pr = qr0;
-      let pi = qi0;
-      let ar = ar0 + ar1;
-      let ai = ai0 + ai1;
-      for (; n <= nS; n++) {
-        const ir = I[base + 2 * n];
-        const ii = I[base + 2 * n + 1];
-        ar += ir * pr - ii * pi;
-        ai += ir * pi + ii * pr;
-        if (n < nS) {
-          const t = pr * cp - pi * sp;
-          pi = pr * sp + pi * cp;
-          pr = t;
+      let sr: number, si: number;
+      const tab = coef === null ? null : coef[w];
+      if (tab) {
+        // the wire's integral about its midpoint, h(x) with x = r̂·t̂, from its Chebyshev series
+        // (Clenshaw's recurrence), times the midpoint's phase
+        const x = ux * wtx + uy * wty + uz * wtz;
+        const x2 = 2 * x;
+        let b1r = 0,
+          b1i = 0,
+          b2r = 0,
+          b2i = 0;
+        for (let m = tab.length - 2; m >= 2; m -= 2) {
+          const tr = tab[m] + x2 * b1r - b2r;
+          const ti = tab[m + 1] + x2 * b1i - b2i;
+          b2r = b1r;
+          b2i = b1i;
+          b1r = tr;
+          b1i = ti;
         }
-      }
-      // pr, pi now P_N
-      let e0r: number, e0i: number, e1r: number, e1i: number;
-      if (Math.abs(psi) < 0.5) {
-        // E0 = Σ (jψ)^m/(m+1)!, E1 = Σ (jψ)^m/((m+2)·m!): even powers real, odd imaginary (Horner in ψ²)
-        const p2 = psi * psi;
-        e0r = C0[0] + p2 * (C0[2] + p2 * (C0[4] + p2 * (C0[6] + p2 * (C0[8] + p2 * C0[10]))));
-        e0i = psi * (C0[1] + p2 * (C0[3] + p2 * (C0[5] + p2 * (C0[7] + p2 * (C0[9] + p2 * C0[11])))));
-        e1r = C1[0] + p2 * (C1[2] + p2 * (C1[4] + p2 * (C1[6] + p2 * (C1[8] + p2 * C1[10]))));
-        e1i = psi * (C1[1] + p2 * (C1[3] + p2 * (C1[5] + p2 * (C1[7] + p2 * (C1[9] + p2 * C1[11])))));
+        const hr = tab[0] + x * b1r - b2r;
+        const hi = tab[1] + x * b1i - b2i;
+        const hl = 0.5 * nS * d;
+        const phm =
+          k *
+          (ux * (mesh.sx[s0] + hl * wtx) +
+            uy * (mesh.sy[s0] + hl * wty) +
+            uz * zs * (mesh.sz[s0] + hl * mesh.tz[s0]));
+        const mr = Math.cos(phm);
+        const mi = Math.sin(phm);
+        sr = cs * (hr * mr - hi * mi);
+        si = cs * (hr * mi + hi * mr);
       } else {
-        // jψ = (0, ψ); (e^{jψ} − 1)/(jψ) = (sin ψ, 1 − cos ψ)/ψ
-        e0r = sp / psi;
-        e0i = (1 - cp) / psi;
-        // e^{jψ}/(jψ) = (cos ψ + j sin ψ)(−j/ψ) = (sin ψ, −cos ψ)/ψ ; E0/(jψ) = E0·(−j/ψ)
-        e1r = sp / psi - e0i / psi;
-        e1i = -cp / psi + e0r / psi;
+        const psi = k * d * (ux * wtx + uy * wty + uz * wtz);
+        const ph0 = k * (ux * mesh.sx[s0] + uy * mesh.sy[s0] + uz * zs * mesh.sz[s0]);
+        wireSum(I, n0, nS, d, psi, ph0);
+        sr = cs * ws[0];
+        si = cs * ws[1];
       }
-      // S = Δ[(E0 − E1)(A − I_N P_N) + E1 e^{−jψ}(A − I_0 P_0)]
-      const iNr = I[2 * (n0 + nS)];
-      const iNi = I[2 * (n0 + nS) + 1];
-      const i0r = I[2 * n0];
-      const i0i = I[2 * n0 + 1];
-      const xr = ar - (iNr * pr - iNi * pi);
-      const xi = ai - (iNr * pi + iNi * pr);
-      const yr0 = ar - (i0r * p0r - i0i * p0i);
-      const yi0 = ai - (i0r * p0i + i0i * p0r);
-      // e^{−jψ}(…)
-      const yr = yr0 * cp + yi0 * sp;
-      const yi = yi0 * cp - yr0 * sp;
-      const fr = e0r - e1r;
-      const fi = e0i - e1i;
-      const sr = d * cs * (fr * xr - fi * xi + e1r * yr - e1i * yi);
-      const si = d * cs * (fr * xi + fi * xr + e1r * yi + e1i * yr);
       out[o] += sr * wtx;
       out[o + 1] += si * wtx;
       out[o + 2] += sr * wty;
@@ -313,22 +448,206 @@ export function integrateRadiatedPower(src: FarFieldSource, eta: number): Radiat
           [-1, 0, nMu],
           [0, 1, nMu],
         ];
-  const out = new Float64Array(2);
+  const azs = Array.from({ length: nAz }, (_, j) => (2 * Math.PI * j) / nAz);
   let sum = 0;
   let count = 0;
   for (const [mu0, mu1, n] of panels) {
     const g = gaussLegendre01(n);
+    const els = Array.from({ length: n }, (_, i) => Math.asin(mu0 + (mu1 - mu0) * g.x[i]));
+    const ut = new Float64Array(n * nAz);
+    const up = new Float64Array(n * nAz);
+    radiationIntensityGrid(src, els, azs, eta, ut, up);
     for (let i = 0; i < n; i++) {
-      const mu = mu0 + (mu1 - mu0) * g.x[i];
-      const el = Math.asin(mu);
       let ring = 0;
       for (let j = 0; j < nAz; j++) {
-        radiationIntensity(src, el, (2 * Math.PI * j) / nAz, eta, out);
-        ring += out[0] + out[1];
+        ring += ut[i * nAz + j] + up[i * nAz + j];
         count++;
       }
       sum += g.w[i] * (mu1 - mu0) * ring * ((2 * Math.PI) / nAz);
     }
   }
   return { watts: sum, directions: count };
+}
+
+/**
+ * Radiation intensity (U_θ, U_φ) on a product grid of directions, the same figures as
+ * radiationIntensity direction by direction (index iEl·nAz + iAz into uTheta, uPhi), with what
+ * depends on one angle only (the angles' sines and cosines, the ground's reflection coefficients,
+ * each wire's height phase) computed once per row or column.
+ */
+export function radiationIntensityGrid(
+  src: FarFieldSource,
+  elsRad: readonly number[],
+  azsRad: readonly number[],
+  eta: number,
+  uTheta: Float64Array,
+  uPhi: Float64Array,
+): void {
+  const { mesh, nodeCurrents: I, k, ground } = src;
+  if (seriesOn && (series === null || series.src !== src || series.currents !== I)) series = wireSeries(src);
+  const coef = seriesOn && series !== null ? series.coef : null;
+  const nW = mesh.nWires;
+  const nAz = azsRad.length;
+  const sa = new Float64Array(nAz);
+  const ca = new Float64Array(nAz);
+  for (let j = 0; j < nAz; j++) {
+    sa[j] = Math.sin(azsRad[j]);
+    ca[j] = Math.cos(azsRad[j]);
+  }
+  // per wire: direction, midpoint (series) or first node (direct sum), segment length and count
+  const tx = new Float64Array(nW);
+  const ty = new Float64Array(nW);
+  const tz = new Float64Array(nW);
+  const px = new Float64Array(nW);
+  const py = new Float64Array(nW);
+  const pz = new Float64Array(nW);
+  const zr = new Float64Array(nW);
+  const zi = new Float64Array(nW);
+  for (let w = 0; w < nW; w++) {
+    const s0 = mesh.wireSegStart[w];
+    const nS = mesh.wireSegStart[w + 1] - s0;
+    const hl = coef !== null && coef[w] !== null ? 0.5 * nS * mesh.len[s0] : 0;
+    tx[w] = mesh.tx[s0];
+    ty[w] = mesh.ty[s0];
+    tz[w] = mesh.tz[s0];
+    px[w] = mesh.sx[s0] + hl * tx[w];
+    py[w] = mesh.sy[s0] + hl * ty[w];
+    pz[w] = mesh.sz[s0] + hl * tz[w];
+  }
+  const f = (eta * k * k) / (32 * Math.PI * Math.PI);
+  const r = new Float64Array(4);
+  let idx = 0;
+  for (const el of elsRad) {
+    const ce = Math.cos(el);
+    const se = Math.sin(el);
+    if (ground && se < 0) {
+      for (let j = 0; j < nAz; j++, idx++) {
+        uTheta[idx] = 0;
+        uPhi[idx] = 0;
+      }
+      continue;
+    }
+    if (ground) ground.farFieldReflection(se, r);
+    for (let w = 0; w < nW; w++) {
+      zr[w] = Math.cos(k * se * pz[w]);
+      zi[w] = Math.sin(k * se * pz[w]);
+    }
+    for (let j = 0; j < nAz; j++, idx++) {
+      const ux = ce * sa[j];
+      const uy = ce * ca[j];
+      let nxr = 0,
+        nxi = 0,
+        nyr = 0,
+        nyi = 0,
+        nzr = 0,
+        nzi = 0,
+        mxr = 0,
+        mxi = 0,
+        myr = 0,
+        myi = 0,
+        mzr = 0,
+        mzi = 0;
+      for (let w = 0; w < nW; w++) {
+        const wtx = tx[w];
+        const wty = ty[w];
+        const wtz = tz[w];
+        const xh = ux * wtx + uy * wty;
+        const hp = k * (ux * px[w] + uy * py[w]);
+        const hr = Math.cos(hp);
+        const hi = Math.sin(hp);
+        const tab = coef === null ? null : coef[w];
+        // direct wire: S = e^{jk(ux px + uy py)} e^{jk uz pz} h(r̂·t̂)
+        let ar: number, ai: number;
+        if (tab) {
+          clenshaw(tab, xh + se * wtz);
+          ar = cl[0];
+          ai = cl[1];
+        } else {
+          const s0 = mesh.wireSegStart[w];
+          const d = mesh.len[s0];
+          wireSum(I, mesh.wireNodeStart[w], mesh.wireSegStart[w + 1] - s0, d, k * d * (xh + se * wtz), 0);
+          ar = ws[0];
+          ai = ws[1];
+        }
+        const gr = hr * zr[w] - hi * zi[w];
+        const gi = hr * zi[w] + hi * zr[w];
+        const sr = ar * gr - ai * gi;
+        const si = ar * gi + ai * gr;
+        nxr += sr * wtx;
+        nxi += si * wtx;
+        nyr += sr * wty;
+        nyi += si * wty;
+        nzr += sr * wtz;
+        nzi += si * wtz;
+        if (ground) {
+          // image: current −I along (tx, ty, −tz) from the mirrored point, e^{−jk uz pz}
+          if (wtz !== 0) {
+            if (tab) {
+              clenshaw(tab, xh - se * wtz);
+              ar = cl[0];
+              ai = cl[1];
+            } else {
+              const s0 = mesh.wireSegStart[w];
+              const d = mesh.len[s0];
+              wireSum(I, mesh.wireNodeStart[w], mesh.wireSegStart[w + 1] - s0, d, k * d * (xh - se * wtz), 0);
+              ar = ws[0];
+              ai = ws[1];
+            }
+          }
+          const qr = hr * zr[w] + hi * zi[w];
+          const qi = hi * zr[w] - hr * zi[w];
+          const jr = -(ar * qr - ai * qi);
+          const ji = -(ar * qi + ai * qr);
+          mxr += jr * wtx;
+          mxi += ji * wtx;
+          myr += jr * wty;
+          myi += ji * wty;
+          mzr -= jr * wtz;
+          mzi -= ji * wtz;
+        }
+      }
+      const thx = se * sa[j];
+      const thy = se * ca[j];
+      const thz = -ce;
+      const phx = ca[j];
+      const phy = -sa[j];
+      let ntr = nxr * thx + nyr * thy + nzr * thz;
+      let nti = nxi * thx + nyi * thy + nzi * thz;
+      let npr = nxr * phx + nyr * phy;
+      let npi = nxi * phx + nyi * phy;
+      if (ground) {
+        const itr = mxr * thx + myr * thy + mzr * thz;
+        const iti = mxi * thx + myi * thy + mzi * thz;
+        const ipr = mxr * phx + myr * phy;
+        const ipi = mxi * phx + myi * phy;
+        ntr += r[0] * itr - r[1] * iti;
+        nti += r[0] * iti + r[1] * itr;
+        npr += -(r[2] * ipr - r[3] * ipi);
+        npi += -(r[2] * ipi + r[3] * ipr);
+      }
+      uTheta[idx] = f * (ntr * ntr + nti * nti);
+      uPhi[idx] = f * (npr * npr + npi * npi);
+    }
+  }
+}
+
+const cl = new Float64Array(2);
+
+/** Clenshaw's recurrence for Σ c_m T_m(x), complex coefficients interleaved: writes (re, im) to cl. */
+function clenshaw(tab: Float64Array, x: number): void {
+  const x2 = 2 * x;
+  let b1r = 0,
+    b1i = 0,
+    b2r = 0,
+    b2i = 0;
+  for (let m = tab.length - 2; m >= 2; m -= 2) {
+    const tr = tab[m] + x2 * b1r - b2r;
+    const ti = tab[m + 1] + x2 * b1i - b2i;
+    b2r = b1r;
+    b2i = b1i;
+    b1r = tr;
+    b1i = ti;
+  }
+  cl[0] = tab[0] + x * b1r - b2r;
+  cl[1] = tab[1] + x * b1i - b2i;
 }
