@@ -99,6 +99,11 @@ export interface Design {
    * beams toward canonical north.
    */
   states?: { name: string; rotationDeg: number; mirrorAxisDeg?: number }[];
+  /**
+   * A switched pair (core/antennas/switchedPair.ts, set by the planner): its two antennas, each
+   * its own design as trimmed, placed in the pair's frame.
+   */
+  parts?: { design: Design; trimM: number; placement: Placement }[];
 }
 
 /** Canonical frame → site: rotate clockwise (compass sense) by rotationDeg about the origin, then translate. */
