@@ -6,8 +6,10 @@
  * by its best state, as for the arrays (core/rank/states.ts).
  *
  * Which pairs (after the single antennas of a band are ranked; planned only when arrays are):
- *  - from the band's best PAIR_TOP_SINGLES single antennas (one element, no feed network, no
- *    conducting support in their model), so at most 15 pairs per band;
+ *  - from PAIR_TOP_SINGLES single antennas of the band (one element, no feed network, no
+ *    conducting support in their model), so at most 15 pairs per band: in turn the best by score
+ *    and the best for each target region (pairPool), since the partner a pair needs serves the
+ *    regions the first one misses and may rank low alone;
  *  - the two share no support (a simple, safe reading of "no support used in incompatible ways");
  *  - every wire of one is at least PAIR_MIN_SEPARATION_WAVELENGTHS (0.1 λ) from every wire of the
  *    other (3-D distance between the solver's wires), and two radial fields do not overlap
@@ -141,14 +143,38 @@ export function pairDesign(a: Candidate, b: Candidate, driven: 0 | 1): Design {
   };
 }
 
+/**
+ * The singles pairs are formed from: in turn the best by score, the best for each region (by the
+ * regions' weight), then the second of each, … until PAIR_TOP_SINGLES are chosen. A single that
+ * serves one region well but the others badly ranks low alone and is just what a pair needs.
+ */
+export function pairPool(singles: readonly Candidate[]): Candidate[] {
+  const eligible = singles.filter(
+    (c) => c.elementCount === 1 && !c.conductingSupports.length && !c.arrayFeed,
+  );
+  const nRegions = eligible[0]?.regions.length ?? 0;
+  const order = [...Array(nRegions).keys()].sort(
+    (i, j) => eligible[0].regions[j].weight - eligible[0].regions[i].weight || i - j,
+  );
+  const lists = [
+    [...eligible].sort((x, y) => y.score - x.score),
+    ...order.map((k) => [...eligible].sort((x, y) => y.regions[k].gainDbi - x.regions[k].gainDbi)),
+  ];
+  const pool: Candidate[] = [];
+  for (let depth = 0; pool.length < PAIR_TOP_SINGLES && depth < eligible.length; depth++)
+    for (const l of lists) {
+      const c = l[depth];
+      if (c && !pool.includes(c) && pool.length < PAIR_TOP_SINGLES) pool.push(c);
+    }
+  return pool;
+}
+
 /** The pairs of one band's ranked single candidates (bounded, checked for collisions, ordered). */
 export function formPairs(
   singles: readonly Candidate[],
   wavelengthM: number,
 ): { a: Candidate; b: Candidate; separationM: number }[] {
-  const pool = singles
-    .filter((c) => c.elementCount === 1 && !c.conductingSupports.length && !c.arrayFeed)
-    .slice(0, PAIR_TOP_SINGLES);
+  const pool = pairPool(singles);
   const out: { a: Candidate; b: Candidate; separationM: number; differ: boolean; sum: number }[] = [];
   for (let i = 0; i < pool.length; i++)
     for (let j = i + 1; j < pool.length; j++) {

@@ -73,13 +73,7 @@ import {
   gainAt,
 } from './pattern.ts';
 import { Z0_OHM } from './evaluator.ts';
-import {
-  pairCandidates,
-  pairPlans,
-  PAIR_MARGIN_DEFAULT_DB,
-  PAIR_TOP_SINGLES,
-  type PlannedPair,
-} from './pairs.ts';
+import { pairCandidates, pairPlans, PAIR_MARGIN_DEFAULT_DB, type PlannedPair } from './pairs.ts';
 
 /** Version of the evaluation record and grid; part of every cache key. */
 export const EVALUATION_VERSION = 2;
@@ -805,10 +799,11 @@ export function pairJobs(
 ): Job[] {
   if (!setup.arrays) return [];
   if (setup.pairJobs) return setup.pairJobs;
-  // The band's best singles by score, whatever their type (the shortlist's per-type cap aside).
+  // Every scored placement of each band (no shortlist cut): pairPool picks from them by score
+  // and by region.
   void shortlistSize;
   void perType;
-  const ranked = rankPlan(setup, cache, project, PAIR_TOP_SINGLES, PAIR_TOP_SINGLES);
+  const ranked = rankPlan(setup, cache, project, Infinity, Infinity);
   const { pairs, jobs } = pairPlans(
     ranked.candidates,
     setup.bands.map((b) => ({
