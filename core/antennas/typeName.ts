@@ -17,6 +17,7 @@ const TYPE_NAMES: Record<string, string> = {
   'half-square-reflector': 'Half-square + reflector',
   'half-square-switched': 'Switched half-square pair',
   'half-square-l': 'Half-square L (switched)',
+  'switched-pair': 'Two antennas, switched',
 };
 
 /** The short display name of a type; an id this version does not know reads as its words, capitalised. */

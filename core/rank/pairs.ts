@@ -331,7 +331,11 @@ function pairCandidate(
       note: 'state A (A driven, B open) at its feed; each antenna keeps the trim it has alone',
     },
     efficiency: efficiencySplit(ra.power),
-    trim: { dimension: design.trim.name, valueM: 0, resonant: ra.resonant && rb.resonant },
+    trim: {
+      dimension: `A's ${a.trim.dimension} (${a.trim.valueM.toFixed(2)} m) and B's ${b.trim.dimension} (${b.trim.valueM.toFixed(2)} m), each tuned with the other's feed open`,
+      valueM: 0,
+      resonant: ra.resonant && rb.resonant,
+    },
     cutList: builder.cutList(design, 0).map((c) => ({
       ...c,
       lengthM: Math.round(c.lengthM * 100) / 100,
