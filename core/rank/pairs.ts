@@ -363,6 +363,7 @@ function pairCandidate(
       'not scored over the soil range (pairs are solved over the project’s soil only)',
     ],
     evaluationKey: pr.keys[0],
+    stateKeys: [...pr.keys],
     conductingSupports: [],
     soilRange: {
       soils: [a.soilRange.soils[0] ?? ''],

@@ -259,6 +259,11 @@ export interface Candidate {
   elementCount: number;
   /** Arrays: each element's drive impedance and the current ratios the feed network achieves. */
   arrayFeed?: ArrayFeed;
+  /**
+   * A switched pair: each state's own evaluation key (its pattern in `Shortlist.patterns`), since
+   * its states are solved apart, not turned copies of one pattern; absent otherwise.
+   */
+  stateKeys?: string[];
   /** Switchable directions (relay states); one state, 'fixed', for a fixed antenna. */
   states: { name: string; beamDeg: number; regions: { id: string; gainDbi: number }[] }[];
   peak: { gainDbi: number; elevationDeg: number; azimuthDeg: number };

@@ -16,6 +16,7 @@ import { arrayBom, arrayWiring } from '../../../core/report/arrayWiring.ts';
 import { materialsOf } from '../../../core/report/bom.ts';
 import { sheetLengths } from '../../../core/report/format.ts';
 import { feedLineOf } from '../../../core/report/feedRun.ts';
+import { statePatterns } from '../../../renderer/src/plots/patternData.ts';
 import { testLot } from '../site/lot.ts';
 
 /** Two 25 m spans: w1–w2 along x (broadside north–south), n1–n2 along y (broadside east–west). */
@@ -124,6 +125,14 @@ describe('switched pair of two half-squares at 90°', () => {
     expect(
       pairCollision(w1w2, n1n2!, r.separationM / (PAIR_MIN_SEPARATION_WAVELENGTHS * 0.99)).reason,
     ).toMatch(/come within/);
+  });
+
+  it('gives the plots each state’s own solved pattern', () => {
+    const pair = s.candidates[0];
+    const st = statePatterns(s, pair);
+    expect(st).toHaveLength(2);
+    expect(st[0].p.gainDbi).not.toEqual(st[1].p.gainDbi);
+    expect(st.map((x) => x.name)).toEqual(pair.states.map((x) => x.name));
   });
 
   it('rebuilds from its design like any candidate: both antennas’ wires, both feeds, the coax run in the cut list', () => {
