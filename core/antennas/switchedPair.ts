@@ -11,7 +11,8 @@
  * energised with K1) closes B's feed. So the idle antenna is always open at its own feed: A is
  * open at K1's idle contact, B at K2's open contact. Both antennas stay in the model in both
  * states; the idle one couples to the driven one through its wires with its feed gap open
- * (core/em/network.ts: a port node with nothing connected carries no current).
+ * (core/em/network.ts: the idle port node has only the open contact's capacitance to the
+ * return, RELAY_OPEN_CAPACITANCE_F).
  *
  * State A (params.driven = 0): a 1 V source at A's port, B's port left open. State B
  * (params.driven = 1): the source at the relay box, the coax run (a lossy line, COAX_LINE) to B's
@@ -33,6 +34,14 @@ export interface PairPart {
   /** The part's canonical frame → the pair's frame (the pair's frame is the site's, moved to A's origin). */
   placement: Placement;
 }
+
+/**
+ * Capacitance across an open relay contact, farads: of the order of a picofarad (a value from
+ * memory, no source). At the idle feed it is −j45 kΩ at 3.5 MHz, an open gap for the antenna,
+ * and it keeps the idle port's voltage defined where the antenna itself draws next to no current
+ * (a ground-mounted antenna open at its base: the radial loss in series with the gap).
+ */
+export const RELAY_OPEN_CAPACITANCE_F = 1e-12;
 
 export type PartBuilderLookup = (type: string) => Builder;
 
@@ -112,16 +121,25 @@ export function switchedPairBuilder(builderOf: PartBuilderLookup): Builder {
       if (!out.loads!.length) delete out.loads;
       const driven = d.params.driven === 1 ? 1 : 0;
       const run = d.params.runM;
+      // The idle feed: the open relay contact, its capacitance across the gap.
+      const open = {
+        kind: 'impedance' as const,
+        a: driven === 0 ? 'pb' : 'pa',
+        b: 'common',
+        rOhm: 0,
+        xOhm: -1 / (2 * Math.PI * d.designFreqHz * RELAY_OPEN_CAPACITANCE_F),
+      };
       out.network =
         driven === 0
           ? {
               portNodes: ['pa', 'pb'],
-              elements: [],
+              elements: [open],
               sources: [{ node: 'pa', kind: 'voltage', value: [1, 0] }],
             }
           : {
               portNodes: ['pa', 'pb'],
               elements: [
+                open,
                 { kind: 'line', a: 'box', b: 'pb', lengthM: typeof run === 'number' ? run : 0, ...COAX_LINE },
               ],
               sources: [{ node: 'box', kind: 'voltage', value: [1, 0] }],

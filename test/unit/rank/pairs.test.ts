@@ -9,7 +9,14 @@ import { builderFor } from '../../../core/antennas/registry.ts';
 import { bandPlan } from '../../../core/antennas/common.ts';
 import { parseProject, type Project } from '../../../core/project/schema.ts';
 import { PAIR_MIN_SEPARATION_WAVELENGTHS, pairCollision } from '../../../core/rank/pairs.ts';
-import { candidateGainAt, memoryCache, planSite, type Shortlist } from '../../../core/rank/plan.ts';
+import {
+  candidateGainAt,
+  enumeratePlan,
+  memoryCache,
+  planFromSetup,
+  planSite,
+  type Shortlist,
+} from '../../../core/rank/plan.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 import { arrayBom, arrayWiring } from '../../../core/report/arrayWiring.ts';
@@ -179,6 +186,34 @@ describe('switched pair of two half-squares at 90°', () => {
     const lower = plan(lot({ pairMarginDb: Math.max(0, lead - 0.5) }));
     expect(lower.candidates[0].type).toBe('switched-pair');
     expect(plan(lot(), false).candidates.some((c) => c.type === 'switched-pair')).toBe(false);
+  }, 120_000);
+});
+
+describe('a half-square and a ground-mounted vertical as a pair', () => {
+  it('solves both states with the vertical idle and open at its base (radials in the model)', () => {
+    const p = lot();
+    const c = memoryCache();
+    const setup = enumeratePlan(p, { types: ['half-square', 'vertical'], arrays: true });
+    planFromSetup(setup, p, { evaluator: solverEvaluator, cache: c });
+    const mixed = (setup.pairs ?? []).filter(
+      (pr) => [pr.a.type, pr.b.type].includes('vertical') && [pr.a.type, pr.b.type].includes('half-square'),
+    );
+    expect(mixed.length).toBeGreaterThan(0);
+    for (const pr of mixed)
+      for (const k of pr.keys) {
+        const r = c.get(k)!;
+        expect(r.unsolvable).toBeUndefined();
+        // energy balance: what goes in is radiated or lost in the wires, the soil, the loads or the
+        // coax run (a check, not a definition: the solver computes each apart, core/em/solver.ts)
+        const p = r.power;
+        const lost =
+          p.radiatedW +
+          p.conductorLossW +
+          p.groundLossW +
+          (p.loadLossW ?? 0) +
+          (r.arrayFeed?.networkLossShare ?? 0) * p.inputW;
+        expect(Math.abs(p.inputW - lost)).toBeLessThan(0.02 * p.inputW);
+      }
   }, 120_000);
 });
 
