@@ -377,3 +377,28 @@ function pairCandidate(
 
 const fmtZ = (z: readonly [number, number]): string =>
   `${z[0].toFixed(1)} ${z[1] < 0 ? '−' : '+'} j${Math.abs(z[1]).toFixed(1)} Ω`;
+
+/** Pairs the field solver refused, as rejections (nothing is dropped without a word). */
+export function unsolvedPairs(
+  pairs: readonly PlannedPair[],
+  cache: EvaluationCache,
+): { where: string; supports: string[]; reasons: string[] }[] {
+  const out: { where: string; supports: string[]; reasons: string[] }[] = [];
+  for (const pr of pairs) {
+    const reasons = pr.keys
+      .map((k, i) => {
+        const why = cache.get(k)?.unsolvable;
+        return why === undefined
+          ? null
+          : `state ${i === 0 ? 'A' : 'B'}: the field solver cannot solve it: ${why}`;
+      })
+      .filter((r): r is string => r !== null);
+    if (reasons.length)
+      out.push({
+        where: `A: ${pr.a.where}; B: ${pr.b.where}`,
+        supports: [...pr.a.supports, ...pr.b.supports].map((x) => x.id),
+        reasons,
+      });
+  }
+  return out;
+}

@@ -73,7 +73,13 @@ import {
   gainAt,
 } from './pattern.ts';
 import { Z0_OHM } from './evaluator.ts';
-import { pairCandidates, pairPlans, PAIR_MARGIN_DEFAULT_DB, type PlannedPair } from './pairs.ts';
+import {
+  pairCandidates,
+  pairPlans,
+  unsolvedPairs,
+  PAIR_MARGIN_DEFAULT_DB,
+  type PlannedPair,
+} from './pairs.ts';
 
 /** Version of the evaluation record and grid; part of every cache key. */
 export const EVALUATION_VERSION = 2;
@@ -1164,6 +1170,8 @@ export function rankPlan(
     });
     // Step 4: switched pairs that beat the band's best single by the margin go first.
     const bandPairs = setup.pairs?.filter((pr) => pr.band === b.band) ?? [];
+    for (const u of unsolvedPairs(bandPairs, cache))
+      rejected.push({ type: 'switched-pair', band: b.band, ...u });
     if (bandPairs.length && bandCands.length) {
       const pcs = pairCandidates(
         bandPairs,
