@@ -11,6 +11,7 @@ import { verticalBuilder } from './vertical.ts';
 import { loadedVerticalBuilder, tTopVerticalBuilder, topHatVerticalBuilder } from './shortVerticals.ts';
 import { sloperBuilder, slopingVerticalBuilder } from './slopers.ts';
 import { directorPairBuilder, verticalPairBuilder } from './verticalPair.ts';
+import { switchedPairBuilder } from './switchedPair.ts';
 import { fourSquareBuilder } from './fourSquare.ts';
 import {
   halfSquareLBuilder,
@@ -39,8 +40,15 @@ export const BUILDERS: readonly Builder[] = [
   directorPairBuilder,
 ];
 
+/**
+ * Types the planner forms from other candidates rather than from the lot (a switched pair of two
+ * shortlisted antennas, core/rank/pairs.ts): not proposed by enumeration, but rebuilt like any
+ * other design.
+ */
+export const DERIVED_BUILDERS: readonly Builder[] = [switchedPairBuilder(builderFor)];
+
 export function builderFor(type: AntennaTypeId): Builder {
-  const b = BUILDERS.find((x) => x.type === type);
+  const b = BUILDERS.find((x) => x.type === type) ?? DERIVED_BUILDERS.find((x) => x.type === type);
   if (!b) throw new Error(`no builder for antenna type "${type}"`);
   return b;
 }

@@ -24,6 +24,7 @@ const TYPE_NAMES: Record<string, string> = {
   'half-square-l': 'Half-square L (switched)',
   'phased-pair': 'Phased vertical pair',
   'vertical-pair-director': 'Switched vertical pair (director)',
+  'switched-pair': 'Two antennas, switched',
 };
 
 /** The short display name of a type; an id this version does not know reads as its words, capitalised. */

@@ -123,6 +123,11 @@ export interface Design {
     /** Canonical bearing of the state's beam before its rotation (default 0, or twice the mirror axis). */
     beamDeg?: number;
   }[];
+  /**
+   * A switched pair (core/antennas/switchedPair.ts, set by the planner): its two antennas, each
+   * its own design as trimmed, placed in the pair's frame.
+   */
+  parts?: { design: Design; trimM: number; placement: Placement }[];
 }
 
 /** Canonical frame → site: rotate clockwise (compass sense) by rotationDeg about the origin, then translate. */

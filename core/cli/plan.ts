@@ -17,6 +17,7 @@ import type { EvaluationRecord } from '../rank/evaluate.ts';
 import {
   conductorJobs,
   soilRangeJobs,
+  pairJobs,
   enumeratePlan,
   memoryCache,
   planFromSetup,
@@ -387,6 +388,11 @@ export async function evaluateOnPool(
     say(`${third.length} shortlisted designs over the soil range`);
     await pool.evaluate(third, cache, onDone);
   }
+  const fourth = pairJobs(setup, cache, project, shortlistSize);
+  if (fourth.length) {
+    say(`${fourth.length / 2} switched pairs of two antennas, both states of each`);
+    await pool.evaluate(fourth, cache, onDone);
+  }
 }
 
 export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
@@ -439,7 +445,8 @@ export async function runPlan(argv: string[], io: PlanIo): Promise<number> {
     shortlistSize: args.top,
     onProgress: (p) => progress(p.done, p.total),
   });
-  shortlist.stats.evaluations = setup.jobs.length + (setup.conductorJobs?.length ?? 0);
+  shortlist.stats.evaluations =
+    setup.jobs.length + (setup.conductorJobs?.length ?? 0) + (setup.pairJobs?.length ?? 0);
   shortlist.stats.cacheHits = 0;
   const seconds = (performance.now() - t0) / 1000;
   if (args.json) io.stdout(JSON.stringify(shortlistJson(shortlist, args.patterns), null, 2) + '\n');

@@ -350,6 +350,12 @@ export const SettingsSchema = z.object({
    * registry entries marked `array`). Slower. Unset: single antennas only.
    */
   planArrays: z.boolean().optional(),
+  /**
+   * With arrays planned, a switched pair of two antennas (core/rank/pairs.ts) is listed only when
+   * its score beats the band's best single antenna by at least this many dB. Default 1 dB: a second
+   * antenna, its relays and coax are worth building only for a clear gain (a chosen default).
+   */
+  pairMarginDb: finite.refine((v) => v >= 0 && v <= 10, 'must be between 0 and 10 dB').default(1),
   /** Number of radials the user would lay. */
   radialCount: z
     .number()

@@ -235,21 +235,24 @@ function evaluateDesignOrThrow(
   if (soilOnly) return soilRangeRecord(design, evaluator, soilRange, soilOnly.trimM);
   const { minM, maxM, nominalM } = design.trim;
   const steps: { trimM: number; zOhm: [number, number] }[] = [];
-  const { resonant } = trimToResonance(
-    (p) => {
-      const r = one(evaluator, design, p, ground, [f0], false)[0];
-      steps.push({ trimM: p, zOhm: r.zOhm });
-      return r.zOhm[1];
-    },
-    {
-      start: nominalM,
-      min: minM,
-      max: maxM,
-      fTol: TRIM_TOL_X_OHM,
-      xTol: TRIM_TOL_M,
-      maxEvaluations: TRIM_MAX_EVALUATIONS,
-    },
-  );
+  const trimAt = (p: number): number => {
+    const r = one(evaluator, design, p, ground, [f0], false)[0];
+    steps.push({ trimM: p, zOhm: r.zOhm });
+    return r.zOhm[1];
+  };
+  // A design with nothing left to trim (minM = maxM: a switched pair of antennas already trimmed)
+  // is solved as it is.
+  const fixed = minM === maxM;
+  const { resonant } = fixed
+    ? { resonant: Math.abs(trimAt(nominalM)) < TRIM_TOL_X_OHM }
+    : trimToResonance(trimAt, {
+        start: nominalM,
+        min: minM,
+        max: maxM,
+        fTol: TRIM_TOL_X_OHM,
+        xTol: TRIM_TOL_M,
+        maxEvaluations: TRIM_MAX_EVALUATIONS,
+      });
   const swr = (z: readonly [number, number]): number => swrOf(z[0], z[1], Z0_OHM);
   let best = steps[0];
   for (const s of steps) {
@@ -257,7 +260,7 @@ function evaluateDesignOrThrow(
   }
   const trimM = best.trimM;
   const diagnostics: string[] = [];
-  if (!resonant) {
+  if (!resonant && !fixed) {
     diagnostics.push(
       `no resonance within the ${design.trim.name} limits (${minM.toFixed(2)}–${maxM.toFixed(2)} m); kept the lowest SWR`,
     );

@@ -75,6 +75,13 @@ import {
   gainAt,
 } from './pattern.ts';
 import { Z0_OHM } from './evaluator.ts';
+import {
+  pairCandidates,
+  pairPlans,
+  unsolvedPairs,
+  PAIR_MARGIN_DEFAULT_DB,
+  type PlannedPair,
+} from './pairs.ts';
 
 /** Version of the evaluation record and grid; part of every cache key. */
 export const EVALUATION_VERSION = 2;
@@ -195,6 +202,11 @@ export interface PlanSetup {
   cuts: PlanCut[];
   /** The feasibility check used (PlanOptions.feasibility or checkPlacement). */
   check: Feasibility;
+  /** Whether the array types (and switched pairs) are planned. */
+  arrays?: boolean;
+  /** Step 4 (arrays only), set by pairJobs: the switched pairs formed from the ranked singles, and their jobs. */
+  pairs?: PlannedPair[];
+  pairJobs?: Job[];
   /** Each placement's check at its trimmed dimensions, shared by the ranking passes of one plan. */
   trimmedChecks: WeakMap<Proposed, { trimM: number; metal: boolean; result: FeasibilityResult }[]>;
 }
@@ -255,6 +267,11 @@ export interface Candidate {
   elementCount: number;
   /** Arrays: each element's drive impedance and the current ratios the feed network achieves. */
   arrayFeed?: ArrayFeed;
+  /**
+   * A switched pair: each state's own evaluation key (its pattern in `Shortlist.patterns`), since
+   * its states are solved apart, not turned copies of one pattern; absent otherwise.
+   */
+  stateKeys?: string[];
   /** Switchable directions (relay states); one state, 'fixed', for a fixed antenna. */
   states: { name: string; beamDeg: number; regions: { id: string; gainDbi: number }[] }[];
   peak: { gainDbi: number; elevationDeg: number; azimuthDeg: number };
@@ -637,6 +654,7 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
     jobs: [...jobs.values()],
     cuts,
     check,
+    arrays,
     trimmedChecks: new WeakMap(),
   };
 }
@@ -796,6 +814,39 @@ export function soilRangeJobs(
     });
   }
   return [...jobs.values()];
+}
+
+/**
+ * Step 4 (only when arrays are planned; after steps 1–3 are in the cache): switched pairs of the
+ * ranked single antennas of each band (core/rank/pairs.ts), both states of each as a job. Keeps
+ * the pairs and jobs on the setup; idempotent.
+ */
+export function pairJobs(
+  setup: PlanSetup,
+  cache: EvaluationCache,
+  project: Project,
+  shortlistSize = 10,
+  perType = SHORTLIST_PER_TYPE,
+): Job[] {
+  if (!setup.arrays) return [];
+  if (setup.pairJobs) return setup.pairJobs;
+  // Every scored placement of each band (no shortlist cut): pairPool picks from them by score
+  // and by region.
+  void shortlistSize;
+  void perType;
+  const ranked = rankPlan(setup, cache, project, Infinity, Infinity);
+  const { pairs, jobs } = pairPlans(
+    ranked.candidates,
+    setup.bands.map((b) => ({
+      band: b.band,
+      wavelengthM: bandPlan(b.band, project.settings.operating?.[b.band]).wavelengthM,
+    })),
+    groundOf(project),
+    designKey,
+  );
+  setup.pairs = pairs;
+  setup.pairJobs = jobs;
+  return jobs;
 }
 
 /** Every job of a setup: step 1, and step 2 when known. */
@@ -1157,6 +1208,38 @@ export function rankPlan(
         rankHolds: scores.every((x) => x.rank === c.rank),
       };
     });
+    // Step 4: switched pairs that beat the band's best single by the margin go first.
+    const bandPairs = setup.pairs?.filter((pr) => pr.band === b.band) ?? [];
+    for (const u of unsolvedPairs(bandPairs, cache))
+      rejected.push({ type: 'switched-pair', band: b.band, ...u });
+    if (bandPairs.length && bandCands.length) {
+      const pcs = pairCandidates(
+        bandPairs,
+        Math.max(...bandCands.map((c) => c.score)),
+        project.settings.pairMarginDb ?? PAIR_MARGIN_DEFAULT_DB,
+        cache,
+        scoreOf,
+        pathWeights,
+        site,
+        patterns,
+      );
+      pcs.forEach((c, i) => {
+        c.rank = i + 1;
+        c.bestOfType = i === 0;
+        c.soilRange = {
+          soils: [ownSoil],
+          lowDbi: c.score,
+          highDbi: c.score,
+          scores: [{ soil: ownSoil, scoreDbi: c.score, rank: i + 1 }],
+          rankHolds: true,
+        };
+      });
+      for (const c of bandCands) {
+        c.rank += pcs.length;
+        for (const x of c.soilRange.scores) x.rank += pcs.length;
+      }
+      candidates.splice(bandStart, 0, ...pcs);
+    }
   }
   return {
     projectId: project.id,
@@ -1195,6 +1278,8 @@ export function planFromSetup(setup: PlanSetup, project: Project, options: PlanO
   evaluations += evaluateJobs(second, options.evaluator, cache, options.onProgress);
   const third = soilRangeJobs(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
   evaluateJobs(third, options.evaluator, cache, options.onProgress);
+  const fourth = pairJobs(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
+  evaluations += evaluateJobs(fourth, options.evaluator, cache, options.onProgress);
   const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
   const feasible = setup.bands.reduce((s, b) => s + b.proposed.length, 0);
   return {

@@ -49,6 +49,7 @@ const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
   'four-square': 'at the centre of the square',
   'phased-pair': 'on the ground midway between the two verticals',
   'vertical-pair-director': 'on the ground midway between the two verticals',
+  'switched-pair': 'on the ground at the foot of antenna A’s feed (a second relay at B’s feed)',
 };
 
 /**
@@ -123,6 +124,14 @@ function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
           'K1 and K2, each a pair of double-pole double-throw relays, route the hybrid’s back, front and side outputs to the four lines so that the chosen vertical is the back one (direction 1: both off; 2: K1; 3: K1 and K2; 4: K2).',
         ],
         coils: ['none', 'K1', 'K1 + K2', 'K2'],
+      };
+    case 'switched-pair':
+      return {
+        relays: [
+          'K1, single-pole double-throw, in the box at A’s feed: its common contact takes the station line; the normally closed contact goes to A’s feed, the normally open one to the coax run to B. With the coil on, A’s feed is open at K1.',
+          'K2, single-pole single-throw (normally open), at B’s feed, its coil wired with K1’s: it closes B’s feed when B is chosen and leaves it open otherwise, so the idle antenna is open at its own feed whatever the run’s length.',
+        ],
+        coils: ['none', 'K1 + K2'],
       };
     default:
       return { relays: [], coils: [] };
@@ -228,7 +237,14 @@ export function arrayBom(
       detail: lines.map((i) => `${i.count} × ${L.cut(i.cutLengthM)} (${i.label})`).join('; '),
       source: 'the cut list (lengths designed from the velocity factor); connectors at each end',
     });
-  const relayCount = w.relays.length === 0 ? 0 : c.type === 'four-square' ? 4 : w.relays.length;
+  const relayCount =
+    w.relays.length === 0
+      ? 0
+      : c.type === 'four-square'
+        ? 4
+        : c.type === 'switched-pair'
+          ? 2
+          : w.relays.length;
   if (relayCount) {
     out.push({
       item: 'Relays, 12 V DC coil',

@@ -75,6 +75,8 @@ export function highVoltageEndsText(type: string): string | null {
     case 'half-square-switched':
     case 'half-square-l':
       return 'The lower ends of all four drops carry high RF voltage when you transmit, the idle or reflecting half-square’s too.';
+    case 'switched-pair':
+      return 'The free wire ends of both antennas carry high RF voltage when you transmit, the idle antenna’s too: it is open at its feed but coupled to the driven one.';
     case 'inverted-l':
       return 'The far end of the top part carries high RF voltage when you transmit.';
     case 'sloping-vertical':

@@ -54,6 +54,16 @@ export const CM_PER_INCH = feetToM(1 / 12) * 100;
 export const TUNING_FIT_LIMIT = 0.03;
 
 /**
+ * Why a design has no tuning rate of its own to measure, or null when it has one: a switched pair
+ * (core/antennas/switchedPair.ts) keeps each antenna's own trim.
+ */
+export function tuningNotMeasured(design: { parts?: readonly unknown[] }): string | null {
+  return design.parts?.length
+    ? 'a switched pair has no trim of its own: tune each antenna alone, with the other one’s feed open, by its own rate'
+    : null;
+}
+
+/**
  * Why a measurement cannot be shown, in plain words, or null when it can: every number finite,
  * resonance lower for the longer wire (physics of every type here: a longer resonant wire
  * resonates lower), and both resonances within TUNING_FIT_LIMIT of the design frequency.

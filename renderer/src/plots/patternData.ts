@@ -30,6 +30,15 @@ export function statePatterns(
   shortlist: Shortlist,
   c: Candidate,
 ): { name: string; beamDeg: number; p: PlacedPattern }[] {
+  if (c.stateKeys?.length) {
+    // a switched pair: each state solved apart, in the site's frame turned by the candidate's rotation
+    const out = c.stateKeys.map((key, i) => ({
+      name: c.states[i]?.name ?? `state ${i + 1}`,
+      beamDeg: c.states[i]?.beamDeg ?? c.peak.azimuthDeg,
+      p: { gainDbi: shortlist.patterns[key] ?? [], rotationDeg: c.rotationDeg },
+    }));
+    return out.every((x) => x.p.gainDbi.length > 0) ? out : [];
+  }
   const g = shortlist.patterns[c.evaluationKey];
   if (!g || g.length === 0) return [];
   const specs = c.design.states?.length ? c.design.states : [{ name: 'fixed', rotationDeg: 0 }];

@@ -12,7 +12,7 @@ import { enumeratePlan, planFromSetup, type PlanSetup } from '../../../core/rank
 import { DesignIndex, previewPlan } from '../../../core/rank/preview.ts';
 import { feasibilityMemo } from '../../../core/site/feasibilityMemo.ts';
 import { measureTuning } from '../../../core/report/buildSheet.ts';
-import { tuningProblem } from '../../../core/report/tuning.ts';
+import { tuningNotMeasured, tuningProblem } from '../../../core/report/tuning.ts';
 import type { FromWorker, ToWorker } from './protocol.ts';
 import { commitFault } from './testFault.ts';
 
@@ -134,6 +134,8 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
         try {
           // The candidate carries its design; the ground is the plan's (the project's soil).
           const d = { design: c.design, ground: msg.project.soil };
+          const none = tuningNotMeasured(d.design);
+          if (none) return fail(none);
           const tuning = measureTuning(d.design, c.trim.valueM, d.ground, evaluator);
           const problem = tuningProblem(tuning, d.design.designFreqHz);
           if (problem) return fail(problem);
