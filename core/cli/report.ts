@@ -14,6 +14,7 @@ import { BANDS, type Band } from '../project/schema.ts';
 import { enumeratePlan, memoryCache, planFromSetup } from '../rank/plan.ts';
 import { solverEvaluator } from '../rank/solver.ts';
 import { COAX_TYPES, isCoaxType, measureTuning, type StationOptions } from '../report/buildSheet.ts';
+import { tuningNotMeasured } from '../report/tuning.ts';
 import { stationReport } from '../report/stationReport.ts';
 import type { UnitSystem } from '../units/index.ts';
 import type { Mode } from '../report/exposure.ts';
@@ -128,8 +129,16 @@ export async function runReport(argv: string[], io: ReportIo): Promise<number> {
     return 1;
   }
   // The candidate carries its design: the tuning rate is measured on it, nothing is found again.
-  io.stderr(`report: measuring the tuning rate of ${candidate.id}\n`);
-  const tuning = measureTuning(candidate.design, candidate.trim.valueM, project.soil, solverEvaluator);
+  // A switched pair keeps each antenna's own trim: no rate of its own (the app says the same).
+  const none = tuningNotMeasured(candidate.design);
+  io.stderr(
+    none
+      ? `report: no tuning rate for ${candidate.id}: ${none}\n`
+      : `report: measuring the tuning rate of ${candidate.id}\n`,
+  );
+  const tuning = none
+    ? null
+    : measureTuning(candidate.design, candidate.trim.valueM, project.soil, solverEvaluator);
   const { html } = stationReport({
     project,
     shortlist,
