@@ -36,7 +36,7 @@ import type { NetworkSpec } from '../em/network.ts';
 import { cut, num, round } from './common.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
-import type { Builder, Design, WireModel } from './types.ts';
+import type { AntennaTypeId, Builder, BuildContext, CutItem, Design, WireModel } from './types.ts';
 
 export const PAIR_SPACING_WAVELENGTHS = 0.15;
 export const REFLECTOR_REACTANCE_OHM = 25;
@@ -123,6 +123,68 @@ function pairModel(d: Design, H: number): WireModel {
 
 /** The driven + director variant (directorPairBuilder). */
 export const DIRECTOR_PAIR_TYPE = 'vertical-pair-director';
+/** The parasitic element's stub at the relay box: a shorted one (reflector) or an open one (director). */
+const REFLECTOR_STUB = (f: number): number => stubLengthM(REFLECTOR_REACTANCE_OHM, f);
+const DIRECTOR_STUB = (f: number): number => openStubLengthM(-DIRECTOR_REACTANCE_OHM, f);
+
+/** Proposals of a switched pair of self-supporting verticals `spacing` wavelengths apart. */
+function proposePair(
+  ctx: BuildContext,
+  type: AntennaTypeId,
+  spacingWavelengths: number,
+  kind: string,
+  stubM: (freqHz: number) => number,
+  stateNames: [string, string],
+): ReturnType<Builder['propose']> {
+  const lambda = ctx.band.wavelengthM;
+  const f = ctx.band.designFreqHz;
+  const s = spacingWavelengths * lambda;
+  return proposeVerticalArray(type, ctx, {
+    groupWords: 'two quarter-wave verticals',
+    where: `self-supporting pair${kind} at a free spot`,
+    bases: pairBases(s),
+    names: NAMES,
+    axesDeg: PAIR_AXES_DEG,
+    count: PAIR_SPOT_COUNT,
+    minApartM: 0.25 * lambda,
+    trim: {
+      name: 'height of both verticals',
+      nominalM: VERTICAL_NOMINAL_FRACTION * lambda,
+      minM: 0.2 * lambda,
+      maxM: 0.3 * lambda,
+    },
+    noSpotReason: `no free spot on the lot keeps two masts ${s.toFixed(1)} m apart clear of the setback and every keep-out`,
+    params: {
+      spacingM: round(s, 2),
+      lineLengthM: round(halfWaveCoaxM(f), 2),
+      stubLengthM: round(stubM(f), 2),
+    },
+    states: [
+      { name: stateNames[0], rotationDeg: 0 },
+      { name: stateNames[1], rotationDeg: 180 },
+    ],
+    describe: ({ xy, rotationDeg: rot }) => ({
+      where: `self-supporting pair${kind} at (${xy[0].toFixed(0)} m E, ${xy[1].toFixed(0)} m N), axis ${rot}°–${rot + 180}°`,
+      broadsideDeg: [rot, (rot + 180) % 360],
+    }),
+  });
+}
+
+/** Cut list of a switched pair: both verticals and their radials, the two half-wave lines, the stub. */
+function pairCuts(d: Design, H: number, stubLabel: string): CutItem[] {
+  return [
+    ...groupCuts(d, H, NAMES, 'vertical radiator (A and B)'),
+    cut(
+      'coax, relay box to each vertical (electrical half wave, VF 0.66)',
+      2,
+      num(d, 'lineLengthM'),
+      2,
+      'coax',
+    ),
+    cut(stubLabel, 1, num(d, 'stubLengthM'), 2, 'coax'),
+  ];
+}
+
 /**
  * Spacing and director loading of the driven + director pair: near the most 15° forward gain over
  * average soil at 40 m in a sweep of the field solver (spacing 0.1 and 0.15 λ, the director's base
@@ -137,62 +199,18 @@ export const verticalPairBuilder: Builder = {
   label: 'Two switched quarter-wave verticals (driven + reflector)',
   array: true,
   elementCount: 2,
-  propose(ctx) {
-    const lambda = ctx.band.wavelengthM;
-    const f = ctx.band.designFreqHz;
-    const s = PAIR_SPACING_WAVELENGTHS * lambda;
-    return proposeVerticalArray('vertical-pair', ctx, {
-      groupWords: 'two quarter-wave verticals',
-      where: 'self-supporting pair at a free spot',
-      bases: pairBases(s),
-      names: NAMES,
-      axesDeg: PAIR_AXES_DEG,
-      count: PAIR_SPOT_COUNT,
-      minApartM: 0.25 * lambda,
-      trim: {
-        name: 'height of both verticals',
-        nominalM: VERTICAL_NOMINAL_FRACTION * lambda,
-        minM: 0.2 * lambda,
-        maxM: 0.3 * lambda,
-      },
-      noSpotReason: `no free spot on the lot keeps two masts ${s.toFixed(1)} m apart clear of the setback and every keep-out`,
-      params: {
-        spacingM: round(s, 2),
-        lineLengthM: round(halfWaveCoaxM(f), 2),
-        stubLengthM: round(stubLengthM(REFLECTOR_REACTANCE_OHM, f), 2),
-      },
-      states: [
-        { name: 'A driven, B reflects', rotationDeg: 0 },
-        { name: 'B driven, A reflects', rotationDeg: 180 },
-      ],
-      describe: ({ xy, rotationDeg: rot }) => ({
-        where: `self-supporting pair at (${xy[0].toFixed(0)} m E, ${xy[1].toFixed(0)} m N), axis ${rot}°–${rot + 180}°`,
-        broadsideDeg: [rot, (rot + 180) % 360],
-      }),
-    });
-  },
+  propose: (ctx) =>
+    proposePair(ctx, 'vertical-pair', PAIR_SPACING_WAVELENGTHS, '', REFLECTOR_STUB, [
+      'A driven, B reflects',
+      'B driven, A reflects',
+    ]),
   model: pairModel,
   elements(d, H): Element[] {
     const [A, B] = pairBases(num(d, 'spacingM')).map((c, i) => verticalParts(d, H, c, NAMES[i]));
     return [A.wire, B.wire, ...A.radials, ...B.radials, A.mast, B.mast];
   },
   heights: (_d, H) => groupHeights(H),
-  cutList(d, H) {
-    const items = groupCuts(d, H, NAMES, 'vertical radiator (A and B)');
-    items.push(
-      cut(
-        'coax, relay box to each vertical (electrical half wave, VF 0.66)',
-        2,
-        num(d, 'lineLengthM'),
-        2,
-        'coax',
-      ),
-    );
-    items.push(
-      cut('coax loading stub at the relay box, far end shorted', 1, num(d, 'stubLengthM'), 2, 'coax'),
-    );
-    return items;
-  },
+  cutList: (d, H) => pairCuts(d, H, 'coax loading stub at the relay box, far end shorted'),
 };
 
 /**
@@ -205,52 +223,14 @@ export const directorPairBuilder: Builder = {
   ...verticalPairBuilder,
   type: DIRECTOR_PAIR_TYPE,
   label: 'Two switched quarter-wave verticals (driven + director)',
-  propose(ctx) {
-    const lambda = ctx.band.wavelengthM;
-    const f = ctx.band.designFreqHz;
-    const s = DIRECTOR_SPACING_WAVELENGTHS * lambda;
-    return proposeVerticalArray(DIRECTOR_PAIR_TYPE, ctx, {
-      groupWords: 'two quarter-wave verticals',
-      where: 'self-supporting pair (driven + director) at a free spot',
-      bases: pairBases(s),
-      names: NAMES,
-      axesDeg: PAIR_AXES_DEG,
-      count: PAIR_SPOT_COUNT,
-      minApartM: 0.25 * lambda,
-      trim: {
-        name: 'height of both verticals',
-        nominalM: VERTICAL_NOMINAL_FRACTION * lambda,
-        minM: 0.2 * lambda,
-        maxM: 0.3 * lambda,
-      },
-      noSpotReason: `no free spot on the lot keeps two masts ${s.toFixed(1)} m apart clear of the setback and every keep-out`,
-      params: {
-        spacingM: round(s, 2),
-        lineLengthM: round(halfWaveCoaxM(f), 2),
-        stubLengthM: round(openStubLengthM(-DIRECTOR_REACTANCE_OHM, f), 2),
-      },
-      states: [
-        { name: 'B driven, A directs', rotationDeg: 0 },
-        { name: 'A driven, B directs', rotationDeg: 180 },
-      ],
-      describe: ({ xy, rotationDeg: rot }) => ({
-        where: `self-supporting pair (driven + director) at (${xy[0].toFixed(0)} m E, ${xy[1].toFixed(0)} m N), axis ${rot}°–${rot + 180}°`,
-        broadsideDeg: [rot, (rot + 180) % 360],
-      }),
-    });
-  },
-  cutList(d, H) {
-    const items = groupCuts(d, H, NAMES, 'vertical radiator (A and B)');
-    items.push(
-      cut(
-        'coax, relay box to each vertical (electrical half wave, VF 0.66)',
-        2,
-        num(d, 'lineLengthM'),
-        2,
-        'coax',
-      ),
-    );
-    items.push(cut('coax director stub at the relay box, far end open', 1, num(d, 'stubLengthM'), 2, 'coax'));
-    return items;
-  },
+  propose: (ctx) =>
+    proposePair(
+      ctx,
+      DIRECTOR_PAIR_TYPE,
+      DIRECTOR_SPACING_WAVELENGTHS,
+      ' (driven + director)',
+      DIRECTOR_STUB,
+      ['B driven, A directs', 'A driven, B directs'],
+    ),
+  cutList: (d, H) => pairCuts(d, H, 'coax director stub at the relay box, far end open'),
 };
