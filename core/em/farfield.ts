@@ -276,22 +276,9 @@ function radiationVectors(
       if (tab) {
         // the wire's integral about its midpoint, h(x) with x = r̂·t̂, from its Chebyshev series
         // (Clenshaw's recurrence), times the midpoint's phase
-        const x = ux * wtx + uy * wty + uz * wtz;
-        const x2 = 2 * x;
-        let b1r = 0,
-          b1i = 0,
-          b2r = 0,
-          b2i = 0;
-        for (let m = tab.length - 2; m >= 2; m -= 2) {
-          const tr = tab[m] + x2 * b1r - b2r;
-          const ti = tab[m + 1] + x2 * b1i - b2i;
-          b2r = b1r;
-          b2i = b1i;
-          b1r = tr;
-          b1i = ti;
-        }
-        const hr = tab[0] + x * b1r - b2r;
-        const hi = tab[1] + x * b1i - b2i;
+        clenshaw(tab, ux * wtx + uy * wty + uz * wtz);
+        const hr = cl[0];
+        const hi = cl[1];
         const hl = 0.5 * nS * d;
         const phm =
           k *
