@@ -388,7 +388,7 @@ export async function evaluateOnPool(
     say(`${third.length} shortlisted designs over the soil range`);
     await pool.evaluate(third, cache, onDone);
   }
-  const fourth = pairJobs(setup, cache, project, shortlistSize);
+  const fourth = pairJobs(setup, cache, project);
   if (fourth.length) {
     say(`${fourth.length / 2} switched pairs of two antennas, both states of each`);
     await pool.evaluate(fourth, cache, onDone);

@@ -798,7 +798,7 @@ export function soilRangeJobs(
   if (!soils.length) return [];
   const ranked = rankPlan(setup, cache, project, shortlistSize, perType);
   const designs = new Map<string, Design>();
-  for (const j of [...setup.jobs, ...(setup.conductorJobs ?? [])]) designs.set(j.key, j.design);
+  for (const j of allJobs(setup)) designs.set(j.key, j.design);
   const jobs = new Map<string, Job>();
   for (const c of ranked.candidates) {
     const key = soilRangeKey(c.evaluationKey, soils);
@@ -821,19 +821,11 @@ export function soilRangeJobs(
  * ranked single antennas of each band (core/rank/pairs.ts), both states of each as a job. Keeps
  * the pairs and jobs on the setup; idempotent.
  */
-export function pairJobs(
-  setup: PlanSetup,
-  cache: EvaluationCache,
-  project: Project,
-  shortlistSize = 10,
-  perType = SHORTLIST_PER_TYPE,
-): Job[] {
+export function pairJobs(setup: PlanSetup, cache: EvaluationCache, project: Project): Job[] {
   if (!setup.arrays) return [];
   if (setup.pairJobs) return setup.pairJobs;
   // Every scored placement of each band (no shortlist cut): pairPool picks from them by score
   // and by region.
-  void shortlistSize;
-  void perType;
   const ranked = rankPlan(setup, cache, project, Infinity, Infinity);
   const { pairs, jobs } = pairPlans(
     ranked.candidates,
@@ -1278,7 +1270,7 @@ export function planFromSetup(setup: PlanSetup, project: Project, options: PlanO
   evaluations += evaluateJobs(second, options.evaluator, cache, options.onProgress);
   const third = soilRangeJobs(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
   evaluateJobs(third, options.evaluator, cache, options.onProgress);
-  const fourth = pairJobs(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
+  const fourth = pairJobs(setup, cache, project);
   evaluations += evaluateJobs(fourth, options.evaluator, cache, options.onProgress);
   const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
   const feasible = setup.bands.reduce((s, b) => s + b.proposed.length, 0);
