@@ -87,17 +87,6 @@ export function wireSamples(wires: readonly ZoneWire[], stepM = SAMPLE_STEP_M): 
   return out;
 }
 
-/** Person-at-p to antenna distance, from samples (see the module comment). */
-export function personDistanceM(samples: readonly XYZ[], p: XY, headM = HEAD_HEIGHT_M): number {
-  let best = Infinity;
-  for (const s of samples) {
-    const dz = Math.max(0, s[2] - headM);
-    const d2 = (p[0] - s[0]) ** 2 + (p[1] - s[1]) ** 2 + dz * dz;
-    if (d2 < best) best = d2;
-  }
-  return Math.sqrt(best);
-}
-
 /**
  * The shortest person-to-antenna distance over a place, given the horizontal distance from a
  * ground point under the wire to the place (0 when that point lies on or in it).
