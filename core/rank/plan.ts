@@ -1137,7 +1137,7 @@ export function rankPlan(
           ...rec.diagnostics.map((d) => {
             const hit = conductorDiagnostics.find(([prefix]) => d.startsWith(prefix));
             return hit
-              ? `the ground loss at the base of ${hit[1].name} is that of its bare footing (no radials of its own)`
+              ? `${hit[1].name}, a grounded metal support, is part of the model: the ground loss at its base is that of its bare footing (it has no radials of its own)`
               : d;
           }),
           ...unknownMetal.map(

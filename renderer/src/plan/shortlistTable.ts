@@ -102,8 +102,15 @@ export const fmtDb = (v: number): string =>
 export const fmtZ = (z: readonly [number, number]): string =>
   `${z[0].toFixed(1)} ${z[1] < 0 ? '−' : '+'} j${Math.abs(z[1]).toFixed(1)} Ω`;
 export const fmtSwr = (s: number): string => (Number.isFinite(s) ? `${s.toFixed(2)}:1` : 'over 99:1');
-export const fmtBearings = (b: readonly number[]): string =>
-  b.length === 0 ? 'all round' : b.map((x) => `${Math.round(x)}°`).join(' / ');
+/** Types with no broadside that still favour one way: a sloping wire radiates best toward its slope. */
+const SLOPING: ReadonlySet<Candidate['type']> = new Set(['sloper', 'sloping-vertical']);
+/** The candidate's broadside bearings; a sloping wire's favoured bearing; else 'all round'. */
+export const fmtBearings = (c: Pick<Candidate, 'type' | 'broadsideDeg' | 'peak'>): string =>
+  c.broadsideDeg.length
+    ? c.broadsideDeg.map((x) => `${Math.round(x)}°`).join(' / ')
+    : SLOPING.has(c.type)
+      ? `none: favours its slope, peak toward ${Math.round(c.peak.azimuthDeg)}°`
+      : 'all round';
 export const fmtLen = (m: number, units: UnitSystem): string => formatLength(m, units);
 
 /** The type's short name for table cells (core/antennas/typeName.ts; the full label is in the detail). */
