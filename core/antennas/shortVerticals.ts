@@ -447,13 +447,15 @@ export const tTopVerticalBuilder: Builder = {
     );
   },
   elements: tElements,
-  heights(d, ell) {
+  heights(d, ell, names) {
     const { ends } = tShape(d, ell);
+    // Proposal.supports is [vertical's support, B, C].
+    const [b, c] = [names?.[1] ?? 'support B', names?.[2] ?? 'support C'];
     return [
       { label: 'feed point (base)', heightM: 0 },
       { label: 'top of vertical', heightM: num(d, 'heightM') },
-      { label: 'end of the top wire toward B', heightM: ends[0][2] },
-      { label: 'end of the top wire toward C', heightM: ends[1][2] },
+      { label: `end of the top wire toward ${b}`, heightM: ends[0][2] },
+      { label: `end of the top wire toward ${c}`, heightM: ends[1][2] },
     ];
   },
   cutList(d, ell) {

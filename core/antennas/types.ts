@@ -217,6 +217,10 @@ export interface Builder {
   model(design: Design, trimM: number): WireModel;
   /** Everything that must fit on the site (wires, ropes, ends, anchors, supports, radials), canonical frame. */
   elements(design: Design, trimM: number): Element[];
-  heights(design: Design, trimM: number): HeightItem[];
+  /**
+   * Key heights for the sheet and detail. `supportNames` are the proposal's supports' names in
+   * its order (Proposal.supports), for labels that name a support; a builder may ignore them.
+   */
+  heights(design: Design, trimM: number, supportNames?: readonly string[]): HeightItem[];
   cutList(design: Design, trimM: number): CutItem[];
 }

@@ -1063,7 +1063,11 @@ export function rankPlan(
         broadsideDeg: p.broadsideDeg.map((v) => Math.round(v * 10) / 10),
         rotationDeg: p.placement.rotationDeg,
         heights: builder
-          .heights(p.design, rec.trimM)
+          .heights(
+            p.design,
+            rec.trimM,
+            p.supports.map((id) => supportById.get(id)?.name ?? id),
+          )
           .map((h) => ({ label: h.label, heightM: Math.round(h.heightM * 100) / 100 })),
         score: g.best.score,
         regions: paths.map((path, k) => ({
