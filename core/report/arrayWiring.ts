@@ -12,6 +12,7 @@
  */
 import type { ElementFeed } from '../antennas/arrayFeed.ts';
 import type { Candidate } from '../rank/plan.ts';
+import { servingState } from '../rank/candidateStates.ts';
 import type { PlacedElement } from '../rank/candidate.ts';
 import type { XY } from '../site/frame.ts';
 import type { BomItem } from './bom.ts';
@@ -167,11 +168,7 @@ export function arrayWiring(
           beamDeg: s.beamDeg,
           name: s.name,
           serves: s.regions
-            .filter((r) =>
-              c.states.every(
-                (o) => (o.regions.find((q) => q.id === r.id)?.gainDbi ?? -Infinity) <= r.gainDbi,
-              ),
-            )
+            .filter((r) => servingState(c, r.id)?.n === i + 1)
             .map((r) => regionNames.get(r.id) ?? r.id),
         }))
       : [];

@@ -109,6 +109,77 @@ function arrayHtml(s: BuildSheet): string {
   );
 }
 
+const ELEVATION_NOTE =
+  'Each elevation cut is drawn on a 30 dB scale from its own peak: toward the region on the right, the opposite bearing on the left; the shaded sector is the elevation window of the region’s paths.';
+
+/** How many directions get their own line style (a four-square has four). */
+const DIRECTION_STYLES = 4;
+const directionCls = (n: number): string => `d${((n - 1) % DIRECTION_STYLES) + 1}`;
+const directionName = (d: { n: number; beamDeg: number }): string =>
+  `direction ${d.n} (beam ${Math.round(d.beamDeg) % 360}°)`;
+
+/**
+ * A switched array's patterns: a key of its directions, then for each target region the elevation
+ * cut toward it and the azimuth cut at its median take-off angle, every direction drawn, the one
+ * that serves the region in bold.
+ */
+function directionsHtml(dirs: NonNullable<NonNullable<BuildSheet['pattern']>['directions']>): string {
+  const key =
+    `<ul class="dir-key" aria-label="Directions">` +
+    dirs.states
+      .map(
+        (d) =>
+          `<li><svg width="34" height="10" aria-hidden="true"><line x1="1" y1="5" x2="33" y2="5" class="trace ${directionCls(d.n)}"/></svg> ${e(`${directionName(d)}: ${d.name}`)}</li>`,
+      )
+      .join('') +
+    '</ul>';
+  const groups = dirs.toward.map((t) => {
+    const served = dirs.states[t.servedBy - 1]!;
+    const traces = (
+      cuts: { pts: { deg: number; gainDbi: number }[]; back?: { deg: number; gainDbi: number }[] }[],
+    ) =>
+      cuts
+        .map((cut, i) => {
+          const d = dirs.states[i]!;
+          return {
+            ...cut,
+            cls: `${directionCls(d.n)}${d.n === t.servedBy ? ' serving' : ''}`,
+            title: `${directionName(d)}: ${d.name}`,
+          };
+        })
+        // the serving direction last, on top
+        .sort((a, b) => Number(a.cls.endsWith('serving')) - Number(b.cls.endsWith('serving')));
+    const where = t.name
+      ? `${t.name}, bearing ${f1(t.bearingDeg.center)}°`
+      : `the peak bearing ${f1(t.bearingDeg.center)}° (no target regions)`;
+    const head = t.name
+      ? `Toward ${where}: served by ${directionName(served)}, ${served.name}, ${f1(t.gainDbi)} dBi`
+      : `Toward ${where}`;
+    return (
+      `<div class="dir-group"><h3>${e(head)}</h3>` +
+      polarSvg(
+        `Elevation toward ${where}${t.windowDeg ? `; window ${f1(t.windowDeg.min)}–${f1(t.windowDeg.max)}° shaded` : ''}`,
+        traces(t.elevation.map((x) => ({ pts: x.cut, back: x.back }))),
+        'elevation',
+        t.windowDeg ? { windowDeg: t.windowDeg } : {},
+      ) +
+      polarSvg(
+        `Azimuth at ${f1(t.elevationDeg)}° elevation (${t.name ? 'its median take-off' : 'the peak'}); ${t.name ? 'its bearings shaded' : 'dBi, 30 dB scale'}`,
+        traces(t.azimuth.map((pts) => ({ pts }))),
+        'azimuth',
+        t.name ? { sectorDeg: { from: t.bearingDeg.from, to: t.bearingDeg.to } } : {},
+      ) +
+      '</div>'
+    );
+  });
+  return (
+    `<p>${e(`The array has ${dirs.states.length} directions, chosen by its relays (Feed line: relay box). Every direction is drawn in each plot; the one that serves the region is the bold line.`)}</p>` +
+    key +
+    groups.join('') +
+    `<p class="note">${e(`${ELEVATION_NOTE} Azimuth cuts: north up, bearings clockwise, on a 30 dB scale from the highest direction’s peak.`)}</p>`
+  );
+}
+
 /* ---------------------------------------------------------------------------------------------- */
 
 const STYLE = `
@@ -156,6 +227,16 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .north path { fill: #1d232a; }
 .grid { fill: none; stroke: #c8d0d8; stroke-width: 0.8; }
 .trace { fill: rgba(192, 57, 43, 0.12); stroke: #c0392b; stroke-width: 1.6; }
+.trace.d1, .trace.d2, .trace.d3, .trace.d4 { fill: none; stroke-width: 1.2; }
+.trace.d1 { stroke: #c0392b; }
+.trace.d2 { stroke: #2f5d7c; stroke-dasharray: 6 3; }
+.trace.d3 { stroke: #2e7d32; stroke-dasharray: 2 2; }
+.trace.d4 { stroke: #8e44ad; stroke-dasharray: 8 3 2 3; }
+.trace.serving { stroke-width: 2.6; }
+.dir-key { list-style: none; padding: 0; margin: 4px 0; display: flex; flex-wrap: wrap; gap: 4px 18px; }
+.dir-key svg { vertical-align: middle; }
+.dir-group { break-inside: avoid; }
+.dir-group h3 { font-size: 13px; margin: 10px 0 0; }
 .tick { fill: #5a6570; font-size: 9px; }
 .leader { stroke: #8a949c; stroke-width: 0.6; }
 .window { fill: rgba(47, 93, 124, 0.12); stroke: none; }
@@ -366,37 +447,35 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
   );
   parts.push(section('Matching', matchingHtml(s)));
   const pat = s.pattern;
-  const towardTargets = pat
-    ? pat.towardTargets.length
-      ? pat.towardTargets
-          .map((t) =>
-            polarSvg(
-              `Elevation toward ${t.name}, bearing ${f1(t.bearingDeg)}°: ${f1(t.gainDbi)} dBi over its window ${f1(t.windowDeg.min)}–${f1(t.windowDeg.max)}° (shaded)`,
-              t.cut,
-              'elevation',
-              t.windowDeg,
-              t.back,
-            ),
-          )
-          .join('')
-      : polarSvg(
-          `Elevation pattern at bearing ${f1(c.peak.azimuthDeg)}° (the peak; no target regions)`,
-          pat.elevation,
-          'elevation',
-        )
-    : '';
   parts.push(
     section(
       'Patterns',
-      pat
-        ? towardTargets +
+      !pat
+        ? `<p class="note">${e('The pattern is not in the shortlist; the gain per region follows.')}</p>`
+        : pat.directions
+          ? directionsHtml(pat.directions)
+          : (pat.towardTargets.length
+              ? pat.towardTargets
+                  .map((t) =>
+                    polarSvg(
+                      `Elevation toward ${t.name}, bearing ${f1(t.bearingDeg)}°: ${f1(t.gainDbi)} dBi over its window ${f1(t.windowDeg.min)}–${f1(t.windowDeg.max)}° (shaded)`,
+                      [{ pts: t.cut, back: t.back }],
+                      'elevation',
+                      { windowDeg: t.windowDeg },
+                    ),
+                  )
+                  .join('')
+              : polarSvg(
+                  `Elevation pattern at bearing ${f1(c.peak.azimuthDeg)}° (the peak; no target regions)`,
+                  [{ pts: pat.elevation }],
+                  'elevation',
+                )) +
             polarSvg(
               `Azimuth pattern at ${f1(c.peak.elevationDeg)}° elevation (dBi, 30 dB scale)`,
-              pat.azimuth,
+              [{ pts: pat.azimuth }],
               'azimuth',
             ) +
-            `<p class="note">${e('Each elevation cut is drawn on a 30 dB scale from its own peak: toward the region on the right, the opposite bearing on the left; the shaded sector is the elevation window of the region’s paths.')}</p>`
-        : `<p class="note">${e('The pattern is not in the shortlist; the gain per region follows.')}</p>`,
+            `<p class="note">${e(ELEVATION_NOTE)}</p>`,
     ),
   );
   parts.push(
