@@ -54,20 +54,44 @@ function table(head: string[], rows: Cell[][]): string {
 
 /* ---------------------------------------------------------------------------------------------- */
 
+/**
+ * Where a point of the lot is, as a builder finds it: its distance and bearing from the nearest
+ * support the antenna uses (else the station point), and from the station point.
+ */
+function whereOnLot(s: BuildSheet, xy: readonly [number, number]): string {
+  const U = sheetLengths(s.units);
+  const from = (p: readonly [number, number]) => ({
+    d: Math.hypot(xy[0] - p[0], xy[1] - p[1]),
+    // compass bearing from p to the point (x east, y north)
+    b: ((Math.atan2(xy[0] - p[0], xy[1] - p[1]) * 180) / Math.PI + 360) % 360,
+  });
+  const st = from(s.lot.station);
+  const near = s.lot.supports
+    .filter((p) => p.used)
+    .map((p) => ({ name: p.name, ...from(p.xy) }))
+    .sort((p, q) => p.d - q.d)[0];
+  const fromSupport = !near
+    ? ''
+    : near.d < 0.5
+      ? `at ${near.name}, `
+      : `${U.len(near.d)} from ${near.name} at bearing ${Math.round(near.b)}°, `;
+  return `${fromSupport}${U.len(st.d)} from the station point at bearing ${Math.round(st.b)}°`;
+}
+
 /** An array's relay box, relays, control wiring, directions and achieved feed (./arrayWiring.ts). */
 function arrayHtml(s: BuildSheet): string {
   const a = s.array;
   if (!a) return '';
   const U = sheetLengths(s.units);
-  const st = s.lot.station;
   const box = a.boxXY
-    ? `${a.boxWhere}: ${U.len(Math.hypot(a.boxXY[0] - st[0], a.boxXY[1] - st[1]))} from the station point, at ${U.len(a.boxXY[0])} E, ${U.len(a.boxXY[1])} N in the site frame. The station's feed line ends at the box.`
+    ? `${a.boxWhere}: ${whereOnLot(s, a.boxXY)}. The station's feed line ends at the box.`
     : a.boxWhere;
   return (
     `<h3 id="array-wiring">Array: relay box and control wiring</h3><p>${e(box)}</p>` +
     (a.relays.length ? `<ul>${a.relays.map((r) => `<li>${e(r)}</li>`).join('')}</ul>` : '') +
     (a.directions.length
-      ? table(
+      ? `<h3>Which relays for which direction</h3>` +
+        table(
           ['Direction', 'Relay coils energised', 'Beam', 'What it does', 'Serves'],
           a.directions.map((d) => [
             String(d.n),
@@ -75,6 +99,32 @@ function arrayHtml(s: BuildSheet): string {
             `${Math.round(d.beamDeg)}°`,
             d.name,
             d.serves.join(', ') || '—',
+          ]),
+        )
+      : '') +
+    (a.coax.length
+      ? `<h3>Coax of the array</h3>` +
+        table(
+          ['Coax', 'Count', 'Cut length'],
+          [
+            [`feed line, station to the relay box (${s.feedLine.coax})`, '1', U.len(s.feedLine.lengthM)],
+            ...a.coax.map((k) => [k.label, String(k.count), U.cut(k.cutLengthM)]),
+          ],
+        ) +
+        `<p class="note">${e('Cut each piece to the length given (connectors included in the allowance); a line cut to a designed electrical length is not to be shortened or lengthened to fit: coil any spare.')}</p>`
+      : '') +
+    (a.boxParts.length
+      ? `<h3>In the relay box</h3><ul>${a.boxParts.map((p) => `<li>${e(`${p.item}: ${p.detail}`)}</li>`).join('')}</ul>`
+      : '') +
+    (a.controlRuns.length
+      ? `<h3>Control cable</h3>` +
+        table(
+          ['From', 'To', 'Conductors', 'Length'],
+          a.controlRuns.map((r) => [
+            r.from,
+            r.to,
+            String(r.conductors),
+            U.len(r.lengthM ?? s.feedLine.lengthM),
           ]),
         )
       : '') +
@@ -405,8 +455,12 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
             ? `drawn by you: ${fl.routeXY.length - 2} bend point${fl.routeXY.length === 3 ? '' : 's'}`
             : 'straight from the station point (draw your real route in the app)',
         ],
-        ['Plan distance, station to feed point', U.len(fl.planDistanceM)],
-        ['Feed point height', U.len(fl.feedXYZ[2])],
+        ...(s.array?.boxXY
+          ? [['Plan distance, station to the relay box', U.len(fl.planDistanceM)]]
+          : [
+              ['Plan distance, station to feed point', U.len(fl.planDistanceM)],
+              ['Feed point height', U.len(fl.feedXYZ[2])],
+            ]),
         ['Length to buy', U.len(fl.lengthM)],
         [
           'Matched loss',

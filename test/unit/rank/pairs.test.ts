@@ -174,7 +174,11 @@ describe('switched pair of two half-squares at 90°', () => {
     expect(relays?.quantity).toBe(2);
     expect(bom.some((b) => b.item.startsWith('Coaxial cable'))).toBe(true);
     expect(bom.some((b) => b.item.startsWith('Relay box'))).toBe(true);
-    expect(bom.some((b) => b.item.startsWith('Control cable'))).toBe(true);
+    // K2 sits at B's feed: a second box there, and the control cable runs on along the coax run
+    expect(bom.find((b) => b.item.startsWith('Relay box'))?.quantity).toBe(2);
+    const run = pair.cutList.find((i) => /relay box to B/.test(i.label))!.cutLengthM;
+    expect(bom.find((b) => b.item.startsWith('Control cable'))?.quantity).toBeCloseTo(40 + run, 6);
+    expect(w?.controlRuns.map((r) => r.conductors)).toEqual([2, 2]);
   });
 
   it('its build sheet draws both directions toward each region, the serving one facing it', () => {

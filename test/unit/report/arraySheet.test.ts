@@ -85,4 +85,20 @@ describe('the sheet of an array of verticals', () => {
     }
     for (const k of [1, 2, 3, 4]) expect(html).toContain(`class="trace d${k}`);
   });
+
+  it('four-square: its box holds the hybrid, the load resistor and the inverting transformer of its model; three control wires', () => {
+    const c = shortlist.candidates.find((x) => x.type === 'four-square')!;
+    const { sheet, html } = stationReport({ project, shortlist, candidate: c });
+    const items = sheet.bom.map((b) => b.item);
+    expect(items).toContain('90° hybrid coupler, 50 Ω');
+    expect(items).toContain('Load resistor, 50 Ω non-inductive');
+    expect(items).toContain('Transformer 1:1, wired to invert');
+    expect(sheet.array!.controlRuns).toEqual([
+      { from: 'the station', to: 'the relay box, along the feed line', conductors: 3, lengthM: null },
+    ]);
+    const control = sheet.bom.find((b) => b.item === 'Control cable')!;
+    expect(control.quantity).toBeCloseTo(sheet.feedLine.lengthM, 6);
+    expect(html).toContain('Which relays for which direction');
+    expect(html).toContain('Coax of the array');
+  });
 });
