@@ -38,8 +38,8 @@ export interface ArrayWiring {
   coax: { label: string; count: number; cutLengthM: number }[];
   /** What else goes in the box: the feed network's parts other than lines (hybrid, transformer, resistor). */
   boxParts: { item: string; detail: string }[];
-  /** Boxes to buy: the relay box, and one more for each relay away from it. */
-  boxes: { where: string }[];
+  /** Boxes to buy: the relay box, and one more for each relay away from it (at the ground below it, site frame). */
+  boxes: { where: string; xy: XY | null }[];
   /** Per element: drive impedance and the current relative to the reference element (direction 1). */
   feed: { label: string; zText: string; current: string }[];
   networkLossPercent: number | null;
@@ -101,7 +101,8 @@ export function stationLineEnd(c: Candidate): [number, number, number] | null {
 function relaysOf(c: Candidate): {
   relays: string[];
   coils: string[];
-  remote?: { where: string; alongCoax: RegExp };
+  /** `feed`: the index of the feed point the remote relay sits at. */
+  remote?: { where: string; alongCoax: RegExp; feed: number };
 } {
   switch (c.type) {
     case 'vertical-pair':
@@ -153,7 +154,11 @@ function relaysOf(c: Candidate): {
           'K2, single-pole single-throw (normally open), at B’s feed, its coil wired with K1’s: it closes B’s feed when B is chosen and leaves it open otherwise, so the idle antenna is open at its own feed whatever the run’s length.',
         ],
         coils: ['none', 'K1 + K2'],
-        remote: { where: 'K2 at B’s feed (in its own small weatherproof box)', alongCoax: /relay box to B/ },
+        remote: {
+          where: 'K2 at B’s feed (in its own small weatherproof box)',
+          alongCoax: /relay box to B/,
+          feed: 1,
+        },
       };
     default:
       return { relays: [], coils: [] };
@@ -311,6 +316,8 @@ export function arrayWiring(
       },
     ];
   });
+  const remoteFeed = r.remote ? c.feedPoints[r.remote.feed]?.xyz : undefined;
+  const remoteXY: XY | null = remoteFeed ? [remoteFeed[0], remoteFeed[1]] : null;
   const boxWhere = ARRAYS_WITH_BOX[c.type] ?? 'no relay box: the array has one direction';
   return {
     boxXY,
@@ -321,7 +328,9 @@ export function arrayWiring(
     controlRuns,
     coax,
     boxParts: boxPartsOf(c, powerW),
-    boxes: relays.length ? [{ where: boxWhere }, ...(r.remote ? [{ where: r.remote.where }] : [])] : [],
+    boxes: relays.length
+      ? [{ where: boxWhere, xy: boxXY }, ...(r.remote ? [{ where: r.remote.where, xy: remoteXY }] : [])]
+      : [],
     feed,
     networkLossPercent: c.arrayFeed ? 100 * c.arrayFeed.networkLossShare : null,
     otherPhasings,

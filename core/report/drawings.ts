@@ -34,6 +34,12 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
   for (const sp of lot.supports) if (sp.used) pts.push(sp.xy);
   if (detail) {
     pts.push([feedLine.feedXYZ[0], feedLine.feedXYZ[1]]);
+    // every radial's far end, so that the radial fields are drawn whole
+    lot.radialLengthsM.forEach((len, k) => {
+      const [x0, y0] = lot.radialBasesXY[k] ?? lot.radialBase ?? [0, 0];
+      const b = (lot.radialBearingsDeg[k]! * Math.PI) / 180;
+      pts.push([x0 + len * Math.sin(b), y0 + len * Math.cos(b)]);
+    });
     for (const z of s.exposureOnLot.zones) for (const r of z.rings) pts.push(...r);
   } else {
     pts.push(...lot.boundary, lot.station);
@@ -272,6 +278,14 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
       text(Number(X(f[0])), Number(Y(f[1])), `feed, ${U.len(f[2])} up`, 'flabel', AROUND);
     }
     if (box) text(Number(X(box[0])), Number(Y(box[1])), 'relay box', 'flabel', AROUND);
+    // a relay away from the box (a switched pair's K2 at B's feed): its own small box
+    for (const b of s.array?.boxes.slice(1) ?? []) {
+      if (!b.xy) continue;
+      out.push(
+        `<rect x="${Number(X(b.xy[0])) - 3}" y="${Number(Y(b.xy[1])) - 3}" width="6" height="6" class="relay-box"><title>${e(b.where)}</title></rect>`,
+      );
+      text(Number(X(b.xy[0])), Number(Y(b.xy[1])), b.where.replace(/ \(.*\)$/, ''), 'flabel', AROUND);
+    }
   }
   for (const sp of lot.supports) {
     if (detail && !sp.used && !inView(sp.xy)) continue;

@@ -206,6 +206,11 @@ describe('switched pair of two half-squares at 90°', () => {
     // both regions are served, by different directions
     expect(new Set(dirs!.toward.map((t) => t.servedBy))).toEqual(new Set([1, 2]));
     expect(html).toContain('class="trace d2 serving"');
+    // the antenna detail draws the relay box and K2's box at B's feed
+    const b = pair.feedPoints[1].xyz;
+    expect(sheet.array!.boxes[1]!.xy).toEqual([b[0], b[1]]);
+    const detail = html.match(/<svg class="lot detail"[\s\S]*?<\/svg>/)?.[0] ?? '';
+    expect(detail.match(/class="relay-box"/g)).toHaveLength(2);
     expect(html).not.toContain('The patterns drawn are direction 1');
   });
 
