@@ -299,7 +299,7 @@ export function arrayWiring(
       current:
         el.currentRatio < 1e-3
           ? '≈ 0'
-          : `${el.currentRatio.toFixed(2)} at ${el.currentPhaseDeg >= 0 ? '+' : '−'}${Math.abs(el.currentPhaseDeg).toFixed(0)}°`,
+          : `${el.currentRatio.toFixed(2)} at ${Math.round(el.currentPhaseDeg) >= 0 ? '+' : '−'}${Math.abs(Math.round(el.currentPhaseDeg))}°`,
     }));
   const feed = feedRows(c.arrayFeed?.elements ?? []);
   const specs = c.design.states ?? [];
