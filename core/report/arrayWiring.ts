@@ -394,7 +394,10 @@ export function arrayBom(
       detail: runs
         .map((r) => `${L.len(r.lengthM)} of ${r.conductors}-conductor from ${r.from} to ${r.to}`)
         .join('; '),
-      source: 'the feed line’s length and the coax run’s (it runs beside them)',
+      source:
+        runs.length > 1
+          ? 'the feed line’s length and the coax run’s (it runs beside them)'
+          : 'the feed line’s length (it runs beside it)',
     });
   }
   return out;

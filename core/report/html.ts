@@ -96,7 +96,7 @@ function arrayHtml(s: BuildSheet): string {
           a.directions.map((d) => [
             String(d.n),
             d.coils,
-            `${Math.round(d.beamDeg)}°`,
+            `${Math.round(d.beamDeg) % 360}°`,
             d.name,
             d.serves.join(', ') || '—',
           ]),
