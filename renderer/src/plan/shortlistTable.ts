@@ -123,25 +123,4 @@ export function statesText(c: Pick<Candidate, 'states'>): string {
   return `${c.states.length} directions: ${c.states.map((s) => `${Math.round(s.beamDeg) % 360}°`).join(', ')}`;
 }
 
-/**
- * The state of a switched array that serves a region (its best there), numbered from 1; null for a
- * fixed antenna. Ties go to the first state.
- */
-export function servingState(
-  c: Pick<Candidate, 'states'>,
-  regionId: string,
-): { n: number; name: string; beamDeg: number } | null {
-  if (c.states.length < 2) return null;
-  let best = -1;
-  let bestGain = -Infinity;
-  c.states.forEach((s, i) => {
-    const g = s.regions.find((r) => r.id === regionId)?.gainDbi ?? -Infinity;
-    if (g > bestGain) {
-      bestGain = g;
-      best = i;
-    }
-  });
-  if (best < 0) return null;
-  const s = c.states[best]!;
-  return { n: best + 1, name: s.name, beamDeg: s.beamDeg };
-}
+export { servingState } from '../../../core/rank/candidateStates.ts';
