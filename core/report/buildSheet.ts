@@ -230,7 +230,7 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const feedLine = feedLineOf(site.station, bends, feedXYZ, station.coax, c.feed.freqMHz);
 
   const supports = site.supports.map((s) => ({ id: s.id, name: s.name, xy: s.xy, heightM: s.heightM }));
-  const m = materialsOf(c, supports, feedLine, L);
+  const m = materialsOf(c, supports, feedLine, L, array?.boxXY ? 'the relay box' : undefined);
   const bom = [...m.bom, ...arrayBom(c, array, feedLine.lengthM, L)];
 
   const g = c.groundSystem;
