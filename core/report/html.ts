@@ -433,7 +433,11 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
                   )
             }</div><p class="note">${e(
               s.radialTable.some((r) => r.vertical)
-                ? 'Each vertical has its own radials, numbered from 1 at its base. Bearings are compass bearings (clockwise from true north) from that vertical’s base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled. Where a radial ends on the line midway to the next vertical, lay a bonding wire along that line (dashed in the drawing) and join every radial that ends on it to it, as the field solver models the fields (common practice, no source).'
+                ? `Each vertical has its own radials, numbered from 1 at its base. Bearings are compass bearings (clockwise from true north) from that vertical’s base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.${
+                    s.radialTable.some((r) => /midway/.test(r.end))
+                      ? ' Where a radial ends on the line midway to the next vertical, lay a bonding wire along that line (dashed in the drawing) and join every radial that ends on it to it, as the field solver models the fields (common practice, no source).'
+                      : ''
+                  }`
                 : 'Bearings are compass bearings (clockwise from true north) from the feed point at the base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.',
             )}</p>`
           : ''),
