@@ -6,6 +6,12 @@
 import { variantPatternKey, type Candidate, type Shortlist } from './plan.ts';
 import { statePattern } from './states.ts';
 
+/**
+ * The ink of each direction (relay state) of one switched array, the same in the app's plots and
+ * on the build sheet, so that a builder holding the sheet reads the app's colours.
+ */
+export const STATE_COLOURS = ['#173f5f', '#d0711b', '#2f7d4f', '#7d4e9e'] as const;
+
 /** A canonical pattern (core/rank/pattern.ts PATTERN_GRID) and the rotation that places it on the site. */
 export interface PlacedPattern {
   gainDbi: readonly number[];

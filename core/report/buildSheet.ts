@@ -55,7 +55,7 @@ export interface RadialRow {
   n: number;
   bearingDeg: number;
   lengthM: number;
-  /** The vertical whose base it leaves ("vertical F"); '' for a single ground connection. */
+  /** The vertical whose base it leaves ("vertical F", "A: vertical radiator"); '' for a single antenna's one field. */
   vertical: string;
   /** Where it ends when not at full length: on the line midway to another base (bonded there), or cut short by the lot. */
   end: string;
@@ -69,12 +69,16 @@ export const MIDLINE_TOL_M = 0.05;
  * with where each ends: at full length, on the line midway to another vertical where the fields
  * are bonded, or shortened where the lot or a keep-out ends it.
  */
-export function radialRows(g: Candidate['groundSystem']): RadialRow[] {
+export function radialRows(
+  g: Candidate['groundSystem'],
+  /** Name each row's vertical even when there is one field (an array with one vertical among its antennas). */
+  named = false,
+): RadialRow[] {
   if (g.kind !== 'radials') return [];
   const fields = g.fields?.length
     ? g.fields
     : [{ label: '', baseXY: g.baseXY, lengthsM: g.lengthsM, bearingsDeg: g.bearingsDeg }];
-  const many = fields.length > 1;
+  const many = fields.length > 1 || named;
   return fields.flatMap((f, i) => {
     const full = Math.max(...f.lengthsM);
     return f.lengthsM
@@ -230,11 +234,11 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const feedLine = feedLineOf(site.station, bends, feedXYZ, station.coax, c.feed.freqMHz);
 
   const supports = site.supports.map((s) => ({ id: s.id, name: s.name, xy: s.xy, heightM: s.heightM }));
-  const m = materialsOf(c, supports, feedLine, L);
+  const m = materialsOf(c, supports, feedLine, L, array?.boxXY ? 'the relay box' : undefined);
   const bom = [...m.bom, ...arrayBom(c, array, feedLine.lengthM, L)];
 
   const g = c.groundSystem;
-  const radialTable = radialRows(c.groundSystem);
+  const radialTable = radialRows(c.groundSystem, c.elementCount > 1);
 
   const measured = input.tuning ?? null;
   const how = trimHow(c.type);

@@ -13,6 +13,7 @@ import { tuningText } from './tuning.ts';
 import { matchingText } from '../match/matchText.ts';
 import { TUNING_STEP, TUNING_STEP_TEXT } from './tuningMeasure.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
+import { STATE_COLOURS } from '../rank/candidateStates.ts';
 
 export { escapeHtml };
 
@@ -162,8 +163,15 @@ function arrayHtml(s: BuildSheet): string {
 const ELEVATION_NOTE =
   'Each elevation cut is drawn on a 30 dB scale from its own peak: toward the region on the right, the opposite bearing on the left; the shaded sector is the elevation window of the region’s paths.';
 
-/** How many directions get their own line style (a four-square has four). */
-const DIRECTION_STYLES = 4;
+/** Each direction's line: the app's ink for it (STATE_COLOURS) and a dash pattern of its own, for a print in grey. */
+const DIRECTION_DASHES = ['none', '6 3', '2 2', '8 3 2 3'];
+const DIRECTION_STYLES = Math.min(STATE_COLOURS.length, DIRECTION_DASHES.length);
+const DIRECTION_CSS = STATE_COLOURS.slice(0, DIRECTION_STYLES)
+  .map(
+    (c, i) =>
+      `.trace.d${i + 1} { fill: none; stroke-width: 1.2; stroke: ${c}; stroke-dasharray: ${DIRECTION_DASHES[i]}; }`,
+  )
+  .join('\n');
 const directionCls = (n: number): string => `d${((n - 1) % DIRECTION_STYLES) + 1}`;
 const directionName = (d: { n: number; beamDeg: number }): string =>
   `direction ${d.n} (beam ${Math.round(d.beamDeg) % 360}°)`;
@@ -277,11 +285,7 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .north path { fill: #1d232a; }
 .grid { fill: none; stroke: #c8d0d8; stroke-width: 0.8; }
 .trace { fill: rgba(192, 57, 43, 0.12); stroke: #c0392b; stroke-width: 1.6; }
-.trace.d1, .trace.d2, .trace.d3, .trace.d4 { fill: none; stroke-width: 1.2; }
-.trace.d1 { stroke: #c0392b; }
-.trace.d2 { stroke: #2f5d7c; stroke-dasharray: 6 3; }
-.trace.d3 { stroke: #2e7d32; stroke-dasharray: 2 2; }
-.trace.d4 { stroke: #8e44ad; stroke-dasharray: 8 3 2 3; }
+${DIRECTION_CSS}
 .trace.serving { stroke-width: 2.6; }
 .dir-key { list-style: none; padding: 0; margin: 4px 0; display: flex; flex-wrap: wrap; gap: 4px 18px; }
 .dir-key svg { vertical-align: middle; }
@@ -429,7 +433,11 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
                   )
             }</div><p class="note">${e(
               s.radialTable.some((r) => r.vertical)
-                ? 'Each vertical has its own radials, numbered from 1 at its base. Bearings are compass bearings (clockwise from true north) from that vertical’s base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled. Where a radial ends on the line midway to the next vertical, lay a bonding wire along that line (dashed in the drawing) and join every radial that ends on it to it, as the field solver models the fields (common practice, no source).'
+                ? `Each vertical has its own radials, numbered from 1 at its base. Bearings are compass bearings (clockwise from true north) from that vertical’s base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.${
+                    s.radialTable.some((r) => /midway/.test(r.end))
+                      ? ' Where a radial ends on the line midway to the next vertical, lay a bonding wire along that line (dashed in the drawing) and join every radial that ends on it to it, as the field solver models the fields (common practice, no source).'
+                      : ''
+                  }`
                 : 'Bearings are compass bearings (clockwise from true north) from the feed point at the base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.',
             )}</p>`
           : ''),

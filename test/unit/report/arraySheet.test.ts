@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../core/demo/demoProject.ts';
 import { planSite } from '../../../core/rank/plan.ts';
 import { stationReport } from '../../../core/report/stationReport.ts';
+import { radialRows } from '../../../core/report/buildSheet.ts';
 import { relayBoxXY, stationLineEnd } from '../../../core/report/arrayWiring.ts';
 import { servingState } from '../../../core/rank/candidateStates.ts';
 import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
@@ -100,5 +101,19 @@ describe('the sheet of an array of verticals', () => {
     expect(control.quantity).toBeCloseTo(sheet.feedLine.lengthM, 6);
     expect(html).toContain('Which relays for which direction');
     expect(html).toContain('Coax of the array');
+  });
+
+  it('names the vertical of a lone radial field when asked (an array with one vertical among its antennas)', () => {
+    const c = shortlist.candidates.find((x) => x.type === 'phased-pair')!;
+    const g = c.groundSystem;
+    if (g.kind !== 'radials') throw new Error('no radials');
+    const one = {
+      ...g,
+      fields: [g.fields![0]!],
+      lengthsM: g.fields![0]!.lengthsM,
+      bearingsDeg: g.fields![0]!.bearingsDeg,
+    };
+    expect(new Set(radialRows(one).map((r) => r.vertical))).toEqual(new Set(['']));
+    expect(new Set(radialRows(one, true).map((r) => r.vertical))).toEqual(new Set([g.fields![0]!.label]));
   });
 });
