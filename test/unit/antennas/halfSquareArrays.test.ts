@@ -19,13 +19,13 @@ import {
 import { halfSquareBuilder } from '../../../core/antennas/halfSquare.ts';
 import { COAX_VELOCITY_FACTOR, COAX_Z0_OHM, stubLengthM } from '../../../core/antennas/verticalPair.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
-import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 import { statePattern } from '../../../core/rank/states.ts';
 import { checkPlacement, prepareSite } from '../../../core/site/feasibility.ts';
 import { buildSite } from '../../../core/site/site.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
+import { gridGain } from '../../helpers/arrayChecks.ts';
 import { testLot } from '../site/lot.ts';
 
 const band = bandPlan('80m');
@@ -41,13 +41,6 @@ const rectSupports = [
 const siteOf = (supports: { id: string; x: number; y: number; h: number }[]) =>
   prepareSite(buildSite(testLot({ halfX: 80, halfY: 70, station: [-60, 0], supports })));
 const rect = siteOf(rectSupports);
-
-function gainAt(g: readonly number[], elDeg: number, azDeg: number): number {
-  const ei = PATTERN_GRID.elevationsDeg.indexOf(elDeg);
-  const ai = PATTERN_GRID.azimuthsDeg.indexOf(azDeg);
-  if (ei < 0 || ai < 0) throw new Error('direction not on the grid');
-  return g[ei * PATTERN_GRID.azimuthsDeg.length + ai];
-}
 
 describe('half-square with a parasitic reflector (four supports near a rectangle)', () => {
   const out = halfSquareReflectorBuilder.propose({ site: rect, band });
@@ -127,8 +120,8 @@ describe('half-square with a parasitic reflector (four supports near a rectangle
     const d = out.proposals[0].design;
     const arr = evaluateDesign(d, ground, solverEvaluator);
     expect(arr.resonant).toBe(true);
-    const fwd = gainAt(arr.gainDbi, 15, 0);
-    expect(fwd - gainAt(arr.gainDbi, 15, 180), 'a reflector gives the array a back').toBeGreaterThan(8);
+    const fwd = gridGain(arr.gainDbi, 15, 0);
+    expect(fwd - gridGain(arr.gainDbi, 15, 180), 'a reflector gives the array a back').toBeGreaterThan(8);
     // what the network achieves: the reflector's current leads the driven element's by 90–180°
     const feed = arr.arrayFeed!;
     expect(feed.elements[1].currentRatio).toBeGreaterThan(0.4);
@@ -141,7 +134,7 @@ describe('half-square with a parasitic reflector (four supports near a rectangle
         ground,
         solverEvaluator,
       );
-      return gainAt(r.gainDbi, 15, 0);
+      return gridGain(r.gainDbi, 15, 0);
     });
     expect(fwd).toBeGreaterThan(Math.max(...sweep) - 0.3);
   }, 60_000);
@@ -175,8 +168,8 @@ describe('relay-switched half-square pair', () => {
     const r = evaluateDesign(p.design, { classId: 'very-good' }, solverEvaluator);
     expect(r.resonant).toBe(true);
     const s2 = statePattern(r.gainDbi, p.design.states![1]);
-    expectClose(gainAt(s2, 15, 180), gainAt(r.gainDbi, 15, 0), 1e-12, 'mirror across the centre line');
-    expect(gainAt(r.gainDbi, 15, 0) - gainAt(r.gainDbi, 15, 180)).toBeGreaterThan(8);
+    expectClose(gridGain(s2, 15, 180), gridGain(r.gainDbi, 15, 0), 1e-12, 'mirror across the centre line');
+    expect(gridGain(r.gainDbi, 15, 0) - gridGain(r.gainDbi, 15, 180)).toBeGreaterThan(8);
     // the lines' loss: at least one matched half wave of the driven element's line (Pozar §2.7)
     expect(r.arrayFeed!.networkLossShare).toBeGreaterThan(0.05);
     expect(r.arrayFeed!.networkLossShare).toBeLessThan(0.35);
@@ -229,10 +222,10 @@ describe('two half-squares at 90° on three supports in an L', () => {
       ground,
       solverEvaluator,
     );
-    const ref = gainAt(single.gainDbi, 15, 0);
+    const ref = gridGain(single.gainDbi, 15, 0);
     const s2 = statePattern(r.gainDbi, p.design.states![1]);
     for (const az of [0, 90, 180, 270]) {
-      const best = Math.max(gainAt(r.gainDbi, 15, az), gainAt(s2, 15, az));
+      const best = Math.max(gridGain(r.gainDbi, 15, az), gridGain(s2, 15, az));
       // a loose check: within the coax loss and coupling of a single half-square's broadside gain
       expect(best, `broadside ${az}°`).toBeGreaterThan(ref - 2);
     }
