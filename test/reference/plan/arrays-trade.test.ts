@@ -9,9 +9,7 @@ import { halfSquareBuilder } from '../../../core/antennas/halfSquare.ts';
 import { halfSquareReflectorBuilder } from '../../../core/antennas/halfSquareArrays.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { testLot } from '../../unit/site/lot.ts';
+import { preparedLot } from '../../unit/site/lot.ts';
 import { gridGain } from '../../helpers/arrayChecks.ts';
 
 const TRADE =
@@ -20,21 +18,17 @@ const TRADE =
 describe('half-square with a parasitic reflector (loose trade check)', () => {
   it('gains roughly 3 dB at 15° over the half-square alone, and has a back', () => {
     const band = bandPlan('80m');
-    const site = prepareSite(
-      buildSite(
-        testLot({
-          halfX: 80,
-          halfY: 70,
-          station: [-60, 0],
-          supports: [
-            { id: 'a1', x: -30, y: 6.3, h: 24 },
-            { id: 'a2', x: 30, y: 6.5, h: 24 },
-            { id: 'b1', x: -30, y: -6.3, h: 24 },
-            { id: 'b2', x: 30, y: -6.4, h: 24 },
-          ],
-        }),
-      ),
-    );
+    const site = preparedLot({
+      halfX: 80,
+      halfY: 70,
+      station: [-60, 0],
+      supports: [
+        { id: 'a1', x: -30, y: 6.3, h: 24 },
+        { id: 'a2', x: 30, y: 6.5, h: 24 },
+        { id: 'b1', x: -30, y: -6.3, h: 24 },
+        { id: 'b2', x: 30, y: -6.4, h: 24 },
+      ],
+    });
     const ground = { classId: 'very-good' } as const;
     const array = halfSquareReflectorBuilder.propose({ site, band }).proposals[0].design;
     const single = halfSquareBuilder.propose({ site, band }).proposals[0].design;

@@ -26,7 +26,7 @@ import { buildSite } from '../../../core/site/site.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { gridGain } from '../../helpers/arrayChecks.ts';
-import { testLot } from '../site/lot.ts';
+import { preparedLot } from '../site/lot.ts';
 
 const band = bandPlan('80m');
 const lambda = band.wavelengthM;
@@ -39,7 +39,7 @@ const rectSupports = [
   { id: 'b2', x: 29.8, y: -6.4, h: 24 },
 ];
 const siteOf = (supports: { id: string; x: number; y: number; h: number }[]) =>
-  prepareSite(buildSite(testLot({ halfX: 80, halfY: 70, station: [-60, 0], supports })));
+  preparedLot({ halfX: 80, halfY: 70, station: [-60, 0], supports });
 const rect = siteOf(rectSupports);
 
 describe('half-square with a parasitic reflector (four supports near a rectangle)', () => {
@@ -183,7 +183,7 @@ describe('two half-squares at 90° on three supports in an L', () => {
     { id: 'p', x: 56, y: 0.5, h: 20 },
     { id: 'q', x: 0.4, y: 52, h: 23 },
   ];
-  const site = prepareSite(buildSite(testLot({ halfX: 90, halfY: 90, station: [-20, -20], supports: L })));
+  const site = preparedLot({ halfX: 90, halfY: 90, station: [-20, -20], supports: L });
   const out = halfSquareLBuilder.propose({ site, band });
   const p = out.proposals[0];
 
@@ -197,16 +197,12 @@ describe('two half-squares at 90° on three supports in an L', () => {
   });
 
   it('refuses legs far off a right angle, saying why', () => {
-    const bent = prepareSite(
-      buildSite(
-        testLot({
-          halfX: 90,
-          halfY: 90,
-          station: [-20, -20],
-          supports: [L[0], L[1], { id: 'q', x: 7, y: 52, h: 23 }],
-        }),
-      ),
-    );
+    const bent = preparedLot({
+      halfX: 90,
+      halfY: 90,
+      station: [-20, -20],
+      supports: [L[0], L[1], { id: 'q', x: 7, y: 52, h: 23 }],
+    });
     const r = halfSquareLBuilder.propose({ site: bent, band });
     expect(r.proposals).toHaveLength(0);
     expect(r.rejections.map((x) => x.reasons.join(' ')).join(' ')).toMatch(/off a right angle/);

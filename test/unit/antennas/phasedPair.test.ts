@@ -16,19 +16,15 @@ import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { stateBeamDeg, statePattern } from '../../../core/rank/states.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
 import { c } from '../../../core/numeric/complex.ts';
 import type { NetworkSpec } from '../../../core/em/network.ts';
-import { testLot } from '../site/lot.ts';
+import { preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { gridGain, oneVertical } from '../../helpers/arrayChecks.ts';
 
 const band = bandPlan('40m');
 const lambda = band.wavelengthM;
-const site = prepareSite(
-  buildSite(testLot({ halfX: 80, halfY: 80, settings: { maxVerticalHeightM: 15, radialCount: 16 } })),
-);
+const site = preparedLot({ halfX: 80, halfY: 80, settings: { maxVerticalHeightM: 15, radialCount: 16 } });
 const ground = { classId: 'average' } as const;
 
 /** Bounds on the achieved front current against the target 1∠−90° (a chosen design tolerance). */

@@ -14,17 +14,13 @@ import {
 } from '../../../core/antennas/verticalPair.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
-import { testLot } from '../site/lot.ts';
+import { preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { gridGain, oneVertical } from '../../helpers/arrayChecks.ts';
 
 const ctx = (maxVerticalHeightM: number) => ({
-  site: prepareSite(
-    buildSite(testLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM, radialCount: 16 } })),
-  ),
+  site: preparedLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM, radialCount: 16 } }),
   band: bandPlan('80m'),
 });
 
@@ -125,9 +121,7 @@ describe('two switched verticals', () => {
 describe('two switched verticals, driven + director', () => {
   const band40 = bandPlan('40m');
   const lambda = band40.wavelengthM;
-  const site = prepareSite(
-    buildSite(testLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM: 15, radialCount: 16 } })),
-  );
+  const site = preparedLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM: 15, radialCount: 16 } });
   const p = directorPairBuilder.propose({ site, band: band40 }).proposals[0];
 
   it('is registered, 0.1 λ apart, the director loaded by an open stub of −j20 Ω (Pozar §2.3)', () => {
