@@ -42,9 +42,9 @@ import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
 import { evaluateAntenna } from '../em/evaluate.ts';
 import { c, cAdd, cDiv, cMul, cSub, type Complex } from '../numeric/complex.ts';
-import { cut, num, proposalList, round, wire } from './common.ts';
+import { coaxCut, num, proposalList, round, wire } from './common.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
-import { COAX_LINE, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
+import { COAX_LINE, COAX_VELOCITY_FACTOR, linesNetwork } from './verticalPair.ts';
 import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
 import type { Builder, Design, WireModel } from './types.ts';
 
@@ -210,28 +210,20 @@ export function designPhasing(
 /** The network of end-fire toward F (state 1): R on ℓE, F on the delay and ℓE. */
 export function phasedNetwork(d: Design): NetworkSpec {
   const e = num(d, 'elementLineM');
-  return {
-    portNodes: ['f', 'r'],
-    elements: [
-      { kind: 'line', a: 'box', b: 'r', lengthM: e, ...PHASING_LINE },
-      { kind: 'line', a: 'box', b: 'delay', lengthM: num(d, 'delayLineM'), ...PHASING_LINE },
-      { kind: 'line', a: 'delay', b: 'f', lengthM: e, ...PHASING_LINE },
-    ],
-    sources: [{ node: 'box', kind: 'voltage', value: [1, 0] }],
-  };
+  return linesNetwork(['f', 'r'], 'box', PHASING_LINE, [
+    ['box', 'r', e],
+    ['box', 'delay', num(d, 'delayLineM')],
+    ['delay', 'f', e],
+  ]);
 }
 
 /** The network of broadside (state 3): both on ℓE from the box, the delay out. */
 export function broadsideNetwork(d: Design): NetworkSpec {
   const e = num(d, 'elementLineM');
-  return {
-    portNodes: ['f', 'r'],
-    elements: [
-      { kind: 'line', a: 'box', b: 'r', lengthM: e, ...PHASING_LINE },
-      { kind: 'line', a: 'box', b: 'f', lengthM: e, ...PHASING_LINE },
-    ],
-    sources: [{ node: 'box', kind: 'voltage', value: [1, 0] }],
-  };
+  return linesNetwork(['f', 'r'], 'box', PHASING_LINE, [
+    ['box', 'r', e],
+    ['box', 'f', e],
+  ]);
 }
 
 function phasedModel(d: Design, H: number): WireModel {
@@ -298,20 +290,9 @@ export const phasedPairBuilder: Builder = {
     return [F.wire, R.wire, ...F.radials, ...R.radials, F.mast, R.mast];
   },
   heights: (_d, H) => groupHeights(H),
-  cutList(d, H) {
-    const items = groupCuts(d, H, NAMES, 'vertical radiator (F and R)');
-    items.push(
-      cut(
-        '75 Ω coax, relay box to each vertical (equal lengths, VF 0.66)',
-        2,
-        num(d, 'elementLineM'),
-        2,
-        'coax',
-      ),
-    );
-    items.push(
-      cut('75 Ω coax delay line in the relay box (end-fire phasing)', 1, num(d, 'delayLineM'), 2, 'coax'),
-    );
-    return items;
-  },
+  cutList: (d, H) => [
+    ...groupCuts(d, H, NAMES, 'vertical radiator (F and R)'),
+    coaxCut('75 Ω coax, relay box to each vertical (equal lengths, VF 0.66)', 2, num(d, 'elementLineM')),
+    coaxCut('75 Ω coax delay line in the relay box (end-fire phasing)', 1, num(d, 'delayLineM')),
+  ],
 };

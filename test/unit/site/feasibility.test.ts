@@ -1,21 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { buildSite } from '../../../core/site/site.ts';
 import {
   checkPlacement,
   clipRadial,
-  prepareSite,
   POWER_LINE_MARGIN_M,
   type Element,
 } from '../../../core/site/feasibility.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { box, powerLine, testLot } from './lot.ts';
+import { box, powerLine, testLot, preparedLot } from './lot.ts';
 
 // The site frame's origin is the centre of the boundary's box; a symmetric lot puts it at (0, 0)
 // to within the projection's millimetres, so metre-level test geometry can be written directly.
 const TOL = 0.02;
 
 function site(keepOuts = [] as Parameters<typeof testLot>[0]['keepOuts']) {
-  return prepareSite(buildSite(testLot({ halfX: 50, halfY: 30, keepOuts })));
+  return preparedLot({ halfX: 50, halfY: 30, keepOuts });
 }
 
 const wire = (label: string, from: [number, number, number], to: [number, number, number]): Element => ({
