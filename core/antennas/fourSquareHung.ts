@@ -169,7 +169,10 @@ function proposeHung(site: PreparedSite, band: BandPlan): ReturnType<Builder['pr
       const four = [P.i, Q.i, P.j, Q.j].sort(
         (x, y) => bearingOf(P.mid, sup[x].xy) - bearingOf(P.mid, sup[y].xy),
       );
-      const key = [...four].sort().join(':');
+      const key = four
+        .map((k) => sup[k].id)
+        .sort()
+        .join(':');
       if (seen.has(key)) continue;
       seen.add(key);
       const s4 = four.map((k) => sup[k]);

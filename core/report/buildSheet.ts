@@ -210,11 +210,13 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const bom = [...m.bom, ...arrayBom(c, array, feedLine.lengthM, L)];
   if (array && c.states.length > 1)
     notes.push(
-      `The patterns drawn are direction 1 (${c.states[0].name}); the other directions are the same pattern turned or mirrored${
-        c.design.states?.some((s) => s.variant !== undefined)
-          ? ', except those of another phasing, which are solved on their own'
-          : ''
-      } (see Feed line, relay box).`,
+      c.design.states?.every((s, i) => i === 0 || s.variant !== undefined)
+        ? `The patterns drawn are direction 1 (${c.states[0].name}); each other direction is solved on its own, the array not being the same turned (see Feed line, relay box).`
+        : `The patterns drawn are direction 1 (${c.states[0].name}); the other directions are the same pattern turned or mirrored${
+            c.design.states?.some((s) => s.variant !== undefined)
+              ? ', except those of another phasing, which are solved on their own'
+              : ''
+          } (see Feed line, relay box).`,
     );
 
   const g = c.groundSystem;
