@@ -41,6 +41,8 @@ export const FOUR_SQUARE_AXES_DEG = [0, 45];
 export const FOUR_SQUARE_SPOT_COUNT = 1;
 
 const NAMES = ['F', 'R', 'B', 'L'] as const;
+/** The four verticals' names in the canonical frame's clockwise order (F, R, B, L). */
+export const FOUR_SQUARE_NAMES = NAMES;
 
 /** Element positions in the canonical frame (F, R, B, L) for side `side`. */
 export function fourSquareCorners(side: number): XY[] {
@@ -58,7 +60,12 @@ export function quarterWaveCoaxM(freqHz: number): number {
   return (0.25 * COAX_VELOCITY_FACTOR * SPEED_OF_LIGHT_M_PER_S) / freqHz;
 }
 
-export function fourSquareNetwork(d: Design): NetworkSpec {
+/**
+ * The hybrid-coupler network. `turn` k (0…3) is the relay state that makes the vertical k places
+ * clockwise of F the front one (its feed is joined to the front output): the same box, the lines
+ * routed round by k.
+ */
+export function fourSquareNetwork(d: Design, turn = 0): NetworkSpec {
   const line = num(d, 'lineLengthM');
   const coax = {
     z0Ohm: FORCING_LINE_Z0_OHM,
@@ -67,7 +74,7 @@ export function fourSquareNetwork(d: Design): NetworkSpec {
     lossReferenceMHz: COAX_LOSS_REFERENCE_MHZ,
   };
   return {
-    portNodes: NAMES.map((n) => `e${n}`),
+    portNodes: NAMES.map((_, i) => `e${NAMES[(i - turn + 4) % 4]}`),
     elements: [
       { kind: 'hybrid', ports: ['in', 'through', 'coupled', 'isolated'], z0Ohm: HYBRID_Z0_OHM },
       { kind: 'impedance', a: 'isolated', b: 'common', rOhm: DUMP_RESISTOR_OHM, xOhm: 0 },

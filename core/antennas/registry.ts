@@ -13,12 +13,14 @@ import { sloperBuilder, slopingVerticalBuilder } from './slopers.ts';
 import { directorPairBuilder, verticalPairBuilder } from './verticalPair.ts';
 import { switchedPairBuilder } from './switchedPair.ts';
 import { fourSquareBuilder } from './fourSquare.ts';
+import { fourSquareHungBuilder } from './fourSquareHung.ts';
 import {
   halfSquareLBuilder,
   halfSquareReflectorBuilder,
   halfSquareSwitchedBuilder,
 } from './halfSquareArrays.ts';
 import { phasedPairBuilder } from './phasedPair.ts';
+import { loopArrayBuilder } from './loopArray.ts';
 
 export const BUILDERS: readonly Builder[] = [
   dipoleBuilder,
@@ -33,11 +35,13 @@ export const BUILDERS: readonly Builder[] = [
   slopingVerticalBuilder,
   verticalPairBuilder,
   fourSquareBuilder,
+  fourSquareHungBuilder,
   halfSquareReflectorBuilder,
   halfSquareSwitchedBuilder,
   halfSquareLBuilder,
   phasedPairBuilder,
   directorPairBuilder,
+  loopArrayBuilder,
 ];
 
 /**

@@ -19,11 +19,13 @@ const TYPE_NAMES: Record<string, string> = {
   'sloping-vertical': 'Sloping quarter-wave',
   'vertical-pair': 'Switched vertical pair',
   'four-square': 'Four-square',
+  'four-square-hung': 'Four-square (hung from supports)',
   'half-square-reflector': 'Half-square + reflector',
   'half-square-switched': 'Switched half-square pair',
   'half-square-l': 'Half-square L (switched)',
   'phased-pair': 'Phased vertical pair',
   'vertical-pair-director': 'Switched vertical pair (director)',
+  'loop-reflector': 'Loop + reflector loop',
   'switched-pair': 'Two antennas, switched',
 };
 

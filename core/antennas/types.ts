@@ -26,11 +26,13 @@ export type AntennaTypeId =
   | 'sloping-vertical'
   | 'vertical-pair'
   | 'four-square'
+  | 'four-square-hung'
   | 'half-square-reflector'
   | 'half-square-switched'
   | 'half-square-l'
   | 'phased-pair'
   | 'vertical-pair-director'
+  | 'loop-reflector'
   | (string & {});
 
 /** One straight conductor of the model. */

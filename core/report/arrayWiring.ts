@@ -61,6 +61,7 @@ const ARRAYS_WITH_BOX: Readonly<Record<string, string>> = {
   'half-square-switched': 'on the ground midway between the feet of the two fed drops',
   'half-square-l': 'on the ground midway between the feet of the two fed drops, near the corner support',
   'four-square': 'at the centre of the square',
+  'four-square-hung': 'on the ground at the centre of the four supports',
   'phased-pair': 'on the ground midway between the two verticals',
   'vertical-pair-director': 'on the ground midway between the two verticals',
   'switched-pair': 'on the ground at the foot of antenna A’s feed (a second relay at B’s feed)',
@@ -141,6 +142,7 @@ function relaysOf(c: Candidate): {
         coils: ['none', 'K1', 'K2'],
       };
     case 'four-square':
+    case 'four-square-hung':
       return {
         relays: [
           'K1 and K2, each a pair of double-pole double-throw relays, route the hybrid’s back, front and side outputs to the four lines so that the chosen vertical is the back one (direction 1: both off; 2: K1; 3: K1 and K2; 4: K2).',
@@ -358,7 +360,7 @@ export function arrayBom(
   const relayCount =
     w.relays.length === 0
       ? 0
-      : c.type === 'four-square'
+      : c.type === 'four-square' || c.type === 'four-square-hung'
         ? 4
         : c.type === 'switched-pair'
           ? 2

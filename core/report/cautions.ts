@@ -66,6 +66,7 @@ export function highVoltageEndsText(type: string): string | null {
     case 'vertical':
     case 'vertical-pair':
     case 'four-square':
+    case 'four-square-hung':
     case 'phased-pair':
     case 'vertical-pair-director':
       return null;
@@ -77,6 +78,8 @@ export function highVoltageEndsText(type: string): string | null {
       return 'The lower ends of all four drops carry high RF voltage when you transmit, the idle or reflecting half-square’s too.';
     case 'switched-pair':
       return 'The free wire ends of both antennas carry high RF voltage when you transmit, the idle antenna’s too: it is open at its feed but coupled to the driven one.';
+    case 'loop-reflector':
+      return 'The top and bottom corners of both loops carry high RF voltage when you transmit, the reflector’s too; the bottom corners hang lowest.';
     case 'inverted-l':
       return 'The far end of the top part carries high RF voltage when you transmit.';
     case 'sloping-vertical':

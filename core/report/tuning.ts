@@ -10,6 +10,9 @@ import type { AntennaTypeId } from '../antennas/types.ts';
 import { feetToM, type UnitSystem } from '../units/index.ts';
 import type { TuningMeasurement } from './tuningMeasure.ts';
 
+/** Both four-squares, self-supporting and hung, are trimmed alike. */
+const FOUR_SQUARE_TRIM =
+  'Cut all four verticals alike and trim each one alone at its base before the feed box is connected (the box hides their reactance).';
 /** Where to cut or add wire for each antenna type (common practice, no source). */
 export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {
   dipole: 'Take equal amounts off both ends (half of the change at each end).',
@@ -25,8 +28,10 @@ export const TRIM_HOW: Readonly<Record<AntennaTypeId, string>> = {
   'sloping-vertical': 'Change the wire at its top end, where it meets the rope.',
   'vertical-pair':
     'Change both verticals by the same amount at their top ends; they stay identical (the relay box makes one the reflector).',
-  'four-square':
-    'Cut all four verticals alike and trim each one alone at its base before the feed box is connected (the box hides their reactance).',
+  'four-square': FOUR_SQUARE_TRIM,
+  'four-square-hung': FOUR_SQUARE_TRIM,
+  'loop-reflector':
+    'Change the driven loop’s length at its feed corner (half of the change at each end), and the reflector loop by the same share of its length, so that it stays the larger by the same ratio.',
   'half-square-reflector':
     'Change all four drops by the same amount at their lower ends (the reflector stays identical to the driven half-square; its stub makes it the reflector).',
   'half-square-switched':

@@ -6,6 +6,8 @@
  * through the planner's evaluation (trim, ±2 % sweep, pattern on the planning grid) `runs` times
  * (default 3) after one warm-up that builds the ground tables; the median wall and CPU times are
  * printed with the number of solver calls and the load average (the machine may be shared).
+ * Then the arrays hung from supports near a square or a pair (four-square hung, loop array, and
+ * the switched half-squares for comparison) on 40 m on data/examples/four-trees-near-a-square.json.
  */
 import { readFileSync } from 'node:fs';
 import { loadavg } from 'node:os';
@@ -17,27 +19,28 @@ import type { Evaluator } from '../../core/rank/evaluator.ts';
 import { twoSupportSite } from '../unit/site/lot.ts';
 import { parseProject } from '../../core/project/schema.ts';
 import { buildSite } from '../../core/site/site.ts';
-import { prepareSite } from '../../core/site/feasibility.ts';
+import { prepareSite, type PreparedSite } from '../../core/site/feasibility.ts';
+import type { BandPlan } from '../../core/antennas/types.ts';
 
 const runs = Number(process.argv[2] ?? 3);
 const site = twoSupportSite({ maxVerticalHeightM: 25, radialCount: 32 });
-const example = parseProject(
-  JSON.parse(
-    readFileSync(new URL('../../data/examples/four-supports-near-a-rectangle.json', import.meta.url), 'utf8'),
-  ),
-);
-if (!example.ok) throw new Error('the example lot does not parse');
-const rectSite = prepareSite(buildSite(example.value));
+function exampleSite(file: string) {
+  const example = parseProject(
+    JSON.parse(readFileSync(new URL(`../../data/examples/${file}`, import.meta.url), 'utf8')),
+  );
+  if (!example.ok) throw new Error(`the example lot ${file} does not parse`);
+  return prepareSite(buildSite(example.value));
+}
+const rectSite = exampleSite('four-supports-near-a-rectangle.json');
+const squareSite = exampleSite('four-trees-near-a-square.json');
 const HALF_SQUARE_ARRAYS = ['half-square-reflector', 'half-square-switched', 'half-square-l'];
-const band = bandPlan('80m');
 const ground = { classId: 'average' } as const;
 const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-for (const type of ['vertical', 'half-square', 'vertical-pair', 'four-square', ...HALF_SQUARE_ARRAYS]) {
-  const on = HALF_SQUARE_ARRAYS.includes(type) ? rectSite : site;
+function bench(type: string, on: PreparedSite, band: BandPlan): void {
   const p = builderFor(type).propose({ site: on, band }).proposals[0];
   if (!p) {
     console.log(`${type}: no proposal on the bench lot`);
-    continue;
+    return;
   }
   let calls = 0;
   const counting: Evaluator = (req) => {
@@ -57,9 +60,13 @@ for (const type of ['vertical', 'half-square', 'vertical-pair', 'four-square', .
     cpu.push((c.user + c.system) / 1000);
   }
   console.log(
-    `${type.padEnd(14)} median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU, ${calls} solver calls per evaluation`,
+    `${type.padEnd(20)} ${band.band} median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU, ${calls} solver calls per evaluation`,
   );
 }
+for (const type of ['vertical', 'half-square', 'vertical-pair', 'four-square', ...HALF_SQUARE_ARRAYS])
+  bench(type, HALF_SQUARE_ARRAYS.includes(type) ? rectSite : site, bandPlan('80m'));
+for (const type of ['four-square-hung', 'loop-reflector', 'half-square-switched'])
+  bench(type, squareSite, bandPlan('40m'));
 console.log(
   `load average ${loadavg()
     .map((v) => v.toFixed(1))

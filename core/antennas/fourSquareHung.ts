@@ -1,0 +1,287 @@
+/**
+ * Four-square hung from supports (issue 16): four quarter-wave verticals, each a wire hung by a
+ * rope from one of four supports that stand near a square, with the self-supporting
+ * four-square's hybrid-coupler feed (core/antennas/fourSquare.ts: `fourSquareNetwork`, reused,
+ * and its reasons there) and four directions switched by relays in the box at the centre.
+ *
+ * Which supports: four whose least-squares square (centre, turn and size fitted to the four
+ * positions, `fitSquare`) has a side of HUNG_SIDE_WAVELENGTHS (0.2–0.3 λ, a chosen bound around
+ * the λ/4 the feed is built for) and puts every support within PLACEMENT_TOL_WAVELENGTHS
+ * (0.025 λ, the bound the half-square arrays use; core/antennas/halfSquareArrays.ts) of its
+ * corner. The model does not idealise: each vertical hangs at its support's real position (in
+ * the canonical frame of the fitted square), so what an imperfect square does to the pattern and
+ * the currents is what the solver shows. The feed network makes no correction for it: its
+ * quarter-wave (here odd-quarter-wave) lines force equal currents in quadrature whatever the
+ * drive impedances (Pozar §2.5), so the currents stay near their targets while the spacings
+ * differ; the phase of the field at a distance then differs from the square's, which lowers the
+ * front-to-back ratio a little. Because the four directions are not turns of one another on an
+ * imperfect square, each is solved on its own (`design.states`: direction 1 the model's network,
+ * directions 2–4 its `stateNetworks`, the same box with the lines routed round; three more
+ * pattern solves per design).
+ *
+ * Each vertical is the plain hung vertical of core/antennas/vertical.ts: a wire of the nominal
+ * resonant height (0.245 λ, common practice, no source) from its base up to a rope to its
+ * support, fed at its base against the user's radials, cut where they meet the neighbours' and
+ * bonded (core/em/bondedRadials.ts). A support shorter than that is refused with its shortfall
+ * (a loaded or top-hat vertical in an array is not built here). Not trimmed through the box, as
+ * for the self-supporting four-square. The coax from the box at the fitted centre to each base
+ * is the smallest odd number of electrical quarter waves that reaches the farthest base with
+ * COAX_RUN_SLACK_M to spare (an odd number of quarter waves forces the current as one does; on
+ * 40 m one quarter wave of VF 0.66 coax, 7.0 m, is shorter than the 7.5 m from the centre to a
+ * corner, so there the lines are three quarter waves).
+ */
+import type { Element, PreparedSite } from '../site/feasibility.ts';
+import type { XY } from '../site/frame.ts';
+import { bearingOf, dist2, placeXY } from '../site/geometry.ts';
+import { arr, cut, num, proposalList, round } from './common.ts';
+import { FOUR_SQUARE_NAMES as NAMES, fourSquareNetwork, quarterWaveCoaxM } from './fourSquare.ts';
+import { COAX_RUN_SLACK_M, PLACEMENT_TOL_WAVELENGTHS } from './halfSquareArrays.ts';
+import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
+import { groupCuts, groupHeights, groupRadials, verticalParts, verticalsModel } from './verticals.ts';
+import type { BandPlan, Builder, Design, Proposal, WireModel } from './types.ts';
+
+export const FOUR_SQUARE_HUNG_TYPE = 'four-square-hung';
+/** Side of the fitted square, wavelengths (a chosen bound around the λ/4 the feed is built for). */
+export const HUNG_SIDE_WAVELENGTHS = { min: 0.2, max: 0.3 } as const;
+/** Proposals kept per band, the nearest to a square first. */
+export const HUNG_PROPOSALS_PER_BAND = 3;
+
+/** The least-squares square through four points taken clockwise: centre, corner 0's offset, worst miss. */
+export interface SquareFit {
+  centre: XY;
+  /** Corner 0 of the fitted square relative to the centre (site frame); the others turn by 90° clockwise. */
+  corner0: XY;
+  sideM: number;
+  /** Largest distance from a point to its fitted corner, metres. */
+  worstM: number;
+}
+
+/**
+ * Fit a square to four points given in clockwise order (x east, y north): the centre is their
+ * mean, and corner k is c·u_k with u_k = (−i)^k in complex numbers (a quarter turn clockwise per
+ * corner), c = mean of z_k·conj(u_k), the linear least-squares solution for the turn and size.
+ */
+export function fitSquare(pts: readonly XY[]): SquareFit {
+  const o: XY = [
+    (pts[0][0] + pts[1][0] + pts[2][0] + pts[3][0]) / 4,
+    (pts[0][1] + pts[1][1] + pts[2][1] + pts[3][1]) / 4,
+  ];
+  // u_k = (−i)^k: 1, −i, −1, i
+  const u: XY[] = [
+    [1, 0],
+    [0, -1],
+    [-1, 0],
+    [0, 1],
+  ];
+  let re = 0;
+  let im = 0;
+  pts.forEach((p, k) => {
+    const z: XY = [p[0] - o[0], p[1] - o[1]];
+    // z · conj(u)
+    re += (z[0] * u[k][0] + z[1] * u[k][1]) / 4;
+    im += (z[1] * u[k][0] - z[0] * u[k][1]) / 4;
+  });
+  const corner = (k: number): XY => [re * u[k][0] - im * u[k][1], re * u[k][1] + im * u[k][0]];
+  const worstM = Math.max(...pts.map((p, k) => dist2([p[0] - o[0], p[1] - o[1]], corner(k))));
+  return { centre: o, corner0: corner(0), sideM: Math.hypot(re, im) * Math.SQRT2, worstM };
+}
+
+/** Smallest odd number of electrical quarter waves of the coax reaching runM plus the slack. */
+export function oddQuarterWaveM(runM: number, freqHz: number): number {
+  const q = quarterWaveCoaxM(freqHz);
+  let n = 1;
+  while (n * q < runM + COAX_RUN_SLACK_M) n += 2;
+  return n * q;
+}
+
+const basesOf = (d: Design): XY[] => {
+  const xy = arr(d, 'basesXY');
+  return NAMES.map((_, i) => [xy[2 * i], xy[2 * i + 1]]);
+};
+
+function hungModel(d: Design, H: number): WireModel {
+  return {
+    ...verticalsModel(d, H, basesOf(d), NAMES),
+    network: fourSquareNetwork(d),
+    stateNetworks: [1, 2, 3].map((k) => fourSquareNetwork(d, k)),
+    radialsBonded: true,
+    referenceFeed: 2,
+  };
+}
+
+function hungElements(d: Design, H: number): Element[] {
+  const heights = arr(d, 'supportHeightsM');
+  return basesOf(d).flatMap((b, i): Element[] => {
+    const v = verticalParts(d, H, b, NAMES[i]);
+    return [
+      v.wire,
+      {
+        kind: 'support',
+        label: `support of vertical ${NAMES[i]}`,
+        supportId: NAMES[i],
+        at: b,
+        heightM: heights[i],
+      },
+      {
+        kind: 'rope',
+        label: `rope from vertical ${NAMES[i]} to its support`,
+        from: [b[0], b[1], H],
+        to: [b[0], b[1], heights[i]],
+      },
+      { kind: 'coax', label: `coax, box to vertical ${NAMES[i]}`, from: [b[0], b[1], 0], to: [0, 0, 0] },
+      ...v.radials,
+    ];
+  });
+}
+
+/** Unordered pairs of supports far enough apart to be a diagonal of the square. */
+function diagonals(site: PreparedSite, lambda: number): { i: number; j: number; mid: XY; len: number }[] {
+  const sup = site.site.supports;
+  const tol = PLACEMENT_TOL_WAVELENGTHS * lambda;
+  const lo = HUNG_SIDE_WAVELENGTHS.min * lambda * Math.SQRT2 - 2 * tol;
+  const hi = HUNG_SIDE_WAVELENGTHS.max * lambda * Math.SQRT2 + 2 * tol;
+  const out: { i: number; j: number; mid: XY; len: number }[] = [];
+  for (let i = 0; i < sup.length; i++)
+    for (let j = i + 1; j < sup.length; j++) {
+      const len = dist2(sup[i].xy, sup[j].xy);
+      if (len >= lo && len <= hi)
+        out.push({ i, j, len, mid: [(sup[i].xy[0] + sup[j].xy[0]) / 2, (sup[i].xy[1] + sup[j].xy[1]) / 2] });
+    }
+  return out;
+}
+
+function proposeHung(site: PreparedSite, band: BandPlan): ReturnType<Builder['propose']> {
+  const type = FOUR_SQUARE_HUNG_TYPE;
+  const out = proposalList(type, band);
+  const { supports: sup, settings: st } = site.site;
+  const lambda = band.wavelengthM;
+  const [tol, H] = [PLACEMENT_TOL_WAVELENGTHS * lambda, VERTICAL_NOMINAL_FRACTION * lambda];
+  const diag = diagonals(site, lambda);
+  const seen = new Set<string>();
+  const fits: { p: Proposal; worstM: number; lowM: number }[] = [];
+  for (let a = 0; a < diag.length; a++)
+    for (let b = a + 1; b < diag.length; b++) {
+      const P = diag[a];
+      const Q = diag[b];
+      if (new Set([P.i, P.j, Q.i, Q.j]).size < 4) continue;
+      // the two diagonals of a near-square cross near their midpoints, of about equal length
+      if (dist2(P.mid, Q.mid) > 2 * tol || Math.abs(P.len - Q.len) > 4 * tol) continue;
+      const four = [P.i, Q.i, P.j, Q.j].sort(
+        (x, y) => bearingOf(P.mid, sup[x].xy) - bearingOf(P.mid, sup[y].xy),
+      );
+      const key = four
+        .map((k) => sup[k].id)
+        .sort()
+        .join(':');
+      if (seen.has(key)) continue;
+      seen.add(key);
+      const s4 = four.map((k) => sup[k]);
+      const ids = s4.map((s) => s.id);
+      const where = `on ${s4.map((s) => s.name).join(', ')}`;
+      const fit = fitSquare(s4.map((s) => s.xy));
+      const sideWl = fit.sideM / lambda;
+      if (sideWl < HUNG_SIDE_WAVELENGTHS.min || sideWl > HUNG_SIDE_WAVELENGTHS.max) {
+        const bound =
+          sideWl < HUNG_SIDE_WAVELENGTHS.min ? HUNG_SIDE_WAVELENGTHS.min : HUNG_SIDE_WAVELENGTHS.max;
+        out.rejectBy(
+          Math.abs(sideWl - bound) / bound,
+          ids,
+          where,
+          `they stand near a square of side ${fit.sideM.toFixed(1)} m (${sideWl.toFixed(2)} λ), outside the ${HUNG_SIDE_WAVELENGTHS.min}–${HUNG_SIDE_WAVELENGTHS.max} λ a four-square is built at`,
+        );
+        continue;
+      }
+      if (fit.worstM > tol) {
+        out.rejectBy(
+          (fit.worstM - tol) / tol,
+          ids,
+          where,
+          `a support stands ${fit.worstM.toFixed(1)} m from the corner of the nearest square (more than ${tol.toFixed(1)} m, ${PLACEMENT_TOL_WAVELENGTHS} λ)`,
+        );
+        continue;
+      }
+      const low = Math.min(...s4.map((s) => s.heightM));
+      if (low < H) {
+        const short = s4.find((s) => s.heightM === low)!;
+        out.rejectBy(
+          (H - low) / H,
+          ids,
+          where,
+          `${short.name} at ${low.toFixed(1)} m is shorter than a quarter-wave vertical (about ${H.toFixed(1)} m); each of the four must hold one`,
+        );
+        continue;
+      }
+      const rot = bearingOf([0, 0], fit.corner0);
+      const bases = s4.map((s) => placeXY([s.xy[0] - fit.centre[0], s.xy[1] - fit.centre[1]], -rot, [0, 0]));
+      const spot = { xy: fit.centre, rotationDeg: rot };
+      const farthest = Math.max(...bases.map((p) => Math.hypot(p[0], p[1])));
+      const design = out.design(
+        {
+          sideM: round(fit.sideM, 2),
+          offSquareM: round(fit.worstM, 2),
+          basesXY: bases.flatMap((p) => [round(p[0], 3), round(p[1], 3)]),
+          supportHeightsM: s4.map((s) => s.heightM),
+          lineLengthM: round(oddQuarterWaveM(farthest, band.designFreqHz), 2),
+          ...groupRadials(site, spot, bases, NAMES, st.radialCount, 0.25 * lambda),
+        },
+        {
+          name: "height of the four verticals (a single vertical's resonant height)",
+          nominalM: H,
+          minM: H,
+          maxM: H,
+        },
+        NAMES.map((n, k) => ({
+          name: `beam toward vertical ${n} (on ${s4[k].name})`,
+          rotationDeg: 0,
+          ...(k ? { variant: k } : {}),
+          beamDeg: round(bearingOf([0, 0], bases[k]), 1),
+        })),
+      );
+      const norm = (x: number) => ((x % 360) + 360) % 360;
+      fits.push({
+        worstM: fit.worstM,
+        lowM: low,
+        p: {
+          design,
+          placement: { originXY: fit.centre, rotationDeg: rot },
+          supports: ids,
+          groupKey: `${type}:${key}`,
+          where: `${where} (a ${fit.sideM.toFixed(1)} m square within ${fit.worstM.toFixed(1)} m), box at the centre`,
+          broadsideDeg: bases.map((p) => norm(rot + bearingOf([0, 0], p))),
+        },
+      });
+    }
+  if (fits.length === 0 && out.rejections.length === 0)
+    out.reject(
+      [],
+      'four supports near a square',
+      `no four supports stand near a square of side ${(HUNG_SIDE_WAVELENGTHS.min * lambda).toFixed(1)}–${(HUNG_SIDE_WAVELENGTHS.max * lambda).toFixed(1)} m (${HUNG_SIDE_WAVELENGTHS.min}–${HUNG_SIDE_WAVELENGTHS.max} λ)`,
+    );
+  fits.sort((x, y) => x.worstM - y.worstM || y.lowM - x.lowM);
+  for (const f of fits.slice(0, HUNG_PROPOSALS_PER_BAND)) out.proposals.push(f.p);
+  return out.result();
+}
+
+export const fourSquareHungBuilder: Builder = {
+  type: FOUR_SQUARE_HUNG_TYPE,
+  label: 'Four-square of quarter-wave verticals hung from four supports (hybrid-coupler feed)',
+  array: true,
+  elementCount: 4,
+  propose: ({ site, band }) => proposeHung(site, band),
+  model: hungModel,
+  elements: hungElements,
+  heights: (_d, H) => groupHeights(H),
+  cutList(d, H) {
+    const n = Math.round(num(d, 'lineLengthM') / quarterWaveCoaxM(d.designFreqHz));
+    return [
+      ...groupCuts(d, H, NAMES, 'vertical wire (four, each hung from its support)'),
+      cut(
+        `75 Ω coax, control box to each vertical (${n} electrical quarter wave${n > 1 ? 's' : ''}, VF 0.66)`,
+        4,
+        num(d, 'lineLengthM'),
+        2,
+        'coax',
+      ),
+    ];
+  },
+};
