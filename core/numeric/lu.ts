@@ -28,7 +28,7 @@
  *  - E. Anderson et al., LAPACK Users' Guide, 3rd ed. (1999), routines xGETRF / xGETF2.
  */
 
-import { LU_KERNEL_WASM_BASE64 } from './wasm/luKernel.generated.ts';
+import { LU_KERNEL_FMA_WASM_BASE64, LU_KERNEL_WASM_BASE64 } from './wasm/luKernel.generated.ts';
 
 /** Panel width of the blocked factorisation (columns). */
 export const LU_BLOCK = 16;
@@ -104,37 +104,64 @@ interface LuKernel {
   panel(n: number, j0: number, j1: number, pv: number): number;
 }
 
-let kernel: LuKernel | null | undefined;
-let kernelAllowed = true;
+/** Which kernel runs: relaxed SIMD's fused multiply-add, plain f64x2 multiply and add, or none. */
+export type LuKernelKind = 'fused' | 'plain' | null;
 
-/**
- * The WebAssembly SIMD block update (tools/build-lu-kernel.mjs), or null where
- * WebAssembly or its SIMD is unavailable (or a content policy refuses it): then everything runs
- * in TypeScript, with the same results up to rounding.
- */
-function wasmKernel(): LuKernel | null {
-  if (!kernelAllowed) return null;
-  if (kernel !== undefined) return kernel;
-  kernel = null;
+const kernels: Partial<Record<'fused' | 'plain', LuKernel | null>> = {};
+let kernelAllowed = true;
+let fusedAllowed = true;
+
+function instantiate(base64: string): LuKernel | null {
   try {
-    const bin = atob(LU_KERNEL_WASM_BASE64);
+    const bin = atob(base64);
     const bytes = new Uint8Array(bin.length);
     for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
+    if (!WebAssembly.validate(bytes)) return null;
     const inst = new WebAssembly.Instance(new WebAssembly.Module(bytes), {});
     const memory = inst.exports.memory;
     const update = inst.exports.update;
     const panel = inst.exports.panel;
     if (memory instanceof WebAssembly.Memory && typeof update === 'function' && typeof panel === 'function')
-      kernel = { memory, update: update as LuKernel['update'], panel: panel as LuKernel['panel'] };
+      return { memory, update: update as LuKernel['update'], panel: panel as LuKernel['panel'] };
   } catch {
-    kernel = null;
+    /* no WebAssembly, no SIMD, or a content policy refuses it */
   }
-  return kernel;
+  return null;
 }
 
-/** Whether luFactor uses the WebAssembly kernel: `allow` false forces TypeScript (tests, benchmarks). */
-export function useLuKernel(allow: boolean): boolean {
+function kernelOf(kind: 'fused' | 'plain'): LuKernel | null {
+  let k = kernels[kind];
+  if (k === undefined)
+    k = kernels[kind] = instantiate(kind === 'fused' ? LU_KERNEL_FMA_WASM_BASE64 : LU_KERNEL_WASM_BASE64);
+  return k;
+}
+
+/**
+ * The WebAssembly kernel (tools/build-lu-kernel.mjs): the one whose block update uses relaxed
+ * SIMD's f64x2 multiply-add where the engine has it (Chromium and Electron; Node 20 only with
+ * --experimental-wasm-relaxed-simd), else the one with f64x2 multiply and add, else null where
+ * WebAssembly or its SIMD is unavailable: then everything runs in TypeScript. The results agree
+ * up to rounding (the multiply-add may round once where multiply and add round twice).
+ */
+function wasmKernel(): LuKernel | null {
+  if (!kernelAllowed) return null;
+  return (fusedAllowed ? kernelOf('fused') : null) ?? kernelOf('plain');
+}
+
+/** The kernel luFactor uses now (see `useLuKernel`). */
+export function luKernelKind(): LuKernelKind {
+  if (!kernelAllowed) return null;
+  if (fusedAllowed && kernelOf('fused')) return 'fused';
+  return kernelOf('plain') ? 'plain' : null;
+}
+
+/**
+ * Whether luFactor uses a WebAssembly kernel: `allow` false forces TypeScript, `fused` false the
+ * kernel without multiply-add (tests, benchmarks).
+ */
+export function useLuKernel(allow: boolean, fused = true): boolean {
   kernelAllowed = allow;
+  fusedAllowed = fused;
   return allow && wasmKernel() !== null;
 }
 
