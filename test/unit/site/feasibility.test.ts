@@ -137,4 +137,21 @@ describe('radial clipping', () => {
     ]);
     expectClose(clipRadial(s, [0, 0], 90, 20), 9, 0.25, 'shed face at x = 10 with 1 m clearance');
   });
+
+  it('answers a clip kept from an earlier plan only for the same lot and keep-outs', () => {
+    // clipRadial keeps its results by the site's boundary, keep-outs and settings: a shed added
+    // or taken away, or a new prepared site of the same lot, must give what a fresh clip gives.
+    const shed = {
+      id: 'shed',
+      name: 'Shed',
+      kind: 'building' as const,
+      geometry: box(10, -3, 14, 3),
+      clearanceM: 1,
+      heightM: 3,
+    };
+    expectClose(clipRadial(site(), [0, 0], 90, 20), 20, 1e-9, 'open lot');
+    expectClose(clipRadial(site([shed]), [0, 0], 90, 20), 9, 0.25, 'with the shed');
+    expectClose(clipRadial(site(), [0, 0], 90, 20), 20, 1e-9, 'open lot again');
+    expectClose(clipRadial(site([shed]), [0, 0], 90, 20), 9, 0.25, 'with the shed again');
+  });
 });
