@@ -6,18 +6,24 @@ import { describe, expect, it } from 'vitest';
 import { bandPlan } from '../../../core/antennas/common.ts';
 import { builderFor } from '../../../core/antennas/registry.ts';
 import {
+  DESIGN_GROUND_LOSS_OHM,
   PHASED_LINE_SLACK_M,
   PHASING_LINE,
+  designGroundLossOhm,
+  designPhasing,
   lineInputVoltage,
   phasedPairBuilder,
   phasingLines,
 } from '../../../core/antennas/phasedPair.ts';
+import { arrayFeedReport } from '../../../core/antennas/arrayFeed.ts';
+import { soilGround } from '../../../core/em/soils.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { stateBeamDeg, statePattern } from '../../../core/rank/states.ts';
 import { c } from '../../../core/numeric/complex.ts';
 import type { NetworkSpec } from '../../../core/em/network.ts';
+import type { Design } from '../../../core/antennas/types.ts';
 import { preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { gridGain, oneVertical } from '../../helpers/arrayChecks.ts';
@@ -151,5 +157,64 @@ describe('two phased verticals', () => {
     for (const el of [5, 15, 30, 60])
       for (let az = 0; az < 360; az += 10)
         expectClose(gridGain(g2, el, az), gridGain(claimed, el, az - s2.rotationDeg), 0.05, 'turn by 180°');
+  });
+});
+
+describe('the phasing lines designed with the radial field’s own loss over the project’s soil', () => {
+  const soils = ['very-good', 'average', 'poor'] as const;
+  const propose = (classId: string) =>
+    phasedPairBuilder.propose({
+      site: preparedLot({
+        halfX: 80,
+        halfY: 80,
+        soil: { classId },
+        settings: { maxVerticalHeightM: 15, radialCount: 16 },
+      }),
+      band,
+    }).proposals[0];
+  const designs = soils.map(propose);
+  /** |I_F/I_R − t|, t = 1∠−90°: the achieved current's distance from the target. */
+  const miss = (d: Design, classId: string): number => {
+    const m = phasedPairBuilder.model(d, d.trim.nominalM);
+    const F = arrayFeedReport(m, soilGround(classId)!, d.designFreqHz).elements[0];
+    const ph = (F.currentPhaseDeg * Math.PI) / 180;
+    return Math.hypot(F.currentRatio * Math.cos(ph), F.currentRatio * Math.sin(ph) + 1);
+  };
+
+  it('keeps the estimate as a parameter, rising as the soil gets poorer and falling with more radials', () => {
+    const loss = designs.map((d) => d.design.params.groundLossOhm as number);
+    // Physical trend (Wait & Pope 1954: the loss grows with the soil's surface resistance).
+    expect(loss[0]).toBeLessThan(loss[1]);
+    expect(loss[1]).toBeLessThan(loss[2]);
+    const f = band.designFreqHz;
+    const H = 0.245 * lambda;
+    const at = (n: number) => designGroundLossOhm({ classId: 'average' }, f, H, n, lambda / 4);
+    expect(at(32)).toBeLessThan(at(16));
+    expect(at(16)).toBeLessThan(at(4));
+    // an unknown soil class falls back to the stated value
+    expect(designGroundLossOhm({ classId: 'no-such-soil' }, f, H, 16, lambda / 4)).toBe(
+      DESIGN_GROUND_LOSS_OHM,
+    );
+  });
+
+  it('designs lines on every soil class of the range', () => {
+    for (const d of designs) {
+      expect(d).toBeDefined();
+      expect(d.design.params.elementLineM as number).toBeGreaterThan(lambda / 8);
+      expect(d.design.params.delayLineM as number).toBeGreaterThan(0);
+    }
+  });
+
+  it('achieves currents closer to the target than lines designed with the fixed fallback loss', () => {
+    for (const k of [1, 2]) {
+      const d = designs[k].design;
+      const s = d.params.spacingM as number;
+      const old = designPhasing(d.designFreqHz, d.trim.nominalM, s, DESIGN_GROUND_LOSS_OHM)!;
+      const before: Design = {
+        ...d,
+        params: { ...d.params, elementLineM: old.elementLineM, delayLineM: old.delayLineM },
+      };
+      expect(miss(d, soils[k])).toBeLessThan(miss(before, soils[k]));
+    }
   });
 });
