@@ -31,7 +31,7 @@ import {
   supportPairs,
   wire,
 } from './common.ts';
-import type { Builder, Design, ModelWire, WireModel } from './types.ts';
+import type { Builder, Design, HeightItem, ModelWire, WireModel } from './types.ts';
 
 /** Top wire length as a fraction of the wavelength (common practice, no source). */
 export const TOP_FRACTION = 0.5;
@@ -86,6 +86,15 @@ export function sides(d: Design, dropM: number): { top: [XYZ, XYZ]; A: Side; B: 
     B: mk(T / 2, -1),
     s,
   };
+}
+
+/** Heights of a half-square at drop `dropM` (also of the arrays): its top with the fed corner, named `top`, and its lower ends. */
+export function halfSquareHeights(d: Design, dropM: number, top: string): HeightItem[] {
+  const { A } = sides(d, dropM);
+  return [
+    { label: top, heightM: A.corner[2] },
+    { label: 'lower ends', heightM: A.end[2] },
+  ];
 }
 
 export const halfSquareBuilder: Builder = {
@@ -214,13 +223,7 @@ export const halfSquareBuilder: Builder = {
     }
     return els;
   },
-  heights(d, dropM) {
-    const { A } = sides(d, dropM);
-    return [
-      { label: 'top wire and fed corner', heightM: A.corner[2] },
-      { label: 'lower ends', heightM: A.end[2] },
-    ];
-  },
+  heights: (d, dropM) => halfSquareHeights(d, dropM, 'top wire and fed corner'),
   cutList(d, dropM) {
     const T = num(d, 'topM');
     return [cut('top wire', 1, T), cut('drop (including any bent end)', 2, dropM)];

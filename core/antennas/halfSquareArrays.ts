@@ -48,7 +48,7 @@ import { bearingOf, dist2, placeXY, type XYZ } from '../site/geometry.ts';
 import type { NetworkSpec } from '../em/network.ts';
 import { whereToChange } from '../project/settingLimits.ts';
 import { arr, coaxCut, cut, lambdaOf, num, proposalList, round, supportPairs, wire } from './common.ts';
-import { sides, TOP_FRACTION, type Side } from './halfSquare.ts';
+import { halfSquareHeights, sides, TOP_FRACTION, type Side } from './halfSquare.ts';
 import {
   COAX_LINE,
   COAX_VELOCITY_FACTOR,
@@ -576,13 +576,7 @@ function rectBuilder(type: AntennaTypeId, label: string, switched: boolean): Bui
     propose: ({ site, band }) => proposeRect(site, band, type, switched),
     model: (d, dropM) => rectModel(d, dropM, switched),
     elements: (d, dropM) => rectElements(d, dropM, switched),
-    heights(d, dropM) {
-      const { A } = sides(d, dropM);
-      return [
-        { label: 'top wires and fed corners', heightM: A.corner[2] },
-        { label: 'lower ends', heightM: A.end[2] },
-      ];
-    },
+    heights: (d, dropM) => halfSquareHeights(d, dropM, 'top wires and fed corners'),
     cutList: (d, dropM) => rectCuts(d, dropM, switched),
   };
 }
@@ -762,13 +756,7 @@ export const halfSquareLBuilder: Builder = {
   propose: ({ site, band }) => proposeL(site, band),
   model: lModel,
   elements: lElements,
-  heights(d, dropM) {
-    const { A } = sides(d, dropM);
-    return [
-      { label: 'top wires and fed corners', heightM: A.corner[2] },
-      { label: 'lower ends', heightM: A.end[2] },
-    ];
-  },
+  heights: (d, dropM) => halfSquareHeights(d, dropM, 'top wires and fed corners'),
   cutList(d, dropM) {
     return [
       ...halfSquareCuts(d, dropM, 2),

@@ -49,7 +49,7 @@ import {
   hatArmEstimateM,
   windingForInductanceM,
 } from './shortLoading.ts';
-import type { BandPlan, Builder, BuildContext, Design, Placement, WireModel } from './types.ts';
+import type { BandPlan, Builder, BuildContext, Design, HeightItem, Placement, WireModel } from './types.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { INVERTED_L_MAX_VERTICAL_FRACTION } from './invertedL.ts';
 
@@ -147,6 +147,21 @@ const hungElements = (H: number, radials: number[]): Element[] => [
   { kind: 'wire', label: 'vertical wire', from: [0, 0, 0], to: [0, 0, H] },
   { kind: 'support', label: 'support', supportId: 'S', at: [0, 0], heightM: H },
   ...radialElements(radials),
+];
+
+/** A base-fed vertical wire up to `top` and a wire from the top to each of `ends` (a top hat or a T top), over its radials. */
+function topLoadedModel(d: Design, top: XYZ, ends: readonly XYZ[], label: (k: number) => string): WireModel {
+  const lambda = lambdaOf(d);
+  return baseFedModel(
+    [wire([0, 0, 0], top, lambda, 'vertical wire'), ...ends.map((e, k) => wire(top, e, lambda, label(k)))],
+    arr(d, 'radialLengthsM'),
+  );
+}
+
+/** The first lines of a hung vertical's heights: the feed point and the top. */
+const hungHeights = (d: Design): HeightItem[] => [
+  { label: 'feed point (base)', heightM: 0 },
+  { label: 'top of vertical', heightM: num(d, 'heightM') },
 ];
 
 // ───────────────────────────── top hat ─────────────────────────────
@@ -279,25 +294,14 @@ export const topHatVerticalBuilder: Builder = {
     return out.result();
   },
   model(d, ell): WireModel {
-    const lambda = lambdaOf(d);
     const { top, ends } = hatShape(d, ell);
-    return baseFedModel(
-      [
-        wire([0, 0, 0], top, lambda, 'vertical wire'),
-        ...ends.map((e, k) => wire(top, e, lambda, `top-hat wire ${k + 1}`)),
-      ],
-      arr(d, 'radialLengthsM'),
-    );
+    return topLoadedModel(d, top, ends, (k) => `top-hat wire ${k + 1}`);
   },
   elements: hatElements,
-  heights(d, ell) {
-    const { ends } = hatShape(d, ell);
-    return [
-      { label: 'feed point (base)', heightM: 0 },
-      { label: 'top of vertical', heightM: num(d, 'heightM') },
-      { label: 'top-hat wire ends', heightM: ends[0][2] },
-    ];
-  },
+  heights: (d, ell) => [
+    ...hungHeights(d),
+    { label: 'top-hat wire ends', heightM: hatShape(d, ell).ends[0][2] },
+  ],
   cutList(d, ell) {
     return [
       cut('vertical wire', 1, num(d, 'heightM')),
@@ -324,19 +328,21 @@ function tShape(d: Design, ell: number): { top: XYZ; ends: XYZ[]; far: XYZ[] } {
   return { top, ends, far };
 }
 
+/** The supports the T top's two wires run toward. */
+const T_FAR_NAMES = ['B', 'C'];
+
 function tElements(d: Design, ell: number): Element[] {
   const { top, ends, far } = tShape(d, ell);
-  const names = ['B', 'C'];
   return [
     ...hungElements(num(d, 'heightM'), arr(d, 'radialLengthsM')),
     ...ends.flatMap((e, k): Element[] => [
-      { kind: 'wire', label: `top wire toward ${names[k]}`, role: 'top-wire', from: top, to: e },
-      { kind: 'end', label: `end of the top wire toward ${names[k]}`, at: e },
-      { kind: 'rope', label: `rope to support ${names[k]}`, from: e, to: far[k] },
+      { kind: 'wire', label: `top wire toward ${T_FAR_NAMES[k]}`, role: 'top-wire', from: top, to: e },
+      { kind: 'end', label: `end of the top wire toward ${T_FAR_NAMES[k]}`, at: e },
+      { kind: 'rope', label: `rope to support ${T_FAR_NAMES[k]}`, from: e, to: far[k] },
       {
         kind: 'support',
-        label: `support ${names[k]}`,
-        supportId: names[k],
+        label: `support ${T_FAR_NAMES[k]}`,
+        supportId: T_FAR_NAMES[k],
         at: [far[k][0], far[k][1]],
         heightM: far[k][2],
       },
@@ -440,29 +446,18 @@ export const tTopVerticalBuilder: Builder = {
     return out.result();
   },
   model(d, ell): WireModel {
-    const lambda = lambdaOf(d);
     const { top, ends } = tShape(d, ell);
-    return baseFedModel(
-      [
-        wire([0, 0, 0], top, lambda, 'vertical wire'),
-        wire(top, ends[0], lambda, 'top wire toward B'),
-        wire(top, ends[1], lambda, 'top wire toward C'),
-      ],
-      arr(d, 'radialLengthsM'),
-    );
+    return topLoadedModel(d, top, ends, (k) => `top wire toward ${T_FAR_NAMES[k]}`);
   },
   elements: tElements,
-  heights(d, ell, names) {
-    const { ends } = tShape(d, ell);
-    // Proposal.supports is [vertical's support, B, C].
-    const [b, c] = [names?.[1] ?? 'support B', names?.[2] ?? 'support C'];
-    return [
-      { label: 'feed point (base)', heightM: 0 },
-      { label: 'top of vertical', heightM: num(d, 'heightM') },
-      { label: `end of the top wire toward ${b}`, heightM: ends[0][2] },
-      { label: `end of the top wire toward ${c}`, heightM: ends[1][2] },
-    ];
-  },
+  // Proposal.supports is [the vertical's support, B, C]: name the far ends by their supports.
+  heights: (d, ell, names) => [
+    ...hungHeights(d),
+    ...tShape(d, ell).ends.map((e, k) => ({
+      label: `end of the top wire toward ${names?.[k + 1] ?? `support ${T_FAR_NAMES[k]}`}`,
+      heightM: e[2],
+    })),
+  ],
   cutList(d, ell) {
     return [
       cut('vertical wire', 1, num(d, 'heightM')),

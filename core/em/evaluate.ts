@@ -38,7 +38,7 @@ import {
 } from './solver.ts';
 import type { AntennaModel, ComplexPair } from './types.ts';
 import type { Complex } from '../numeric/complex.ts';
-import { swrOf } from './swr.ts';
+import { DEFAULT_REFERENCE_OHM, swrOf } from './swr.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 
 export { swrOf, SWR_CAP } from './swr.ts';
@@ -57,6 +57,7 @@ export interface EvaluateOptions {
   frequenciesHz: readonly number[];
   /** Pattern rows to report; default the upper half-space at 2° steps. Empty arrays: no rows. */
   pattern?: PatternGrid;
+  /** Reference impedance of the SWR, ohms; default DEFAULT_REFERENCE_OHM (50 Ω). */
   referenceImpedanceOhm?: number;
   segmentsPerWavelength?: number;
   /** Include node currents per wire in the result. */
@@ -250,7 +251,7 @@ export function frequencyResult(
   sol: FrequencySolution,
   opts: EvaluateOptions,
 ): FrequencyResult {
-  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const z0 = opts.referenceImpedanceOhm ?? DEFAULT_REFERENCE_OHM;
   const src: FarFieldSource = {
     mesh: pm.mesh,
     nodeCurrents: sol.nodeCurrents,

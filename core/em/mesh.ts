@@ -206,6 +206,27 @@ function alignSegments(n0: number, positions: number[]): number {
   return best;
 }
 
+/**
+ * Rows of basis terms packed end to end (compressed rows): the terms of row r are entries
+ * start[r] … start[r + 1] − 1 of `basis` and of one array per named field in `values`.
+ */
+function packTerms<K extends string, T extends { basis: number } & Record<K, number>>(
+  rows: readonly (readonly T[])[],
+  fields: readonly K[],
+): { start: Int32Array; basis: Int32Array; values: Float64Array[] } {
+  const start = new Int32Array(rows.length + 1);
+  for (let r = 0; r < rows.length; r++) start[r + 1] = start[r] + rows[r].length;
+  const basis = new Int32Array(start[rows.length]);
+  const values = fields.map(() => new Float64Array(start[rows.length]));
+  rows.forEach((row, r) =>
+    row.forEach((t, j) => {
+      basis[start[r] + j] = t.basis;
+      fields.forEach((f, k) => (values[k][start[r] + j] = t[f]));
+    }),
+  );
+  return { start, basis, values };
+}
+
 /** Build the mesh of a model. Throws ModelError when the model cannot be built. */
 export function buildMesh(model: AntennaModel, opts: MeshOptions): Mesh {
   const diagnostics: Diagnostic[] = [];
@@ -395,15 +416,11 @@ export function buildMesh(model: AntennaModel, opts: MeshOptions): Mesh {
   if (nBasis === 0)
     throw new ModelError('wires', 'the wires carry no current: every wire has free ends and one segment');
 
-  const nodeTermStart = new Int32Array(nNodes + 1);
-  for (let n = 0; n < nNodes; n++) nodeTermStart[n + 1] = nodeTermStart[n] + terms[n].length;
-  const nodeTermBasis = new Int32Array(nodeTermStart[nNodes]);
-  const nodeTermCoef = new Float64Array(nodeTermStart[nNodes]);
-  for (let n = 0; n < nNodes; n++)
-    terms[n].forEach((t, j) => {
-      nodeTermBasis[nodeTermStart[n] + j] = t.basis;
-      nodeTermCoef[nodeTermStart[n] + j] = t.coef;
-    });
+  const {
+    start: nodeTermStart,
+    basis: nodeTermBasis,
+    values: [nodeTermCoef],
+  } = packTerms(terms, ['coef']);
 
   // Pieces per segment from the node terms of its two nodes.
   const pieces: { basis: number; a: number; b: number }[][] = Array.from({ length: nSeg }, () => []);
@@ -422,17 +439,11 @@ export function buildMesh(model: AntennaModel, opts: MeshOptions): Mesh {
       for (const [basis, [v0, v1]] of vals) pieces[s].push({ basis, a: v0, b: v1 - v0 });
     }
   }
-  const segPieceStart = new Int32Array(nSeg + 1);
-  for (let s = 0; s < nSeg; s++) segPieceStart[s + 1] = segPieceStart[s] + pieces[s].length;
-  const pieceBasis = new Int32Array(segPieceStart[nSeg]);
-  const pieceA = new Float64Array(segPieceStart[nSeg]);
-  const pieceB = new Float64Array(segPieceStart[nSeg]);
-  for (let s = 0; s < nSeg; s++)
-    pieces[s].forEach((p, j) => {
-      pieceBasis[segPieceStart[s] + j] = p.basis;
-      pieceA[segPieceStart[s] + j] = p.a;
-      pieceB[segPieceStart[s] + j] = p.b;
-    });
+  const {
+    start: segPieceStart,
+    basis: pieceBasis,
+    values: [pieceA, pieceB],
+  } = packTerms(pieces, ['a', 'b']);
 
   geometryDiagnostics(
     model,

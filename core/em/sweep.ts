@@ -23,11 +23,12 @@ import { c, cDiv, type Complex } from '../numeric/complex.ts';
 import { ModelError } from './errors.ts';
 import type { GroundModelChoice } from './ground.ts';
 import { prepareFor } from './evaluate.ts';
-import { swrEdges, swrOf } from './swr.ts';
+import { DEFAULT_REFERENCE_OHM, swrEdges, swrOf } from './swr.ts';
 import { createWorkspace, solveFrequency, type PreparedModel, type SolveWorkspace } from './solver.ts';
 import type { AntennaModel, WireSpec } from './types.ts';
 
 export interface SweepOptions {
+  /** Reference impedance of the SWR, ohms; default DEFAULT_REFERENCE_OHM (50 Ω). */
   referenceImpedanceOhm?: number;
   segmentsPerWavelength?: number;
   /** Lossy soil: exact half-space (default) or the reflection-coefficient approximation. */
@@ -89,7 +90,7 @@ export function sweepPrepared(
   frequenciesHz: readonly number[],
   opts: SweepOptions = {},
 ): SweepResult {
-  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const z0 = opts.referenceImpedanceOhm ?? DEFAULT_REFERENCE_OHM;
   const feed = opts.feed ?? 0;
   const ws = createWorkspace(pm);
   const m = Math.max(1, Math.floor(opts.anchorEvery ?? 1));
@@ -153,6 +154,7 @@ export function sweepPrepared(
 export interface BandwidthOptions {
   /** SWR limit N of the N:1 bandwidth; default 2. */
   ratio?: number;
+  /** Reference impedance of the SWR, ohms; default DEFAULT_REFERENCE_OHM (50 Ω). */
   referenceImpedanceOhm?: number;
   segmentsPerWavelength?: number;
   /** Lossy soil: exact half-space (default) or the reflection-coefficient approximation. */
@@ -180,7 +182,7 @@ export function swrBandwidth(
   opts: BandwidthOptions = {},
 ): BandwidthResult {
   const N = opts.ratio ?? 2;
-  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const z0 = opts.referenceImpedanceOhm ?? DEFAULT_REFERENCE_OHM;
   const feed = opts.feed ?? 0;
   const pm = prepareFor(model, frequenciesHz, opts.segmentsPerWavelength, opts.groundModel);
   const ws = createWorkspace(pm);
@@ -216,6 +218,7 @@ export interface TrimOptions {
   range: readonly [number, number];
   frequencyHz: number;
   target: 'zero-reactance' | 'min-swr';
+  /** Reference impedance of the SWR, ohms; default DEFAULT_REFERENCE_OHM (50 Ω). */
   referenceImpedanceOhm?: number;
   segmentsPerWavelength?: number;
   /** Lossy soil: exact half-space (default) or the reflection-coefficient approximation. */
@@ -256,7 +259,7 @@ export function trimDimension(opts: TrimOptions): TrimResult {
       throw new ModelError('base', 'a build callback that returns wires needs `base` (feeds and ground)');
     return { ...opts.base, wires: r };
   };
-  const z0 = opts.referenceImpedanceOhm ?? 50;
+  const z0 = opts.referenceImpedanceOhm ?? DEFAULT_REFERENCE_OHM;
   const feed = opts.feed ?? 0;
   const mid = prepareFor(
     buildModel(0.5 * (lo + hi)),

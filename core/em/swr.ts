@@ -11,6 +11,9 @@ import { brentRoot } from '../numeric/roots.ts';
 /** Largest SWR reported; a total reflection (|Γ| ≥ 1) reads as this value. */
 export const SWR_CAP = 1e6;
 
+/** Reference impedance of the SWR when the caller names none, ohms (50 Ω coax). */
+export const DEFAULT_REFERENCE_OHM = 50;
+
 /** SWR of impedance r + jx on a line of real impedance z0. */
 export function swrOf(r: number, x: number, z0: number): number {
   const nr = r - z0;

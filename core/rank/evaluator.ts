@@ -6,6 +6,7 @@
  */
 import type { Soil } from '../project/schema.ts';
 import type { WireModel } from '../antennas/types.ts';
+import { DEFAULT_REFERENCE_OHM } from '../em/swr.ts';
 
 export type EvalGround = Soil | 'perfect' | 'free-space';
 
@@ -52,5 +53,5 @@ export interface EvalFrequency {
 /** Evaluates a wire model over ground at each frequency. Synchronous, deterministic. */
 export type Evaluator = (request: EvalRequest) => EvalFrequency[];
 
-/** Reference impedance of the feed line for SWR, ohms (50 Ω coax). */
-export const Z0_OHM = 50;
+/** Reference impedance of the feed line for SWR, ohms (50 Ω coax; the field solver's default). */
+export const Z0_OHM = DEFAULT_REFERENCE_OHM;

@@ -43,52 +43,59 @@ export interface ExposureLimit {
 
 const MW_PER_CM2_TO_W_PER_M2 = 10; // 1 mW/cm² = 10 W/m²
 
+/** FCC power density, W/m²: 100 mW/cm² below `cornerMhz`, k/f² mW/cm² above (47 CFR §1.1310 Table 1). */
+const fccDensityWPerM2 = (freqMhz: number, cornerMhz: number, k: number): number =>
+  (freqMhz < cornerMhz ? 100 : k / (freqMhz * freqMhz)) * MW_PER_CM2_TO_W_PER_M2;
+
+/** ICNIRP 2020 plane-wave equivalent power density, W/m²: E = k·f^−0.7 V/m, S = E²/η0 (Tables 5 and 6, from memory). */
+function icnirpDensityWPerM2(freqMhz: number, k: number): number {
+  const e = k * freqMhz ** -0.7;
+  return (e * e) / ETA0_OHM;
+}
+
+/** Each limit's words and its power density at a frequency in MHz. */
+const LIMITS: Record<
+  ExposureLimitId,
+  { label: string; densityWPerM2: (freqMhz: number) => number; averagingMinutes: number; source: string }
+> = {
+  'fcc-general': {
+    label: 'FCC general population',
+    densityWPerM2: (f) => fccDensityWPerM2(f, 1.34, 180),
+    averagingMinutes: 30,
+    source: '47 CFR §1.1310 Table 1(B)',
+  },
+  'fcc-controlled': {
+    label: 'FCC controlled (occupational)',
+    densityWPerM2: (f) => fccDensityWPerM2(f, 3, 900),
+    averagingMinutes: 6,
+    source: '47 CFR §1.1310 Table 1(A)',
+  },
+  'icnirp-public': {
+    label: 'ICNIRP 2020 general public',
+    densityWPerM2: (f) => icnirpDensityWPerM2(f, 300),
+    averagingMinutes: 30,
+    source: 'ICNIRP 2020 Table 5 (from memory)',
+  },
+  'icnirp-occupational': {
+    label: 'ICNIRP 2020 occupational',
+    densityWPerM2: (f) => icnirpDensityWPerM2(f, 660),
+    averagingMinutes: 6,
+    source: 'ICNIRP 2020 Table 6 (from memory)',
+  },
+};
+
 /** The limit at a frequency, or throws a RangeError outside 0.3–30 MHz (the low bands lie inside). */
 export function exposureLimit(id: ExposureLimitId, freqMhz: number): ExposureLimit {
   if (!(freqMhz >= 0.3 && freqMhz <= 30))
     throw new RangeError(`exposure limits are tabulated here for 0.3–30 MHz, not ${freqMhz} MHz`);
-  switch (id) {
-    case 'fcc-general': {
-      const s = freqMhz < 1.34 ? 100 : 180 / (freqMhz * freqMhz);
-      return {
-        id,
-        label: 'FCC general population',
-        powerDensityWPerM2: s * MW_PER_CM2_TO_W_PER_M2,
-        averagingMinutes: 30,
-        source: '47 CFR §1.1310 Table 1(B)',
-      };
-    }
-    case 'fcc-controlled': {
-      const s = freqMhz < 3 ? 100 : 900 / (freqMhz * freqMhz);
-      return {
-        id,
-        label: 'FCC controlled (occupational)',
-        powerDensityWPerM2: s * MW_PER_CM2_TO_W_PER_M2,
-        averagingMinutes: 6,
-        source: '47 CFR §1.1310 Table 1(A)',
-      };
-    }
-    case 'icnirp-public': {
-      const e = 300 * freqMhz ** -0.7;
-      return {
-        id,
-        label: 'ICNIRP 2020 general public',
-        powerDensityWPerM2: (e * e) / ETA0_OHM,
-        averagingMinutes: 30,
-        source: 'ICNIRP 2020 Table 5 (from memory)',
-      };
-    }
-    case 'icnirp-occupational': {
-      const e = 660 * freqMhz ** -0.7;
-      return {
-        id,
-        label: 'ICNIRP 2020 occupational',
-        powerDensityWPerM2: (e * e) / ETA0_OHM,
-        averagingMinutes: 6,
-        source: 'ICNIRP 2020 Table 6 (from memory)',
-      };
-    }
-  }
+  const l = LIMITS[id];
+  return {
+    id,
+    label: l.label,
+    powerDensityWPerM2: l.densityWPerM2(freqMhz),
+    averagingMinutes: l.averagingMinutes,
+    source: l.source,
+  };
 }
 
 export const MODE_DUTY_FACTORS = {

@@ -15,6 +15,11 @@ import { ProjectState } from './project.svelte.ts';
 import { UiState } from './ui.svelte.ts';
 import { downloadText } from '../plan/download.ts';
 
+/** The props of a component that takes only the session (the open project, the editor and planning state). */
+export interface SessionProps {
+  session: Session;
+}
+
 export class Session {
   doc: ProjectState;
   ui = new UiState();

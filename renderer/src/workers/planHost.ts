@@ -24,6 +24,18 @@ export interface PlanHost {
 
 const message = (e: unknown): string => (e instanceof Error ? e.message : String(e));
 
+/** Which request an error answers (its run, live preview, request or job). */
+type ErrorAbout = Omit<Extract<FromWorker, { type: 'error' }>, 'type' | 'message'>;
+
+/** What `work` answers or, when it throws, one error about the request saying why (in `words`). */
+function answer(about: ErrorAbout, work: () => FromWorker[], words = (why: string) => why): FromWorker[] {
+  try {
+    return work();
+  } catch (e) {
+    return [{ type: 'error', ...about, message: words(message(e)) }];
+  }
+}
+
 export function createPlanHost(evaluator: Evaluator, now: () => number = () => performance.now()): PlanHost {
   const cache = new Map<string, EvaluationRecord>();
   /** The last enumeration, reused by the rank of the same run. */
@@ -38,8 +50,8 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
 
   function handle(msg: ToWorker): FromWorker[] {
     switch (msg.type) {
-      case 'enumerate': {
-        try {
+      case 'enumerate':
+        return answer({ runId: msg.runId }, () => {
           const setup = enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           last = { runId: msg.runId, setup };
           for (const j of setup.jobs) designs.add(j);
@@ -53,47 +65,37 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
               total: setup.jobs.length,
             },
           ];
-        } catch (e) {
-          return [{ type: 'error', runId: msg.runId, message: message(e) }];
-        }
-      }
+        });
       case 'evaluate': {
         const t0 = now();
-        try {
-          const record =
-            cache.get(msg.job.key) ??
-            evaluateDesign(msg.job.design, msg.job.ground, evaluator, msg.job.soilRange, msg.job.soilOnly);
-          cache.set(msg.job.key, record);
-          designs.add(msg.job);
-          return [{ type: 'evaluated', runId: msg.runId, key: msg.job.key, record, ms: now() - t0 }];
-        } catch (e) {
-          return [
-            {
-              type: 'error',
-              runId: msg.runId,
-              key: msg.job.key,
-              message: `the solver failed on a ${msg.job.design.type} (${msg.job.design.band}): ${message(e)}`,
-            },
-          ];
-        }
+        return answer(
+          { runId: msg.runId, key: msg.job.key },
+          () => {
+            const record =
+              cache.get(msg.job.key) ??
+              evaluateDesign(msg.job.design, msg.job.ground, evaluator, msg.job.soilRange, msg.job.soilOnly);
+            cache.set(msg.job.key, record);
+            designs.add(msg.job);
+            return [{ type: 'evaluated', runId: msg.runId, key: msg.job.key, record, ms: now() - t0 }];
+          },
+          (why) => `the solver failed on a ${msg.job.design.type} (${msg.job.design.band}): ${why}`,
+        );
       }
       case 'store':
         cache.set(msg.key, msg.record);
         return [];
       case 'preview': {
         const t0 = now();
-        try {
+        return answer({ liveId: msg.liveId }, () => {
           const setup = enumeratePlan(msg.project, { bands: msg.bands, feasibility });
           const out = previewPlan(setup, msg.project, cache, designs);
           const missing = setup.jobs.filter((j) => !cache.has(j.key));
           return [{ type: 'previewed', liveId: msg.liveId, ...out, missing, ms: now() - t0 }];
-        } catch (e) {
-          return [{ type: 'error', liveId: msg.liveId, message: message(e) }];
-        }
+        });
       }
       case 'rank': {
         const t0 = now();
-        try {
+        return answer({ runId: msg.runId }, () => {
           const setup =
             last?.runId === msg.runId
               ? last.setup
@@ -103,12 +105,10 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
           shortlist.stats.evaluations = msg.evaluations;
           shortlist.stats.cacheHits = msg.cacheHits;
           return [{ type: 'ranked', runId: msg.runId, shortlist, ms: now() - t0 }];
-        } catch (e) {
-          return [{ type: 'error', runId: msg.runId, message: message(e) }];
-        }
+        });
       }
-      case 'sweep': {
-        try {
+      case 'sweep':
+        return answer({ reqId: msg.reqId }, () => {
           // The candidate carries its design (with the metal near it, if any) and the plan's ground.
           const model = evaluationModel(msg.design, msg.trimM);
           const out = evaluator({ model, ground: msg.ground, frequenciesHz: msg.freqsHz, pattern: null });
@@ -118,10 +118,7 @@ export function createPlanHost(evaluator: Evaluator, now: () => number = () => p
             swr: swrOf(r.zOhm[0], r.zOhm[1], Z0_OHM),
           }));
           return [{ type: 'swept', reqId: msg.reqId, points }];
-        } catch (e) {
-          return [{ type: 'error', reqId: msg.reqId, message: message(e) }];
-        }
-      }
+        });
       case 'tune': {
         const c = msg.candidate;
         const fail = (why: string): FromWorker[] => [
