@@ -98,6 +98,11 @@ export function cut(
   return { kind, label, count, lengthM, cutLengthM: lengthM + ends * CUT_ALLOWANCE_PER_END_M };
 }
 
+/** A piece of coax for the cut list: a connector allowance at both ends. */
+export function coaxCut(label: string, count: number, lengthM: number): CutItem {
+  return cut(label, count, lengthM, 2, 'coax');
+}
+
 /** Move canonical-frame elements onto the site. */
 export function placeElements(elements: readonly Element[], p: Placement): Element[] {
   return elements.map((e): Element => {

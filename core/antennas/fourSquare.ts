@@ -26,7 +26,7 @@ import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
-import { cut, num, round } from './common.ts';
+import { coaxCut, num, round } from './common.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { COAX_LOSS_DB_PER_100M, COAX_LOSS_REFERENCE_MHZ, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
 import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
@@ -142,17 +142,12 @@ export const fourSquareBuilder: Builder = {
     });
   },
   heights: (_d, H) => groupHeights(H),
-  cutList(d, H) {
-    const items = groupCuts(d, H, NAMES, 'vertical radiator (four)');
-    items.push(
-      cut(
-        '75 Ω coax, control box to each vertical (electrical quarter wave, VF 0.66)',
-        4,
-        num(d, 'lineLengthM'),
-        2,
-        'coax',
-      ),
-    );
-    return items;
-  },
+  cutList: (d, H) => [
+    ...groupCuts(d, H, NAMES, 'vertical radiator (four)'),
+    coaxCut(
+      '75 Ω coax, control box to each vertical (electrical quarter wave, VF 0.66)',
+      4,
+      num(d, 'lineLengthM'),
+    ),
+  ],
 };

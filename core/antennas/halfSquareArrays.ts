@@ -47,9 +47,16 @@ import type { XY } from '../site/frame.ts';
 import { bearingOf, dist2, placeXY, type XYZ } from '../site/geometry.ts';
 import type { NetworkSpec } from '../em/network.ts';
 import { whereToChange } from '../project/settingLimits.ts';
-import { arr, cut, lambdaOf, num, proposalList, round, supportPairs, wire } from './common.ts';
+import { arr, coaxCut, cut, lambdaOf, num, proposalList, round, supportPairs, wire } from './common.ts';
 import { sides, TOP_FRACTION, type Side } from './halfSquare.ts';
-import { COAX_LINE, COAX_VELOCITY_FACTOR, halfWaveCoaxM, pairNetwork, stubLengthM } from './verticalPair.ts';
+import {
+  COAX_LINE,
+  COAX_VELOCITY_FACTOR,
+  halfWaveCoaxM,
+  linesNetwork,
+  pairNetwork,
+  stubLengthM,
+} from './verticalPair.ts';
 import type {
   AntennaTypeId,
   BandPlan,
@@ -233,13 +240,9 @@ function rectModel(d: Design, dropM: number, switched: boolean): WireModel {
   const [ma, mb] = rectMappers(d);
   const a = elementWires(d, dropM, ma, 'front (A)');
   const b = elementWires(d, dropM, mb, 'rear (B)');
-  const network: NetworkSpec = switched
+  const network = switched
     ? pairNetwork(d)
-    : {
-        portNodes: ['a', 'b'],
-        elements: [{ kind: 'line', a: 'b', b: 'common', lengthM: num(d, 'stubLengthM'), ...coax }],
-        sources: [{ node: 'a', kind: 'voltage', value: [1, 0] }],
-      };
+    : linesNetwork(['a', 'b'], 'a', coax, [['b', 'common', num(d, 'stubLengthM')]]);
   return twoFedElements(a, b, network);
 }
 
@@ -267,23 +270,19 @@ function rectCuts(d: Design, dropM: number, switched: boolean): CutItem[] {
   const items = halfSquareCuts(d, dropM, 2);
   if (switched) {
     items.push(
-      cut(
+      coaxCut(
         `coax, relay box to each fed corner (${num(d, 'lineHalfWaves')} electrical half wave(s), VF ${COAX_VELOCITY_FACTOR})`,
         2,
         num(d, 'lineLengthM'),
-        2,
-        'coax',
       ),
-      cut('coax loading stub at the relay box, far end shorted', 1, num(d, 'stubLengthM'), 2, 'coax'),
+      coaxCut('coax loading stub at the relay box, far end shorted', 1, num(d, 'stubLengthM')),
     );
   } else {
     items.push(
-      cut(
+      coaxCut(
         "coax loading stub across the reflector's corner gap, far end shorted",
         1,
         num(d, 'stubLengthM'),
-        2,
-        'coax',
       ),
     );
   }
@@ -620,14 +619,14 @@ function lModel(d: Design, dropM: number): WireModel {
   const a = elementWires(d, dropM, m1, 'leg 1');
   const b = elementWires(d, dropM, m2, 'leg 2');
   const line = num(d, 'lineLengthM');
-  return twoFedElements(a, b, {
-    portNodes: ['p1', 'p2'],
-    elements: [
-      { kind: 'line', a: 'box-1', b: 'p1', lengthM: line, ...coax },
-      { kind: 'line', a: 'box-2', b: 'p2', lengthM: line, ...coax },
-    ],
-    sources: [{ node: 'box-1', kind: 'voltage', value: [1, 0] }],
-  });
+  return twoFedElements(
+    a,
+    b,
+    linesNetwork(['p1', 'p2'], 'box-1', coax, [
+      ['box-1', 'p1', line],
+      ['box-2', 'p2', line],
+    ]),
+  );
 }
 
 function lElements(d: Design, dropM: number): Element[] {
@@ -773,12 +772,10 @@ export const halfSquareLBuilder: Builder = {
   cutList(d, dropM) {
     return [
       ...halfSquareCuts(d, dropM, 2),
-      cut(
+      coaxCut(
         `coax, relay box to each fed corner (${num(d, 'lineHalfWaves')} electrical half wave(s), VF ${COAX_VELOCITY_FACTOR})`,
         2,
         num(d, 'lineLengthM'),
-        2,
-        'coax',
       ),
     ];
   },

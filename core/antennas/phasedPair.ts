@@ -15,9 +15,12 @@
  * the lossy line's input voltage from its ABCD matrix), and the two paths joined at one node need
  * V_B(ℓE) = V_F(ℓE + ℓD): one complex equation for the two lengths (`phasingLines`, a grid search
  * then Newton's method). The drive impedances come from the mutual impedance of the two verticals
- * solved by the field solver (`pairImpedances`) over perfect ground, plus an assumed loss
- * resistance of each radial field (DESIGN_GROUND_LOSS_OHM): the soil is not known when the array
- * is proposed. The currents the network really achieves over the project's soil are then solved
+ * solved by the field solver (`pairImpedances`) over perfect ground, plus the loss resistance of
+ * each radial field (`designGroundLossOhm`): the Wait–Pope integral of core/em/radials.ts for one
+ * quarter-wave vertical with the user's radial count over the project's soil, computed when the
+ * array is proposed and kept as the design parameter `groundLossOhm`, so the design stays a pure
+ * function of its parameters (DESIGN_GROUND_LOSS_OHM only when the soil is not known). The
+ * currents the network really achieves over the project's soil are then solved
  * with the wires (core/em/network.ts) and reported (core/antennas/arrayFeed.ts): the pattern the
  * plan scores is that of the achieved currents, not of the target.
  *
@@ -42,9 +45,20 @@ import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
 import { evaluateAntenna } from '../em/evaluate.ts';
 import { c, cAdd, cDiv, cMul, cSub, type Complex } from '../numeric/complex.ts';
-import { cut, num, proposalList, round, wire } from './common.ts';
+import { complexPermittivity, soilSurfaceImpedanceOhm } from '../em/fresnel.ts';
+import { ETA0 } from '../em/constants.ts';
+import {
+  BARE_CONTACT_RADIUS_M,
+  NEAR_FIELD_WAVELENGTHS,
+  groundLossResistance,
+  sinusoidalMonopoleSurfaceField,
+} from '../em/radials.ts';
+import { soilGround } from '../em/soils.ts';
+import type { Soil } from '../project/schema.ts';
+import { coaxCut, num, proposalList, round, wire, WIRE_RADIUS_M } from './common.ts';
+import { RADIAL_RADIUS_M } from './radials.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
-import { COAX_LINE, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
+import { COAX_LINE, COAX_VELOCITY_FACTOR, linesNetwork } from './verticalPair.ts';
 import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
 import type { Builder, Design, WireModel } from './types.ts';
 
@@ -61,11 +75,43 @@ export const PHASING_LINE = { ...COAX_LINE, z0Ohm: PHASING_LINE_Z0_OHM };
 /** Target phase of the front vertical's current relative to the rear one's, degrees (end-fire). */
 export const PHASED_TARGET_PHASE_DEG = -90;
 /**
- * Loss resistance assumed at each vertical's base for the design of the lines, ohms: a radial
- * field of some 16 to 32 quarter-wave radials over average soil (value from memory, common
- * practice, no source). The achieved currents are solved over the real soil and reported.
+ * Fallback loss resistance at each vertical's base for the design of the lines, ohms, used only
+ * when the soil's electrical values are not known (an unknown class id): a radial field of some
+ * 16 to 32 quarter-wave radials over average soil (value from memory, common practice, no
+ * source). The achieved currents are solved over the real soil and reported.
  */
 export const DESIGN_GROUND_LOSS_OHM = 8;
+
+/**
+ * The loss resistance of one quarter-wave vertical's radial field, referred to its base current,
+ * ohms: the Wait–Pope integral (core/em/radials.ts groundLossResistance) of the sinusoidal
+ * monopole's surface field (sinusoidalMonopoleSurfaceField) over `count` radials of `radialM`,
+ * between the radiator's radius and NEAR_FIELD_WAVELENGTHS λ (the limits the solver uses), with
+ * the soil's surface impedance from the solver's own conversion (fresnel.ts
+ * complexPermittivity, soilSurfaceImpedanceOhm). One vertical alone: the pair's fields are cut
+ * and bonded midway, which the solver then models. DESIGN_GROUND_LOSS_OHM when the soil is
+ * unknown.
+ */
+export function designGroundLossOhm(
+  soil: Soil,
+  freqHz: number,
+  heightM: number,
+  count: number,
+  radialM: number,
+): number {
+  const g = soilGround(soil);
+  if (!g || g.kind !== 'soil') return DESIGN_GROUND_LOSS_OHM;
+  const zg = soilSurfaceImpedanceOhm(complexPermittivity(g, freqHz), ETA0);
+  const lengthsM = Array<number>(Math.max(0, Math.round(count))).fill(radialM);
+  return groundLossResistance({
+    freqHz,
+    screen: { lengthsM, radiusM: RADIAL_RADIUS_M },
+    zg,
+    hAbs2PerI0: sinusoidalMonopoleSurfaceField(freqHz, heightM),
+    rhoMinM: lengthsM.length ? WIRE_RADIUS_M : Math.max(BARE_CONTACT_RADIUS_M, WIRE_RADIUS_M),
+    rhoMaxM: (NEAR_FIELD_WAVELENGTHS * SPEED_OF_LIGHT_M_PER_S) / freqHz,
+  });
+}
 /** Slack on each element line beyond the straight run from the box to the base, metres. */
 export const PHASED_LINE_SLACK_M = 1;
 export const PHASED_AXES_DEG = [0, 90];
@@ -195,9 +241,10 @@ export function designPhasing(
   freqHz: number,
   H: number,
   s: number,
+  groundLossOhm = DESIGN_GROUND_LOSS_OHM,
 ): { elementLineM: number; delayLineM: number; zRear: Complex; zFront: Complex } | null {
   const { z11, z12 } = pairImpedances(freqHz, H, s);
-  const self = cAdd(z11, c(DESIGN_GROUND_LOSS_OHM));
+  const self = cAdd(z11, c(groundLossOhm));
   const phi = (PHASED_TARGET_PHASE_DEG * Math.PI) / 180;
   const t = c(Math.cos(phi), Math.sin(phi));
   // drive impedances at the target currents: Z_R = Z11 + Z12·t, Z_F = Z11 + Z12/t
@@ -210,28 +257,20 @@ export function designPhasing(
 /** The network of end-fire toward F (state 1): R on ℓE, F on the delay and ℓE. */
 export function phasedNetwork(d: Design): NetworkSpec {
   const e = num(d, 'elementLineM');
-  return {
-    portNodes: ['f', 'r'],
-    elements: [
-      { kind: 'line', a: 'box', b: 'r', lengthM: e, ...PHASING_LINE },
-      { kind: 'line', a: 'box', b: 'delay', lengthM: num(d, 'delayLineM'), ...PHASING_LINE },
-      { kind: 'line', a: 'delay', b: 'f', lengthM: e, ...PHASING_LINE },
-    ],
-    sources: [{ node: 'box', kind: 'voltage', value: [1, 0] }],
-  };
+  return linesNetwork(['f', 'r'], 'box', PHASING_LINE, [
+    ['box', 'r', e],
+    ['box', 'delay', num(d, 'delayLineM')],
+    ['delay', 'f', e],
+  ]);
 }
 
 /** The network of broadside (state 3): both on ℓE from the box, the delay out. */
 export function broadsideNetwork(d: Design): NetworkSpec {
   const e = num(d, 'elementLineM');
-  return {
-    portNodes: ['f', 'r'],
-    elements: [
-      { kind: 'line', a: 'box', b: 'r', lengthM: e, ...PHASING_LINE },
-      { kind: 'line', a: 'box', b: 'f', lengthM: e, ...PHASING_LINE },
-    ],
-    sources: [{ node: 'box', kind: 'voltage', value: [1, 0] }],
-  };
+  return linesNetwork(['f', 'r'], 'box', PHASING_LINE, [
+    ['box', 'r', e],
+    ['box', 'f', e],
+  ]);
 }
 
 function phasedModel(d: Design, H: number): WireModel {
@@ -254,7 +293,12 @@ export const phasedPairBuilder: Builder = {
     const f = ctx.band.designFreqHz;
     const s = PHASED_SPACING_WAVELENGTHS * lambda;
     const H = VERTICAL_NOMINAL_FRACTION * lambda;
-    const lines = designPhasing(f, H, s);
+    // rounded first, so that the kept parameter is the value the lines were designed with
+    const lossOhm = round(
+      designGroundLossOhm(ctx.site.site.soil, f, H, ctx.site.site.settings.radialCount, 0.25 * lambda),
+      2,
+    );
+    const lines = designPhasing(f, H, s, lossOhm);
     const spec = {
       groupWords: 'two quarter-wave verticals',
       where: 'phased pair at a free spot',
@@ -274,6 +318,7 @@ export const phasedPairBuilder: Builder = {
         spacingM: round(s, 2),
         elementLineM: round(lines?.elementLineM ?? 0, 2),
         delayLineM: round(lines?.delayLineM ?? 0, 2),
+        groundLossOhm: lossOhm,
       },
       states: [
         { name: 'end-fire toward F (R leads by 90°)', rotationDeg: 0 },
@@ -298,20 +343,9 @@ export const phasedPairBuilder: Builder = {
     return [F.wire, R.wire, ...F.radials, ...R.radials, F.mast, R.mast];
   },
   heights: (_d, H) => groupHeights(H),
-  cutList(d, H) {
-    const items = groupCuts(d, H, NAMES, 'vertical radiator (F and R)');
-    items.push(
-      cut(
-        '75 Ω coax, relay box to each vertical (equal lengths, VF 0.66)',
-        2,
-        num(d, 'elementLineM'),
-        2,
-        'coax',
-      ),
-    );
-    items.push(
-      cut('75 Ω coax delay line in the relay box (end-fire phasing)', 1, num(d, 'delayLineM'), 2, 'coax'),
-    );
-    return items;
-  },
+  cutList: (d, H) => [
+    ...groupCuts(d, H, NAMES, 'vertical radiator (F and R)'),
+    coaxCut('75 Ω coax, relay box to each vertical (equal lengths, VF 0.66)', 2, num(d, 'elementLineM')),
+    coaxCut('75 Ω coax delay line in the relay box (end-fire phasing)', 1, num(d, 'delayLineM')),
+  ],
 };

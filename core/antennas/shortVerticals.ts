@@ -49,7 +49,7 @@ import {
   hatArmEstimateM,
   windingForInductanceM,
 } from './shortLoading.ts';
-import type { BandPlan, Builder, Design, Placement, WireModel } from './types.ts';
+import type { BandPlan, Builder, BuildContext, Design, Placement, WireModel } from './types.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { INVERTED_L_MAX_VERTICAL_FRACTION } from './invertedL.ts';
 
@@ -182,13 +182,17 @@ function hatElements(d: Design, ell: number): Element[] {
   ];
 }
 
-const fitsAt = (site: PreparedSite, els: Element[], p: Placement): boolean =>
-  checkPlacement(site, placeElements(els, p)).ok;
+const fitsAt = (
+  check: NonNullable<BuildContext['check']>,
+  site: PreparedSite,
+  els: Element[],
+  p: Placement,
+): boolean => check(site, placeElements(els, p)).ok;
 
 export const topHatVerticalBuilder: Builder = {
   type: 'top-hat-vertical',
   label: 'Vertical on a short support with a top hat of drooping wires',
-  propose({ site, band }) {
+  propose({ site, band, check = checkPlacement }) {
     const out = proposalList('top-hat-vertical', band);
     const lambda = band.wavelengthM;
     const minEnd = site.site.settings.minEndHeightM;
@@ -233,7 +237,8 @@ export const topHatVerticalBuilder: Builder = {
                 maxM: round(maxM, 3),
               },
             );
-            if (!fitsAt(site, hatElements(design, maxM), { originXY: s.xy, rotationDeg: rot })) continue;
+            if (!fitsAt(check, site, hatElements(design, maxM), { originXY: s.xy, rotationDeg: rot }))
+              continue;
             const room = radials.reduce((p, q) => p + q, 0);
             if (!best || room > best.room) best = { design, rot, droop, wires: layout.wires, room };
           }
@@ -447,13 +452,15 @@ export const tTopVerticalBuilder: Builder = {
     );
   },
   elements: tElements,
-  heights(d, ell) {
+  heights(d, ell, names) {
     const { ends } = tShape(d, ell);
+    // Proposal.supports is [vertical's support, B, C].
+    const [b, c] = [names?.[1] ?? 'support B', names?.[2] ?? 'support C'];
     return [
       { label: 'feed point (base)', heightM: 0 },
       { label: 'top of vertical', heightM: num(d, 'heightM') },
-      { label: 'end of the top wire toward B', heightM: ends[0][2] },
-      { label: 'end of the top wire toward C', heightM: ends[1][2] },
+      { label: `end of the top wire toward ${b}`, heightM: ends[0][2] },
+      { label: `end of the top wire toward ${c}`, heightM: ends[1][2] },
     ];
   },
   cutList(d, ell) {

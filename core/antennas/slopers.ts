@@ -152,7 +152,7 @@ function slopingShape(d: Design, L: number): { top: XYZ; attach: XYZ } {
 export const slopingVerticalBuilder: Builder = {
   type: 'sloping-vertical',
   label: 'Sloping quarter-wave from a support, fed at its foot against radials',
-  propose({ site, band }) {
+  propose({ site, band, check = checkPlacement }) {
     const out = proposalList('sloping-vertical', band);
     const lambda = band.wavelengthM;
     const trim = {
@@ -193,7 +193,7 @@ export const slopingVerticalBuilder: Builder = {
           originXY: xy,
           rotationDeg: rot,
         });
-        if (!checkPlacement(site, placed).ok) continue;
+        if (!check(site, placed).ok) continue;
         fits.push({ design, rot, xy, room: radials.reduce((p, q) => p + q, 0) });
       }
       if (fits.length === 0) {

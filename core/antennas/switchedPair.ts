@@ -20,7 +20,7 @@
  */
 import { placeXYZ, type XYZ } from '../site/geometry.ts';
 import type { Element } from '../site/feasibility.ts';
-import { cut, placeElements } from './common.ts';
+import { coaxCut, placeElements } from './common.ts';
 import type { Builder, CutItem, Design, HeightItem, ModelWire, Placement, WireModel } from './types.ts';
 import { COAX_LINE, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
 import { COAX_RUN_SLACK_M } from './halfSquareArrays.ts';
@@ -174,13 +174,11 @@ export function switchedPairBuilder(builderOf: PartBuilderLookup): Builder {
             .cutList(p.design, p.trimM)
             .map((c) => ({ ...c, label: `antenna ${PART_NAMES[k]}: ${c.label}` })),
         ),
-        cut('coax, A’s feed down to the relay box', 1, fa[2] + COAX_RUN_SLACK_M, 2, 'coax'),
-        cut(
+        coaxCut('coax, A’s feed down to the relay box', 1, fa[2] + COAX_RUN_SLACK_M),
+        coaxCut(
           `coax run, relay box to B’s feed (any length: B's relay opens its feed; VF ${COAX_VELOCITY_FACTOR})`,
           1,
           pairRunM(fa, fb),
-          2,
-          'coax',
         ),
       ];
     },

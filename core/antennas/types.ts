@@ -7,7 +7,7 @@
  */
 import type { Band } from '../project/schema.ts';
 import type { XY } from '../site/frame.ts';
-import type { Element, PreparedSite } from '../site/feasibility.ts';
+import type { Element, FeasibilityResult, PreparedSite } from '../site/feasibility.ts';
 import type { XYZ } from '../site/geometry.ts';
 import type { SupportConductor } from './conductors.ts';
 import type { NetworkSpec } from '../em/network.ts';
@@ -186,6 +186,11 @@ export interface BandPlan {
 export interface BuildContext {
   site: PreparedSite;
   band: BandPlan;
+  /**
+   * The site check for a builder that checks placements itself (default checkPlacement; the
+   * planner passes its own, which may be a memo of it kept across plans: core/site/feasibilityMemo.ts).
+   */
+  check?: (ps: PreparedSite, elements: readonly Element[]) => FeasibilityResult;
 }
 
 /** What a cut-list piece is, so that no consumer has to read it from the label. */
@@ -219,6 +224,10 @@ export interface Builder {
   model(design: Design, trimM: number): WireModel;
   /** Everything that must fit on the site (wires, ropes, ends, anchors, supports, radials), canonical frame. */
   elements(design: Design, trimM: number): Element[];
-  heights(design: Design, trimM: number): HeightItem[];
+  /**
+   * Key heights for the sheet and detail. `supportNames` are the proposal's supports' names in
+   * its order (Proposal.supports), for labels that name a support; a builder may ignore them.
+   */
+  heights(design: Design, trimM: number, supportNames?: readonly string[]): HeightItem[];
   cutList(design: Design, trimM: number): CutItem[];
 }

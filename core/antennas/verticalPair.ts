@@ -33,7 +33,7 @@ import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
-import { cut, num, round } from './common.ts';
+import { coaxCut, num, round } from './common.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
 import type { AntennaTypeId, Builder, BuildContext, CutItem, Design, WireModel } from './types.ts';
@@ -74,35 +74,51 @@ export function openStubLengthM(reactanceOhm: number, freqHz: number): number {
   return (lambdaLine / (2 * Math.PI)) * Math.atan(COAX_Z0_OHM / reactanceOhm);
 }
 
+/** One line of a feed network: from node a to node b, lengthM long. */
+export type LineRun = readonly [a: string, b: string, lengthM: number];
+
+/**
+ * A feed network of lines of one cable (`cable`: the line less its ends and length, such as
+ * COAX_LINE), driven by 1 V at node `driven`, with the model's feeds at `portNodes`
+ * (core/em/network.ts).
+ */
+export function linesNetwork(
+  portNodes: readonly string[],
+  driven: string,
+  cable: typeof COAX_LINE,
+  runs: readonly LineRun[],
+): NetworkSpec {
+  return {
+    portNodes,
+    elements: runs.map(([a, b, lengthM]) => ({ kind: 'line', a, b, lengthM, ...cable })),
+    sources: [{ node: driven, kind: 'voltage', value: [1, 0] }],
+  };
+}
+
+/**
+ * The relay box of a switched pair: equal coax from box-a to A and from box-b to B, the stub on
+ * the run from `stub[0]` to `stub[1]`, the box `driven` fed.
+ */
+function switchedPairNetwork(d: Design, driven: string, stub: readonly [string, string]): NetworkSpec {
+  const line = num(d, 'lineLengthM');
+  return linesNetwork(['a', 'b'], driven, COAX_LINE, [
+    ['box-a', 'a', line],
+    ['box-b', 'b', line],
+    [...stub, num(d, 'stubLengthM')],
+  ]);
+}
+
 /**
  * The director pair's network in state 1: B driven, A loaded by an open stub (a capacitive
  * reactance that makes it electrically shorter: a director), so state 1 beams toward A (north).
  */
 export function directorPairNetwork(d: Design): NetworkSpec {
-  const line = num(d, 'lineLengthM');
-  return {
-    portNodes: ['a', 'b'],
-    elements: [
-      { kind: 'line', a: 'box-a', b: 'a', lengthM: line, ...COAX_LINE },
-      { kind: 'line', a: 'box-b', b: 'b', lengthM: line, ...COAX_LINE },
-      { kind: 'line', a: 'box-a', b: 'stub-open-end', lengthM: num(d, 'stubLengthM'), ...COAX_LINE },
-    ],
-    sources: [{ node: 'box-b', kind: 'voltage', value: [1, 0] }],
-  };
+  return switchedPairNetwork(d, 'box-b', ['box-a', 'stub-open-end']);
 }
 
-/** The array's feed network in state 1 (A driven, B reflecting). */
+/** The array's feed network in state 1 (A driven, B reflecting: a shorted stub on B's run). */
 export function pairNetwork(d: Design): NetworkSpec {
-  const line = num(d, 'lineLengthM');
-  return {
-    portNodes: ['a', 'b'],
-    elements: [
-      { kind: 'line', a: 'box-a', b: 'a', lengthM: line, ...COAX_LINE },
-      { kind: 'line', a: 'box-b', b: 'b', lengthM: line, ...COAX_LINE },
-      { kind: 'line', a: 'box-b', b: 'common', lengthM: num(d, 'stubLengthM'), ...COAX_LINE },
-    ],
-    sources: [{ node: 'box-a', kind: 'voltage', value: [1, 0] }],
-  };
+  return switchedPairNetwork(d, 'box-a', ['box-b', 'common']);
 }
 
 /** Names and canonical bases of the two verticals for spacing s: A at (0, +s/2), B at (0, −s/2). */
@@ -174,14 +190,8 @@ function proposePair(
 function pairCuts(d: Design, H: number, stubLabel: string): CutItem[] {
   return [
     ...groupCuts(d, H, NAMES, 'vertical radiator (A and B)'),
-    cut(
-      'coax, relay box to each vertical (electrical half wave, VF 0.66)',
-      2,
-      num(d, 'lineLengthM'),
-      2,
-      'coax',
-    ),
-    cut(stubLabel, 1, num(d, 'stubLengthM'), 2, 'coax'),
+    coaxCut('coax, relay box to each vertical (electrical half wave, VF 0.66)', 2, num(d, 'lineLengthM')),
+    coaxCut(stubLabel, 1, num(d, 'stubLengthM')),
   ];
 }
 

@@ -222,7 +222,7 @@ const f2 = (v: number): string => v.toFixed(2);
 function describe(c: Candidate): string {
   const lines: string[] = [];
   lines.push(
-    `#${c.rank} ${c.band} ${c.typeLabel.toLowerCase()}: ${c.where}${c.bestOfType && c.rank > 1 ? ' (best of its type)' : ''}`,
+    `#${c.rank} ${c.band} ${c.typeLabel.charAt(0).toLowerCase()}${c.typeLabel.slice(1)}: ${c.where}${c.bestOfType && c.rank > 1 ? ' (best of its type)' : ''}`,
   );
   lines.push(
     `    score ${f2(c.score)} dBi   peak ${f1(c.peak.gainDbi)} dBi at ${f1(c.peak.elevationDeg)}° elevation, ${f1(c.peak.azimuthDeg)}°`,

@@ -430,7 +430,25 @@ export function exactGroundDiagnostic(ground: GroundModel): Diagnostic | null {
 export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): EvaluationResult {
   checkFrequencies(opts.frequenciesHz);
   assertWork(model, opts);
-  const pm = prepareFor(model, opts.frequenciesHz, opts.segmentsPerWavelength, opts.groundModel);
+  return evaluatePrepared(
+    prepareFor(model, opts.frequenciesHz, opts.segmentsPerWavelength, opts.groundModel),
+    opts,
+  );
+}
+
+/**
+ * evaluateAntenna on a model already prepared (prepareFor with the same frequencies, segmentation
+ * and ground model), the frequencies in `solved` taken as solved (solveFrequency on that prepared
+ * model) instead of solved again: for a caller that solved the feed first and then wants the
+ * pattern of the same solution (the planner's trim, core/rank/solver.ts). The caller checks the
+ * model's limits (assertWork) as evaluateAntenna does.
+ */
+export function evaluatePrepared(
+  pm: PreparedModel,
+  opts: EvaluateOptions,
+  solved: ReadonlyMap<number, FrequencySolution> = new Map(),
+): EvaluationResult {
+  checkFrequencies(opts.frequenciesHz);
   const diagnostics = [...pm.diagnostics];
   if (opts.groundPowerCheck && pm.ground.kind === 'exact') {
     const k0max = (2 * Math.PI * Math.max(...opts.frequenciesHz)) / SPEED_OF_LIGHT_M_PER_S;
@@ -449,9 +467,10 @@ export function evaluateAntenna(model: AntennaModel, opts: EvaluateOptions): Eva
         `the independent ground-power check would take about ${Math.round(work * opts.frequenciesHz.length * GROUND_CHECK_S_PER_UNIT)} s for this model (its cost grows with the antenna's width over its lowest height); leave groundPowerCheck off, raise the lowest wire, or check fewer frequencies`,
       );
   }
-  const ws = createWorkspace(pm);
+  let ws: ReturnType<typeof createWorkspace> | null = null;
   const frequencies = opts.frequenciesHz.map((f) => {
-    const r = frequencyResult(pm, solveFrequency(pm, f, ws), opts);
+    const sol = solved.get(f) ?? solveFrequency(pm, f, (ws ??= createWorkspace(pm)));
+    const r = frequencyResult(pm, sol, opts);
     if (r.powerBalanceError !== null && Math.abs(r.powerBalanceError) > 0.005)
       diagnostics.push({
         level: 'warning',

@@ -540,12 +540,16 @@ export function surfaceMagneticField(
   x: number,
   y: number,
   out: Float64Array,
+  /** Only these segments (default every segment). */
+  segments?: Int32Array,
 ): void {
   let hxr = 0,
     hxi = 0,
     hyr = 0,
     hyi = 0;
-  for (let s = 0; s < mesh.nSeg; s++) {
+  const nS = segments ? segments.length : mesh.nSeg;
+  for (let q = 0; q < nS; q++) {
+    const s = segments ? segments[q] : q;
     const w = mesh.segWire[s];
     const a = mesh.wireNodeStart[w] + (s - mesh.wireSegStart[w]);
     const i0r = nodeI[2 * a];
@@ -572,9 +576,11 @@ export function surfaceMagneticField(
       let sv: number;
       let ds: number;
       if (near) {
-        const t = ta + (tb - ta) * rule.x[i];
-        sv = sStar + d * Math.sinh(t);
-        ds = rule.w[i] * (tb - ta) * d * Math.cosh(t);
+        // sinh and cosh from one exponential
+        const e = Math.exp(ta + (tb - ta) * rule.x[i]);
+        const ie = 1 / e;
+        sv = sStar + d * 0.5 * (e - ie);
+        ds = rule.w[i] * (tb - ta) * d * 0.5 * (e + ie);
       } else {
         sv = L * rule.x[i];
         ds = rule.w[i] * L;
@@ -678,13 +684,21 @@ function contactLoss(
   const rhoMaxM = zoneRadius(pc, freqHz);
   const rhoMinM = innerLimit(pc);
   // Azimuthally symmetric when every current-carrying wire is vertical through the contact.
-  let symmetric = true;
+  // Otherwise the segments on that axis (a vertical's own wire, a tower) are still a field of
+  // one magnitude all round, along φ̂ = (−cos φ, sin φ) with φ the bearing from north (t̂ × R⃗ with
+  // t̂ = ±ẑ): it is computed once per radius and turned to each azimuth; the other segments' field
+  // is computed at each azimuth.
+  const axis: number[] = [];
+  const rest: number[] = [];
   for (let s = 0; s < mesh.nSeg; s++) {
     const vertical = Math.abs(mesh.tz[s]) > 1 - 1e-9;
     const onAxis = Math.hypot(mesh.sx[s] - pc.contact.x, mesh.sy[s] - pc.contact.y) < 1e-6;
-    if (!(vertical && onAxis)) symmetric = false;
+    (vertical && onAxis ? axis : rest).push(s);
   }
+  const symmetric = rest.length === 0;
   const nAz = symmetric ? 1 : 8;
+  const axisSegs = Int32Array.from(axis);
+  const restSegs = Int32Array.from(rest);
   const h = new Float64Array(4);
   const lossOhm =
     i02 > 0
@@ -695,9 +709,8 @@ function contactLoss(
           rhoMinM,
           rhoMaxM,
           hAbs2PerI0: (rho) => {
-            let sum = 0;
-            for (let j = 0; j < nAz; j++) {
-              const phi = (2 * Math.PI * (j + 0.5)) / nAz;
+            if (symmetric) {
+              const phi = Math.PI;
               surfaceMagneticField(
                 mesh,
                 nodeI,
@@ -706,7 +719,35 @@ function contactLoss(
                 pc.contact.y + rho * Math.cos(phi),
                 h,
               );
-              sum += h[0] * h[0] + h[1] * h[1] + h[2] * h[2] + h[3] * h[3];
+              return (h[0] * h[0] + h[1] * h[1] + h[2] * h[2] + h[3] * h[3]) / i02;
+            }
+            // the axis field's complex magnitude along φ̂ at bearing 0 (φ̂ = (−1, 0) there)
+            let ar = 0;
+            let ai = 0;
+            if (axisSegs.length) {
+              surfaceMagneticField(mesh, nodeI, k, pc.contact.x, pc.contact.y + rho, h, axisSegs);
+              ar = -h[0];
+              ai = -h[1];
+            }
+            let sum = 0;
+            for (let j = 0; j < nAz; j++) {
+              const phi = (2 * Math.PI * (j + 0.5)) / nAz;
+              const sn = Math.sin(phi);
+              const cs = Math.cos(phi);
+              surfaceMagneticField(
+                mesh,
+                nodeI,
+                k,
+                pc.contact.x + rho * sn,
+                pc.contact.y + rho * cs,
+                h,
+                restSegs,
+              );
+              const hxr = h[0] - ar * cs;
+              const hxi = h[1] - ai * cs;
+              const hyr = h[2] + ar * sn;
+              const hyi = h[3] + ai * sn;
+              sum += hxr * hxr + hxi * hxi + hyr * hyr + hyi * hyi;
             }
             return sum / nAz / i02;
           },

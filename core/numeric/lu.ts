@@ -13,10 +13,11 @@
  * (register blocking), and the trailing rows stay in the first-level cache while they receive the
  * whole panel's contribution.
  * Where WebAssembly SIMD is available (Node, Chromium and Electron workers) matrices of
- * LU_WASM_MIN_N unknowns or more are factored in the kernel's memory: every multiply-add of the
- * three steps goes to one WebAssembly block update, A[i][j] −= Σ A[i][q]·A[q][j] over a block,
- * in register tiles of 2 rows × 2 complex columns on 128-bit f64x2 lanes; pivot search, row
- * swaps and the column scaling stay in TypeScript. The kernel is generated and assembled by
+ * LU_WASM_MIN_N unknowns or more are factored in the kernel's memory: the panel step (pivot
+ * search, row swaps, column scaling and the rank-1 updates inside the panel) is one WebAssembly
+ * call per panel, and the block row of U and the trailing update go to one WebAssembly block
+ * update, A[i][j] −= Σ A[i][q]·A[q][j] over a block, in register tiles of 2 rows × 2 complex
+ * columns on 128-bit f64x2 lanes. The kernel is generated and assembled by
  * tools/build-lu-kernel.mjs into wasm/luKernel.generated.ts. Same algorithm and pivots, so the
  * factors agree with the TypeScript path up to rounding (test/unit/numeric/lu-kernel.test.ts).
  * Growth and stability as for Gaussian elimination with partial pivoting (Golub & Van Loan).
@@ -27,7 +28,7 @@
  *  - E. Anderson et al., LAPACK Users' Guide, 3rd ed. (1999), routines xGETRF / xGETF2.
  */
 
-import { LU_KERNEL_WASM_BASE64 } from './wasm/luKernel.generated.ts';
+import { LU_KERNEL_FMA_WASM_BASE64, LU_KERNEL_WASM_BASE64 } from './wasm/luKernel.generated.ts';
 
 /** Panel width of the blocked factorisation (columns). */
 export const LU_BLOCK = 16;
@@ -58,7 +59,7 @@ export function luFactor(n: number, a: Float64Array, pivots: Int32Array = new In
     return { n, a, pivots };
   }
   // factor in the kernel's memory (one copy in, one out), the trailing update in WebAssembly
-  const bytes = 16 * n * n;
+  const bytes = 16 * n * n + 4 * n; // the matrix, then the pivot rows (i32)
   const have = k.memory.buffer.byteLength;
   if (have < bytes) k.memory.grow(Math.ceil((bytes - have) / 65536));
   const view = new Float64Array(k.memory.buffer, 0, 2 * n * n);
@@ -67,6 +68,7 @@ export function luFactor(n: number, a: Float64Array, pivots: Int32Array = new In
     factorWithKernel(n, view, pivots, k);
   } finally {
     a.set(view);
+    pivots.set(new Int32Array(k.memory.buffer, 16 * n * n, n));
   }
   return { n, a, pivots };
 }
@@ -76,47 +78,11 @@ export function luFactor(n: number, a: Float64Array, pivots: Int32Array = new In
  * the kernel's one block update (pivot search, row swaps and the column scaling stay here).
  */
 function factorWithKernel(n: number, a: Float64Array, pivots: Int32Array, kern: LuKernel): void {
-  const n2 = 2 * n;
+  const pv = 16 * n * n;
   for (let j0 = 0; j0 < n; j0 += LU_BLOCK) {
     const jEnd = Math.min(j0 + LU_BLOCK, n);
-    for (let k = j0; k < jEnd; k++) {
-      let p = k;
-      let best = -1;
-      for (let i = k; i < n; i++) {
-        const idx = i * n2 + 2 * k;
-        const m = a[idx] * a[idx] + a[idx + 1] * a[idx + 1];
-        if (m > best) {
-          best = m;
-          p = i;
-        }
-      }
-      if (!(best > 0)) throw new SingularMatrixError(k);
-      pivots[k] = p;
-      if (p !== k) {
-        const rk = k * n2;
-        const rp = p * n2;
-        for (let j = 0; j < n2; j++) {
-          const t = a[rk + j];
-          a[rk + j] = a[rp + j];
-          a[rp + j] = t;
-        }
-      }
-      const kk = k * n2 + 2 * k;
-      const pr = a[kk];
-      const pi = a[kk + 1];
-      const d = pr * pr + pi * pi;
-      const ir = pr / d;
-      const ii = -pi / d;
-      for (let i = k + 1; i < n; i++) {
-        const idx = i * n2 + 2 * k;
-        const xr = a[idx];
-        const xi = a[idx + 1];
-        a[idx] = xr * ir - xi * ii;
-        a[idx + 1] = xr * ii + xi * ir;
-      }
-      // rank-1 update confined to the panel
-      kern.update(n, k + 1, n, k, k + 1, k + 1, jEnd);
-    }
+    const bad = kern.panel(n, j0, jEnd, pv);
+    if (bad >= 0) throw new SingularMatrixError(bad);
     if (jEnd === n) break;
     // block row of U, row by row, then the trailing matrix
     for (let r = j0 + 1; r < jEnd; r++) kern.update(n, r, r + 1, j0, r, jEnd, n);
@@ -131,38 +97,71 @@ interface LuKernel {
   memory: WebAssembly.Memory;
   /** A[i][j] −= Σ_{q0 ≤ q < q1} A[i][q]·A[q][j], r0 ≤ i < r1, c0 ≤ j < c1 (build-lu-kernel.mjs). */
   update(n: number, r0: number, r1: number, q0: number, q1: number, c0: number, c1: number): void;
+  /**
+   * Step 1 (getf2 on columns j0…j1−1) with pivot rows stored as i32 from byte pv; −1, or the
+   * column of an exactly zero pivot (build-lu-kernel.mjs).
+   */
+  panel(n: number, j0: number, j1: number, pv: number): number;
 }
 
-let kernel: LuKernel | null | undefined;
-let kernelAllowed = true;
+/** Which kernel runs: relaxed SIMD's fused multiply-add, plain f64x2 multiply and add, or none. */
+export type LuKernelKind = 'fused' | 'plain' | null;
 
-/**
- * The WebAssembly SIMD block update (tools/build-lu-kernel.mjs), or null where
- * WebAssembly or its SIMD is unavailable (or a content policy refuses it): then everything runs
- * in TypeScript, with the same results up to rounding.
- */
-function wasmKernel(): LuKernel | null {
-  if (!kernelAllowed) return null;
-  if (kernel !== undefined) return kernel;
-  kernel = null;
+const kernels: Partial<Record<'fused' | 'plain', LuKernel | null>> = {};
+let kernelAllowed = true;
+let fusedAllowed = true;
+
+function instantiate(base64: string): LuKernel | null {
   try {
-    const bin = atob(LU_KERNEL_WASM_BASE64);
+    const bin = atob(base64);
     const bytes = new Uint8Array(bin.length);
     for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
+    if (!WebAssembly.validate(bytes)) return null;
     const inst = new WebAssembly.Instance(new WebAssembly.Module(bytes), {});
     const memory = inst.exports.memory;
     const update = inst.exports.update;
-    if (memory instanceof WebAssembly.Memory && typeof update === 'function')
-      kernel = { memory, update: update as LuKernel['update'] };
+    const panel = inst.exports.panel;
+    if (memory instanceof WebAssembly.Memory && typeof update === 'function' && typeof panel === 'function')
+      return { memory, update: update as LuKernel['update'], panel: panel as LuKernel['panel'] };
   } catch {
-    kernel = null;
+    /* no WebAssembly, no SIMD, or a content policy refuses it */
   }
-  return kernel;
+  return null;
 }
 
-/** Whether luFactor uses the WebAssembly kernel: `allow` false forces TypeScript (tests, benchmarks). */
-export function useLuKernel(allow: boolean): boolean {
+function kernelOf(kind: 'fused' | 'plain'): LuKernel | null {
+  let k = kernels[kind];
+  if (k === undefined)
+    k = kernels[kind] = instantiate(kind === 'fused' ? LU_KERNEL_FMA_WASM_BASE64 : LU_KERNEL_WASM_BASE64);
+  return k;
+}
+
+/**
+ * The WebAssembly kernel (tools/build-lu-kernel.mjs): the one whose block update uses relaxed
+ * SIMD's f64x2 multiply-add where the engine has it (Chromium and Electron; Node 20 only with
+ * --experimental-wasm-relaxed-simd), else the one with f64x2 multiply and add, else null where
+ * WebAssembly or its SIMD is unavailable: then everything runs in TypeScript. The results agree
+ * up to rounding (the multiply-add may round once where multiply and add round twice).
+ */
+function wasmKernel(): LuKernel | null {
+  if (!kernelAllowed) return null;
+  return (fusedAllowed ? kernelOf('fused') : null) ?? kernelOf('plain');
+}
+
+/** The kernel luFactor uses now (see `useLuKernel`). */
+export function luKernelKind(): LuKernelKind {
+  if (!kernelAllowed) return null;
+  if (fusedAllowed && kernelOf('fused')) return 'fused';
+  return kernelOf('plain') ? 'plain' : null;
+}
+
+/**
+ * Whether luFactor uses a WebAssembly kernel: `allow` false forces TypeScript, `fused` false the
+ * kernel without multiply-add (tests, benchmarks).
+ */
+export function useLuKernel(allow: boolean, fused = true): boolean {
   kernelAllowed = allow;
+  fusedAllowed = fused;
   return allow && wasmKernel() !== null;
 }
 

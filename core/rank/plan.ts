@@ -565,7 +565,7 @@ export function enumeratePlan(project: Project, options: Omit<PlanOptions, 'eval
     const rejections: Rejection[] = [];
     for (const b of builders) {
       const given = supportsFor(prepared, b.type, bp.wavelengthM);
-      const out = b.propose({ site: given, band: bp });
+      const out = b.propose({ site: given, band: bp, check });
       for (const r of out.rejections) rejections.push(r); // no spread: a large lot has 1e5+ of them
       // Most promising first, within the bounds; the rest of the work in the builder's order.
       const n = out.proposals.length;
@@ -708,17 +708,36 @@ type Scorer = (gainDbi: readonly number[], rot: number) => { score: number; regi
  * the gain averaged in power over the band's take-off distribution (core/paths/takeoff.ts).
  */
 function scorerFor(paths: readonly RegionPath[], band: Band): Scorer {
+  let byBand = scorers.get(paths);
+  if (!byBand) scorers.set(paths, (byBand = new Map()));
+  const known = byBand.get(band);
+  if (known) return known;
   const totalWeight = paths.reduce((s, p) => s + p.weight, 0);
   const compiled = paths.map((path) => compileDirections(path.takeoff[band].directions));
-  return (gainDbi, rot) => {
+  // A pattern (an evaluation record's, by identity) at a rotation is scored once per plan: the
+  // conducting-support choice, the soil-range shortlist and the final ranking score the same
+  // placements again.
+  const memo = new WeakMap<readonly number[], Map<number, { score: number; regionGains: number[] }>>();
+  const scorer: Scorer = (gainDbi, rot) => {
+    let byRot = memo.get(gainDbi);
+    if (!byRot) memo.set(gainDbi, (byRot = new Map()));
+    const hit = byRot.get(rot);
+    if (hit) return hit;
     const regionGains = compiled.map((c) => compiledGainDbi(gainDbi, rot, c));
     const score =
       totalWeight > 0
         ? regionGains.reduce((s, g, i) => s + g * paths[i].weight, 0) / totalWeight
         : averageGainDbi(gainDbi, rot, LOW_ANGLE_DIRECTIONS);
-    return { score, regionGains };
+    const out = { score, regionGains };
+    byRot.set(rot, out);
+    return out;
   };
+  byBand.set(band, scorer);
+  return scorer;
 }
+
+/** The scorers of a plan's paths (PlanSetup.paths, by identity), per band. */
+const scorers = new WeakMap<readonly RegionPath[], Map<Band, Scorer>>();
 
 /**
  * Step 2 of a plan with conducting supports near some placements (call after the step-1 jobs are
@@ -1063,7 +1082,11 @@ export function rankPlan(
         broadsideDeg: p.broadsideDeg.map((v) => Math.round(v * 10) / 10),
         rotationDeg: p.placement.rotationDeg,
         heights: builder
-          .heights(p.design, rec.trimM)
+          .heights(
+            p.design,
+            rec.trimM,
+            p.supports.map((id) => supportById.get(id)?.name ?? id),
+          )
           .map((h) => ({ label: h.label, heightM: Math.round(h.heightM * 100) / 100 })),
         score: g.best.score,
         regions: paths.map((path, k) => ({
@@ -1137,7 +1160,7 @@ export function rankPlan(
           ...rec.diagnostics.map((d) => {
             const hit = conductorDiagnostics.find(([prefix]) => d.startsWith(prefix));
             return hit
-              ? `the ground loss at the base of ${hit[1].name} is that of its bare footing (no radials of its own)`
+              ? `${hit[1].name}, a grounded metal support, is part of the model: the ground loss at its base is that of its bare footing (it has no radials of its own)`
               : d;
           }),
           ...unknownMetal.map(

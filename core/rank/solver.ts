@@ -2,7 +2,10 @@
  * The Evaluator backed by the project's method-of-moments field solver (core/em). The only
  * place where the planner meets the solver's types.
  */
-import { evaluateAntenna } from '../em/evaluate.ts';
+import { evaluateAntenna, evaluatePrepared, prepareFor } from '../em/evaluate.ts';
+import { ModelError } from '../em/errors.ts';
+import { assertWork } from '../em/limits.ts';
+import { solveFrequency, type FrequencySolution, type PreparedModel } from '../em/solver.ts';
 import { sweepImpedance } from '../em/sweep.ts';
 import { soilGround } from '../em/soils.ts';
 import type { AntennaModel, GroundSpec } from '../em/types.ts';
@@ -49,6 +52,16 @@ export const solverEvaluator: Evaluator = (req) => {
     ...(req.model.network ? { network: req.model.network } : {}),
     ...(req.model.radialsBonded ? { radialsBonded: true } : {}),
   };
+  if (req.pattern === null && req.frequenciesHz.length === 1) {
+    // Feed only at one frequency (a trim step): solved and kept, so that the pattern request of
+    // the trimmed design at the same frequency reads this solution instead of solving it again.
+    const f = req.frequenciesHz[0];
+    const key = JSON.stringify([model, f]);
+    const pm = prepareFor(model, [f], undefined, PLAN_GROUND_MODEL);
+    const sol = solveFrequency(pm, f);
+    keepSolved(key, pm, sol);
+    return [{ freqHz: f, zOhm: feedImpedanceOf(sol), gainDbi: null, diagnostics: [] }];
+  }
   if (req.pattern === null) {
     // Feed only: the solver's sweep meshes once and skips the far field.
     const sw = sweepImpedance(model, req.frequenciesHz, { groundModel: PLAN_GROUND_MODEL });
@@ -59,13 +72,19 @@ export const solverEvaluator: Evaluator = (req) => {
       diagnostics: [],
     }));
   }
-  const res = evaluateAntenna(model, {
+  const opts = {
     frequenciesHz: req.frequenciesHz,
     pattern: req.pattern,
     groundModel: PLAN_GROUND_MODEL,
     // The planner reads the total gain on its grid and finds its own peak there (evaluate.ts).
     gainGridOnly: true,
-  });
+  };
+  const kept =
+    req.frequenciesHz.length === 1 ? takeSolved(JSON.stringify([model, req.frequenciesHz[0]])) : null;
+  if (kept) assertWork(model, opts);
+  const res = kept
+    ? evaluatePrepared(kept.pm, opts, new Map([[req.frequenciesHz[0], kept.sol]]))
+    : evaluateAntenna(model, opts);
   const diagnostics = res.diagnostics.filter((d) => d.level === 'warning').map((d) => d.message);
   return res.frequencies.map((f) => {
     // an array is fed through its network: the impedance at the feed is its first source's
@@ -99,6 +118,38 @@ export const solverEvaluator: Evaluator = (req) => {
     };
   });
 };
+
+/**
+ * The last feed-only solves at one frequency (a design's trim steps, at most TRIM_MAX_EVALUATIONS
+ * of them), by model and frequency. The design's pattern request at its trimmed value is the
+ * same model at the same frequency as one of them: the same mesh and the same solution, so only
+ * the far field is left to compute (one fill, factorisation and ground-loss integral fewer per
+ * design; the figures are the same to the last digit).
+ */
+const SOLVED_KEPT = 8;
+const solved = new Map<string, { pm: PreparedModel; sol: FrequencySolution }>();
+
+function keepSolved(key: string, pm: PreparedModel, sol: FrequencySolution): void {
+  solved.delete(key);
+  solved.set(key, { pm, sol });
+  while (solved.size > SOLVED_KEPT) solved.delete(solved.keys().next().value!);
+}
+
+function takeSolved(key: string): { pm: PreparedModel; sol: FrequencySolution } | null {
+  const hit = solved.get(key);
+  if (hit) solved.delete(key);
+  return hit ?? null;
+}
+
+/** The feed impedance of a solution as the sweep reads it: a feed network's first source, else the first feed. */
+function feedImpedanceOf(sol: FrequencySolution): [number, number] {
+  const z =
+    sol.network && sol.network.sources.length > 0
+      ? sol.network.sources[0].impedance
+      : sol.feeds[0]?.impedance;
+  if (!z) throw new ModelError('feed', 'there is no feed 0');
+  return [z.re, z.im];
+}
 
 /**
  * Builds what every planning evaluation over `ground` at these frequencies reuses (the exact

@@ -12,10 +12,13 @@
  */
 import type { ElementFeed } from '../antennas/arrayFeed.ts';
 import type { Candidate } from '../rank/plan.ts';
+import { servingState } from '../rank/candidateStates.ts';
 import type { PlacedElement } from '../rank/candidate.ts';
 import type { XY } from '../site/frame.ts';
 import type { BomItem } from './bom.ts';
 import type { SheetLengths } from './format.ts';
+import type { NetworkSpec } from '../em/network.ts';
+import { builderFor } from '../antennas/registry.ts';
 
 export interface ArrayWiring {
   /** Where the relay or control box goes, site frame (null: no box). */
@@ -26,6 +29,17 @@ export interface ArrayWiring {
   /** One row per direction: its number, the relay coils energised, the beam, what it does. */
   directions: { n: number; coils: string; beamDeg: number; name: string; serves: string[] }[];
   control: string[];
+  /**
+   * The control cable's runs: from the station to the box along the feed line, and, where a relay
+   * sits away from the box (a switched pair's K2 at B's feed), from the box to it along its coax.
+   */
+  controlRuns: { from: string; to: string; conductors: number; lengthM: number | null }[];
+  /** The array's coax pieces as cut (kind 'coax' of the cut list): what each joins, count, cut length. */
+  coax: { label: string; count: number; cutLengthM: number }[];
+  /** What else goes in the box: the feed network's parts other than lines (hybrid, transformer, resistor). */
+  boxParts: { item: string; detail: string }[];
+  /** Boxes to buy: the relay box, and one more for each relay away from it (at the ground below it, site frame). */
+  boxes: { where: string; xy: XY | null }[];
   /** Per element: drive impedance and the current relative to the reference element (direction 1). */
   feed: { label: string; zText: string; current: string }[];
   networkLossPercent: number | null;
@@ -81,8 +95,16 @@ export function stationLineEnd(c: Candidate): [number, number, number] | null {
   return f ? [f[0], f[1], f[2]] : null;
 }
 
-/** The relays of each array type and the coils each direction energises (common practice, no source). */
-function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
+/**
+ * The relays of each array type and the coils each direction energises (common practice, no
+ * source); `remote`: a relay away from the box, with the cut-list coax its control wire follows.
+ */
+function relaysOf(c: Candidate): {
+  relays: string[];
+  coils: string[];
+  /** `feed`: the index of the feed point the remote relay sits at. */
+  remote?: { where: string; alongCoax: RegExp; feed: number };
+} {
   switch (c.type) {
     case 'vertical-pair':
     case 'half-square-switched': {
@@ -134,10 +156,65 @@ function relaysOf(c: Candidate): { relays: string[]; coils: string[] } {
           'K2, single-pole single-throw (normally open), at B’s feed, its coil wired with K1’s: it closes B’s feed when B is chosen and leaves it open otherwise, so the idle antenna is open at its own feed whatever the run’s length.',
         ],
         coils: ['none', 'K1 + K2'],
+        remote: {
+          where: 'K2 at B’s feed (in its own small weatherproof box)',
+          alongCoax: /relay box to B/,
+          feed: 1,
+        },
       };
     default:
       return { relays: [], coils: [] };
   }
+}
+
+/**
+ * The feed network's parts other than its lines, from the design's own model (the network the
+ * field solver solved): a hybrid coupler, a transformer, a resistor. A pure reactance (a switched
+ * pair's open relay contact) is part of a relay, not a part to buy.
+ */
+function boxPartsOf(c: Candidate, powerW: number): { item: string; detail: string }[] {
+  let net: NetworkSpec | undefined;
+  try {
+    net = builderFor(c.design.type).model(c.design, c.trim.valueM).network;
+  } catch {
+    return [];
+  }
+  const lossW = c.arrayFeed ? c.arrayFeed.networkLossShare * powerW : null;
+  return (net?.elements ?? []).flatMap((el) => {
+    switch (el.kind) {
+      case 'hybrid':
+        return [
+          {
+            item: `90° hybrid coupler, ${el.z0Ohm} Ω`,
+            detail: `in the relay box: the station line at its input, its isolated port to the load resistor`,
+          },
+        ];
+      case 'transformer': {
+        const inverting = el.primary[1] === el.secondary[0];
+        return [
+          {
+            item: `Transformer ${el.turnsRatio === 1 ? '1:1' : `1:${el.turnsRatio}`}${inverting ? ', wired to invert' : ''}`,
+            detail: `in the relay box, between the hybrid and one element’s line${inverting ? ' (it turns that element’s current by 180°)' : ''}; a bifilar winding on a ferrite core (common practice, no source)`,
+          },
+        ];
+      }
+      case 'impedance':
+        return el.xOhm === 0 && el.rOhm > 0
+          ? [
+              {
+                item: `Load resistor, ${el.rOhm} Ω non-inductive`,
+                detail: `in the relay box, on the hybrid’s isolated port: it takes the power the elements send back${
+                  lossW !== null
+                    ? `; the whole network loses ${lossW.toFixed(1)} W at ${powerW} W, so rate it for at least that (more with margin)`
+                    : ''
+                }`,
+              },
+            ]
+          : [];
+      default:
+        return [];
+    }
+  });
 }
 
 /** Below this current ratio, with an impedance above IDLE_IMPEDANCE_OHM, an element counts as idle (open at its relay). */
@@ -160,7 +237,8 @@ export function arrayWiring(
 ): ArrayWiring | null {
   if (c.elementCount < 2) return null;
   const boxXY = relayBoxXY(c.type, c.elements, c.placement.originXY);
-  const { relays, coils } = relaysOf(c);
+  const r = relaysOf(c);
+  const { relays, coils } = r;
   const directions =
     c.states.length > 1
       ? c.states.map((s, i) => ({
@@ -169,18 +247,49 @@ export function arrayWiring(
           beamDeg: s.beamDeg,
           name: s.name,
           serves: s.regions
-            .filter((r) =>
-              c.states.every(
-                (o) => (o.regions.find((q) => q.id === r.id)?.gainDbi ?? -Infinity) <= r.gainDbi,
-              ),
-            )
+            .filter((r) => servingState(c, r.id)?.n === i + 1)
             .map((r) => regionNames.get(r.id) ?? r.id),
         }))
       : [];
   const amps = Math.sqrt(powerW / 50);
+  // One switched wire per coil line the station drives on its own (coils energised together share
+  // one), and a common return.
+  const lines = new Set(coils.filter((k) => k !== 'none')).size;
+  const groups = new Set(coils.flatMap((k) => (k === 'none' ? [] : k.split(' + ')))).size;
+  const driven = Math.min(lines, groups);
+  const conductors = driven + 1;
+  const words = ['no', 'one', 'two', 'three', 'four', 'five'];
+  const word = (n: number): string => words[n] ?? String(n);
+  const coax = c.cutList
+    .filter((i) => i.kind === 'coax')
+    .map((i) => ({ label: i.label, count: i.count, cutLengthM: i.cutLengthM }));
+  const remoteCoax = r.remote ? coax.find((i) => r.remote!.alongCoax.test(i.label)) : undefined;
+  const controlRuns: ArrayWiring['controlRuns'] = relays.length
+    ? [
+        { from: 'the station', to: 'the relay box, along the feed line', conductors, lengthM: null },
+        ...(r.remote
+          ? [
+              {
+                from: 'the relay box',
+                to: `${r.remote.where}, along its coax`,
+                conductors: 2,
+                lengthM: remoteCoax?.cutLengthM ?? null,
+              },
+            ]
+          : []),
+      ]
+    : [];
   const control = relays.length
     ? [
-        `A ${coils.some((k) => k.includes('K2')) ? 'three' : 'two'}-conductor control cable from the station to the box, along the feed line; 12 V DC switched at the station for each relay coil.`,
+        `A ${word(conductors)}-conductor control cable from the station to the box, along the feed line: ${
+          driven === 1
+            ? 'one wire switched to +12 V DC at the station energises the relays of direction 2'
+            : `${word(driven)} wires, each switched to +12 V DC at the station for its relay coil, as the table says`
+        }, and the common return.${
+          r.remote
+            ? ` From the box a two-conductor cable runs along the coax to ${r.remote.where}, its coil wired with K1’s.`
+            : ''
+        }`,
         'At the box, a diode across each relay coil (cathode to +12 V) and a 10 nF capacitor across it; a weatherproof box with the coax connectors at the bottom.',
         `Relay contacts rated for at least ${amps.toFixed(1)} A RF (√(${powerW} W / 50 Ω)) with margin; switch only while not transmitting.`,
       ]
@@ -192,7 +301,7 @@ export function arrayWiring(
       current:
         el.currentRatio < 1e-3
           ? '≈ 0'
-          : `${el.currentRatio.toFixed(2)} at ${el.currentPhaseDeg >= 0 ? '+' : '−'}${Math.abs(el.currentPhaseDeg).toFixed(0)}°`,
+          : `${el.currentRatio.toFixed(2)} at ${Math.round(el.currentPhaseDeg) >= 0 ? '+' : '−'}${Math.abs(Math.round(el.currentPhaseDeg))}°`,
     }));
   const feed = feedRows(c.arrayFeed?.elements ?? []);
   const specs = c.design.states ?? [];
@@ -209,12 +318,21 @@ export function arrayWiring(
       },
     ];
   });
+  const remoteFeed = r.remote ? c.feedPoints[r.remote.feed]?.xyz : undefined;
+  const remoteXY: XY | null = remoteFeed ? [remoteFeed[0], remoteFeed[1]] : null;
+  const boxWhere = ARRAYS_WITH_BOX[c.type] ?? 'no relay box: the array has one direction';
   return {
     boxXY,
-    boxWhere: ARRAYS_WITH_BOX[c.type] ?? 'no relay box: the array has one direction',
+    boxWhere,
     relays,
     directions,
     control,
+    controlRuns,
+    coax,
+    boxParts: boxPartsOf(c, powerW),
+    boxes: relays.length
+      ? [{ where: boxWhere, xy: boxXY }, ...(r.remote ? [{ where: r.remote.where, xy: remoteXY }] : [])]
+      : [],
     feed,
     networkLossPercent: c.arrayFeed ? 100 * c.arrayFeed.networkLossShare : null,
     otherPhasings,
@@ -247,6 +365,14 @@ export function arrayBom(
         : c.type === 'switched-pair'
           ? 2
           : w.relays.length;
+  for (const p of w.boxParts)
+    out.push({
+      item: p.item,
+      quantity: 1,
+      unit: 'pcs',
+      detail: p.detail,
+      source: 'the feed network as modelled',
+    });
   if (relayCount) {
     out.push({
       item: 'Relays, 12 V DC coil',
@@ -257,17 +383,23 @@ export function arrayBom(
     });
     out.push({
       item: 'Relay box (weatherproof) with coax connectors',
-      quantity: 1,
+      quantity: w.boxes.length,
       unit: 'pcs',
-      detail: w.boxWhere,
+      detail: w.boxes.map((b) => b.where).join('; '),
       source: 'common practice, no source',
     });
+    const runs = w.controlRuns.map((r) => ({ ...r, lengthM: r.lengthM ?? controlRunM }));
     out.push({
       item: 'Control cable',
-      quantity: controlRunM,
+      quantity: runs.reduce((s, r) => s + r.lengthM, 0),
       unit: 'm',
-      detail: w.control[0] ?? '',
-      source: 'the feed line’s length (it runs beside it)',
+      detail: runs
+        .map((r) => `${L.len(r.lengthM)} of ${r.conductors}-conductor from ${r.from} to ${r.to}`)
+        .join('; '),
+      source:
+        runs.length > 1
+          ? 'the feed line’s length and the coax run’s (it runs beside them)'
+          : 'the feed line’s length (it runs beside it)',
     });
   }
   return out;

@@ -84,6 +84,8 @@ export function materialsOf(
   supports: { id: string; name: string; xy: readonly [number, number]; heightM: number }[],
   feedLine: FeedLine,
   L: SheetLengths,
+  /** Where the station's line ends: the feed point, or an array's relay box. */
+  lineEnd = 'feed point',
 ): Materials {
   const modelledM = c.wires.reduce((s, w) => s + len3(w.from, w.to), 0);
   const wireCuts = c.cutList.filter((i) => i.kind === 'wire');
@@ -165,7 +167,7 @@ export function materialsOf(
     item: `Coaxial cable ${feedLine.coax}`,
     quantity: feedLine.lengthM,
     unit: 'm',
-    detail: `station to feed point; matched loss ${feedLine.lossDb.toFixed(2)} dB at ${feedLine.freqMHz.toFixed(2)} MHz`,
+    detail: `station to ${lineEnd}; matched loss ${feedLine.lossDb.toFixed(2)} dB at ${feedLine.freqMHz.toFixed(2)} MHz`,
     source: `${feedLine.note}; loss: ${COAX_SOURCE}`,
   });
   if (choke)

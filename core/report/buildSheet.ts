@@ -14,6 +14,7 @@ import type { Project } from '../project/schema.ts';
 import { operatingFit, operatingSpan } from '../bands.ts';
 import type { Candidate, Shortlist } from '../rank/plan.ts';
 import { gainAt } from '../rank/pattern.ts';
+import { servingState, statePatterns } from '../rank/candidateStates.ts';
 import { buildSite } from '../site/site.ts';
 import type { XY } from '../site/frame.ts';
 import type { XYZ } from '../site/geometry.ts';
@@ -54,7 +55,7 @@ export interface RadialRow {
   n: number;
   bearingDeg: number;
   lengthM: number;
-  /** The vertical whose base it leaves ("vertical F"); '' for a single ground connection. */
+  /** The vertical whose base it leaves ("vertical F", "A: vertical radiator"); '' for a single antenna's one field. */
   vertical: string;
   /** Where it ends when not at full length: on the line midway to another base (bonded there), or cut short by the lot. */
   end: string;
@@ -68,12 +69,16 @@ export const MIDLINE_TOL_M = 0.05;
  * with where each ends: at full length, on the line midway to another vertical where the fields
  * are bonded, or shortened where the lot or a keep-out ends it.
  */
-export function radialRows(g: Candidate['groundSystem']): RadialRow[] {
+export function radialRows(
+  g: Candidate['groundSystem'],
+  /** Name each row's vertical even when there is one field (an array with one vertical among its antennas). */
+  named = false,
+): RadialRow[] {
   if (g.kind !== 'radials') return [];
   const fields = g.fields?.length
     ? g.fields
     : [{ label: '', baseXY: g.baseXY, lengthsM: g.lengthsM, bearingsDeg: g.bearingsDeg }];
-  const many = fields.length > 1;
+  const many = fields.length > 1 || named;
   return fields.flatMap((f, i) => {
     const full = Math.max(...f.lengthsM);
     return f.lengthsM
@@ -165,6 +170,29 @@ export interface BuildSheet {
       back: { deg: number; gainDbi: number }[];
     }[];
     azimuth: { deg: number; gainDbi: number }[];
+    /**
+     * A switched array (several directions) whose every direction's pattern is in the shortlist:
+     * per target region (or, without targets, the peak bearing), each direction's elevation cut
+     * toward it and azimuth cut at its median take-off angle, and the direction that serves it.
+     * Null for a fixed antenna.
+     */
+    directions: {
+      states: { n: number; name: string; beamDeg: number }[];
+      toward: {
+        /** The region's name; null: no target regions (the peak bearing and elevation). */
+        name: string | null;
+        bearingDeg: { from: number; to: number; center: number };
+        windowDeg: { min: number; max: number } | null;
+        /** Elevation of the azimuth cuts: the region's median take-off, or the peak's. */
+        elevationDeg: number;
+        /** Number (from 1) of the direction that serves it, and its gain there. */
+        servedBy: number;
+        gainDbi: number;
+        /** Per direction, in order. */
+        elevation: { cut: { deg: number; gainDbi: number }[]; back: { deg: number; gainDbi: number }[] }[];
+        azimuth: { deg: number; gainDbi: number }[][];
+      }[];
+    } | null;
   } | null;
   notes: string[];
 }
@@ -206,21 +234,11 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const feedLine = feedLineOf(site.station, bends, feedXYZ, station.coax, c.feed.freqMHz);
 
   const supports = site.supports.map((s) => ({ id: s.id, name: s.name, xy: s.xy, heightM: s.heightM }));
-  const m = materialsOf(c, supports, feedLine, L);
+  const m = materialsOf(c, supports, feedLine, L, array?.boxXY ? 'the relay box' : undefined);
   const bom = [...m.bom, ...arrayBom(c, array, feedLine.lengthM, L)];
-  if (array && c.states.length > 1)
-    notes.push(
-      c.design.states?.every((s, i) => i === 0 || s.variant !== undefined)
-        ? `The patterns drawn are direction 1 (${c.states[0].name}); each other direction is solved on its own, the array not being the same turned (see Feed line, relay box).`
-        : `The patterns drawn are direction 1 (${c.states[0].name}); the other directions are the same pattern turned or mirrored${
-            c.design.states?.some((s) => s.variant !== undefined)
-              ? ', except those of another phasing, which are solved on their own'
-              : ''
-          } (see Feed line, relay box).`,
-    );
 
   const g = c.groundSystem;
-  const radialTable = radialRows(c.groundSystem);
+  const radialTable = radialRows(c.groundSystem, c.elementCount > 1);
 
   const measured = input.tuning ?? null;
   const how = trimHow(c.type);
@@ -248,26 +266,21 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
   const gain =
     input.gainAt ?? (canonical ? (az: number, el: number) => gainAt(canonical, c.rotationDeg, az, el) : null);
   if (gain) {
-    const cutAt = (azDeg: number): { deg: number; gainDbi: number }[] => {
-      const out: { deg: number; gainDbi: number }[] = [];
-      for (let el = 1; el <= 90; el++) out.push({ deg: el, gainDbi: gain(azDeg, el) });
-      return out;
-    };
-    const azimuth: { deg: number; gainDbi: number }[] = [];
-    for (let az = 0; az < 360; az += 2) azimuth.push({ deg: az, gainDbi: gain(az, c.peak.elevationDeg) });
     pattern = {
-      elevation: cutAt(c.peak.azimuthDeg),
+      elevation: elevationCutOf(gain, c.peak.azimuthDeg),
       towardTargets: c.regions.map((r) => ({
         name: r.name,
         bearingDeg: r.bearingDeg.center,
         windowDeg: r.elevationWindowDeg,
         gainDbi: r.gainDbi,
-        cut: cutAt(r.bearingDeg.center),
-        back: cutAt((r.bearingDeg.center + 180) % 360),
+        cut: elevationCutOf(gain, r.bearingDeg.center),
+        back: elevationCutOf(gain, (r.bearingDeg.center + 180) % 360),
       })),
-      azimuth,
+      azimuth: azimuthCutOf(gain, c.peak.elevationDeg),
+      directions: directionsOf(c, input.shortlist),
     };
-  }
+  } else if (c.states.length > 1)
+    notes.push('The shortlist holds no pattern of this candidate: the sheet draws none of its directions.');
 
   if (!c.trim.resonant)
     notes.push('The solver found no resonance inside the design limits: expect a matching network.');
@@ -324,6 +337,79 @@ export function buildSheet(input: BuildSheetInput): BuildSheet {
     },
     pattern,
     notes,
+  };
+}
+
+type Cut = { deg: number; gainDbi: number }[];
+
+/** Gain against elevation (1–90°) at one site bearing. */
+function elevationCutOf(gain: (az: number, el: number) => number, azDeg: number): Cut {
+  const out: Cut = [];
+  for (let el = 1; el <= 90; el++) out.push({ deg: el, gainDbi: gain(azDeg, el) });
+  return out;
+}
+
+/** Gain against site bearing, every 2°, at one elevation. */
+function azimuthCutOf(gain: (az: number, el: number) => number, elDeg: number): Cut {
+  const out: Cut = [];
+  for (let az = 0; az < 360; az += 2) out.push({ deg: az, gainDbi: gain(az, elDeg) });
+  return out;
+}
+
+/**
+ * Every direction of a switched array toward each target region (core/rank/candidateStates.ts:
+ * the same placed patterns the app plots and the same serving direction the shortlist marks);
+ * null for a fixed antenna or when the shortlist lacks a direction's pattern.
+ */
+function directionsOf(
+  c: Candidate,
+  shortlist: Pick<Shortlist, 'patterns'>,
+): NonNullable<BuildSheet['pattern']>['directions'] {
+  if (c.states.length < 2) return null;
+  const placed = statePatterns(shortlist, c);
+  if (placed.length !== c.states.length) return null;
+  const gains = placed.map(
+    ({ p }) =>
+      (az: number, el: number) =>
+        gainAt(p.gainDbi, p.rotationDeg, az, el),
+  );
+  const targets = c.regions.length
+    ? c.regions.map((r) => {
+        const served = servingState(c, r.id);
+        return {
+          name: r.name,
+          bearingDeg: r.bearingDeg,
+          windowDeg: r.elevationWindowDeg,
+          elevationDeg: r.takeoff.medianDeg,
+          servedBy: served?.n ?? 1,
+          gainDbi: r.gainDbi,
+        };
+      })
+    : [
+        {
+          name: null,
+          bearingDeg: { from: c.peak.azimuthDeg, to: c.peak.azimuthDeg, center: c.peak.azimuthDeg },
+          windowDeg: null,
+          elevationDeg: c.peak.elevationDeg,
+          servedBy:
+            1 +
+            Math.max(
+              0,
+              c.states.findIndex((s) => s.beamDeg === c.peak.azimuthDeg),
+            ),
+          gainDbi: c.peak.gainDbi,
+        },
+      ];
+  return {
+    states: c.states.map((s, i) => ({ n: i + 1, name: s.name, beamDeg: s.beamDeg })),
+    toward: targets.map((t) => ({
+      ...t,
+      elevation: gains.map((g) => ({
+        cut: elevationCutOf(g, t.bearingDeg.center),
+        back: elevationCutOf(g, (t.bearingDeg.center + 180) % 360),
+      })),
+      azimuth: gains.map((g) => azimuthCutOf(g, t.elevationDeg)),
+    })),
   };
 }
 

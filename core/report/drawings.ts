@@ -34,6 +34,12 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
   for (const sp of lot.supports) if (sp.used) pts.push(sp.xy);
   if (detail) {
     pts.push([feedLine.feedXYZ[0], feedLine.feedXYZ[1]]);
+    // every radial's far end, so that the radial fields are drawn whole
+    lot.radialLengthsM.forEach((len, k) => {
+      const [x0, y0] = lot.radialBasesXY[k] ?? lot.radialBase ?? [0, 0];
+      const b = (lot.radialBearingsDeg[k]! * Math.PI) / 180;
+      pts.push([x0 + len * Math.sin(b), y0 + len * Math.cos(b)]);
+    });
     for (const z of s.exposureOnLot.zones) for (const r of z.rings) pts.push(...r);
   } else {
     pts.push(...lot.boundary, lot.station);
@@ -272,6 +278,14 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
       text(Number(X(f[0])), Number(Y(f[1])), `feed, ${U.len(f[2])} up`, 'flabel', AROUND);
     }
     if (box) text(Number(X(box[0])), Number(Y(box[1])), 'relay box', 'flabel', AROUND);
+    // a relay away from the box (a switched pair's K2 at B's feed): its own small box
+    for (const b of s.array?.boxes.slice(1) ?? []) {
+      if (!b.xy) continue;
+      out.push(
+        `<rect x="${Number(X(b.xy[0])) - 3}" y="${Number(Y(b.xy[1])) - 3}" width="6" height="6" class="relay-box"><title>${e(b.where)}</title></rect>`,
+      );
+      text(Number(X(b.xy[0])), Number(Y(b.xy[1])), b.where.replace(/ \(.*\)$/, ''), 'flabel', AROUND);
+    }
   }
   for (const sp of lot.supports) {
     if (detail && !sp.used && !inView(sp.xy)) continue;
@@ -301,22 +315,40 @@ export function planSvg(s: BuildSheet, view: 'lot' | 'detail'): string {
   return out.join('');
 }
 
+/** One curve of a polar plot: its points, the opposite bearing's (elevation only), its CSS class. */
+export interface PolarTrace {
+  pts: { deg: number; gainDbi: number }[];
+  /** Elevation only: the cut toward the opposite bearing, drawn on the left half (else a mirror of pts). */
+  back?: { deg: number; gainDbi: number }[];
+  /** Extra class of the curve (a switched array's direction: `trace d1`, `d2`, …). */
+  cls?: string;
+  /** Tooltip of the curve. */
+  title?: string;
+}
+
+/**
+ * A polar plot of one or more curves on a common 30 dB scale from the highest of them: an
+ * elevation cut (toward the bearing on the right, the opposite one on the left) or an azimuth cut
+ * (north up).
+ */
 export function polarSvg(
   title: string,
-  pts: { deg: number; gainDbi: number }[],
+  traces: readonly PolarTrace[],
   kind: 'elevation' | 'azimuth',
-  /** Elevation only: the target's elevation window, shaded. */
-  windowDeg?: { min: number; max: number },
-  /** Elevation only: the cut toward the opposite bearing, drawn on the left half (else a mirror of pts). */
-  back?: { deg: number; gainDbi: number }[],
+  opts: {
+    /** Elevation only: the target's elevation window, shaded. */
+    windowDeg?: { min: number; max: number };
+    /** Azimuth only: the target's bearings, shaded. */
+    sectorDeg?: { from: number; to: number };
+  } = {},
 ): string {
-  const peak = Math.max(...pts.map((p) => p.gainDbi), ...(back ?? []).map((p) => p.gainDbi));
+  const peak = Math.max(...traces.flatMap((t) => [...t.pts, ...(t.back ?? [])].map((p) => p.gainDbi)));
   const range = 30;
   const R = 130;
-  const W = kind === 'elevation' ? 2 * R + 40 : 2 * R + 40;
+  const W = 2 * R + 40;
   const H = kind === 'elevation' ? R + 40 : 2 * R + 40;
   const cx = W / 2;
-  const cy = kind === 'elevation' ? R + 20 : R + 20;
+  const cy = R + 20;
   const rOf = (g: number): number => (R * Math.max(0, g - peak + range)) / range;
   const xy = (deg: number, r: number): [number, number] => {
     const a = (deg * Math.PI) / 180;
@@ -338,13 +370,28 @@ export function polarSvg(
       `<text x="${cx + 3}" y="${cy - r + 11}" class="tick">${db ? `−${db} dB` : `${f1(peak)} dBi`}</text>`,
     );
   }
-  if (kind === 'elevation' && windowDeg) {
-    const [x0, y0] = xy(windowDeg.min, R);
-    const [x1, y1] = xy(windowDeg.max, R);
+  // A shaded sector from the centre to the outer ring between two angles of the plot.
+  const sector = (a0: number, a1: number, what: string): void => {
+    const [x0, y0] = xy(a0, R);
+    const [x1, y1] = xy(a1, R);
+    const span = (((a1 - a0) % 360) + 360) % 360;
+    const sweep = kind === 'elevation' ? 0 : 1;
     out.push(
-      `<path d="M${cx},${cy}L${x0.toFixed(1)},${y0.toFixed(1)}A${R},${R} 0 0 0 ${x1.toFixed(1)},${y1.toFixed(1)}Z" class="window"><title>${e(`elevation window ${f1(windowDeg.min)}–${f1(windowDeg.max)}°`)}</title></path>`,
+      `<path d="M${cx},${cy}L${x0.toFixed(1)},${y0.toFixed(1)}A${R},${R} 0 ${span > 180 ? 1 : 0} ${sweep} ${x1.toFixed(1)},${y1.toFixed(1)}Z" class="window"><title>${e(what)}</title></path>`,
     );
-  }
+  };
+  if (kind === 'elevation' && opts.windowDeg)
+    sector(
+      opts.windowDeg.min,
+      opts.windowDeg.max,
+      `elevation window ${f1(opts.windowDeg.min)}–${f1(opts.windowDeg.max)}°`,
+    );
+  if (kind === 'azimuth' && opts.sectorDeg)
+    sector(
+      opts.sectorDeg.from,
+      opts.sectorDeg.to,
+      `bearings ${f1(opts.sectorDeg.from)}–${f1(opts.sectorDeg.to)}°`,
+    );
   const spokes = kind === 'elevation' ? [0, 15, 30, 45, 60, 90] : [0, 45, 90, 135, 180, 225, 270, 315];
   for (const d of spokes) {
     const [x, y] = xy(d, R);
@@ -354,25 +401,22 @@ export function polarSvg(
       `<text x="${tx.toFixed(1)}" y="${ty.toFixed(1)}" class="tick" text-anchor="middle">${d}°</text>`,
     );
   }
-  const seq =
-    kind === 'elevation'
-      ? [...pts, ...(back ?? pts).map((p) => ({ deg: 180 - p.deg, gainDbi: p.gainDbi })).reverse()]
-      : pts;
-  const d =
-    kind === 'elevation'
-      ? seq
-          .map((p, i) => {
-            const [x, y] = xy(p.deg, rOf(p.gainDbi));
-            return `${i ? 'L' : 'M'}${x.toFixed(1)},${y.toFixed(1)}`;
-          })
-          .join('')
-      : seq
-          .map((p, i) => {
-            const [x, y] = xy(p.deg, rOf(p.gainDbi));
-            return `${i ? 'L' : 'M'}${x.toFixed(1)},${y.toFixed(1)}`;
-          })
-          .join('') + 'Z';
-  out.push(`<path d="${d}" class="trace"/>`);
+  for (const t of traces) {
+    const seq =
+      kind === 'elevation'
+        ? [...t.pts, ...(t.back ?? t.pts).map((p) => ({ deg: 180 - p.deg, gainDbi: p.gainDbi })).reverse()]
+        : t.pts;
+    const d =
+      seq
+        .map((p, i) => {
+          const [x, y] = xy(p.deg, rOf(p.gainDbi));
+          return `${i ? 'L' : 'M'}${x.toFixed(1)},${y.toFixed(1)}`;
+        })
+        .join('') + (kind === 'azimuth' ? 'Z' : '');
+    out.push(
+      `<path d="${d}" class="trace${t.cls ? ` ${e(t.cls)}` : ''}">${t.title ? `<title>${e(t.title)}</title>` : ''}</path>`,
+    );
+  }
   out.push(`</svg><figcaption>${e(title)}</figcaption></figure>`);
   return out.join('');
 }

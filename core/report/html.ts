@@ -13,6 +13,7 @@ import { tuningText } from './tuning.ts';
 import { matchingText } from '../match/matchText.ts';
 import { TUNING_STEP, TUNING_STEP_TEXT } from './tuningMeasure.ts';
 import { efficiencySummary } from '../rank/lossSplit.ts';
+import { STATE_COLOURS } from '../rank/candidateStates.ts';
 
 export { escapeHtml };
 
@@ -54,27 +55,77 @@ function table(head: string[], rows: Cell[][]): string {
 
 /* ---------------------------------------------------------------------------------------------- */
 
+/**
+ * Where a point of the lot is, as a builder finds it: its distance and bearing from the nearest
+ * support the antenna uses (else the station point), and from the station point.
+ */
+function whereOnLot(s: BuildSheet, xy: readonly [number, number]): string {
+  const U = sheetLengths(s.units);
+  const from = (p: readonly [number, number]) => ({
+    d: Math.hypot(xy[0] - p[0], xy[1] - p[1]),
+    // compass bearing from p to the point (x east, y north)
+    b: ((Math.atan2(xy[0] - p[0], xy[1] - p[1]) * 180) / Math.PI + 360) % 360,
+  });
+  const st = from(s.lot.station);
+  const near = s.lot.supports
+    .filter((p) => p.used)
+    .map((p) => ({ name: p.name, ...from(p.xy) }))
+    .sort((p, q) => p.d - q.d)[0];
+  const fromSupport = !near
+    ? ''
+    : near.d < 0.5
+      ? `at ${near.name}, `
+      : `${U.len(near.d)} from ${near.name} at bearing ${Math.round(near.b)}°, `;
+  return `${fromSupport}${U.len(st.d)} from the station point at bearing ${Math.round(st.b)}°`;
+}
+
 /** An array's relay box, relays, control wiring, directions and achieved feed (./arrayWiring.ts). */
 function arrayHtml(s: BuildSheet): string {
   const a = s.array;
   if (!a) return '';
   const U = sheetLengths(s.units);
-  const st = s.lot.station;
   const box = a.boxXY
-    ? `${a.boxWhere}: ${U.len(Math.hypot(a.boxXY[0] - st[0], a.boxXY[1] - st[1]))} from the station point, at ${U.len(a.boxXY[0])} E, ${U.len(a.boxXY[1])} N in the site frame. The station's feed line ends at the box.`
+    ? `${a.boxWhere}: ${whereOnLot(s, a.boxXY)}. The station's feed line ends at the box.`
     : a.boxWhere;
   return (
     `<h3 id="array-wiring">Array: relay box and control wiring</h3><p>${e(box)}</p>` +
     (a.relays.length ? `<ul>${a.relays.map((r) => `<li>${e(r)}</li>`).join('')}</ul>` : '') +
     (a.directions.length
-      ? table(
+      ? `<h3>Which relays for which direction</h3>` +
+        table(
           ['Direction', 'Relay coils energised', 'Beam', 'What it does', 'Serves'],
           a.directions.map((d) => [
             String(d.n),
             d.coils,
-            `${Math.round(d.beamDeg)}°`,
+            `${Math.round(d.beamDeg) % 360}°`,
             d.name,
             d.serves.join(', ') || '—',
+          ]),
+        )
+      : '') +
+    (a.coax.length
+      ? `<h3>Coax of the array</h3>` +
+        table(
+          ['Coax', 'Count', 'Cut length'],
+          [
+            [`feed line, station to the relay box (${s.feedLine.coax})`, '1', U.len(s.feedLine.lengthM)],
+            ...a.coax.map((k) => [k.label, String(k.count), U.cut(k.cutLengthM)]),
+          ],
+        ) +
+        `<p class="note">${e('Cut each piece to the length given (connectors included in the allowance); a line cut to a designed electrical length is not to be shortened or lengthened to fit: coil any spare.')}</p>`
+      : '') +
+    (a.boxParts.length
+      ? `<h3>In the relay box</h3><ul>${a.boxParts.map((p) => `<li>${e(`${p.item}: ${p.detail}`)}</li>`).join('')}</ul>`
+      : '') +
+    (a.controlRuns.length
+      ? `<h3>Control cable</h3>` +
+        table(
+          ['From', 'To', 'Conductors', 'Length'],
+          a.controlRuns.map((r) => [
+            r.from,
+            r.to,
+            String(r.conductors),
+            U.len(r.lengthM ?? s.feedLine.lengthM),
           ]),
         )
       : '') +
@@ -106,6 +157,84 @@ function arrayHtml(s: BuildSheet): string {
           )}</p>`,
       )
       .join('')
+  );
+}
+
+const ELEVATION_NOTE =
+  'Each elevation cut is drawn on a 30 dB scale from its own peak: toward the region on the right, the opposite bearing on the left; the shaded sector is the elevation window of the region’s paths.';
+
+/** Each direction's line: the app's ink for it (STATE_COLOURS) and a dash pattern of its own, for a print in grey. */
+const DIRECTION_DASHES = ['none', '6 3', '2 2', '8 3 2 3'];
+const DIRECTION_STYLES = Math.min(STATE_COLOURS.length, DIRECTION_DASHES.length);
+const DIRECTION_CSS = STATE_COLOURS.slice(0, DIRECTION_STYLES)
+  .map(
+    (c, i) =>
+      `.trace.d${i + 1} { fill: none; stroke-width: 1.2; stroke: ${c}; stroke-dasharray: ${DIRECTION_DASHES[i]}; }`,
+  )
+  .join('\n');
+const directionCls = (n: number): string => `d${((n - 1) % DIRECTION_STYLES) + 1}`;
+const directionName = (d: { n: number; beamDeg: number }): string =>
+  `direction ${d.n} (beam ${Math.round(d.beamDeg) % 360}°)`;
+
+/**
+ * A switched array's patterns: a key of its directions, then for each target region the elevation
+ * cut toward it and the azimuth cut at its median take-off angle, every direction drawn, the one
+ * that serves the region in bold.
+ */
+function directionsHtml(dirs: NonNullable<NonNullable<BuildSheet['pattern']>['directions']>): string {
+  const key =
+    `<ul class="dir-key" aria-label="Directions">` +
+    dirs.states
+      .map(
+        (d) =>
+          `<li><svg width="34" height="10" aria-hidden="true"><line x1="1" y1="5" x2="33" y2="5" class="trace ${directionCls(d.n)}"/></svg> ${e(`${directionName(d)}: ${d.name}`)}</li>`,
+      )
+      .join('') +
+    '</ul>';
+  const groups = dirs.toward.map((t) => {
+    const served = dirs.states[t.servedBy - 1]!;
+    const traces = (
+      cuts: { pts: { deg: number; gainDbi: number }[]; back?: { deg: number; gainDbi: number }[] }[],
+    ) =>
+      cuts
+        .map((cut, i) => {
+          const d = dirs.states[i]!;
+          return {
+            ...cut,
+            cls: `${directionCls(d.n)}${d.n === t.servedBy ? ' serving' : ''}`,
+            title: `${directionName(d)}: ${d.name}`,
+          };
+        })
+        // the serving direction last, on top
+        .sort((a, b) => Number(a.cls.endsWith('serving')) - Number(b.cls.endsWith('serving')));
+    const where = t.name
+      ? `${t.name}, bearing ${f1(t.bearingDeg.center)}°`
+      : `the peak bearing ${f1(t.bearingDeg.center)}° (no target regions)`;
+    const head = t.name
+      ? `Toward ${where}: served by ${directionName(served)}, ${served.name}, ${f1(t.gainDbi)} dBi`
+      : `Toward ${where}`;
+    return (
+      `<div class="dir-group"><h3>${e(head)}</h3>` +
+      polarSvg(
+        `Elevation toward ${where}${t.windowDeg ? `; window ${f1(t.windowDeg.min)}–${f1(t.windowDeg.max)}° shaded` : ''}`,
+        traces(t.elevation.map((x) => ({ pts: x.cut, back: x.back }))),
+        'elevation',
+        t.windowDeg ? { windowDeg: t.windowDeg } : {},
+      ) +
+      polarSvg(
+        `Azimuth at ${f1(t.elevationDeg)}° elevation (${t.name ? 'its median take-off' : 'the peak'}); ${t.name ? 'its bearings shaded' : 'dBi, 30 dB scale'}`,
+        traces(t.azimuth.map((pts) => ({ pts }))),
+        'azimuth',
+        t.name ? { sectorDeg: { from: t.bearingDeg.from, to: t.bearingDeg.to } } : {},
+      ) +
+      '</div>'
+    );
+  });
+  return (
+    `<p>${e(`The array has ${dirs.states.length} directions, chosen by its relays (Feed line: relay box). Every direction is drawn in each plot; the one that serves the region is the bold line.`)}</p>` +
+    key +
+    groups.join('') +
+    `<p class="note">${e(`${ELEVATION_NOTE} Azimuth cuts: north up, bearings clockwise, on a 30 dB scale from the highest direction’s peak.`)}</p>`
   );
 }
 
@@ -156,6 +285,12 @@ svg text { font: 10px system-ui, sans-serif; fill: #1d232a; }
 .north path { fill: #1d232a; }
 .grid { fill: none; stroke: #c8d0d8; stroke-width: 0.8; }
 .trace { fill: rgba(192, 57, 43, 0.12); stroke: #c0392b; stroke-width: 1.6; }
+${DIRECTION_CSS}
+.trace.serving { stroke-width: 2.6; }
+.dir-key { list-style: none; padding: 0; margin: 4px 0; display: flex; flex-wrap: wrap; gap: 4px 18px; }
+.dir-key svg { vertical-align: middle; }
+.dir-group { break-inside: avoid; }
+.dir-group h3 { font-size: 13px; margin: 10px 0 0; }
 .tick { fill: #5a6570; font-size: 9px; }
 .leader { stroke: #8a949c; stroke-width: 0.6; }
 .window { fill: rgba(47, 93, 124, 0.12); stroke: none; }
@@ -298,7 +433,11 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
                   )
             }</div><p class="note">${e(
               s.radialTable.some((r) => r.vertical)
-                ? 'Each vertical has its own radials, numbered from 1 at its base. Bearings are compass bearings (clockwise from true north) from that vertical’s base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled. Where a radial ends on the line midway to the next vertical, lay a bonding wire along that line (dashed in the drawing) and join every radial that ends on it to it, as the field solver models the fields (common practice, no source).'
+                ? `Each vertical has its own radials, numbered from 1 at its base. Bearings are compass bearings (clockwise from true north) from that vertical’s base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.${
+                    s.radialTable.some((r) => /midway/.test(r.end))
+                      ? ' Where a radial ends on the line midway to the next vertical, lay a bonding wire along that line (dashed in the drawing) and join every radial that ends on it to it, as the field solver models the fields (common practice, no source).'
+                      : ''
+                  }`
                 : 'Bearings are compass bearings (clockwise from true north) from the feed point at the base; lay each radial straight at its bearing, on or just under the ground, shortened where the lot ends as modelled.',
             )}</p>`
           : ''),
@@ -324,8 +463,12 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
             ? `drawn by you: ${fl.routeXY.length - 2} bend point${fl.routeXY.length === 3 ? '' : 's'}`
             : 'straight from the station point (draw your real route in the app)',
         ],
-        ['Plan distance, station to feed point', U.len(fl.planDistanceM)],
-        ['Feed point height', U.len(fl.feedXYZ[2])],
+        ...(s.array?.boxXY
+          ? [['Plan distance, station to the relay box', U.len(fl.planDistanceM)]]
+          : [
+              ['Plan distance, station to feed point', U.len(fl.planDistanceM)],
+              ['Feed point height', U.len(fl.feedXYZ[2])],
+            ]),
         ['Length to buy', U.len(fl.lengthM)],
         [
           'Matched loss',
@@ -366,37 +509,35 @@ export function renderBuildSheetHtml(s: BuildSheet, generatedAt?: string): strin
   );
   parts.push(section('Matching', matchingHtml(s)));
   const pat = s.pattern;
-  const towardTargets = pat
-    ? pat.towardTargets.length
-      ? pat.towardTargets
-          .map((t) =>
-            polarSvg(
-              `Elevation toward ${t.name}, bearing ${f1(t.bearingDeg)}°: ${f1(t.gainDbi)} dBi over its window ${f1(t.windowDeg.min)}–${f1(t.windowDeg.max)}° (shaded)`,
-              t.cut,
-              'elevation',
-              t.windowDeg,
-              t.back,
-            ),
-          )
-          .join('')
-      : polarSvg(
-          `Elevation pattern at bearing ${f1(c.peak.azimuthDeg)}° (the peak; no target regions)`,
-          pat.elevation,
-          'elevation',
-        )
-    : '';
   parts.push(
     section(
       'Patterns',
-      pat
-        ? towardTargets +
+      !pat
+        ? `<p class="note">${e('The pattern is not in the shortlist; the gain per region follows.')}</p>`
+        : pat.directions
+          ? directionsHtml(pat.directions)
+          : (pat.towardTargets.length
+              ? pat.towardTargets
+                  .map((t) =>
+                    polarSvg(
+                      `Elevation toward ${t.name}, bearing ${f1(t.bearingDeg)}°: ${f1(t.gainDbi)} dBi over its window ${f1(t.windowDeg.min)}–${f1(t.windowDeg.max)}° (shaded)`,
+                      [{ pts: t.cut, back: t.back }],
+                      'elevation',
+                      { windowDeg: t.windowDeg },
+                    ),
+                  )
+                  .join('')
+              : polarSvg(
+                  `Elevation pattern at bearing ${f1(c.peak.azimuthDeg)}° (the peak; no target regions)`,
+                  [{ pts: pat.elevation }],
+                  'elevation',
+                )) +
             polarSvg(
               `Azimuth pattern at ${f1(c.peak.elevationDeg)}° elevation (dBi, 30 dB scale)`,
-              pat.azimuth,
+              [{ pts: pat.azimuth }],
               'azimuth',
             ) +
-            `<p class="note">${e('Each elevation cut is drawn on a 30 dB scale from its own peak: toward the region on the right, the opposite bearing on the left; the shaded sector is the elevation window of the region’s paths.')}</p>`
-        : `<p class="note">${e('The pattern is not in the shortlist; the gain per region follows.')}</p>`,
+            `<p class="note">${e(ELEVATION_NOTE)}</p>`,
     ),
   );
   parts.push(

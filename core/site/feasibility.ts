@@ -427,6 +427,48 @@ export function checkPlacement(ps: PreparedSite, elements: readonly Element[]): 
  */
 export const RADIAL_STEP_M = 0.25;
 export function clipRadial(ps: PreparedSite, base: XY, bearingDeg: number, nominalM: number): number {
+  const memo = clipMemo(ps);
+  const key = `${base[0]},${base[1]},${bearingDeg},${nominalM}`;
+  let len = memo.get(key);
+  if (len === undefined) {
+    if (memo.size >= CLIP_MEMO_MAX) memo.clear();
+    memo.set(key, (len = clipRadialOnce(ps, base, bearingDeg, nominalM)));
+  }
+  return len;
+}
+
+/**
+ * Clipped radial lengths kept by what clipRadial reads of the site (the boundary, the keep-outs
+ * and the settings: never the supports), so that the builders that lay radials from one base
+ * (the vertical, inverted-L, short and sloping verticals) clip each bearing once, and a re-plan
+ * after a support moved clips only the radials of the moved support. The value is the one a
+ * fresh clip gives (the key holds the site as text and the arguments exactly).
+ */
+const CLIP_MEMO_MAX = 200_000;
+const CLIP_SITES_KEPT = 4;
+const clipBySite = new Map<string, Map<string, number>>();
+const siteTextOf = new WeakMap<PreparedSite, string>();
+
+function clipMemo(ps: PreparedSite): Map<string, number> {
+  let text = siteTextOf.get(ps);
+  if (text === undefined) {
+    const { boundary, keepOuts, settings } = ps.site;
+    text = JSON.stringify([boundary, keepOuts, settings]);
+    siteTextOf.set(ps, text);
+  }
+  let memo = clipBySite.get(text);
+  if (memo) {
+    // most recently used last
+    clipBySite.delete(text);
+    clipBySite.set(text, memo);
+  } else {
+    clipBySite.set(text, (memo = new Map()));
+    while (clipBySite.size > CLIP_SITES_KEPT) clipBySite.delete(clipBySite.keys().next().value!);
+  }
+  return memo;
+}
+
+function clipRadialOnce(ps: PreparedSite, base: XY, bearingDeg: number, nominalM: number): number {
   const r = (bearingDeg * Math.PI) / 180;
   const ux = Math.sin(r);
   const uy = Math.cos(r);

@@ -6,7 +6,9 @@
  *     peak search (target ≤ 60 ms);
  *  2. a 31-point feed-impedance sweep of a 100-unknown antenna (target ≤ 300 ms), direct and
  *     interpolated (an anchor every third point);
- *  3. LU factorisation against LAPACK through numpy/scipy, one thread, at n = 100, 200, 400;
+ *  3. LU factorisation against LAPACK through numpy/scipy, one thread, at n = 100, 200, 400 (the
+ *     WebAssembly kernel Node offers: Node 20 has relaxed SIMD's multiply-add, which Electron and
+ *     Chromium use, only with `node --experimental-wasm-relaxed-simd --import tsx test/bench/run.ts`);
  *  4. memory of the solve: one complex matrix, factored in place, plus the pivot rows;
  *  5. then test/bench/halfspace.ts (the exact ground), test/bench/phases.ts (fill, LU and
  *     pattern of one evaluation, timed apart) and test/bench/plan.ts (cold plan, re-plan, 40
@@ -22,7 +24,7 @@ import { spawnSync } from 'node:child_process';
 import { availableParallelism, loadavg } from 'node:os';
 import { evaluateAntenna } from '../../core/em/evaluate.ts';
 import { sweepImpedance } from '../../core/em/sweep.ts';
-import { luFactor, useLuKernel } from '../../core/numeric/lu.ts';
+import { luFactor, luKernelKind, useLuKernel } from '../../core/numeric/lu.ts';
 import { array200, halfSquare100 } from './models.ts';
 
 function median(xs: number[]): number {
@@ -111,6 +113,7 @@ const say = (s: string) => lines.push(s);
   const oursCpu: Record<number, number> = {};
   const tsOnly: Record<number, number> = {};
   const kernel = useLuKernel(true);
+  const kernelKind = luKernelKind();
   for (const n of sizes) {
     let s = 12345;
     const a0 = new Float64Array(2 * n * n).map(() => {
@@ -190,6 +193,7 @@ print(' '.join(f'{n}:{out[n]}' for n in out))
     oursMs: ours,
     oursCpuMs: oursCpu,
     wasmKernel: kernel,
+    wasmKernelKind: kernelKind,
     typeScriptOnlyMs: tsOnly,
     lapackMs: lapack,
     lapack: how || null,
@@ -203,6 +207,11 @@ print(' '.join(f'{n}:{out[n]}' for n in out))
       );
     else say(`LU n = ${n}: ours ${ours[n].toFixed(2)} ms (${gf.toFixed(1)} GFlop/s)`);
   }
+  say(
+    kernelKind === 'fused'
+      ? 'LU kernel: WebAssembly SIMD with relaxed SIMD multiply-add (as in Electron and Chromium)'
+      : `LU kernel: ${kernel ? 'WebAssembly SIMD, multiply and add' : 'none (TypeScript)'}; Electron and Chromium use the multiply-add kernel, measured here with \`node --experimental-wasm-relaxed-simd --import tsx test/bench/run.ts\``,
+  );
   say(
     lapack
       ? `LAPACK reference: ${how}, one thread`

@@ -99,7 +99,7 @@ export function shortlistCsv(s: Shortlist): string {
     c.bestOfType ? 'yes' : '',
     c.where,
     c.supports.map((x) => x.name).join('; '),
-    fmtBearings(c.broadsideDeg),
+    fmtBearings(c),
     topHeightM(c),
     c.score,
     ...regions.map((r) => c.regions.find((x) => x.id === r.id)?.gainDbi ?? null),

@@ -102,8 +102,15 @@ export const fmtDb = (v: number): string =>
 export const fmtZ = (z: readonly [number, number]): string =>
   `${z[0].toFixed(1)} ${z[1] < 0 ? '−' : '+'} j${Math.abs(z[1]).toFixed(1)} Ω`;
 export const fmtSwr = (s: number): string => (Number.isFinite(s) ? `${s.toFixed(2)}:1` : 'over 99:1');
-export const fmtBearings = (b: readonly number[]): string =>
-  b.length === 0 ? 'all round' : b.map((x) => `${Math.round(x)}°`).join(' / ');
+/** Types with no broadside that still favour one way: a sloping wire radiates best toward its slope. */
+const SLOPING: ReadonlySet<Candidate['type']> = new Set(['sloper', 'sloping-vertical']);
+/** The candidate's broadside bearings; a sloping wire's favoured bearing; else 'all round'. */
+export const fmtBearings = (c: Pick<Candidate, 'type' | 'broadsideDeg' | 'peak'>): string =>
+  c.broadsideDeg.length
+    ? c.broadsideDeg.map((x) => `${Math.round(x)}°`).join(' / ')
+    : SLOPING.has(c.type)
+      ? `none: favours its slope, peak toward ${Math.round(c.peak.azimuthDeg)}°`
+      : 'all round';
 export const fmtLen = (m: number, units: UnitSystem): string => formatLength(m, units);
 
 /** The type's short name for table cells (core/antennas/typeName.ts; the full label is in the detail). */
@@ -116,25 +123,4 @@ export function statesText(c: Pick<Candidate, 'states'>): string {
   return `${c.states.length} directions: ${c.states.map((s) => `${Math.round(s.beamDeg) % 360}°`).join(', ')}`;
 }
 
-/**
- * The state of a switched array that serves a region (its best there), numbered from 1; null for a
- * fixed antenna. Ties go to the first state.
- */
-export function servingState(
-  c: Pick<Candidate, 'states'>,
-  regionId: string,
-): { n: number; name: string; beamDeg: number } | null {
-  if (c.states.length < 2) return null;
-  let best = -1;
-  let bestGain = -Infinity;
-  c.states.forEach((s, i) => {
-    const g = s.regions.find((r) => r.id === regionId)?.gainDbi ?? -Infinity;
-    if (g > bestGain) {
-      bestGain = g;
-      best = i;
-    }
-  });
-  if (best < 0) return null;
-  const s = c.states[best]!;
-  return { n: best + 1, name: s.name, beamDeg: s.beamDeg };
-}
+export { servingState } from '../../../core/rank/candidateStates.ts';

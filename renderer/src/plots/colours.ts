@@ -20,8 +20,8 @@ export const targetColour = (index: number): string =>
 /** Candidate A (the selected one) and B (the one compared with it). */
 export const CANDIDATE_COLOURS = ['#173f5f', '#d0711b'] as const;
 
-/** The directions (relay states) of one switched array, drawn together in its detail. */
-export const STATE_COLOURS = ['#173f5f', '#d0711b', '#2f7d4f', '#7d4e9e'] as const;
+/** The directions (relay states) of one switched array, drawn together in its detail (and on the build sheet). */
+export { STATE_COLOURS } from '../../../core/rank/candidateStates.ts';
 
 export const PLOT_INK = {
   text: '#1f2528',

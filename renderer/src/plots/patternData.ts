@@ -5,52 +5,16 @@
  */
 import { BAND_INFO } from '../../../core/bands.ts';
 import { PATTERN_GRID, azimuthAdvantage, gainAt } from '../../../core/rank/pattern.ts';
-import { variantPatternKey, type Candidate, type Shortlist } from '../../../core/rank/plan.ts';
-import { statePattern } from '../../../core/rank/states.ts';
+import type { Candidate, Shortlist } from '../../../core/rank/plan.ts';
 import type { Band } from '../../../core/project/schema.ts';
 
-export interface PlacedPattern {
-  gainDbi: readonly number[];
-  rotationDeg: number;
-}
+export { statePatterns, type PlacedPattern } from '../../../core/rank/candidateStates.ts';
+import type { PlacedPattern } from '../../../core/rank/candidateStates.ts';
 
 /** The pattern of a shortlisted candidate, placed on the site; null when the shortlist lacks it. */
 export function placedPattern(shortlist: Shortlist, c: Candidate): PlacedPattern | null {
   const g = shortlist.patterns[c.evaluationKey];
   return g && g.length > 0 ? { gainDbi: g, rotationDeg: c.rotationDeg } : null;
-}
-
-/**
- * Each direction (relay state) of a candidate as a placed pattern: the evaluated pattern (or that of
- * the state's own phasing), mirrored where the state says, turned by the state's rotation
- * (core/rank/states.ts). One entry for a
- * fixed antenna; empty when the shortlist has no pattern for it.
- */
-export function statePatterns(
-  shortlist: Shortlist,
-  c: Candidate,
-): { name: string; beamDeg: number; p: PlacedPattern }[] {
-  if (c.stateKeys?.length) {
-    // a switched pair: each state solved apart, in the site's frame turned by the candidate's rotation
-    const out = c.stateKeys.map((key, i) => ({
-      name: c.states[i]?.name ?? `state ${i + 1}`,
-      beamDeg: c.states[i]?.beamDeg ?? c.peak.azimuthDeg,
-      p: { gainDbi: shortlist.patterns[key] ?? [], rotationDeg: c.rotationDeg },
-    }));
-    return out.every((x) => x.p.gainDbi.length > 0) ? out : [];
-  }
-  const g = shortlist.patterns[c.evaluationKey];
-  if (!g || g.length === 0) return [];
-  const specs = c.design.states?.length ? c.design.states : [{ name: 'fixed', rotationDeg: 0 }];
-  const variants: number[][] = [];
-  for (let k = 1; shortlist.patterns[variantPatternKey(c.evaluationKey, k)]; k++)
-    variants.push(shortlist.patterns[variantPatternKey(c.evaluationKey, k)]!);
-  if (specs.some((s) => s.variant !== undefined && !variants[s.variant - 1])) return [];
-  return specs.map((s, i) => ({
-    name: s.name,
-    beamDeg: c.states[i]?.beamDeg ?? c.peak.azimuthDeg,
-    p: { gainDbi: statePattern(g, s, variants), rotationDeg: c.rotationDeg + s.rotationDeg },
-  }));
 }
 
 /** Gain against elevation at one site bearing, on the core's elevation grid (1–90°). */

@@ -81,23 +81,21 @@ export class ProjectHistory {
   }
 
   undo(): void {
-    const prev = this.past.at(-1);
-    if (!prev || !this.project) return;
-    this.past = this.past.slice(0, -1);
-    this.future = [...this.future, { project: this.project, label: prev.label }];
-    this.project = prev.project;
-    this.lastAction = `Undid: ${prev.label}`;
-    this.restored();
-    this.#queueSave();
+    this.#restore('past', 'future', 'Undid');
   }
 
   redo(): void {
-    const next = this.future.at(-1);
-    if (!next || !this.project) return;
-    this.future = this.future.slice(0, -1);
-    this.past = [...this.past, { project: this.project, label: next.label }];
-    this.project = next.project;
-    this.lastAction = `Redid: ${next.label}`;
+    this.#restore('future', 'past', 'Redid');
+  }
+
+  /** Bring back the newest snapshot of one stack, keeping the current project on the other. */
+  #restore(from: 'past' | 'future', to: 'past' | 'future', verb: string): void {
+    const snap = this[from].at(-1);
+    if (!snap || !this.project) return;
+    this[from] = this[from].slice(0, -1);
+    this[to] = [...this[to], { project: this.project, label: snap.label }];
+    this.project = snap.project;
+    this.lastAction = `${verb}: ${snap.label}`;
     this.restored();
     this.#queueSave();
   }

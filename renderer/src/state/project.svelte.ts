@@ -73,16 +73,7 @@ export class ProjectState extends ProjectHistory {
   }
 
   updateSupport(id: string, patch: Partial<Omit<Support, 'id'>>, label?: string): boolean {
-    const s = this.project?.supports.find((x) => x.id === id);
-    if (!s) return false;
-    const changed = Object.entries(patch).some(
-      ([k, v]) => JSON.stringify(s[k as keyof Support]) !== JSON.stringify(v),
-    );
-    if (!changed) return false;
-    return this.edit(label ?? `edit ${s.name}`, (q) => ({
-      ...q,
-      supports: q.supports.map((x) => (x.id === id ? { ...x, ...patch } : x)),
-    }));
+    return this.#update('supports', id, patch, label);
   }
 
   moveSupport(id: string, position: LonLat): boolean {
@@ -145,15 +136,26 @@ export class ProjectState extends ProjectHistory {
   }
 
   updateKeepOut(id: string, patch: Partial<Omit<KeepOut, 'id'>>, label?: string): boolean {
-    const k = this.project?.keepOuts.find((x) => x.id === id);
-    if (!k) return false;
+    return this.#update('keepOuts', id, patch, label);
+  }
+
+  /** Apply `patch` to the item `id` of a list as one undoable edit; none when it changes no field (compared as JSON). */
+  #update<L extends 'supports' | 'keepOuts'>(
+    list: L,
+    id: string,
+    patch: Partial<Project[L][number]>,
+    label?: string,
+  ): boolean {
+    const items: readonly (Support | KeepOut)[] = this.project?.[list] ?? [];
+    const item = items.find((x) => x.id === id);
+    if (!item) return false;
     const changed = Object.entries(patch).some(
-      ([f, v]) => JSON.stringify(k[f as keyof KeepOut]) !== JSON.stringify(v),
+      ([k, v]) => JSON.stringify(item[k as keyof typeof item]) !== JSON.stringify(v),
     );
     if (!changed) return false;
-    return this.edit(label ?? `edit ${k.name}`, (q) => ({
+    return this.edit(label ?? `edit ${item.name}`, (q) => ({
       ...q,
-      keepOuts: q.keepOuts.map((x) => (x.id === id ? ({ ...x, ...patch } as KeepOut) : x)),
+      [list]: (q[list] as readonly (Support | KeepOut)[]).map((x) => (x.id === id ? { ...x, ...patch } : x)),
     }));
   }
 

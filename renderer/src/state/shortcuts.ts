@@ -26,14 +26,9 @@ export interface KeyLike {
 /** Each tool's key as the tool rail shows it (ui.svelte.ts TOOLS), in lower case. */
 const TOOL_KEYS: Record<string, ToolId> = Object.fromEntries(TOOLS.map((t) => [t.key.toLowerCase(), t.id]));
 
+/** The help list: each tool's key and name (ui.svelte.ts TOOLS), then the keys that act on the map. */
 export const SHORTCUTS: readonly { keys: string; does: string }[] = [
-  { keys: 'V', does: 'Select and move' },
-  { keys: 'S', does: 'Add a support (click the map)' },
-  { keys: 'B', does: 'Draw the lot boundary' },
-  { keys: 'K', does: 'Draw a building keep-out' },
-  { keys: 'P', does: 'Draw a power line' },
-  { keys: 'W', does: 'Draw a path or play area (walkway)' },
-  { keys: 'T', does: 'Place the station' },
+  ...TOOLS.map((t) => ({ keys: t.key, does: t.label })),
   { keys: 'Enter', does: 'Finish the shape being drawn' },
   { keys: 'Esc', does: 'Cancel the tool or drawing' },
   { keys: 'Del', does: 'Delete the selected item' },

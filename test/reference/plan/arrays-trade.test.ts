@@ -8,48 +8,38 @@ import { bandPlan } from '../../../core/antennas/common.ts';
 import { halfSquareBuilder } from '../../../core/antennas/halfSquare.ts';
 import { halfSquareReflectorBuilder } from '../../../core/antennas/halfSquareArrays.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
-import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { testLot } from '../../unit/site/lot.ts';
+import { preparedLot } from '../../unit/site/lot.ts';
+import { gridGain } from '../../helpers/arrayChecks.ts';
 
 const TRADE =
   'common practice, no source: reflector behind a half-square ≈ +3 dB at 15° over very good ground';
 
-const at15 = (g: readonly number[], az: number): number =>
-  g[
-    PATTERN_GRID.elevationsDeg.indexOf(15) * PATTERN_GRID.azimuthsDeg.length +
-      PATTERN_GRID.azimuthsDeg.indexOf(az)
-  ];
-
 describe('half-square with a parasitic reflector (loose trade check)', () => {
   it('gains roughly 3 dB at 15° over the half-square alone, and has a back', () => {
     const band = bandPlan('80m');
-    const site = prepareSite(
-      buildSite(
-        testLot({
-          halfX: 80,
-          halfY: 70,
-          station: [-60, 0],
-          supports: [
-            { id: 'a1', x: -30, y: 6.3, h: 24 },
-            { id: 'a2', x: 30, y: 6.5, h: 24 },
-            { id: 'b1', x: -30, y: -6.3, h: 24 },
-            { id: 'b2', x: 30, y: -6.4, h: 24 },
-          ],
-        }),
-      ),
-    );
+    const site = preparedLot({
+      halfX: 80,
+      halfY: 70,
+      station: [-60, 0],
+      supports: [
+        { id: 'a1', x: -30, y: 6.3, h: 24 },
+        { id: 'a2', x: 30, y: 6.5, h: 24 },
+        { id: 'b1', x: -30, y: -6.3, h: 24 },
+        { id: 'b2', x: 30, y: -6.4, h: 24 },
+      ],
+    });
     const ground = { classId: 'very-good' } as const;
     const array = halfSquareReflectorBuilder.propose({ site, band }).proposals[0].design;
     const single = halfSquareBuilder.propose({ site, band }).proposals[0].design;
     const g = evaluateDesign(array, ground, solverEvaluator).gainDbi;
-    const g0 = at15(evaluateDesign(single, ground, solverEvaluator).gainDbi, 0);
+    const g0 = gridGain(evaluateDesign(single, ground, solverEvaluator).gainDbi, 15, 0);
     expect(g0, `${TRADE}: the half-square alone is about 6 dBi`).toBeGreaterThan(5);
     expect(g0, TRADE).toBeLessThan(7.5);
-    expect(at15(g, 0) - g0, TRADE).toBeGreaterThan(2);
-    expect(at15(g, 0) - g0, TRADE).toBeLessThan(4.5);
-    expect(at15(g, 0) - at15(g, 180), 'a reflector gives the array a back').toBeGreaterThan(6);
+    expect(gridGain(g, 15, 0) - g0, TRADE).toBeGreaterThan(2);
+    expect(gridGain(g, 15, 0) - g0, TRADE).toBeLessThan(4.5);
+    expect(gridGain(g, 15, 0) - gridGain(g, 15, 180), 'a reflector gives the array a back').toBeGreaterThan(
+      6,
+    );
   });
 });

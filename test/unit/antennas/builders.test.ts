@@ -2,10 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { BUILDERS, builderFor } from '../../../core/antennas/registry.ts';
 import { bandPlan, placeElements } from '../../../core/antennas/common.ts';
 import type { Design, Proposal, WireModel } from '../../../core/antennas/types.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
 import { placeXYZ } from '../../../core/site/geometry.ts';
-import { supportPair, testLot } from '../site/lot.ts';
+import { supportPair, testLot, preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
 const EPS = 1e-9;
@@ -14,7 +12,7 @@ const len = (w: { from: readonly number[]; to: readonly number[] }): number =>
 const total = (m: WireModel): number => m.wires.reduce((s, w) => s + len(w), 0);
 
 function ctxFor(spec: Parameters<typeof testLot>[0], band: '160m' | '80m' | '40m' = '80m') {
-  return { site: prepareSite(buildSite(testLot(spec))), band: bandPlan(band) };
+  return { site: preparedLot(spec), band: bandPlan(band) };
 }
 
 function first(

@@ -11,14 +11,10 @@ import { groundSpec, solverEvaluator } from '../../../core/rank/solver.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { twoSupportSite } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
+import { gridGain } from '../../helpers/arrayChecks.ts';
 
 const site = twoSupportSite({ maxVerticalHeightM: 25, radialCount: 32 });
 const band = bandPlan('80m');
-const g15 = (g: number[], az: number) =>
-  g[
-    PATTERN_GRID.elevationsDeg.indexOf(15) * PATTERN_GRID.azimuthsDeg.length +
-      PATTERN_GRID.azimuthsDeg.indexOf(az)
-  ];
 
 describe('four-square', () => {
   const out = fourSquareBuilder.propose({ site, band });
@@ -64,14 +60,14 @@ describe('four-square', () => {
     expect(fr.networkLossShare).toBeGreaterThan(0);
     expect(fr.networkLossShare).toBeLessThan(0.2);
     // front-to-back at 15°
-    expect(g15(rec.gainDbi, 0) - g15(rec.gainDbi, 180)).toBeGreaterThan(10);
+    expect(gridGain(rec.gainDbi, 15, 0) - gridGain(rec.gainDbi, 15, 180)).toBeGreaterThan(10);
     // Loose, marked check (common practice, no source): a four-square gives about 1 dB more than a
     // full-size half-square at 15° over very good ground. Accepted here: −0.5 … +2.5 dB.
     const hs = halfSquareBuilder.propose({ site, band }).proposals[0];
     const h = evaluateDesign(hs.design, ground, solverEvaluator);
     let hMax = -Infinity;
-    for (const az of PATTERN_GRID.azimuthsDeg) hMax = Math.max(hMax, g15(h.gainDbi, az));
-    const delta = g15(rec.gainDbi, 0) - hMax;
+    for (const az of PATTERN_GRID.azimuthsDeg) hMax = Math.max(hMax, gridGain(h.gainDbi, 15, az));
+    const delta = gridGain(rec.gainDbi, 15, 0) - hMax;
     expect(delta).toBeGreaterThan(-0.5);
     expect(delta).toBeLessThan(2.5);
   });

@@ -19,14 +19,14 @@ import {
 import { halfSquareBuilder } from '../../../core/antennas/halfSquare.ts';
 import { COAX_VELOCITY_FACTOR, COAX_Z0_OHM, stubLengthM } from '../../../core/antennas/verticalPair.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
-import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 import { statePattern } from '../../../core/rank/states.ts';
 import { checkPlacement, prepareSite } from '../../../core/site/feasibility.ts';
 import { buildSite } from '../../../core/site/site.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { testLot } from '../site/lot.ts';
+import { gridGain } from '../../helpers/arrayChecks.ts';
+import { preparedLot } from '../site/lot.ts';
 
 const band = bandPlan('80m');
 const lambda = band.wavelengthM;
@@ -39,15 +39,8 @@ const rectSupports = [
   { id: 'b2', x: 29.8, y: -6.4, h: 24 },
 ];
 const siteOf = (supports: { id: string; x: number; y: number; h: number }[]) =>
-  prepareSite(buildSite(testLot({ halfX: 80, halfY: 70, station: [-60, 0], supports })));
+  preparedLot({ halfX: 80, halfY: 70, station: [-60, 0], supports });
 const rect = siteOf(rectSupports);
-
-function gainAt(g: readonly number[], elDeg: number, azDeg: number): number {
-  const ei = PATTERN_GRID.elevationsDeg.indexOf(elDeg);
-  const ai = PATTERN_GRID.azimuthsDeg.indexOf(azDeg);
-  if (ei < 0 || ai < 0) throw new Error('direction not on the grid');
-  return g[ei * PATTERN_GRID.azimuthsDeg.length + ai];
-}
 
 describe('half-square with a parasitic reflector (four supports near a rectangle)', () => {
   const out = halfSquareReflectorBuilder.propose({ site: rect, band });
@@ -127,8 +120,8 @@ describe('half-square with a parasitic reflector (four supports near a rectangle
     const d = out.proposals[0].design;
     const arr = evaluateDesign(d, ground, solverEvaluator);
     expect(arr.resonant).toBe(true);
-    const fwd = gainAt(arr.gainDbi, 15, 0);
-    expect(fwd - gainAt(arr.gainDbi, 15, 180), 'a reflector gives the array a back').toBeGreaterThan(8);
+    const fwd = gridGain(arr.gainDbi, 15, 0);
+    expect(fwd - gridGain(arr.gainDbi, 15, 180), 'a reflector gives the array a back').toBeGreaterThan(8);
     // what the network achieves: the reflector's current leads the driven element's by 90–180°
     const feed = arr.arrayFeed!;
     expect(feed.elements[1].currentRatio).toBeGreaterThan(0.4);
@@ -141,7 +134,7 @@ describe('half-square with a parasitic reflector (four supports near a rectangle
         ground,
         solverEvaluator,
       );
-      return gainAt(r.gainDbi, 15, 0);
+      return gridGain(r.gainDbi, 15, 0);
     });
     expect(fwd).toBeGreaterThan(Math.max(...sweep) - 0.3);
   }, 60_000);
@@ -175,8 +168,8 @@ describe('relay-switched half-square pair', () => {
     const r = evaluateDesign(p.design, { classId: 'very-good' }, solverEvaluator);
     expect(r.resonant).toBe(true);
     const s2 = statePattern(r.gainDbi, p.design.states![1]);
-    expectClose(gainAt(s2, 15, 180), gainAt(r.gainDbi, 15, 0), 1e-12, 'mirror across the centre line');
-    expect(gainAt(r.gainDbi, 15, 0) - gainAt(r.gainDbi, 15, 180)).toBeGreaterThan(8);
+    expectClose(gridGain(s2, 15, 180), gridGain(r.gainDbi, 15, 0), 1e-12, 'mirror across the centre line');
+    expect(gridGain(r.gainDbi, 15, 0) - gridGain(r.gainDbi, 15, 180)).toBeGreaterThan(8);
     // the lines' loss: at least one matched half wave of the driven element's line (Pozar §2.7)
     expect(r.arrayFeed!.networkLossShare).toBeGreaterThan(0.05);
     expect(r.arrayFeed!.networkLossShare).toBeLessThan(0.35);
@@ -190,7 +183,7 @@ describe('two half-squares at 90° on three supports in an L', () => {
     { id: 'p', x: 56, y: 0.5, h: 20 },
     { id: 'q', x: 0.4, y: 52, h: 23 },
   ];
-  const site = prepareSite(buildSite(testLot({ halfX: 90, halfY: 90, station: [-20, -20], supports: L })));
+  const site = preparedLot({ halfX: 90, halfY: 90, station: [-20, -20], supports: L });
   const out = halfSquareLBuilder.propose({ site, band });
   const p = out.proposals[0];
 
@@ -204,16 +197,12 @@ describe('two half-squares at 90° on three supports in an L', () => {
   });
 
   it('refuses legs far off a right angle, saying why', () => {
-    const bent = prepareSite(
-      buildSite(
-        testLot({
-          halfX: 90,
-          halfY: 90,
-          station: [-20, -20],
-          supports: [L[0], L[1], { id: 'q', x: 7, y: 52, h: 23 }],
-        }),
-      ),
-    );
+    const bent = preparedLot({
+      halfX: 90,
+      halfY: 90,
+      station: [-20, -20],
+      supports: [L[0], L[1], { id: 'q', x: 7, y: 52, h: 23 }],
+    });
     const r = halfSquareLBuilder.propose({ site: bent, band });
     expect(r.proposals).toHaveLength(0);
     expect(r.rejections.map((x) => x.reasons.join(' ')).join(' ')).toMatch(/off a right angle/);
@@ -229,10 +218,10 @@ describe('two half-squares at 90° on three supports in an L', () => {
       ground,
       solverEvaluator,
     );
-    const ref = gainAt(single.gainDbi, 15, 0);
+    const ref = gridGain(single.gainDbi, 15, 0);
     const s2 = statePattern(r.gainDbi, p.design.states![1]);
     for (const az of [0, 90, 180, 270]) {
-      const best = Math.max(gainAt(r.gainDbi, 15, az), gainAt(s2, 15, az));
+      const best = Math.max(gridGain(r.gainDbi, 15, az), gridGain(s2, 15, az));
       // a loose check: within the coax loss and coupling of a single half-square's broadside gain
       expect(best, `broadside ${az}°`).toBeGreaterThan(ref - 2);
     }

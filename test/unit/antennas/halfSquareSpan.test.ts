@@ -14,20 +14,16 @@ import { describe, expect, it } from 'vitest';
 import { builderFor } from '../../../core/antennas/registry.ts';
 import { bandPlan } from '../../../core/antennas/common.ts';
 import { MIN_TOP_FRACTION, TOP_FRACTION } from '../../../core/antennas/halfSquare.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { supportPair, testLot } from '../site/lot.ts';
+import { supportPair, preparedLot } from '../site/lot.ts';
 
 const band = bandPlan('40m');
 const lambda = band.wavelengthM;
 
 function propose(spanM: number, heightM = 14) {
   return builderFor('half-square').propose({
-    site: prepareSite(
-      buildSite(testLot({ halfX: Math.max(40, spanM / 2 + 5), supports: supportPair(spanM, heightM) })),
-    ),
+    site: preparedLot({ halfX: Math.max(40, spanM / 2 + 5), supports: supportPair(spanM, heightM) }),
     band,
   });
 }

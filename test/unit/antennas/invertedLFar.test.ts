@@ -8,12 +8,11 @@ import { builderFor } from '../../../core/antennas/registry.ts';
 import { bandPlan, placeElements } from '../../../core/antennas/common.ts';
 import { INVERTED_L_MAX_FAR_SUPPORTS } from '../../../core/antennas/invertedL.ts';
 import type { Proposal } from '../../../core/antennas/types.ts';
-import { buildSite } from '../../../core/site/site.ts';
 import { checkPlacement, prepareSite } from '../../../core/site/feasibility.ts';
-import { powerLine, testLot, type LotSpec } from '../site/lot.ts';
+import { powerLine, type LotSpec, preparedLot } from '../site/lot.ts';
 
 const propose = (spec: LotSpec) => {
-  const ps = prepareSite(buildSite(testLot({ halfX: 50, halfY: 30, ...spec })));
+  const ps = preparedLot(spec);
   return { ps, out: builderFor('inverted-l').propose({ site: ps, band: bandPlan('80m') }) };
 };
 const fits = (ps: ReturnType<typeof prepareSite>, p: Proposal) =>

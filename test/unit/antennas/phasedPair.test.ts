@@ -6,35 +6,32 @@ import { describe, expect, it } from 'vitest';
 import { bandPlan } from '../../../core/antennas/common.ts';
 import { builderFor } from '../../../core/antennas/registry.ts';
 import {
+  DESIGN_GROUND_LOSS_OHM,
   PHASED_LINE_SLACK_M,
   PHASING_LINE,
+  designGroundLossOhm,
+  designPhasing,
   lineInputVoltage,
   phasedPairBuilder,
   phasingLines,
 } from '../../../core/antennas/phasedPair.ts';
+import { arrayFeedReport } from '../../../core/antennas/arrayFeed.ts';
+import { soilGround } from '../../../core/em/soils.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
 import { stateBeamDeg, statePattern } from '../../../core/rank/states.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
 import { c } from '../../../core/numeric/complex.ts';
-import type { Design } from '../../../core/antennas/types.ts';
 import type { NetworkSpec } from '../../../core/em/network.ts';
-import { testLot } from '../site/lot.ts';
+import type { Design } from '../../../core/antennas/types.ts';
+import { preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
+import { gridGain, oneVertical } from '../../helpers/arrayChecks.ts';
 
 const band = bandPlan('40m');
 const lambda = band.wavelengthM;
-const site = prepareSite(
-  buildSite(testLot({ halfX: 80, halfY: 80, settings: { maxVerticalHeightM: 15, radialCount: 16 } })),
-);
+const site = preparedLot({ halfX: 80, halfY: 80, settings: { maxVerticalHeightM: 15, radialCount: 16 } });
 const ground = { classId: 'average' } as const;
-const nAz = PATTERN_GRID.azimuthsDeg.length;
-const at = (g: readonly number[], el: number, az: number): number =>
-  g[
-    PATTERN_GRID.elevationsDeg.indexOf(el) * nAz + PATTERN_GRID.azimuthsDeg.indexOf(((az % 360) + 360) % 360)
-  ];
 
 /** Bounds on the achieved front current against the target 1∠−90° (a chosen design tolerance). */
 const RATIO_BOUNDS = { min: 0.8, max: 1.2 };
@@ -110,30 +107,28 @@ describe('two phased verticals', () => {
   });
 
   it('end-fire has a positive front-to-back ratio and gains over one vertical; broadside is symmetric', () => {
-    const fwd = at(rec.gainDbi, 15, 0);
-    const back = at(rec.gainDbi, 15, 180);
+    const fwd = gridGain(rec.gainDbi, 15, 0);
+    const back = gridGain(rec.gainDbi, 15, 180);
     expect(fwd - back).toBeGreaterThan(10);
-    const single: Design = {
-      type: 'vertical',
-      band: '40m',
-      designFreqHz: p.design.designFreqHz,
-      params: { radialLengthsM: Array(16).fill(lambda / 4), supportHeightM: 0, selfSupporting: 1 },
-      trim: { name: 'height', nominalM: 0.245 * lambda, minM: 0.2 * lambda, maxM: 0.3 * lambda },
-    };
-    const one = evaluateDesign(single, ground, solverEvaluator);
+    const one = evaluateDesign(oneVertical(p.design), ground, solverEvaluator);
     // Loose, marked check (common practice, no source): two verticals λ/4 apart fed 90° apart gain
     // about 3 dB over one vertical in the forward direction.
-    const gain = fwd - at(one.gainDbi, 15, 0);
+    const gain = fwd - gridGain(one.gainDbi, 15, 0);
     expect(gain).toBeGreaterThan(1.5);
     expect(gain).toBeLessThan(4);
     const v = rec.variants![0].gainDbi;
     for (const el of [10, 15, 30])
       for (const az of [0, 30, 60, 90]) {
-        expectClose(at(v, el, az), at(v, el, 180 - az), 0.05, 'broadside mirror across the array axis');
-        expectClose(at(v, el, az), at(v, el, -az), 0.05, 'broadside mirror along the array axis');
+        expectClose(
+          gridGain(v, el, az),
+          gridGain(v, el, 180 - az),
+          0.05,
+          'broadside mirror across the array axis',
+        );
+        expectClose(gridGain(v, el, az), gridGain(v, el, -az), 0.05, 'broadside mirror along the array axis');
       }
     // its beam is across the axis
-    expect(at(v, 15, 90)).toBeGreaterThan(at(v, 15, 0) + 1);
+    expect(gridGain(v, 15, 90)).toBeGreaterThan(gridGain(v, 15, 0) + 1);
   });
 
   it('the second end-fire state is the first turned by 180°, as claimed (the other state solved)', () => {
@@ -161,6 +156,65 @@ describe('two phased verticals', () => {
     const claimed = statePattern(rec.gainDbi, s2);
     for (const el of [5, 15, 30, 60])
       for (let az = 0; az < 360; az += 10)
-        expectClose(at(g2, el, az), at(claimed, el, az - s2.rotationDeg), 0.05, 'turn by 180°');
+        expectClose(gridGain(g2, el, az), gridGain(claimed, el, az - s2.rotationDeg), 0.05, 'turn by 180°');
+  });
+});
+
+describe('the phasing lines designed with the radial field’s own loss over the project’s soil', () => {
+  const soils = ['very-good', 'average', 'poor'] as const;
+  const propose = (classId: string) =>
+    phasedPairBuilder.propose({
+      site: preparedLot({
+        halfX: 80,
+        halfY: 80,
+        soil: { classId },
+        settings: { maxVerticalHeightM: 15, radialCount: 16 },
+      }),
+      band,
+    }).proposals[0];
+  const designs = soils.map(propose);
+  /** |I_F/I_R − t|, t = 1∠−90°: the achieved current's distance from the target. */
+  const miss = (d: Design, classId: string): number => {
+    const m = phasedPairBuilder.model(d, d.trim.nominalM);
+    const F = arrayFeedReport(m, soilGround(classId)!, d.designFreqHz).elements[0];
+    const ph = (F.currentPhaseDeg * Math.PI) / 180;
+    return Math.hypot(F.currentRatio * Math.cos(ph), F.currentRatio * Math.sin(ph) + 1);
+  };
+
+  it('keeps the estimate as a parameter, rising as the soil gets poorer and falling with more radials', () => {
+    const loss = designs.map((d) => d.design.params.groundLossOhm as number);
+    // Physical trend (Wait & Pope 1954: the loss grows with the soil's surface resistance).
+    expect(loss[0]).toBeLessThan(loss[1]);
+    expect(loss[1]).toBeLessThan(loss[2]);
+    const f = band.designFreqHz;
+    const H = 0.245 * lambda;
+    const at = (n: number) => designGroundLossOhm({ classId: 'average' }, f, H, n, lambda / 4);
+    expect(at(32)).toBeLessThan(at(16));
+    expect(at(16)).toBeLessThan(at(4));
+    // an unknown soil class falls back to the stated value
+    expect(designGroundLossOhm({ classId: 'no-such-soil' }, f, H, 16, lambda / 4)).toBe(
+      DESIGN_GROUND_LOSS_OHM,
+    );
+  });
+
+  it('designs lines on every soil class of the range', () => {
+    for (const d of designs) {
+      expect(d).toBeDefined();
+      expect(d.design.params.elementLineM as number).toBeGreaterThan(lambda / 8);
+      expect(d.design.params.delayLineM as number).toBeGreaterThan(0);
+    }
+  });
+
+  it('achieves currents closer to the target than lines designed with the fixed fallback loss', () => {
+    for (const k of [1, 2]) {
+      const d = designs[k].design;
+      const s = d.params.spacingM as number;
+      const old = designPhasing(d.designFreqHz, d.trim.nominalM, s, DESIGN_GROUND_LOSS_OHM)!;
+      const before: Design = {
+        ...d,
+        params: { ...d.params, elementLineM: old.elementLineM, delayLineM: old.delayLineM },
+      };
+      expect(miss(d, soils[k])).toBeLessThan(miss(before, soils[k]));
+    }
   });
 });

@@ -12,11 +12,10 @@ import {
   COIL_FORMER_DIAMETER_M,
   COIL_PITCH_M,
 } from '../../../core/antennas/shortLoading.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { checkPlacement, prepareSite } from '../../../core/site/feasibility.ts';
+import { checkPlacement } from '../../../core/site/feasibility.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { testLot, type LotSpec } from '../site/lot.ts';
+import { type LotSpec, preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 
 type BandId = '160m' | '80m' | '40m';
@@ -35,7 +34,7 @@ const OPEN: LotSpec = {
 };
 
 function propose(type: string, band: BandId, spec: LotSpec = OPEN) {
-  const site = prepareSite(buildSite(testLot(spec)));
+  const site = preparedLot(spec);
   return { site, ...builderFor(type).propose({ site, band: bandPlan(band) }) };
 }
 

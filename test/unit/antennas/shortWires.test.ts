@@ -9,16 +9,15 @@ import { bandPlan, placeElements } from '../../../core/antennas/common.ts';
 import { FOLD_GAP_M, LOADING_COIL_Q, coilLossOhm } from '../../../core/antennas/loading.ts';
 import type { Design, Proposal, WireModel } from '../../../core/antennas/types.ts';
 import type { Element } from '../../../core/site/feasibility.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { checkPlacement, prepareSite } from '../../../core/site/feasibility.ts';
-import { supportPair, testLot } from '../site/lot.ts';
+import { checkPlacement } from '../../../core/site/feasibility.ts';
+import { supportPair, preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
 
 type Band = '160m' | '80m' | '40m';
 const site = (span: number, hA: number, hB = hA) =>
-  prepareSite(buildSite(testLot({ halfX: 60, supports: supportPair(span, hA, hB) })));
+  preparedLot({ halfX: 60, supports: supportPair(span, hA, hB) });
 function dipole(span: number, hA: number, hB: number, band: Band): Proposal {
   const out = builderFor('dipole').propose({ site: site(span, hA, hB), band: bandPlan(band) });
   const p = out.proposals[0];
@@ -128,7 +127,7 @@ describe('dipole on a short span between low supports', () => {
 
 describe('inverted-V on a lot too small for its legs', () => {
   const small = (half: number, h: number) =>
-    prepareSite(buildSite(testLot({ halfX: half, halfY: half, supports: [{ id: 's', x: 0, y: 0, h }] })));
+    preparedLot({ halfX: half, halfY: half, supports: [{ id: 's', x: 0, y: 0, h }] });
   const variants = (half: number, h: number, band: Band) =>
     builderFor('inverted-v')
       .propose({ site: small(half, h), band: bandPlan(band) })
@@ -222,9 +221,7 @@ describe('the adapted forms reach resonance inside their trim limits (field solv
   const ivs = (band: Band, form: number) =>
     builderFor('inverted-v')
       .propose({
-        site: prepareSite(
-          buildSite(testLot({ halfX: 14, halfY: 14, supports: [{ id: 's', x: 0, y: 0, h: 12 }] })),
-        ),
+        site: preparedLot({ halfX: 14, halfY: 14, supports: [{ id: 's', x: 0, y: 0, h: 12 }] }),
         band: bandPlan(band),
       })
       .proposals.find((p) => p.design.params.endForm === form)!;

@@ -14,27 +14,15 @@ import {
 } from '../../../core/antennas/verticalPair.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { solverEvaluator } from '../../../core/rank/solver.ts';
-import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
-import { buildSite } from '../../../core/site/site.ts';
-import { prepareSite } from '../../../core/site/feasibility.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../../../core/units/index.ts';
-import type { Design } from '../../../core/antennas/types.ts';
-import { testLot } from '../site/lot.ts';
+import { preparedLot } from '../site/lot.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
+import { gridGain, oneVertical } from '../../helpers/arrayChecks.ts';
 
 const ctx = (maxVerticalHeightM: number) => ({
-  site: prepareSite(
-    buildSite(testLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM, radialCount: 16 } })),
-  ),
+  site: preparedLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM, radialCount: 16 } }),
   band: bandPlan('80m'),
 });
-
-function gainAt(g: number[], elDeg: number, azDeg: number): number {
-  const ei = PATTERN_GRID.elevationsDeg.indexOf(elDeg);
-  const ai = PATTERN_GRID.azimuthsDeg.indexOf(azDeg);
-  if (ei < 0 || ai < 0) throw new Error('direction not on the grid');
-  return g[ei * PATTERN_GRID.azimuthsDeg.length + ai];
-}
 
 describe('two switched verticals', () => {
   const lambda = bandPlan('80m').wavelengthM;
@@ -99,20 +87,17 @@ describe('two switched verticals', () => {
     const ground = { classId: 'very-good' } as const;
     const pair = evaluateDesign(p.design, ground, solverEvaluator);
     expect(pair.resonant).toBe(true);
-    const single: Design = {
-      type: 'vertical',
-      band: '80m',
-      designFreqHz: p.design.designFreqHz,
-      params: { radialLengthsM: p.design.params.radialLengthsAM, supportHeightM: 0, selfSupporting: 1 },
-      trim: p.design.trim,
-    };
-    const one = evaluateDesign(single, ground, solverEvaluator);
-    const fwd = gainAt(pair.gainDbi, 15, 0);
-    const back = gainAt(pair.gainDbi, 15, 180);
+    const one = evaluateDesign(
+      oneVertical(p.design, p.design.params.radialLengthsAM, p.design.trim),
+      ground,
+      solverEvaluator,
+    );
+    const fwd = gridGain(pair.gainDbi, 15, 0);
+    const back = gridGain(pair.gainDbi, 15, 180);
     // Loose, marked checks (common practice, no source): a two-element parasitic vertical array
     // gains about 2–3 dB over one vertical and has a front-to-back ratio of several dB.
-    expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeGreaterThan(1.5);
-    expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeLessThan(4);
+    expect(fwd - gridGain(one.gainDbi, 15, 0)).toBeGreaterThan(1.5);
+    expect(fwd - gridGain(one.gainDbi, 15, 0)).toBeLessThan(4);
     expect(fwd - back).toBeGreaterThan(4);
     // what the network achieves: the reflector's current, relative to the driven element's
     const feed = pair.arrayFeed!;
@@ -136,9 +121,7 @@ describe('two switched verticals', () => {
 describe('two switched verticals, driven + director', () => {
   const band40 = bandPlan('40m');
   const lambda = band40.wavelengthM;
-  const site = prepareSite(
-    buildSite(testLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM: 15, radialCount: 16 } })),
-  );
+  const site = preparedLot({ halfX: 70, halfY: 50, settings: { maxVerticalHeightM: 15, radialCount: 16 } });
   const p = directorPairBuilder.propose({ site, band: band40 }).proposals[0];
 
   it('is registered, 0.1 λ apart, the director loaded by an open stub of −j20 Ω (Pozar §2.3)', () => {
@@ -163,20 +146,13 @@ describe('two switched verticals, driven + director', () => {
     const ground = { classId: 'average' } as const;
     const pair = evaluateDesign(p.design, ground, solverEvaluator);
     expect(pair.resonant).toBe(true);
-    const single: Design = {
-      type: 'vertical',
-      band: '40m',
-      designFreqHz: p.design.designFreqHz,
-      params: { radialLengthsM: Array(16).fill(lambda / 4), supportHeightM: 0, selfSupporting: 1 },
-      trim: { name: 'height', nominalM: 0.245 * lambda, minM: 0.2 * lambda, maxM: 0.3 * lambda },
-    };
-    const one = evaluateDesign(single, ground, solverEvaluator);
-    const fwd = gainAt(pair.gainDbi, 15, 0);
+    const one = evaluateDesign(oneVertical(p.design), ground, solverEvaluator);
+    const fwd = gridGain(pair.gainDbi, 15, 0);
     // Loose, marked checks (common practice, no source): a two-element parasitic array gains over
     // one vertical, a director pair somewhat less than a reflector pair, and has a rear of some dB.
-    expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeGreaterThan(0.5);
-    expect(fwd - gainAt(one.gainDbi, 15, 0)).toBeLessThan(3);
-    expect(fwd - gainAt(pair.gainDbi, 15, 180)).toBeGreaterThan(3);
+    expect(fwd - gridGain(one.gainDbi, 15, 0)).toBeGreaterThan(0.5);
+    expect(fwd - gridGain(one.gainDbi, 15, 0)).toBeLessThan(3);
+    expect(fwd - gridGain(pair.gainDbi, 15, 180)).toBeGreaterThan(3);
     // the director's current lags the driven element's by more than 90° (it is the front element)
     const [A] = pair.arrayFeed!.elements;
     expect(A.currentRatio).toBeGreaterThan(0.3);

@@ -4,7 +4,14 @@
 // not reference checks: the LU itself is checked in numeric.test.ts).
 import { spawnSync } from 'node:child_process';
 import { afterEach, describe, expect, it } from 'vitest';
-import { luFactor, luSolve, SingularMatrixError, useLuKernel } from '../../../core/numeric/lu.ts';
+import {
+  luFactor,
+  luKernelKind,
+  luSolve,
+  SingularMatrixError,
+  useLuKernel,
+} from '../../../core/numeric/lu.ts';
+import { LU_KERNEL_FMA_WASM_BASE64 } from '../../../core/numeric/wasm/luKernel.generated.ts';
 
 /** Largest factor difference between the two paths, relative to the largest factor element. */
 const PATH_TOL = 1e-12;
@@ -24,6 +31,31 @@ afterEach(() => {
 describe('dense LU: WebAssembly kernel against TypeScript', () => {
   it('the kernel loads here (Node has WebAssembly SIMD)', () => {
     expect(useLuKernel(true)).toBe(true);
+    // Node 20 has relaxed SIMD only behind a flag: the plain kernel runs here
+    expect(luKernelKind()).toBe(
+      WebAssembly.validate(Uint8Array.from(atob(LU_KERNEL_FMA_WASM_BASE64), (c) => c.charCodeAt(0)))
+        ? 'fused'
+        : 'plain',
+    );
+  });
+  it('the kernel with relaxed SIMD multiply-add (child process with the flag): same pivots, factors within tolerance', () => {
+    const r = spawnSync(
+      process.execPath,
+      ['--experimental-wasm-relaxed-simd', '--import', 'tsx', 'test/helpers/luFusedCheck.ts'],
+      { encoding: 'utf8' },
+    );
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout) as {
+      kind: string;
+      sizes: Record<string, { samePivots: boolean; relDiff: number; solveErr: number }>;
+    };
+    expect(out.kind).toBe('fused');
+    expect(Object.keys(out.sizes)).toHaveLength(4);
+    for (const s of Object.values(out.sizes)) {
+      expect(s.samePivots).toBe(true);
+      expect(s.relDiff).toBeLessThan(PATH_TOL);
+      expect(s.solveErr).toBeLessThan(1e-9);
+    }
   });
   for (const n of [24, 37, 101, 200])
     it(`n = ${n}: same pivots, factors within ${PATH_TOL}, and the solve reproduces b`, () => {

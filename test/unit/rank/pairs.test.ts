@@ -23,7 +23,8 @@ import { arrayBom, arrayWiring } from '../../../core/report/arrayWiring.ts';
 import { materialsOf } from '../../../core/report/bom.ts';
 import { sheetLengths } from '../../../core/report/format.ts';
 import { feedLineOf } from '../../../core/report/feedRun.ts';
-import { statePatterns } from '../../../renderer/src/plots/patternData.ts';
+import { statePatterns } from '../../../core/rank/candidateStates.ts';
+import { stationReport } from '../../../core/report/stationReport.ts';
 import { testLot } from '../site/lot.ts';
 
 /** Two 25 m spans: w1–w2 along x (broadside north–south), n1–n2 along y (broadside east–west). */
@@ -173,7 +174,44 @@ describe('switched pair of two half-squares at 90°', () => {
     expect(relays?.quantity).toBe(2);
     expect(bom.some((b) => b.item.startsWith('Coaxial cable'))).toBe(true);
     expect(bom.some((b) => b.item.startsWith('Relay box'))).toBe(true);
-    expect(bom.some((b) => b.item.startsWith('Control cable'))).toBe(true);
+    // K2 sits at B's feed: a second box there, and the control cable runs on along the coax run
+    expect(bom.find((b) => b.item.startsWith('Relay box'))?.quantity).toBe(2);
+    const run = pair.cutList.find((i) => /relay box to B/.test(i.label))!.cutLengthM;
+    expect(bom.find((b) => b.item.startsWith('Control cable'))?.quantity).toBeCloseTo(40 + run, 6);
+    expect(w?.controlRuns.map((r) => r.conductors)).toEqual([2, 2]);
+  });
+
+  it('its build sheet draws both directions toward each region, the serving one facing it', () => {
+    const pair = s.candidates[0];
+    const { sheet, html } = stationReport({ project: lot(), shortlist: s, candidate: pair });
+    const dirs = sheet.pattern?.directions;
+    expect(dirs?.states.map((d) => d.name)).toEqual(pair.states.map((x) => x.name));
+    expect(dirs?.toward.map((t) => t.name)).toEqual(pair.regions.map((r) => r.name));
+    for (const t of dirs!.toward) {
+      expect(t.elevation).toHaveLength(2);
+      expect(t.azimuth).toHaveLength(2);
+      // A half-square radiates broadside, little off its ends (common practice, no source): at the
+      // region's bearing and median take-off the serving half-square (broadside to it) is ahead
+      // of the other (end-on to it) by several dB.
+      const at = (k: number) =>
+        t.azimuth[k]!.reduce((best, p) =>
+          Math.abs(((p.deg - t.bearingDeg.center + 540) % 360) - 180) <
+          Math.abs(((best.deg - t.bearingDeg.center + 540) % 360) - 180)
+            ? p
+            : best,
+        ).gainDbi;
+      const other = t.servedBy === 1 ? 1 : 0;
+      expect(at(t.servedBy - 1) - at(other)).toBeGreaterThan(3);
+    }
+    // both regions are served, by different directions
+    expect(new Set(dirs!.toward.map((t) => t.servedBy))).toEqual(new Set([1, 2]));
+    expect(html).toContain('class="trace d2 serving"');
+    // the antenna detail draws the relay box and K2's box at B's feed
+    const b = pair.feedPoints[1].xyz;
+    expect(sheet.array!.boxes[1]!.xy).toEqual([b[0], b[1]]);
+    const detail = html.match(/<svg class="lot detail"[\s\S]*?<\/svg>/)?.[0] ?? '';
+    expect(detail.match(/class="relay-box"/g)).toHaveLength(2);
+    expect(html).not.toContain('The patterns drawn are direction 1');
   });
 
   it('respects the margin: a margin above the pair’s lead removes it; no pair without arrays', () => {

@@ -6,7 +6,9 @@ import { describe, expect, it } from 'vitest';
 import { buildDemoProject } from '../../../core/demo/demoProject.ts';
 import { planSite } from '../../../core/rank/plan.ts';
 import { stationReport } from '../../../core/report/stationReport.ts';
+import { radialRows } from '../../../core/report/buildSheet.ts';
 import { relayBoxXY, stationLineEnd } from '../../../core/report/arrayWiring.ts';
+import { servingState } from '../../../core/rank/candidateStates.ts';
 import { resonantAt, testEvaluator } from '../../helpers/testEvaluator.ts';
 
 const ev = testEvaluator({ resonantM: resonantAt(0.47, 0.24) });
@@ -62,5 +64,56 @@ describe('the sheet of an array of verticals', () => {
     expect(sheet.feedLine.feedXYZ).toEqual([box[0], box[1], 0]);
     // a single vertical's line still ends at its feed point
     expect(relayBoxXY('vertical', c.elements, c.placement.originXY)).toBeNull();
+  });
+
+  it('four-square: draws its four directions toward each region, each the first turned by 90°', () => {
+    const c = shortlist.candidates.find((x) => x.type === 'four-square')!;
+    const { sheet, html } = stationReport({ project, shortlist, candidate: c });
+    const dirs = sheet.pattern!.directions!;
+    expect(dirs.states).toHaveLength(4);
+    for (const t of dirs.toward) {
+      expect(t.azimuth).toHaveLength(4);
+      // the states are the one pattern turned by 90° steps (Design.states): direction k's cut at
+      // bearing b is direction 1's at b − 90°·(k − 1), on the 2° grid of the cut
+      const beamStep = dirs.states[1]!.beamDeg - dirs.states[0]!.beamDeg;
+      expect(Math.abs(beamStep)).toBeCloseTo(90, 0);
+      for (let k = 1; k < 4; k++)
+        t.azimuth[k]!.forEach((p, j) => {
+          const back = (j - (k * beamStep) / 2 + 10 * 180) % 180;
+          expect(p.gainDbi).toBeCloseTo(t.azimuth[0]![back]!.gainDbi, 6);
+        });
+      expect(t.servedBy).toBe(servingState(c, c.regions.find((r) => r.name === t.name)!.id)!.n);
+    }
+    for (const k of [1, 2, 3, 4]) expect(html).toContain(`class="trace d${k}`);
+  });
+
+  it('four-square: its box holds the hybrid, the load resistor and the inverting transformer of its model; three control wires', () => {
+    const c = shortlist.candidates.find((x) => x.type === 'four-square')!;
+    const { sheet, html } = stationReport({ project, shortlist, candidate: c });
+    const items = sheet.bom.map((b) => b.item);
+    expect(items).toContain('90° hybrid coupler, 50 Ω');
+    expect(items).toContain('Load resistor, 50 Ω non-inductive');
+    expect(items).toContain('Transformer 1:1, wired to invert');
+    expect(sheet.array!.controlRuns).toEqual([
+      { from: 'the station', to: 'the relay box, along the feed line', conductors: 3, lengthM: null },
+    ]);
+    const control = sheet.bom.find((b) => b.item === 'Control cable')!;
+    expect(control.quantity).toBeCloseTo(sheet.feedLine.lengthM, 6);
+    expect(html).toContain('Which relays for which direction');
+    expect(html).toContain('Coax of the array');
+  });
+
+  it('names the vertical of a lone radial field when asked (an array with one vertical among its antennas)', () => {
+    const c = shortlist.candidates.find((x) => x.type === 'phased-pair')!;
+    const g = c.groundSystem;
+    if (g.kind !== 'radials') throw new Error('no radials');
+    const one = {
+      ...g,
+      fields: [g.fields![0]!],
+      lengthsM: g.fields![0]!.lengthsM,
+      bearingsDeg: g.fields![0]!.bearingsDeg,
+    };
+    expect(new Set(radialRows(one).map((r) => r.vertical))).toEqual(new Set(['']));
+    expect(new Set(radialRows(one, true).map((r) => r.vertical))).toEqual(new Set([g.fields![0]!.label]));
   });
 });

@@ -8,17 +8,15 @@ import { describe, expect, it } from 'vitest';
 import { builderFor } from '../../../core/antennas/registry.ts';
 import { bandPlan, placeElements } from '../../../core/antennas/common.ts';
 import { num } from '../../../core/antennas/common.ts';
-import { buildSite } from '../../../core/site/site.ts';
 import {
   checkPlacement,
   clipRadial,
-  prepareSite,
   POWER_LINE_MARGIN_M,
   type Element,
 } from '../../../core/site/feasibility.ts';
 import { parseProject } from '../../../core/project/schema.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { ll, testLot, type LotSpec } from './lot.ts';
+import { ll, testLot, type LotSpec, preparedLot } from './lot.ts';
 
 const STEP = 0.25; // RADIAL_STEP_M: clipped lengths are exact to one step
 
@@ -32,7 +30,7 @@ const lineWithPoles = (y: number, poles: number[], clearanceM: number) => ({
   heightM: 9,
 });
 
-const siteOf = (spec: LotSpec) => prepareSite(buildSite(testLot({ halfX: 50, halfY: 30, ...spec })));
+const siteOf = (spec: LotSpec) => preparedLot(spec);
 
 const radial = (label: string, to: [number, number]): Element => ({
   kind: 'radial',

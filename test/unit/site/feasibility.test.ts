@@ -1,21 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { buildSite } from '../../../core/site/site.ts';
 import {
   checkPlacement,
   clipRadial,
-  prepareSite,
   POWER_LINE_MARGIN_M,
   type Element,
 } from '../../../core/site/feasibility.ts';
 import { expectClose } from '../../helpers/expectClose.ts';
-import { box, powerLine, testLot } from './lot.ts';
+import { box, powerLine, testLot, preparedLot } from './lot.ts';
 
 // The site frame's origin is the centre of the boundary's box; a symmetric lot puts it at (0, 0)
 // to within the projection's millimetres, so metre-level test geometry can be written directly.
 const TOL = 0.02;
 
 function site(keepOuts = [] as Parameters<typeof testLot>[0]['keepOuts']) {
-  return prepareSite(buildSite(testLot({ halfX: 50, halfY: 30, keepOuts })));
+  return preparedLot({ halfX: 50, halfY: 30, keepOuts });
 }
 
 const wire = (label: string, from: [number, number, number], to: [number, number, number]): Element => ({
@@ -138,5 +136,22 @@ describe('radial clipping', () => {
       },
     ]);
     expectClose(clipRadial(s, [0, 0], 90, 20), 9, 0.25, 'shed face at x = 10 with 1 m clearance');
+  });
+
+  it('answers a clip kept from an earlier plan only for the same lot and keep-outs', () => {
+    // clipRadial keeps its results by the site's boundary, keep-outs and settings: a shed added
+    // or taken away, or a new prepared site of the same lot, must give what a fresh clip gives.
+    const shed = {
+      id: 'shed',
+      name: 'Shed',
+      kind: 'building' as const,
+      geometry: box(10, -3, 14, 3),
+      clearanceM: 1,
+      heightM: 3,
+    };
+    expectClose(clipRadial(site(), [0, 0], 90, 20), 20, 1e-9, 'open lot');
+    expectClose(clipRadial(site([shed]), [0, 0], 90, 20), 9, 0.25, 'with the shed');
+    expectClose(clipRadial(site(), [0, 0], 90, 20), 20, 1e-9, 'open lot again');
+    expectClose(clipRadial(site([shed]), [0, 0], 90, 20), 9, 0.25, 'with the shed again');
   });
 });

@@ -1,10 +1,9 @@
 // The feasibility memo answers exactly what a fresh check answers, checks each placement of a
 // site once, and checks again when the site's boundary, keep-outs or settings change.
 import { describe, expect, it } from 'vitest';
-import { buildSite } from '../../../core/site/site.ts';
-import { checkPlacement, prepareSite, type Element } from '../../../core/site/feasibility.ts';
+import { checkPlacement, type Element } from '../../../core/site/feasibility.ts';
 import { feasibilityMemo } from '../../../core/site/feasibilityMemo.ts';
-import { box, testLot } from './lot.ts';
+import { box, testLot, preparedLot } from './lot.ts';
 
 const shed = {
   id: 'shed',
@@ -13,7 +12,7 @@ const shed = {
   geometry: box(5, -5, 15, 5),
   clearanceM: 2,
 };
-const prepared = (spec: Parameters<typeof testLot>[0] = {}) => prepareSite(buildSite(testLot(spec)));
+const prepared = (spec: Parameters<typeof testLot>[0] = {}) => preparedLot(spec);
 const wire = (x0: number, x1: number, z = 12): Element[] => [
   { kind: 'wire', label: 'top wire', from: [x0, 0, z], to: [x1, 0, z] },
   { kind: 'end', label: 'west end', at: [x0, 0, z] },

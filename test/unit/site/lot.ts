@@ -90,19 +90,18 @@ export function testLot(spec: LotSpec): Project {
   });
 }
 
+/** A test lot as feasibility prepares it for placing antennas. */
+export const preparedLot = (spec: LotSpec = {}) => prepareSite(buildSite(testLot(spec)));
+
 /**
  * An invented open lot of 160 × 120 m with two 24 m supports 44 m apart on its south side,
  * prepared for placing antennas (the array tests and the array benchmark share it).
  */
 export function twoSupportSite(settings: Partial<Project['settings']> = {}) {
-  return prepareSite(
-    buildSite(
-      testLot({
-        halfX: 80,
-        halfY: 60,
-        supports: supportPair(44, 24, 24, -40),
-        settings,
-      }),
-    ),
-  );
+  return preparedLot({
+    halfX: 80,
+    halfY: 60,
+    supports: supportPair(44, 24, 24, -40),
+    settings,
+  });
 }
