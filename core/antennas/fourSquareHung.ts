@@ -30,20 +30,23 @@
  * reactance is minus that of one such vertical alone over perfect ground (`baseCoilH`, one solve
  * of the field solver, cached), and its loss ωL/Q at LOADING_COIL_Q is in the model. A top hat
  * or bent top is not offered: the four tops would reach toward one another over the square. The coax from the box at the fitted centre to each base
- * is the smallest odd number of electrical quarter waves that reaches the farthest base with
- * COAX_RUN_SLACK_M to spare (an odd number of quarter waves forces the current as one does; on
- * 40 m one quarter wave of VF 0.66 coax, 7.0 m, is shorter than the 7.5 m from the centre to a
- * corner, so there the lines are three quarter waves).
+ * is the smallest odd number of electrical quarter waves that reaches the farthest base
+ * (`oddQuarterWaveM` of core/antennas/fourSquare.ts).
  */
 import type { Element, PreparedSite } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { bearingOf, dist2, placeXY } from '../site/geometry.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import { evaluateAntenna } from '../em/evaluate.ts';
-import { arr, cut, num, proposalList, round, wire } from './common.ts';
+import { arr, num, proposalList, round, wire } from './common.ts';
 import { coilLoad, LOADING_COIL_Q } from './loading.ts';
-import { FOUR_SQUARE_NAMES as NAMES, fourSquareNetwork, quarterWaveCoaxM } from './fourSquare.ts';
-import { COAX_RUN_SLACK_M, PLACEMENT_TOL_WAVELENGTHS } from './halfSquareArrays.ts';
+import {
+  FOUR_SQUARE_NAMES as NAMES,
+  forcingLineCut,
+  fourSquareNetwork,
+  oddQuarterWaveM,
+} from './fourSquare.ts';
+import { PLACEMENT_TOL_WAVELENGTHS } from './halfSquareArrays.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { groupCuts, groupHeights, groupRadials, verticalParts, verticalsModel } from './verticals.ts';
 import type { BandPlan, Builder, Design, Proposal, WireModel } from './types.ts';
@@ -98,14 +101,6 @@ export function fitSquare(pts: readonly XY[]): SquareFit {
   const corner = (k: number): XY => [re * u[k][0] - im * u[k][1], re * u[k][1] + im * u[k][0]];
   const worstM = Math.max(...pts.map((p, k) => dist2([p[0] - o[0], p[1] - o[1]], corner(k))));
   return { centre: o, corner0: corner(0), sideM: Math.hypot(re, im) * Math.SQRT2, worstM };
-}
-
-/** Smallest odd number of electrical quarter waves of the coax reaching runM plus the slack. */
-export function oddQuarterWaveM(runM: number, freqHz: number): number {
-  const q = quarterWaveCoaxM(freqHz);
-  let n = 1;
-  while (n * q < runM + COAX_RUN_SLACK_M) n += 2;
-  return n * q;
 }
 
 const basesOf = (d: Design): XY[] => {
@@ -324,17 +319,8 @@ export const fourSquareHungBuilder: Builder = {
   model: hungModel,
   elements: hungElements,
   heights: (_d, H) => groupHeights(H),
-  cutList(d, H) {
-    const n = Math.round(num(d, 'lineLengthM') / quarterWaveCoaxM(d.designFreqHz));
-    return [
-      ...groupCuts(d, H, NAMES, 'vertical wire (four, each hung from its support)'),
-      cut(
-        `75 Ω coax, control box to each vertical (${n} electrical quarter wave${n > 1 ? 's' : ''}, VF 0.66)`,
-        4,
-        num(d, 'lineLengthM'),
-        2,
-        'coax',
-      ),
-    ];
-  },
+  cutList: (d, H) => [
+    ...groupCuts(d, H, NAMES, 'vertical wire (four, each hung from its support)'),
+    forcingLineCut(d),
+  ],
 };

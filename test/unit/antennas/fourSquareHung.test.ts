@@ -4,13 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import { bandPlan, placeElements } from '../../../core/antennas/common.ts';
 import { builderFor } from '../../../core/antennas/registry.ts';
-import {
-  baseCoilH,
-  fitSquare,
-  fourSquareHungBuilder,
-  oddQuarterWaveM,
-} from '../../../core/antennas/fourSquareHung.ts';
-import { quarterWaveCoaxM } from '../../../core/antennas/fourSquare.ts';
+import { baseCoilH, fitSquare, fourSquareHungBuilder } from '../../../core/antennas/fourSquareHung.ts';
+import { oddQuarterWaveM, quarterWaveCoaxM } from '../../../core/antennas/fourSquare.ts';
 import { arrayFeedReport } from '../../../core/antennas/arrayFeed.ts';
 import { coilLoad } from '../../../core/antennas/loading.ts';
 import { evaluateAntenna } from '../../../core/em/evaluate.ts';
