@@ -22,20 +22,31 @@
  * Each vertical is the plain hung vertical of core/antennas/vertical.ts: a wire of the nominal
  * resonant height (0.245 λ, common practice, no source) from its base up to a rope to its
  * support, fed at its base against the user's radials, cut where they meet the neighbours' and
- * bonded (core/em/bondedRadials.ts). A support shorter than that is refused with its shortfall
- * (a loaded or top-hat vertical in an array is not built here). Not trimmed through the box, as
- * for the self-supporting four-square. The coax from the box at the fitted centre to each base
- * is the smallest odd number of electrical quarter waves that reaches the farthest base with
- * COAX_RUN_SLACK_M to spare (an odd number of quarter waves forces the current as one does; on
- * 40 m one quarter wave of VF 0.66 coax, 7.0 m, is shorter than the 7.5 m from the centre to a
- * corner, so there the lines are three quarter waves).
+ * bonded (core/em/bondedRadials.ts). Not trimmed through the box, as for the self-supporting
+ * four-square. When a support is shorter than that (down to HUNG_MIN_HEIGHT_WAVELENGTHS), all
+ * four are cut alike to the lowest support's height and each gets a loading coil at its base
+ * (the adaptation of the single coil-loaded vertical, core/antennas/shortVerticals.ts, at its
+ * simplest place): a coil in series at the feed adds its reactance to the vertical's, so its
+ * reactance is minus that of one such vertical alone over perfect ground (`baseCoilH`, one solve
+ * of the field solver, cached), and its loss ωL/Q at LOADING_COIL_Q is in the model. A top hat
+ * or bent top is not offered: the four tops would reach toward one another over the square. The coax from the box at the fitted centre to each base
+ * is the smallest odd number of electrical quarter waves that reaches the farthest base
+ * (`oddQuarterWaveM` of core/antennas/fourSquare.ts).
  */
 import type { Element, PreparedSite } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { bearingOf, dist2, placeXY } from '../site/geometry.ts';
-import { arr, cut, num, proposalList, round } from './common.ts';
-import { FOUR_SQUARE_NAMES as NAMES, fourSquareNetwork, quarterWaveCoaxM } from './fourSquare.ts';
-import { COAX_RUN_SLACK_M, PLACEMENT_TOL_WAVELENGTHS } from './halfSquareArrays.ts';
+import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
+import { evaluateAntenna } from '../em/evaluate.ts';
+import { arr, num, proposalList, round, wire } from './common.ts';
+import { coilLoad, LOADING_COIL_Q } from './loading.ts';
+import {
+  FOUR_SQUARE_NAMES as NAMES,
+  forcingLineCut,
+  fourSquareNetwork,
+  oddQuarterWaveM,
+} from './fourSquare.ts';
+import { PLACEMENT_TOL_WAVELENGTHS } from './halfSquareArrays.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
 import { groupCuts, groupHeights, groupRadials, verticalParts, verticalsModel } from './verticals.ts';
 import type { BandPlan, Builder, Design, Proposal, WireModel } from './types.ts';
@@ -43,6 +54,12 @@ import type { BandPlan, Builder, Design, Proposal, WireModel } from './types.ts'
 export const FOUR_SQUARE_HUNG_TYPE = 'four-square-hung';
 /** Side of the fitted square, wavelengths (a chosen bound around the λ/4 the feed is built for). */
 export const HUNG_SIDE_WAVELENGTHS = { min: 0.2, max: 0.3 } as const;
+/**
+ * Shortest support a loaded element is hung from, wavelengths (a chosen bound: at 0.15 λ a
+ * base-loaded vertical's radiation resistance is some 8 Ω, already near the loss of a radial
+ * field; value from memory, common practice, no source).
+ */
+export const HUNG_MIN_HEIGHT_WAVELENGTHS = 0.15;
 /** Proposals kept per band, the nearest to a square first. */
 export const HUNG_PROPOSALS_PER_BAND = 3;
 
@@ -86,22 +103,40 @@ export function fitSquare(pts: readonly XY[]): SquareFit {
   return { centre: o, corner0: corner(0), sideM: Math.hypot(re, im) * Math.SQRT2, worstM };
 }
 
-/** Smallest odd number of electrical quarter waves of the coax reaching runM plus the slack. */
-export function oddQuarterWaveM(runM: number, freqHz: number): number {
-  const q = quarterWaveCoaxM(freqHz);
-  let n = 1;
-  while (n * q < runM + COAX_RUN_SLACK_M) n += 2;
-  return n * q;
-}
-
 const basesOf = (d: Design): XY[] => {
   const xy = arr(d, 'basesXY');
   return NAMES.map((_, i) => [xy[2 * i], xy[2 * i + 1]]);
 };
 
+/**
+ * Inductance of the base coil that brings a vertical of height H (wire radius of
+ * core/antennas/common.ts) to resonance at f over perfect ground: X_coil = −Im Z(H), Z solved by
+ * the field solver (a series element at the feed adds its impedance; cached per (f, H)).
+ */
+const coilCache = new Map<string, number>();
+export function baseCoilH(freqHz: number, heightM: number): number {
+  const key = `${freqHz}|${heightM.toFixed(4)}`;
+  const hit = coilCache.get(key);
+  if (hit !== undefined) return hit;
+  const w = wire([0, 0, 0], [0, 0, heightM], SPEED_OF_LIGHT_M_PER_S / freqHz, 'v');
+  const r = evaluateAntenna(
+    {
+      wires: [{ from: w.from, to: w.to, radiusM: w.radiusM, segments: w.segments, material: w.material }],
+      feeds: [{ wire: 0, position: 0 }],
+      ground: { kind: 'perfect' },
+    },
+    { frequenciesHz: [freqHz], pattern: { elevationsDeg: [], azimuthsDeg: [] } },
+  ).frequencies[0];
+  const lH = Math.max(0, -r.feeds[0].impedanceOhm[1]) / (2 * Math.PI * freqHz);
+  coilCache.set(key, lH);
+  return lH;
+}
+
 function hungModel(d: Design, H: number): WireModel {
+  const lH = num(d, 'coilUH') * 1e-6;
   return {
     ...verticalsModel(d, H, basesOf(d), NAMES),
+    ...(lH > 0 ? { loads: NAMES.map((_, i) => coilLoad(i, 0, lH, d.designFreqHz)) } : {}),
     network: fourSquareNetwork(d),
     stateNetworks: [1, 2, 3].map((k) => fourSquareNetwork(d, k)),
     radialsBonded: true,
@@ -201,16 +236,19 @@ function proposeHung(site: PreparedSite, band: BandPlan): ReturnType<Builder['pr
         continue;
       }
       const low = Math.min(...s4.map((s) => s.heightM));
-      if (low < H) {
-        const short = s4.find((s) => s.heightM === low)!;
+      const minH = HUNG_MIN_HEIGHT_WAVELENGTHS * lambda;
+      const short = s4.find((s) => s.heightM === low)!;
+      if (low < minH) {
         out.rejectBy(
-          (H - low) / H,
+          (minH - low) / minH,
           ids,
           where,
-          `${short.name} at ${low.toFixed(1)} m is shorter than a quarter-wave vertical (about ${H.toFixed(1)} m); each of the four must hold one`,
+          `${short.name} at ${low.toFixed(1)} m is too short even for a base-loaded vertical in the array (at least ${minH.toFixed(1)} m, ${HUNG_MIN_HEIGHT_WAVELENGTHS} λ)`,
         );
         continue;
       }
+      const h = round(Math.min(H, low), 2);
+      const coilUH = h < H ? round(baseCoilH(band.designFreqHz, h) * 1e6, 2) : 0;
       const rot = bearingOf([0, 0], fit.corner0);
       const bases = s4.map((s) => placeXY([s.xy[0] - fit.centre[0], s.xy[1] - fit.centre[1]], -rot, [0, 0]));
       const spot = { xy: fit.centre, rotationDeg: rot };
@@ -221,15 +259,18 @@ function proposeHung(site: PreparedSite, band: BandPlan): ReturnType<Builder['pr
           offSquareM: round(fit.worstM, 2),
           basesXY: bases.flatMap((p) => [round(p[0], 3), round(p[1], 3)]),
           supportHeightsM: s4.map((s) => s.heightM),
+          coilUH,
           lineLengthM: round(oddQuarterWaveM(farthest, band.designFreqHz), 2),
           ...groupRadials(site, spot, bases, NAMES, st.radialCount, 0.25 * lambda),
         },
-        {
-          name: "height of the four verticals (a single vertical's resonant height)",
-          nominalM: H,
-          minM: H,
-          maxM: H,
-        },
+        coilUH
+          ? { name: 'height of the four verticals (the lowest support)', nominalM: h, minM: h, maxM: h }
+          : {
+              name: "height of the four verticals (a single vertical's resonant height)",
+              nominalM: H,
+              minM: H,
+              maxM: H,
+            },
         NAMES.map((n, k) => ({
           name: `beam toward vertical ${n} (on ${s4[k].name})`,
           rotationDeg: 0,
@@ -248,6 +289,13 @@ function proposeHung(site: PreparedSite, band: BandPlan): ReturnType<Builder['pr
           groupKey: `${type}:${key}`,
           where: `${where} (a ${fit.sideM.toFixed(1)} m square within ${fit.worstM.toFixed(1)} m), box at the centre`,
           broadsideDeg: bases.map((p) => norm(rot + bearingOf([0, 0], p))),
+          ...(coilUH
+            ? {
+                adaptations: [
+                  `all four cut to ${h.toFixed(1)} m (${short.name}, the lowest support), each with a ${coilUH.toFixed(1)} µH loading coil at its base (Q ${LOADING_COIL_Q})`,
+                ],
+              }
+            : {}),
         },
       });
     }
@@ -271,17 +319,8 @@ export const fourSquareHungBuilder: Builder = {
   model: hungModel,
   elements: hungElements,
   heights: (_d, H) => groupHeights(H),
-  cutList(d, H) {
-    const n = Math.round(num(d, 'lineLengthM') / quarterWaveCoaxM(d.designFreqHz));
-    return [
-      ...groupCuts(d, H, NAMES, 'vertical wire (four, each hung from its support)'),
-      cut(
-        `75 Ω coax, control box to each vertical (${n} electrical quarter wave${n > 1 ? 's' : ''}, VF 0.66)`,
-        4,
-        num(d, 'lineLengthM'),
-        2,
-        'coax',
-      ),
-    ];
-  },
+  cutList: (d, H) => [
+    ...groupCuts(d, H, NAMES, 'vertical wire (four, each hung from its support)'),
+    forcingLineCut(d),
+  ],
 };

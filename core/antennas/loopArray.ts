@@ -156,7 +156,7 @@ function proposeLoops(site: PreparedSite, band: BandPlan): ReturnType<Builder['p
   }));
   const inRange = pairs.filter((p) => p.s >= min * lambda && p.s <= max * lambda);
   const apart = `${(min * lambda).toFixed(1)}–${(max * lambda).toFixed(1)} m (${min}–${max} λ) apart`;
-  const needWords = `needs two supports of ${need.toFixed(1)} m ${apart} (a ${(LOOP_SIDE_WAVELENGTHS * lambda).toFixed(1)} m-sided diamond and a reflector ${REFLECTOR_SIDE_RATIO} times as large, bottom corner at the ${st.minEndHeightM.toFixed(1)} m end height)`;
+  const needWords = `needs two supports of ${need.toFixed(1)} m standing ${apart} (a ${(LOOP_SIDE_WAVELENGTHS * lambda).toFixed(1)} m-sided diamond and a reflector ${REFLECTOR_SIDE_RATIO} times as large, bottom corner at the ${st.minEndHeightM.toFixed(1)} m end height)`;
   if (inRange.length === 0) {
     // the nearest miss by spacing, among pairs tall enough if any
     const tall = pairs.filter((p) => p.h >= need);
@@ -170,7 +170,7 @@ function proposeLoops(site: PreparedSite, band: BandPlan): ReturnType<Builder['p
         off(near),
         [near.a.id, near.b.id],
         `on ${near.a.name} and ${near.b.name}`,
-        `${needWords}; no two supports here stand that far apart (nearest: ${near.a.name} and ${near.b.name}, ${near.s.toFixed(1)} m)`,
+        `${needWords}; no two supports here stand at that spacing (nearest: ${near.a.name} and ${near.b.name}, ${near.s.toFixed(1)} m apart)`,
       );
     return out.result();
   }

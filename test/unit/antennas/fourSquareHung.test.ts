@@ -4,9 +4,11 @@
 import { describe, expect, it } from 'vitest';
 import { bandPlan, placeElements } from '../../../core/antennas/common.ts';
 import { builderFor } from '../../../core/antennas/registry.ts';
-import { fitSquare, fourSquareHungBuilder, oddQuarterWaveM } from '../../../core/antennas/fourSquareHung.ts';
-import { quarterWaveCoaxM } from '../../../core/antennas/fourSquare.ts';
+import { baseCoilH, fitSquare, fourSquareHungBuilder } from '../../../core/antennas/fourSquareHung.ts';
+import { oddQuarterWaveM, quarterWaveCoaxM } from '../../../core/antennas/fourSquare.ts';
 import { arrayFeedReport } from '../../../core/antennas/arrayFeed.ts';
+import { coilLoad } from '../../../core/antennas/loading.ts';
+import { evaluateAntenna } from '../../../core/em/evaluate.ts';
 import { evaluateDesign } from '../../../core/rank/evaluate.ts';
 import { groundSpec, solverEvaluator } from '../../../core/rank/solver.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
@@ -136,10 +138,10 @@ describe('four-square hung from supports', () => {
     expect(off.proposals).toHaveLength(0);
     expect(off.rejections[0].reasons[0]).toMatch(/from the corner of the nearest square/);
     expect(off.rejections[0].shortfall).toBeGreaterThan(0);
-    const short = fourSquareHungBuilder.propose({ site: siteOf(square([], 8)), band });
+    const short = fourSquareHungBuilder.propose({ site: siteOf(square([], 5)), band });
     expect(short.proposals).toHaveLength(0);
-    expect(short.rejections[0].reasons[0]).toMatch(/shorter than a quarter-wave vertical/);
-    expectClose(short.rejections[0].shortfall!, 1 - 8 / (0.245 * lambda), 1e-9, 'lacking over needed');
+    expect(short.rejections[0].reasons[0]).toMatch(/too short even for a base-loaded vertical/);
+    expectClose(short.rejections[0].shortfall!, 1 - 5 / (0.15 * lambda), 1e-9, 'lacking over needed');
     const big = fourSquareHungBuilder.propose({
       site: siteOf(square().map((s) => ({ ...s, x: s.x * 1.3, y: s.y * 1.3 }))),
       band,
@@ -192,5 +194,38 @@ describe('four-square hung from supports', () => {
     const fr = arrayFeedReport(m, groundSpec({ classId: 'average' }), q.design.designFreqHz, 2);
     expect(Math.abs(Math.abs(fr.elements[0].currentPhaseDeg) - 180)).toBeLessThan(15);
     expect(fr.networkLossShare).toBeLessThan(0.25);
+  });
+
+  it('on supports shorter than a quarter wave loads all four alike with a base coil that tunes one alone, and still beams', () => {
+    const h = 8;
+    const q = fourSquareHungBuilder.propose({ site: siteOf(square([], h)), band }).proposals[0];
+    expect(q).toBeDefined();
+    expect(q.design.trim.nominalM).toBe(h);
+    expect(q.adaptations?.[0]).toMatch(/each with a [\d.]+ µH loading coil at its base/);
+    const lH = (q.design.params.coilUH as number) * 1e-6;
+    expectClose(lH, baseCoilH(band.designFreqHz, h), 1e-8, 'the design keeps the solved coil');
+    // one such vertical with its coil alone over perfect ground: the coil cancels its reactance
+    // (series elements at the feed add; the coil's loss ωL/Q adds resistance only)
+    const m1 = fourSquareHungBuilder.model(q.design, h);
+    const one = evaluateAntenna(
+      {
+        wires: [{ ...m1.wires[0], from: [0, 0, 0], to: [0, 0, h] }],
+        feeds: [{ wire: 0, position: 0 }],
+        loads: [coilLoad(0, 0, lH, band.designFreqHz)],
+        ground: { kind: 'perfect' },
+      },
+      { frequenciesHz: [band.designFreqHz], pattern: { elevationsDeg: [], azimuthsDeg: [] } },
+    ).frequencies[0].feeds[0].impedanceOhm;
+    expect(Math.abs(one[1])).toBeLessThan(1);
+    // shorter than a quarter wave: its radiation resistance over perfect ground is below the
+    // quarter-wave's 36 Ω (Balanis, Antenna Theory, 4th ed., §4.7.4: half the dipole's 73 Ω)
+    expect(one[0]).toBeLessThan(36);
+    expect(m1.loads).toHaveLength(4);
+    const rec = evaluateDesign(q.design, { classId: 'average' }, solverEvaluator);
+    expect(rec.power.loadLossW ?? 0).toBeGreaterThan(0);
+    const s1 = q.design.states![0];
+    expect(gainAt(rec.gainDbi, 15, s1.beamDeg!) - gainAt(rec.gainDbi, 15, s1.beamDeg! + 180)).toBeGreaterThan(
+      10,
+    );
   });
 });

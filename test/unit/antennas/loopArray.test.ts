@@ -114,7 +114,9 @@ describe('two-element loop array', () => {
       ]),
       band,
     });
-    expect(far.rejections[0].reasons[0]).toMatch(/no two supports here stand that far apart/);
+    expect(far.rejections[0].reasons[0]).toMatch(
+      /no two supports here stand at that spacing \(nearest: a and b, 40\.0 m apart\)/,
+    );
     expect(far.rejections[0].shortfall).toBeGreaterThan(0);
   });
 
