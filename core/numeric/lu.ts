@@ -13,13 +13,14 @@
  * (register blocking), and the trailing rows stay in the first-level cache while they receive the
  * whole panel's contribution.
  * Where WebAssembly SIMD is available (Node, Chromium and Electron workers) matrices of
- * LU_WASM_MIN_N unknowns or more are factored in the kernel's memory: the panel step (pivot
- * search, row swaps, column scaling and the rank-1 updates inside the panel) is one WebAssembly
- * call per panel, and the block row of U and the trailing update go to one WebAssembly block
- * update, A[i][j] −= Σ A[i][q]·A[q][j] over a block, in register tiles of 2 rows × 2 complex
- * columns on 128-bit f64x2 lanes. The kernel is generated and assembled by
- * tools/build-lu-kernel.mjs into wasm/luKernel.generated.ts. Same algorithm and pivots, so the
- * factors agree with the TypeScript path up to rounding (test/unit/numeric/lu-kernel.test.ts).
+ * LU_WASM_MIN_N unknowns or more are factored in the kernel's memory: the panel is split in
+ * halves of at most 8 columns, each factored by one WebAssembly call (pivot search, row swaps,
+ * column scaling and the rank-1 updates inside it), the right half updated by the left; that
+ * update, the block row of U and the trailing update go to one WebAssembly block update,
+ * A[i][j] −= Σ A[i][q]·A[q][j] over a block, in register tiles of 2 rows × 2 complex columns on
+ * 128-bit f64x2 lanes. The kernel is generated and assembled by tools/build-lu-kernel.mjs into
+ * wasm/luKernel.generated.ts. Same pivots (on these matrices; the sums are grouped differently),
+ * so the factors agree with the TypeScript path up to rounding (test/unit/numeric/lu-kernel.test.ts).
  * Growth and stability as for Gaussian elimination with partial pivoting (Golub & Van Loan).
  *
  * References:
@@ -81,13 +82,36 @@ function factorWithKernel(n: number, a: Float64Array, pivots: Int32Array, kern: 
   const pv = 16 * n * n;
   for (let j0 = 0; j0 < n; j0 += LU_BLOCK) {
     const jEnd = Math.min(j0 + LU_BLOCK, n);
-    const bad = kern.panel(n, j0, jEnd, pv);
-    if (bad >= 0) throw new SingularMatrixError(bad);
+    factorPanel(n, j0, jEnd, pv, kern);
     if (jEnd === n) break;
     // block row of U, row by row, then the trailing matrix
     for (let r = j0 + 1; r < jEnd; r++) kern.update(n, r, r + 1, j0, r, jEnd, n);
     kern.update(n, jEnd, n, j0, jEnd, jEnd, n);
   }
+}
+
+/** Panel columns factored by the kernel's unblocked panel step; wider panels are split. */
+const LU_PANEL_LEAF = 8;
+
+/**
+ * Step 1 on columns j0…j1−1, recursively (Toledo's recursive LU restricted to the panel): factor
+ * the left half, update the right half with it (block row, then the rows below, in the block
+ * update), factor the right half. The panel step swaps whole rows, so the right half is already
+ * permuted. Same pivots as the unblocked panel; the sums are grouped differently (rounding only).
+ * (S. Toledo, "Locality of reference in LU decomposition with partial pivoting", SIAM J. Matrix
+ * Anal. Appl. 18(4), 1997.)
+ */
+function factorPanel(n: number, j0: number, j1: number, pv: number, kern: LuKernel): void {
+  if (j1 - j0 <= LU_PANEL_LEAF) {
+    const bad = kern.panel(n, j0, j1, pv);
+    if (bad >= 0) throw new SingularMatrixError(bad);
+    return;
+  }
+  const m = j0 + ((j1 - j0) >> 1);
+  factorPanel(n, j0, m, pv, kern);
+  for (let r = j0 + 1; r < m; r++) kern.update(n, r, r + 1, j0, r, m, j1);
+  kern.update(n, m, n, j0, m, m, j1);
+  factorPanel(n, m, j1, pv, kern);
 }
 
 /** Matrices smaller than this are factored in TypeScript (the copies would cost more). */
