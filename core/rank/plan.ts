@@ -712,11 +712,21 @@ function scorerFor(paths: readonly RegionPath[], band: Band): Scorer {
   if (!byBand) scorers.set(paths, (byBand = new Map()));
   const known = byBand.get(band);
   if (known) return known;
+  // The same paths in another plan (a re-plan after a support moved: the station and the targets
+  // are where they were) score the same patterns the same way: the scorer is found by content.
+  const text = JSON.stringify([band, paths.map((p) => [p.weight, p.takeoff[band].directions])]);
+  const same = scorersByContent.get(text);
+  if (same) {
+    scorersByContent.delete(text);
+    scorersByContent.set(text, same);
+    byBand.set(band, same);
+    return same;
+  }
   const totalWeight = paths.reduce((s, p) => s + p.weight, 0);
   const compiled = paths.map((path) => compileDirections(path.takeoff[band].directions));
-  // A pattern (an evaluation record's, by identity) at a rotation is scored once per plan: the
+  // A pattern (an evaluation record's, by identity) at a rotation is scored once: the
   // conducting-support choice, the soil-range shortlist and the final ranking score the same
-  // placements again.
+  // placements again, and a re-plan with the cache of the plan before scores most of them again.
   const memo = new WeakMap<readonly number[], Map<number, { score: number; regionGains: number[] }>>();
   const scorer: Scorer = (gainDbi, rot) => {
     let byRot = memo.get(gainDbi);
@@ -733,8 +743,14 @@ function scorerFor(paths: readonly RegionPath[], band: Band): Scorer {
     return out;
   };
   byBand.set(band, scorer);
+  scorersByContent.set(text, scorer);
+  while (scorersByContent.size > SCORERS_KEPT) scorersByContent.delete(scorersByContent.keys().next().value!);
   return scorer;
 }
+
+/** Scorers kept by the content of their paths and band (the last few), for the plans that follow. */
+const SCORERS_KEPT = 4;
+const scorersByContent = new Map<string, Scorer>();
 
 /** The scorers of a plan's paths (PlanSetup.paths, by identity), per band. */
 const scorers = new WeakMap<readonly RegionPath[], Map<Band, Scorer>>();

@@ -449,6 +449,11 @@ const CLIP_SITES_KEPT = 4;
 const clipBySite = new Map<string, Map<string, number>>();
 const siteTextOf = new WeakMap<PreparedSite, string>();
 
+/** Forget every kept clip (a benchmark's cold plan in a process that planned before). */
+export function forgetClippedRadials(): void {
+  clipBySite.clear();
+}
+
 function clipMemo(ps: PreparedSite): Map<string, number> {
   let text = siteTextOf.get(ps);
   if (text === undefined) {

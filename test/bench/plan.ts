@@ -20,6 +20,7 @@ import { enumeratePlan, memoryCache, planFromSetup } from '../../core/rank/plan.
 import { appReplan, DEMO_MOVES, medianOf } from './appReplan.ts';
 import { solverEvaluator } from '../../core/rank/solver.ts';
 import { lotWithSupports } from '../helpers/manySupportLot.ts';
+import { forgetClippedRadials } from '../../core/site/feasibility.ts';
 
 const quick = process.argv.includes('--quick');
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -82,6 +83,7 @@ const sizes = quick
   : [4, 8, 16, 40, 40, 40, 100, 100, 100, 200, 200, 200, 500, 500, 500];
 for (const n of sizes) {
   const p = lotWithSupports(n);
+  forgetClippedRadials(); // cold: nothing kept from the plan before
   const c0 = process.cpuUsage();
   const t0 = performance.now();
   const setup = enumeratePlan(p);
