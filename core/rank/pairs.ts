@@ -321,7 +321,27 @@ function pairCandidate(
       beamDeg: beam(r),
       regions: a.regions.map((reg, k) => ({ id: reg.id, gainDbi: st[i].regionGains[k] })),
     })),
-    ...(ra.arrayFeed ? { arrayFeed: ra.arrayFeed } : {}),
+    ...(ra.arrayFeed
+      ? {
+          arrayFeed: {
+            ...ra.arrayFeed,
+            // direction 2 solved apart: what B's coax run gives the station's line at the box
+            ...(rb.arrayFeed
+              ? {
+                  states: [
+                    {
+                      state: 2,
+                      elements: rb.arrayFeed.elements,
+                      networkLossShare: rb.arrayFeed.networkLossShare,
+                      feedZOhm: rb.zOhm,
+                      swr: rb.swr,
+                    },
+                  ],
+                }
+              : {}),
+          },
+        }
+      : {}),
     peak: ra.peak.gainDbi >= rb.peak.gainDbi ? { ...ra.peak } : { ...rb.peak },
     feed: { zOhm: ra.zOhm, swr: ra.swr, z0Ohm: Z0_OHM, freqMHz: ra.freqHz / 1e6 },
     bandwidth2to1: {

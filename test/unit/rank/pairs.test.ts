@@ -26,6 +26,8 @@ import { feedLineOf } from '../../../core/report/feedRun.ts';
 import { statePatterns } from '../../../core/rank/candidateStates.ts';
 import { stationReport } from '../../../core/report/stationReport.ts';
 import { testLot } from '../site/lot.ts';
+import { COAX_LINE } from '../../../core/antennas/verticalPair.ts';
+import { c, cAdd, cDiv, cMul } from '../../../core/numeric/complex.ts';
 
 /** Two 25 m spans: w1–w2 along x (broadside north–south), n1–n2 along y (broadside east–west). */
 const lot = (settings: Partial<Project['settings']> = {}): Project =>
@@ -212,6 +214,41 @@ describe('switched pair of two half-squares at 90°', () => {
     const detail = html.match(/<svg class="lot detail"[\s\S]*?<\/svg>/)?.[0] ?? '';
     expect(detail.match(/class="relay-box"/g)).toHaveLength(2);
     expect(html).not.toContain('The patterns drawn are direction 1');
+  });
+
+  it('shows direction 2’s feed: B’s drive impedance carried along its coax run to the relay box', () => {
+    const pair = s.candidates[0];
+    const st = pair.arrayFeed?.states;
+    expect(st?.map((x) => x.state)).toEqual([2]);
+    const b = st![0];
+    // B driven: its current is the reference, A's (open at its feed) next to nothing
+    expect(b.elements[1].currentRatio).toBe(1);
+    expect(b.elements[0].currentRatio).toBeLessThan(0.05);
+    // the box sees Z_B through the run: Zin = Z0 (Z_L cosh γℓ + Z0 sinh γℓ)/(Z0 cosh γℓ + Z_L sinh γℓ)
+    // (Pozar, Microwave Engineering, 4th ed., §2.7, the lossy line; written here apart from the solver)
+    const f = pair.design.designFreqHz;
+    const len = pair.design.params.runM as number;
+    const alpha =
+      (COAX_LINE.lossDbPer100m * Math.sqrt(f / (COAX_LINE.lossReferenceMHz * 1e6))) / 100 / (20 / Math.LN10);
+    const beta = (2 * Math.PI * f) / (COAX_LINE.velocityFactor * 299792458);
+    const [ga, gb] = [alpha * len, beta * len];
+    const ch = c(Math.cosh(ga) * Math.cos(gb), Math.sinh(ga) * Math.sin(gb));
+    const sh = c(Math.sinh(ga) * Math.cos(gb), Math.cosh(ga) * Math.sin(gb));
+    const z0 = c(COAX_LINE.z0Ohm);
+    const zl = c(...b.elements[1].driveImpedanceOhm);
+    const zin = cMul(z0, cDiv(cAdd(cMul(zl, ch), cMul(z0, sh)), cAdd(cMul(z0, ch), cMul(zl, sh))));
+    expect(Math.hypot(zin.re - b.feedZOhm[0], zin.im - b.feedZOhm[1])).toBeLessThan(
+      1e-3 * Math.hypot(zin.re, zin.im),
+    );
+    // the run's loss is real: the share of the power it takes is above zero, and state A has no line
+    expect(b.networkLossShare).toBeGreaterThan(0);
+    expect(pair.arrayFeed!.networkLossShare).toBe(0);
+    // the app's detail and the sheet show it as direction 2's own table
+    const w = arrayWiring(pair, new Map(), 100)!;
+    expect(w.otherPhasings.map((o) => [o.n, o.name])).toEqual([[2, pair.states[1].name]]);
+    expect(w.otherPhasings[0].feedText).toContain(`SWR ${b.swr.toFixed(2)}`);
+    const { html } = stationReport({ project: lot(), shortlist: s, candidate: pair });
+    expect(html).toContain(`What the feed network achieves (direction 2: ${pair.states[1].name})`);
   });
 
   it('respects the margin: a margin above the pair’s lead removes it; no pair without arrays', () => {
