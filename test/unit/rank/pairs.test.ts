@@ -251,6 +251,34 @@ describe('switched pair of two half-squares at 90°', () => {
     expect(html).toContain(`What the feed network achieves (direction 2: ${pair.states[1].name})`);
   });
 
+  it('is scored over the soil range like the singles, and ranked with them over each soil', () => {
+    const pair = s.candidates[0];
+    const r = pair.soilRange;
+    expect(r.soils).toEqual(['average', 'poor', 'very-good']);
+    expect(r.scores.map((x) => x.soil)).toEqual(r.soils);
+    expect(r.scores[0].scoreDbi).toBe(pair.score);
+    // Physical trend (common practice, no source): two half-squares radiate vertically polarised
+    // at low angles, which very good (wet, conductive) soil reflects best.
+    const at = (soil: string) => r.scores.find((x) => x.soil === soil)!.scoreDbi;
+    expect(at('very-good')).toBeGreaterThan(at('average') + 1);
+    expect(at('very-good')).toBeGreaterThan(at('poor') + 1);
+    expect(r.highDbi).toBe(at('very-good'));
+    expect(r.lowDbi).toBe(Math.min(...r.scores.map((x) => x.scoreDbi)));
+    // the states were solved over the other soils, not copied: the spread is real
+    expect(new Set(r.scores.map((x) => x.scoreDbi)).size).toBe(3);
+    // each soil's rank is the place among all of the band's candidates over that soil
+    for (const soil of r.soils) {
+      const score = (c: (typeof s.candidates)[number]) =>
+        c.soilRange.scores.find((x) => x.soil === soil)!.scoreDbi;
+      for (const c of s.candidates) {
+        const rank = c.soilRange.scores.find((x) => x.soil === soil)!.rank;
+        expect(rank).toBe(1 + s.candidates.filter((o) => score(o) > score(c)).length);
+      }
+    }
+    expect(r.rankHolds).toBe(r.scores.every((x) => x.rank === 1));
+    expect(pair.diagnostics.some((d) => /soil range/.test(d))).toBe(false);
+  });
+
   it('respects the margin: a margin above the pair’s lead removes it; no pair without arrays', () => {
     const pair = s.candidates[0];
     const lead =
