@@ -321,6 +321,8 @@ export interface Candidate {
     highDbi: number;
     scores: { soil: string; scoreDbi: number; rank: number }[];
     rankHolds: boolean;
+    /** Set when the range has soils but this candidate was not solved over them (a switched pair without step 5). */
+    notComputed?: true;
   };
 }
 
@@ -1253,10 +1255,12 @@ export function rankPlan(
           pairSoils.map((m) => new Map([[ownSoil, m.get(ownSoil)!]])),
         );
         if (rangeSoils.length)
-          for (const c of pcs)
+          for (const c of pcs) {
+            c.soilRange.notComputed = true;
             c.diagnostics.push(
               'not scored over the soil range (the pair was not solved over the other soils)',
             );
+          }
         for (const c of bandCands) for (const x of c.soilRange.scores) x.rank += pcs.length;
       }
       candidates.splice(bandStart, 0, ...pcs);

@@ -14,7 +14,11 @@ import {
   enumeratePlan,
   memoryCache,
   planFromSetup,
+  pairJobs,
   planSite,
+  rankPlan,
+  soilRangeKey,
+  soilRangeOf,
   type Shortlist,
 } from '../../../core/rank/plan.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
@@ -26,6 +30,7 @@ import { feedLineOf } from '../../../core/report/feedRun.ts';
 import { statePatterns } from '../../../core/rank/candidateStates.ts';
 import { stationReport } from '../../../core/report/stationReport.ts';
 import { testLot } from '../site/lot.ts';
+import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
 import { COAX_LINE } from '../../../core/antennas/verticalPair.ts';
 import { c, cAdd, cDiv, cMul } from '../../../core/numeric/complex.ts';
 
@@ -277,6 +282,28 @@ describe('switched pair of two half-squares at 90°', () => {
     }
     expect(r.rankHolds).toBe(r.scores.every((x) => x.rank === 1));
     expect(pair.diagnostics.some((d) => /soil range/.test(d))).toBe(false);
+  });
+
+  it('says "not computed" when a pair was not solved over the soil range, instead of a one-soil range', () => {
+    const p = lot();
+    const setup = enumeratePlan(p, { types: ['half-square'], arrays: true });
+    // the plan's cache (memoryCache is a Map) without the pair's records over the other soils
+    const partial = new Map(cache as Map<string, EvaluationRecord>);
+    pairJobs(setup, partial, p);
+    for (const k of s.candidates[0].stateKeys!) partial.delete(soilRangeKey(k, soilRangeOf(p)));
+    const r = rankPlan(setup, partial, p);
+    const pair = r.candidates[0];
+    expect(pair.type).toBe('switched-pair');
+    expect(pair.soilRange.notComputed).toBe(true);
+    expect(pair.soilRange.soils).toEqual(['average']);
+    expect(pair.diagnostics).toContain(
+      'not scored over the soil range (the pair was not solved over the other soils)',
+    );
+    // the singles keep their own range, ranked behind the pair
+    const single = r.candidates[1];
+    expect(single.soilRange.soils).toHaveLength(3);
+    expect(single.soilRange.scores[0].rank).toBe(2);
+    expect(s.candidates[0].soilRange.notComputed).toBeUndefined();
   });
 
   it('respects the margin: a margin above the pair’s lead removes it; no pair without arrays', () => {
