@@ -17,15 +17,26 @@ export interface ElementFeed {
   currentPhaseDeg: number;
 }
 
+/** What one relay state's network achieves and the impedance the station's line sees there. */
+export interface StateFeed {
+  elements: ElementFeed[];
+  networkLossShare: number;
+  feedZOhm: [number, number];
+  swr: number;
+}
+
 /** What the planner keeps of it (EvaluationRecord.arrayFeed, Candidate.arrayFeed). */
 export interface ArrayFeed {
   elements: ElementFeed[];
   networkLossShare: number;
+  /** States of another phasing (Design.states[].variant; variant k is variants[k − 1]). */
+  variants?: StateFeed[];
   /**
-   * States of another phasing (Design.states[].variant; variant k is variants[k − 1]): what that
-   * network achieves and the impedance the station's line sees there.
+   * Relay states solved apart, each with its own model (a switched pair's direction 2: the
+   * station's line through the relay box and the coax run to B); `state` numbers the candidate's
+   * states from 1.
    */
-  variants?: { elements: ElementFeed[]; networkLossShare: number; feedZOhm: [number, number]; swr: number }[];
+  states?: (StateFeed & { state: number })[];
 }
 
 /** Drive impedances and current ratios of the feeds, relative to feed `reference`. */

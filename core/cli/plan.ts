@@ -393,6 +393,12 @@ export async function evaluateOnPool(
     say(`${fourth.length / 2} switched pairs of two antennas, both states of each`);
     await pool.evaluate(fourth, cache, onDone);
   }
+  // step 5: the listed pairs over the soil range (the singles' range jobs are cached)
+  const fifth = soilRangeJobs(setup, cache, project, shortlistSize).filter((j) => !cache.has(j.key));
+  if (fifth.length) {
+    say(`${fifth.length / 2} listed switched pairs over the soil range`);
+    await pool.evaluate(fifth, cache, onDone);
+  }
 }
 
 export async function runPlan(argv: string[], io: PlanIo): Promise<number> {

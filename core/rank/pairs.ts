@@ -19,8 +19,10 @@
  *    scores.
  * A pair is listed only when its score beats the band's best single antenna by at least
  * `settings.pairMarginDb` (default 1 dB; core/project/schema.ts); listed pairs go ahead of the
- * singles (they beat every one of them). Pairs are not solved over the soil range (their
- * `soilRange` holds the project's soil only).
+ * singles (they beat every one of them). The listed pairs are then solved over the soil range
+ * (both states, pattern only; core/rank/plan.ts soilRangeJobs, step 5) and ranked with the singles
+ * over each soil; where that was not computed their `soilRange` holds the project's soil only and
+ * the candidate's diagnostics say so.
  */
 import { builderFor } from '../antennas/registry.ts';
 import { pairRunM, SWITCHED_PAIR_TYPE } from '../antennas/switchedPair.ts';
@@ -216,6 +218,25 @@ export function pairPlans(
 type Scorer = (gainDbi: readonly number[], rot: number) => { score: number; regionGains: number[] };
 
 /**
+ * A pair's score from its two states' patterns (pair frame, no rotation): each region served by
+ * its better state, the regions' gains weighted as for any candidate.
+ */
+export function pairScore(
+  gains: readonly [readonly number[], readonly number[]],
+  scoreOf: Scorer,
+  weights: readonly number[],
+): { st: { score: number; regionGains: number[] }[]; regionGains: number[]; score: number } {
+  const st = gains.map((g) => scoreOf(g, 0));
+  const regionGains = weights.map((_, k) => Math.max(st[0].regionGains[k], st[1].regionGains[k]));
+  const total = weights.reduce((s, w) => s + w, 0);
+  const score =
+    total > 0
+      ? regionGains.reduce((s, g, k) => s + g * weights[k], 0) / total
+      : Math.max(st[0].score, st[1].score);
+  return { st, regionGains, score };
+}
+
+/**
  * The pair candidates of one band that beat its best single by at least `marginDb`, best first.
  * `scoreOf` is the band's scorer; `weights` the regions' weights.
  */
@@ -234,13 +255,7 @@ export function pairCandidates(
     const recs = pr.keys.map((k) => cache.get(k));
     if (recs.some((r) => !r || r.unsolvable !== undefined || !r.gainDbi.length)) continue;
     const [ra, rb] = recs as [EvaluationRecord, EvaluationRecord];
-    const st = [ra, rb].map((r) => scoreOf(r.gainDbi, 0));
-    const regionGains = weights.map((_, k) => Math.max(st[0].regionGains[k], st[1].regionGains[k]));
-    const total = weights.reduce((s, w) => s + w, 0);
-    const score =
-      total > 0
-        ? regionGains.reduce((s, g, k) => s + g * weights[k], 0) / total
-        : Math.max(st[0].score, st[1].score);
+    const { st, regionGains, score } = pairScore([ra.gainDbi, rb.gainDbi], scoreOf, weights);
     if (!(score >= bestSingleScore + marginDb)) continue;
     out.push(pairCandidate(pr, ra, rb, st, regionGains, score, site, patterns));
   }
@@ -321,7 +336,27 @@ function pairCandidate(
       beamDeg: beam(r),
       regions: a.regions.map((reg, k) => ({ id: reg.id, gainDbi: st[i].regionGains[k] })),
     })),
-    ...(ra.arrayFeed ? { arrayFeed: ra.arrayFeed } : {}),
+    ...(ra.arrayFeed
+      ? {
+          arrayFeed: {
+            ...ra.arrayFeed,
+            // direction 2 solved apart: what B's coax run gives the station's line at the box
+            ...(rb.arrayFeed
+              ? {
+                  states: [
+                    {
+                      state: 2,
+                      elements: rb.arrayFeed.elements,
+                      networkLossShare: rb.arrayFeed.networkLossShare,
+                      feedZOhm: rb.zOhm,
+                      swr: rb.swr,
+                    },
+                  ],
+                }
+              : {}),
+          },
+        }
+      : {}),
     peak: ra.peak.gainDbi >= rb.peak.gainDbi ? { ...ra.peak } : { ...rb.peak },
     feed: { zOhm: ra.zOhm, swr: ra.swr, z0Ohm: Z0_OHM, freqMHz: ra.freqHz / 1e6 },
     bandwidth2to1: {
@@ -360,7 +395,6 @@ function pairCandidate(
     diagnostics: [
       ...new Set([...ra.diagnostics, ...rb.diagnostics]),
       `state A: feed ${fmtZ(ra.zOhm)} (SWR ${ra.swr.toFixed(2)}); state B at the relay box, through the coax run: ${fmtZ(rb.zOhm)} (SWR ${rb.swr.toFixed(2)})`,
-      'not scored over the soil range (pairs are solved over the project’s soil only)',
     ],
     evaluationKey: pr.keys[0],
     stateKeys: [...pr.keys],

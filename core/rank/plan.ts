@@ -77,6 +77,7 @@ import {
 import { Z0_OHM } from './evaluator.ts';
 import {
   pairCandidates,
+  pairScore,
   pairPlans,
   unsolvedPairs,
   PAIR_MARGIN_DEFAULT_DB,
@@ -320,6 +321,8 @@ export interface Candidate {
     highDbi: number;
     scores: { soil: string; scoreDbi: number; rank: number }[];
     rankHolds: boolean;
+    /** Set when the range has soils but this candidate was not solved over them (a switched pair without step 5). */
+    notComputed?: true;
   };
 }
 
@@ -821,6 +824,8 @@ export function soilRangeKey(key: string, soils: readonly string[]): string {
  * Step 3 (after steps 1 and 2 are in the cache): the soil range, for the shortlisted candidates
  * only. Each shortlisted design, as trimmed over the project's soil, is solved once more per soil
  * class of the range, pattern only. Ranking without the range first is cheap (no solver work).
+ * Step 5 is this again once step 4 is in: the listed switched pairs, both states (the singles'
+ * jobs it repeats are in the cache already).
  */
 export function soilRangeJobs(
   setup: PlanSetup,
@@ -833,12 +838,13 @@ export function soilRangeJobs(
   if (!soils.length) return [];
   const ranked = rankPlan(setup, cache, project, shortlistSize, perType);
   const designs = new Map<string, Design>();
-  for (const j of allJobs(setup)) designs.set(j.key, j.design);
+  for (const j of [...allJobs(setup), ...(setup.pairJobs ?? [])]) designs.set(j.key, j.design);
   const jobs = new Map<string, Job>();
-  for (const c of ranked.candidates) {
-    const key = soilRangeKey(c.evaluationKey, soils);
-    const design = designs.get(c.evaluationKey);
-    const rec = cache.get(c.evaluationKey);
+  // a listed switched pair (step 5, once step 4 is in): each state as built
+  for (const k of ranked.candidates.flatMap((c) => c.stateKeys ?? [c.evaluationKey])) {
+    const key = soilRangeKey(k, soils);
+    const design = designs.get(k);
+    const rec = cache.get(k);
     if (!design || !rec || jobs.has(key)) continue;
     jobs.set(key, {
       key,
@@ -1214,31 +1220,35 @@ export function rankPlan(
               : undefined,
           ),
         );
-    const soils = [ownSoil, ...rangeSoils.filter((id) => soilScores.every((m) => m.has(id)))];
-    const rankAt = new Map<string, number[]>();
-    for (const soil of soils) {
-      const order = bandCands
-        .map((_, i) => i)
-        .sort((x, y) => soilScores[y].get(soil)! - soilScores[x].get(soil)! || x - y);
-      const ranks: number[] = [];
-      order.forEach((ci, r) => (ranks[ci] = r + 1));
-      rankAt.set(soil, ranks);
-    }
-    bandCands.forEach((c, i) => {
-      const scores = soils.map((soil) => ({
-        soil,
-        scoreDbi: soilScores[i].get(soil)!,
-        rank: rankAt.get(soil)![i],
-      }));
-      const values = scores.map((x) => x.scoreDbi);
-      c.soilRange = {
-        soils,
-        lowDbi: Math.min(...values),
-        highDbi: Math.max(...values),
-        scores,
-        rankHolds: scores.every((x) => x.rank === c.rank),
-      };
-    });
+    // Each candidate's scores over the soils all of `cands` were scored on, and its rank there.
+    const rankOverSoils = (cands: readonly Candidate[], perSoil: readonly Map<string, number>[]): void => {
+      const soils = [ownSoil, ...rangeSoils.filter((id) => perSoil.every((m) => m.has(id)))];
+      const rankAt = new Map<string, number[]>();
+      for (const soil of soils) {
+        const order = cands
+          .map((_, i) => i)
+          .sort((x, y) => perSoil[y].get(soil)! - perSoil[x].get(soil)! || x - y);
+        const ranks: number[] = [];
+        order.forEach((ci, r) => (ranks[ci] = r + 1));
+        rankAt.set(soil, ranks);
+      }
+      cands.forEach((c, i) => {
+        const scores = soils.map((soil) => ({
+          soil,
+          scoreDbi: perSoil[i].get(soil)!,
+          rank: rankAt.get(soil)![i],
+        }));
+        const values = scores.map((x) => x.scoreDbi);
+        c.soilRange = {
+          soils,
+          lowDbi: Math.min(...values),
+          highDbi: Math.max(...values),
+          scores,
+          rankHolds: scores.every((x) => x.rank === c.rank),
+        };
+      });
+    };
+    rankOverSoils(bandCands, soilScores);
     // Step 4: switched pairs that beat the band's best single by the margin go first.
     const bandPairs = setup.pairs?.filter((pr) => pr.band === b.band) ?? [];
     for (const u of unsolvedPairs(bandPairs, cache))
@@ -1254,20 +1264,39 @@ export function rankPlan(
         site,
         patterns,
       );
+      // The pairs' scores over the soil range (step 5, soilRangeJobs again), each region from its better state.
+      const pairSoils = pcs.map((c) => {
+        const perSoil = new Map<string, number>([[ownSoil, c.score]]);
+        for (const id of rangeSoils) {
+          const g = (c.stateKeys ?? []).map(
+            (k) => cache.get(soilRangeKey(k, rangeSoils))?.soilRange?.find((r) => r.soilId === id)?.gainDbi,
+          );
+          if (g.length === 2 && g.every((x) => x?.length))
+            perSoil.set(id, pairScore([g[0]!, g[1]!], scoreOf, pathWeights).score);
+        }
+        return perSoil;
+      });
       pcs.forEach((c, i) => {
         c.rank = i + 1;
         c.bestOfType = i === 0;
-        c.soilRange = {
-          soils: [ownSoil],
-          lowDbi: c.score,
-          highDbi: c.score,
-          scores: [{ soil: ownSoil, scoreDbi: c.score, rank: i + 1 }],
-          rankHolds: true,
-        };
       });
-      for (const c of bandCands) {
-        c.rank += pcs.length;
-        for (const x of c.soilRange.scores) x.rank += pcs.length;
+      for (const c of bandCands) c.rank += pcs.length;
+      if (rangeSoils.length && pairSoils.every((m) => rangeSoils.every((id) => m.has(id))))
+        rankOverSoils([...pcs, ...bandCands], [...pairSoils, ...soilScores]);
+      else {
+        // not computed for the pairs: their range holds the project's soil only, said in words
+        rankOverSoils(
+          pcs,
+          pairSoils.map((m) => new Map([[ownSoil, m.get(ownSoil)!]])),
+        );
+        if (rangeSoils.length)
+          for (const c of pcs) {
+            c.soilRange.notComputed = true;
+            c.diagnostics.push(
+              'not scored over the soil range (the pair was not solved over the other soils)',
+            );
+          }
+        for (const c of bandCands) for (const x of c.soilRange.scores) x.rank += pcs.length;
       }
       candidates.splice(bandStart, 0, ...pcs);
     }
@@ -1311,6 +1340,8 @@ export function planFromSetup(setup: PlanSetup, project: Project, options: PlanO
   evaluateJobs(third, options.evaluator, cache, options.onProgress);
   const fourth = pairJobs(setup, cache, project);
   evaluations += evaluateJobs(fourth, options.evaluator, cache, options.onProgress);
+  const fifth = soilRangeJobs(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
+  evaluateJobs(fifth, options.evaluator, cache, options.onProgress);
   const ranked = rankPlan(setup, cache, project, options.shortlistSize ?? 10, options.shortlistPerType);
   const feasible = setup.bands.reduce((s, b) => s + b.proposed.length, 0);
   return {

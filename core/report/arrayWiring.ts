@@ -10,7 +10,7 @@
  * control cable along the feed line; relays whose contacts carry the station's RF current
  * (√(P / 50 Ω) into a 50 Ω line) with margin.
  */
-import type { ElementFeed } from '../antennas/arrayFeed.ts';
+import type { ElementFeed, StateFeed } from '../antennas/arrayFeed.ts';
 import type { Candidate } from '../rank/plan.ts';
 import { servingState } from '../rank/candidateStates.ts';
 import type { PlacedElement } from '../rank/candidate.ts';
@@ -44,8 +44,9 @@ export interface ArrayWiring {
   feed: { label: string; zText: string; current: string }[];
   networkLossPercent: number | null;
   /**
-   * Directions of another phasing (a state with `variant`): the impedance the station's line sees
-   * there and what that network achieves, per element.
+   * Directions of another phasing (a state with `variant`) or solved apart (a switched pair's
+   * direction 2, ArrayFeed.states): the impedance the station's line sees there and what that
+   * network achieves, per element; in the order of the directions.
    */
   otherPhasings: {
     n: number;
@@ -305,19 +306,26 @@ export function arrayWiring(
     }));
   const feed = feedRows(c.arrayFeed?.elements ?? []);
   const specs = c.design.states ?? [];
-  const otherPhasings = specs.flatMap((s, i) => {
-    const v = s.variant !== undefined ? c.arrayFeed?.variants?.[s.variant - 1] : undefined;
-    if (!v) return [];
-    return [
-      {
-        n: i + 1,
-        name: s.name,
-        feedText: `${fmtZ(v.feedZOhm, 1)}, SWR ${v.swr.toFixed(2)} on 50 Ω`,
-        feed: feedRows(v.elements),
-        networkLossPercent: 100 * v.networkLossShare,
-      },
-    ];
-  });
+  const phasing = (n: number, name: string, v: StateFeed | undefined) =>
+    v
+      ? [
+          {
+            n,
+            name,
+            feedText: `${fmtZ(v.feedZOhm, 1)}, SWR ${v.swr.toFixed(2)} on 50 Ω`,
+            feed: feedRows(v.elements),
+            networkLossPercent: 100 * v.networkLossShare,
+          },
+        ]
+      : [];
+  const otherPhasings = [
+    ...specs.flatMap((s, i) =>
+      phasing(i + 1, s.name, s.variant !== undefined ? c.arrayFeed?.variants?.[s.variant - 1] : undefined),
+    ),
+    ...(c.arrayFeed?.states ?? []).flatMap((v) =>
+      phasing(v.state, c.states[v.state - 1]?.name ?? `direction ${v.state}`, v),
+    ),
+  ].sort((x, y) => x.n - y.n);
   const remoteFeed = r.remote ? c.feedPoints[r.remote.feed]?.xyz : undefined;
   const remoteXY: XY | null = remoteFeed ? [remoteFeed[0], remoteFeed[1]] : null;
   const boxWhere = ARRAYS_WITH_BOX[c.type] ?? 'no relay box: the array has one direction';

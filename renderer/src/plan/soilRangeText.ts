@@ -24,8 +24,9 @@ export function rankSpan(c: Candidate): string | null {
   return `${Math.min(...ranks)}–${Math.max(...ranks)}`;
 }
 
-/** Score range in dBi, "−6.6 to −0.2". */
+/** Score range in dBi, "−6.6 to −0.2"; "range not computed" where it was not. */
 export function scoreRangeText(c: Candidate): string {
+  if (c.soilRange.notComputed) return 'range not computed';
   const f = (v: number): string => v.toFixed(1).replace('-', '−');
   return `${f(c.soilRange.lowDbi)} to ${f(c.soilRange.highDbi)}`;
 }
@@ -33,6 +34,8 @@ export function scoreRangeText(c: Candidate): string {
 /** One sentence on the soil range for the candidate detail. */
 export function soilSentence(c: Candidate): string {
   const [own, ...others] = c.soilRange.scores;
+  if (c.soilRange.notComputed)
+    return `Scored over ${soilLabel(c.soilRange.soils[0] ?? 'custom')} only: not solved over the neighbouring soils.`;
   if (!own || others.length === 0)
     return `Scored over ${soilLabel(c.soilRange.soils[0] ?? 'custom')} only: no soil class lies next to it.`;
   const parts = others.map(

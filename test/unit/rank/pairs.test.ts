@@ -14,7 +14,11 @@ import {
   enumeratePlan,
   memoryCache,
   planFromSetup,
+  pairJobs,
   planSite,
+  rankPlan,
+  soilRangeKey,
+  soilRangeOf,
   type Shortlist,
 } from '../../../core/rank/plan.ts';
 import { PATTERN_GRID } from '../../../core/rank/pattern.ts';
@@ -26,6 +30,9 @@ import { feedLineOf } from '../../../core/report/feedRun.ts';
 import { statePatterns } from '../../../core/rank/candidateStates.ts';
 import { stationReport } from '../../../core/report/stationReport.ts';
 import { testLot } from '../site/lot.ts';
+import type { EvaluationRecord } from '../../../core/rank/evaluate.ts';
+import { COAX_LINE } from '../../../core/antennas/verticalPair.ts';
+import { c, cAdd, cDiv, cMul } from '../../../core/numeric/complex.ts';
 
 /** Two 25 m spans: w1–w2 along x (broadside north–south), n1–n2 along y (broadside east–west). */
 const lot = (settings: Partial<Project['settings']> = {}): Project =>
@@ -212,6 +219,91 @@ describe('switched pair of two half-squares at 90°', () => {
     const detail = html.match(/<svg class="lot detail"[\s\S]*?<\/svg>/)?.[0] ?? '';
     expect(detail.match(/class="relay-box"/g)).toHaveLength(2);
     expect(html).not.toContain('The patterns drawn are direction 1');
+  });
+
+  it('shows direction 2’s feed: B’s drive impedance carried along its coax run to the relay box', () => {
+    const pair = s.candidates[0];
+    const st = pair.arrayFeed?.states;
+    expect(st?.map((x) => x.state)).toEqual([2]);
+    const b = st![0];
+    // B driven: its current is the reference, A's (open at its feed) next to nothing
+    expect(b.elements[1].currentRatio).toBe(1);
+    expect(b.elements[0].currentRatio).toBeLessThan(0.05);
+    // the box sees Z_B through the run: Zin = Z0 (Z_L cosh γℓ + Z0 sinh γℓ)/(Z0 cosh γℓ + Z_L sinh γℓ)
+    // (Pozar, Microwave Engineering, 4th ed., §2.7, the lossy line; written here apart from the solver)
+    const f = pair.design.designFreqHz;
+    const len = pair.design.params.runM as number;
+    const alpha =
+      (COAX_LINE.lossDbPer100m * Math.sqrt(f / (COAX_LINE.lossReferenceMHz * 1e6))) / 100 / (20 / Math.LN10);
+    const beta = (2 * Math.PI * f) / (COAX_LINE.velocityFactor * 299792458);
+    const [ga, gb] = [alpha * len, beta * len];
+    const ch = c(Math.cosh(ga) * Math.cos(gb), Math.sinh(ga) * Math.sin(gb));
+    const sh = c(Math.sinh(ga) * Math.cos(gb), Math.cosh(ga) * Math.sin(gb));
+    const z0 = c(COAX_LINE.z0Ohm);
+    const zl = c(...b.elements[1].driveImpedanceOhm);
+    const zin = cMul(z0, cDiv(cAdd(cMul(zl, ch), cMul(z0, sh)), cAdd(cMul(z0, ch), cMul(zl, sh))));
+    expect(Math.hypot(zin.re - b.feedZOhm[0], zin.im - b.feedZOhm[1])).toBeLessThan(
+      1e-3 * Math.hypot(zin.re, zin.im),
+    );
+    // the run's loss is real: the share of the power it takes is above zero, and state A has no line
+    expect(b.networkLossShare).toBeGreaterThan(0);
+    expect(pair.arrayFeed!.networkLossShare).toBe(0);
+    // the app's detail and the sheet show it as direction 2's own table
+    const w = arrayWiring(pair, new Map(), 100)!;
+    expect(w.otherPhasings.map((o) => [o.n, o.name])).toEqual([[2, pair.states[1].name]]);
+    expect(w.otherPhasings[0].feedText).toContain(`SWR ${b.swr.toFixed(2)}`);
+    const { html } = stationReport({ project: lot(), shortlist: s, candidate: pair });
+    expect(html).toContain(`What the feed network achieves (direction 2: ${pair.states[1].name})`);
+  });
+
+  it('is scored over the soil range like the singles, and ranked with them over each soil', () => {
+    const pair = s.candidates[0];
+    const r = pair.soilRange;
+    expect(r.soils).toEqual(['average', 'poor', 'very-good']);
+    expect(r.scores.map((x) => x.soil)).toEqual(r.soils);
+    expect(r.scores[0].scoreDbi).toBe(pair.score);
+    // Physical trend (common practice, no source): two half-squares radiate vertically polarised
+    // at low angles, which very good (wet, conductive) soil reflects best.
+    const at = (soil: string) => r.scores.find((x) => x.soil === soil)!.scoreDbi;
+    expect(at('very-good')).toBeGreaterThan(at('average') + 1);
+    expect(at('very-good')).toBeGreaterThan(at('poor') + 1);
+    expect(r.highDbi).toBe(at('very-good'));
+    expect(r.lowDbi).toBe(Math.min(...r.scores.map((x) => x.scoreDbi)));
+    // the states were solved over the other soils, not copied: the spread is real
+    expect(new Set(r.scores.map((x) => x.scoreDbi)).size).toBe(3);
+    // each soil's rank is the place among all of the band's candidates over that soil
+    for (const soil of r.soils) {
+      const score = (c: (typeof s.candidates)[number]) =>
+        c.soilRange.scores.find((x) => x.soil === soil)!.scoreDbi;
+      for (const c of s.candidates) {
+        const rank = c.soilRange.scores.find((x) => x.soil === soil)!.rank;
+        expect(rank).toBe(1 + s.candidates.filter((o) => score(o) > score(c)).length);
+      }
+    }
+    expect(r.rankHolds).toBe(r.scores.every((x) => x.rank === 1));
+    expect(pair.diagnostics.some((d) => /soil range/.test(d))).toBe(false);
+  });
+
+  it('says "not computed" when a pair was not solved over the soil range, instead of a one-soil range', () => {
+    const p = lot();
+    const setup = enumeratePlan(p, { types: ['half-square'], arrays: true });
+    // the plan's cache (memoryCache is a Map) without the pair's records over the other soils
+    const partial = new Map(cache as Map<string, EvaluationRecord>);
+    pairJobs(setup, partial, p);
+    for (const k of s.candidates[0].stateKeys!) partial.delete(soilRangeKey(k, soilRangeOf(p)));
+    const r = rankPlan(setup, partial, p);
+    const pair = r.candidates[0];
+    expect(pair.type).toBe('switched-pair');
+    expect(pair.soilRange.notComputed).toBe(true);
+    expect(pair.soilRange.soils).toEqual(['average']);
+    expect(pair.diagnostics).toContain(
+      'not scored over the soil range (the pair was not solved over the other soils)',
+    );
+    // the singles keep their own range, ranked behind the pair
+    const single = r.candidates[1];
+    expect(single.soilRange.soils).toHaveLength(3);
+    expect(single.soilRange.scores[0].rank).toBe(2);
+    expect(s.candidates[0].soilRange.notComputed).toBeUndefined();
   });
 
   it('respects the margin: a margin above the pair’s lead removes it; no pair without arrays', () => {
