@@ -7,22 +7,14 @@ import { afterEach, describe, expect, it } from 'vitest';
 import {
   luFactor,
   luKernelKind,
-  luSolve,
   SingularMatrixError,
   useLuKernel,
 } from '../../../core/numeric/lu.ts';
+import { compareKernelWithTypeScript, randomMatrix } from '../../helpers/luCompare.ts';
 import { LU_KERNEL_FMA_WASM_BASE64 } from '../../../core/numeric/wasm/luKernel.generated.ts';
 
 /** Largest factor difference between the two paths, relative to the largest factor element. */
 const PATH_TOL = 1e-12;
-
-function randomMatrix(n: number, seed: number): Float64Array {
-  let s = seed;
-  return new Float64Array(2 * n * n).map(() => {
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-    return s / 4294967296 - 0.5;
-  });
-}
 
 afterEach(() => {
   useLuKernel(true);
@@ -59,31 +51,12 @@ describe('dense LU: WebAssembly kernel against TypeScript', () => {
   });
   for (const n of [24, 37, 101, 200])
     it(`n = ${n}: same pivots, factors within ${PATH_TOL}, and the solve reproduces b`, () => {
-      const a0 = randomMatrix(n, 7 + n);
-      useLuKernel(false);
-      const t = luFactor(n, a0.slice());
-      expect(useLuKernel(true)).toBe(true);
-      const w = luFactor(n, a0.slice());
-      expect(Array.from(w.pivots)).toEqual(Array.from(t.pivots));
-      let big = 0;
-      let diff = 0;
-      for (let i = 0; i < t.a.length; i++) {
-        big = Math.max(big, Math.abs(t.a[i]));
-        diff = Math.max(diff, Math.abs(w.a[i] - t.a[i]));
-      }
-      expect(diff / big).toBeLessThan(PATH_TOL);
+      const r = compareKernelWithTypeScript(n);
+      expect(r.kernel).toBe(true);
+      expect(r.samePivots).toBe(true);
+      expect(r.relDiff).toBeLessThan(PATH_TOL);
       // A x = b with b = A·1: x must come back as ones (residual check of the kernel's factors)
-      const b = new Float64Array(2 * n);
-      for (let i = 0; i < n; i++)
-        for (let j = 0; j < n; j++) {
-          b[2 * i] += a0[2 * (i * n + j)];
-          b[2 * i + 1] += a0[2 * (i * n + j) + 1];
-        }
-      const x = luSolve(w, b);
-      for (let i = 0; i < n; i++) {
-        expect(Math.abs(x[2 * i] - 1)).toBeLessThan(1e-9);
-        expect(Math.abs(x[2 * i + 1])).toBeLessThan(1e-9);
-      }
+      expect(r.solveErr).toBeLessThan(1e-9);
     });
   it('refuses a singular matrix in the kernel path too, and leaves a usable kernel behind', () => {
     const n = 40;
