@@ -4,12 +4,7 @@
 // not reference checks: the LU itself is checked in numeric.test.ts).
 import { spawnSync } from 'node:child_process';
 import { afterEach, describe, expect, it } from 'vitest';
-import {
-  luFactor,
-  luKernelKind,
-  SingularMatrixError,
-  useLuKernel,
-} from '../../../core/numeric/lu.ts';
+import { luFactor, luKernelKind, SingularMatrixError, useLuKernel } from '../../../core/numeric/lu.ts';
 import { compareKernelWithTypeScript, randomMatrix } from '../../helpers/luCompare.ts';
 import { LU_KERNEL_FMA_WASM_BASE64 } from '../../../core/numeric/wasm/luKernel.generated.ts';
 
