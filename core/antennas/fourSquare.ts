@@ -4,7 +4,8 @@
  *
  * Feed arrangement (why this one): the hybrid-coupler feed, the one commonly built (common
  * practice, no source). Each element is joined to the control box by an electrical quarter wave
- * of 75 Ω coax (the hung four-square uses an odd number, `oddQuarterWaveM`, that reaches): a quarter-wave line forces the element's current to −jV/Z0 of the box voltage
+ * of 75 Ω foam-dielectric coax (VF 0.82, FORCING_LINE_VELOCITY_FACTOR), or three where one does
+ * not reach (`oddQuarterWaveM`): a quarter-wave line forces the element's current to −jV/Z0 of the box voltage
  * whatever the element's drive impedance (Pozar §2.5: Zin = Z0²/ZL), so the box sets the current
  * phases even though mutual coupling makes the four drive impedances differ. In the box a 90°
  * hybrid splits the station's power: its through port feeds the back element, its coupled port
@@ -28,7 +29,7 @@ import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
 import type { NetworkSpec } from '../em/network.ts';
 import { coaxCut, num, round } from './common.ts';
 import { VERTICAL_NOMINAL_FRACTION } from './vertical.ts';
-import { COAX_LOSS_DB_PER_100M, COAX_LOSS_REFERENCE_MHZ, COAX_VELOCITY_FACTOR } from './verticalPair.ts';
+import { COAX_LOSS_DB_PER_100M, COAX_LOSS_REFERENCE_MHZ } from './verticalPair.ts';
 import { groupCuts, groupHeights, proposeVerticalArray, verticalParts, verticalsModel } from './verticals.ts';
 import { COAX_RUN_SLACK_M } from './halfSquareArrays.ts';
 import type { Builder, CutItem, Design, WireModel } from './types.ts';
@@ -56,17 +57,24 @@ export function fourSquareCorners(side: number): XY[] {
   ];
 }
 
-/** Physical length of an electrical quarter wave of the coax at f. */
+/**
+ * Velocity factor of the forcing lines: foam-dielectric 75 Ω coax (about 0.82; value from memory,
+ * common practice, no source). With solid-dielectric coax (0.66) one electrical quarter wave is
+ * 0.165 λ, shorter than the 0.177 λ from the box at the centre of a λ/4 square to a corner, so the
+ * line would not reach; with foam it is 0.205 λ and does.
+ */
+export const FORCING_LINE_VELOCITY_FACTOR = 0.82;
+
+/** Physical length of an electrical quarter wave of the forcing-line coax at f. */
 export function quarterWaveCoaxM(freqHz: number): number {
-  return (0.25 * COAX_VELOCITY_FACTOR * SPEED_OF_LIGHT_M_PER_S) / freqHz;
+  return (0.25 * FORCING_LINE_VELOCITY_FACTOR * SPEED_OF_LIGHT_M_PER_S) / freqHz;
 }
 
 /**
  * The forcing lines: the smallest odd number of electrical quarter waves of the coax that reaches
  * runM (box to the farthest base) with COAX_RUN_SLACK_M to spare. An odd number of quarter waves
- * forces the current as one does (Zin = Z0²/ZL repeats every half wave; Pozar §2.5): one quarter
- * wave of VF 0.66 coax is 0.165 λ, shorter than the 0.177 λ from the centre of a λ/4 square to a
- * corner, so the hung four-square's lines are three quarter waves.
+ * forces the current as one does (Zin = Z0²/ZL repeats every half wave; Pozar §2.5), at more
+ * loss: one is used wherever it reaches (it does from the centre of a λ/4 square).
  */
 export function oddQuarterWaveM(runM: number, freqHz: number): number {
   const q = quarterWaveCoaxM(freqHz);
@@ -79,7 +87,7 @@ export function oddQuarterWaveM(runM: number, freqHz: number): number {
 export function forcingLineCut(d: Design): CutItem {
   const n = Math.round(num(d, 'lineLengthM') / quarterWaveCoaxM(d.designFreqHz));
   return coaxCut(
-    `75 Ω coax, control box to each vertical (${n} electrical quarter wave${n > 1 ? 's' : ''}, VF ${COAX_VELOCITY_FACTOR})`,
+    `75 Ω coax, control box to each vertical (${n} electrical quarter wave${n > 1 ? 's' : ''}, VF ${FORCING_LINE_VELOCITY_FACTOR}, foam)`,
     4,
     num(d, 'lineLengthM'),
   );
@@ -94,7 +102,7 @@ export function fourSquareNetwork(d: Design, turn = 0): NetworkSpec {
   const line = num(d, 'lineLengthM');
   const coax = {
     z0Ohm: FORCING_LINE_Z0_OHM,
-    velocityFactor: COAX_VELOCITY_FACTOR,
+    velocityFactor: FORCING_LINE_VELOCITY_FACTOR,
     lossDbPer100m: COAX_LOSS_DB_PER_100M,
     lossReferenceMHz: COAX_LOSS_REFERENCE_MHZ,
   };
@@ -151,10 +159,11 @@ export const fourSquareBuilder: Builder = {
         maxM: nominal,
       },
       noSpotReason: `no free spot on the lot holds a ${side.toFixed(1)} m square of masts clear of the setback and every keep-out`,
-      // One quarter wave (0.165 λ of VF 0.66 coax) is shorter than the 0.177 λ from the box at the
-      // centre to a corner; three (oddQuarterWaveM) would reach but take 23 % of the power instead
-      // of 9 % (80 m, very good ground). Left as it was designed; the hung four-square reaches.
-      params: { sideM: round(side, 2), lineLengthM: round(quarterWaveCoaxM(ctx.band.designFreqHz), 2) },
+      // The box at the centre, side/√2 from each base: one foam quarter wave reaches.
+      params: {
+        sideM: round(side, 2),
+        lineLengthM: round(oddQuarterWaveM(side / Math.SQRT2, ctx.band.designFreqHz), 2),
+      },
       states: NAMES.map((n, i) => ({ name: `beam toward vertical ${n}`, rotationDeg: 90 * i })),
       describe: ({ xy, rotationDeg: rot }) => ({
         where: `self-supporting four-square centred at (${xy[0].toFixed(0)} m E, ${xy[1].toFixed(0)} m N)`,
