@@ -320,6 +320,7 @@ function evaluateDesignOrThrow(
       ...(main.groundSystemLossW !== undefined ? { groundSystemLossW: main.groundSystemLossW } : {}),
       ...(main.bareContactLossW !== undefined ? { bareContactLossW: main.bareContactLossW } : {}),
       ...(main.loadLossW !== undefined ? { loadLossW: main.loadLossW } : {}),
+      ...(main.networkLossW !== undefined ? { networkLossW: main.networkLossW } : {}),
       efficiency: inputPowerW > 0 ? radiatedPowerW / inputPowerW : 0,
     },
     bandwidth: { lowHz, highHz, widthHz, extrapolated: swr0 <= 2 && extrapolated },

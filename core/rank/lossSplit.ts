@@ -31,6 +31,8 @@ export interface PowerSplitIn {
   bareContactLossW?: number;
   /** Loss in lumped loads (loading coils, from their stated Q); absent when the model has none. */
   loadLossW?: number;
+  /** Loss in an array's feed network (lines, stubs, the hybrid's load resistor); absent without one. */
+  networkLossW?: number;
 }
 
 export interface EfficiencySplit {
@@ -60,6 +62,9 @@ export interface EfficiencySplit {
   /** Lost in loading coils (their stated Q); 0 when the antenna has none. */
   loadLossW: number;
   loadLossDb: number;
+  /** Lost in an array's feed network (lines, stubs, the hybrid's load resistor); 0 without one. */
+  networkLossW: number;
+  networkLossDb: number;
 }
 
 /** dB lost to one mechanism: 10·log10(input / (input − loss)). */
@@ -83,6 +88,8 @@ export function efficiencySplit(p: PowerSplitIn): EfficiencySplit {
     groundSystemLossDb: lossDb(gs, p.inputW),
     loadLossW: p.loadLossW ?? 0,
     loadLossDb: lossDb(p.loadLossW ?? 0, p.inputW),
+    networkLossW: p.networkLossW ?? 0,
+    networkLossDb: lossDb(p.networkLossW ?? 0, p.inputW),
     groundSystemEfficiencyPercent:
       p.groundSystemLossW === undefined || !(p.inputW > 0) ? null : 100 * (1 - gs / p.inputW),
     bareContactLossW: bare,
@@ -93,7 +100,7 @@ export function efficiencySplit(p: PowerSplitIn): EfficiencySplit {
 }
 
 export interface LossPart {
-  key: 'radiated' | 'ground-system' | 'bare-contact' | 'soil-beyond' | 'conductor' | 'loading';
+  key: 'radiated' | 'ground-system' | 'bare-contact' | 'soil-beyond' | 'conductor' | 'loading' | 'network';
   label: string;
   /** Share of the input power, percent. */
   pct: number;
@@ -139,6 +146,16 @@ export function lossParts(e: EfficiencySplit): LossPart[] {
     ...(e.loadLossW > 0
       ? [{ key: 'loading' as const, label: 'loading coil loss', pct: share(e.loadLossW), db: e.loadLossDb }]
       : []),
+    ...(e.networkLossW > 0
+      ? [
+          {
+            key: 'network' as const,
+            label: 'lost in the feed network (lines, stubs, the hybrid’s load)',
+            pct: share(e.networkLossW),
+            db: e.networkLossDb,
+          },
+        ]
+      : []),
   ];
 }
 
@@ -159,5 +176,6 @@ export function efficiencySummary(e: EfficiencySplit): string {
   );
   parts.push(`conductor loss ${db2(e.conductorLossDb)}`);
   if (e.loadLossW > 0) parts.push(`loading coil loss ${db2(e.loadLossDb)}`);
+  if (e.networkLossW > 0) parts.push(`feed network loss ${db2(e.networkLossDb)}`);
   return parts.join('; ');
 }

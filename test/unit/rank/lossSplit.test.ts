@@ -93,4 +93,22 @@ describe('efficiency split', () => {
     expect(eMore.groundSystemEfficiencyPercent!).toBeGreaterThan(e.groundSystemEfficiencyPercent!);
     expect(Math.abs(eMore.reflectionLossDb - e.reflectionLossDb)).toBeLessThan(0.3);
   });
+  it('an array’s feed-network loss is its own part of the bar and of the summary, and the parts still add up', () => {
+    const e = efficiencySplit({
+      inputW: 1,
+      radiatedW: 0.5,
+      conductorLossW: 0.05,
+      groundLossW: 0.25,
+      groundSystemLossW: 0.05,
+      networkLossW: 0.2,
+    });
+    const parts = lossParts(e);
+    const net = parts.find((p) => p.key === 'network');
+    expect(net?.pct).toBeCloseTo(20, 9);
+    expect(net?.db).toBeCloseTo(10 * Math.log10(1 / 0.8), 9);
+    expect(parts.reduce((s, p) => s + p.pct, 0)).toBeCloseTo(100, 9);
+    expect(efficiencySummary(e)).toContain('feed network loss 0.97 dB');
+    // a single antenna has no such part
+    expect(lossParts(oneWatt(0.5, 0.1, 0.4)).some((p) => p.key === 'network')).toBe(false);
+  });
 });
