@@ -42,7 +42,7 @@
 import type { Element } from '../site/feasibility.ts';
 import type { XY } from '../site/frame.ts';
 import { SPEED_OF_LIGHT_M_PER_S } from '../units/index.ts';
-import type { NetworkSpec } from '../em/network.ts';
+import { lineHyperbolics, type NetworkSpec } from '../em/network.ts';
 import { evaluateAntenna } from '../em/evaluate.ts';
 import { c, cAdd, cDiv, cMul, cSub, type Complex } from '../numeric/complex.ts';
 import { complexPermittivity, soilSurfaceImpedanceOhm } from '../em/fresnel.ts';
@@ -123,20 +123,9 @@ const pairBases = (s: number): XY[] => [
   [0, -s / 2],
 ];
 
-/** The lines' γ per metre at f (the loss law of core/em/network.ts lineAdmittance). */
-function gammaPerM(freqHz: number): Complex {
-  const alphaDb = COAX_LINE.lossDbPer100m * Math.sqrt(freqHz / (COAX_LINE.lossReferenceMHz * 1e6));
-  const alpha = alphaDb / 100 / (20 / Math.LN10);
-  return c(alpha, (2 * Math.PI * freqHz) / (COAX_VELOCITY_FACTOR * SPEED_OF_LIGHT_M_PER_S));
-}
-
 /** V(ℓ) = I·(Z cosh γℓ + Z0 sinh γℓ): input voltage of a line ending in Z carrying I (Pozar §2.7). */
 export function lineInputVoltage(z: Complex, i: Complex, lengthM: number, freqHz: number): Complex {
-  const g = gammaPerM(freqHz);
-  const a = g.re * lengthM;
-  const b = g.im * lengthM;
-  const sh = c(Math.sinh(a) * Math.cos(b), Math.cosh(a) * Math.sin(b));
-  const ch = c(Math.cosh(a) * Math.cos(b), Math.sinh(a) * Math.sin(b));
+  const { sh, ch } = lineHyperbolics(PHASING_LINE, lengthM, freqHz);
   return cMul(i, cAdd(cMul(z, ch), c(PHASING_LINE_Z0_OHM * sh.re, PHASING_LINE_Z0_OHM * sh.im)));
 }
 

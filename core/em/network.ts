@@ -209,20 +209,41 @@ export function prepareNetwork(spec: NetworkSpec, nFeeds: number): PreparedNetwo
   return { spec, nodes, portIndex: spec.portNodes.map((p) => index.get(p)!), branches };
 }
 
-/** Two-port admittance (Y11 = Y22, Y12 = Y21) of a line at one frequency. */
-export function lineAdmittance(
-  e: Extract<NetworkElement, { kind: 'line' }>,
+/** A line's loss law and speed: what lineHyperbolics needs of a line element. */
+export type LineProperties = Pick<
+  Extract<NetworkElement, { kind: 'line' }>,
+  'velocityFactor' | 'lossDbPer100m' | 'lossReferenceMHz'
+>;
+
+/**
+ * sinh γℓ and cosh γℓ of a line of length ℓ at f: loss in dB per 100 m scaled as √f from its
+ * reference frequency, β = 2πf / (VF·c) (the lossy line's ABCD matrix, Pozar, Microwave
+ * Engineering, 4th ed., §2.7).
+ */
+export function lineHyperbolics(
+  e: LineProperties,
+  lengthM: number,
   freqHz: number,
-): { y11: Complex; y12: Complex } {
+): { sh: Complex; ch: Complex } {
   const alphaDb =
     (e.lossDbPer100m ?? 0) * (e.lossReferenceMHz ? Math.sqrt(freqHz / (e.lossReferenceMHz * 1e6)) : 1);
   const alpha = alphaDb / 100 / (20 / Math.LN10); // dB/m → Np/m
   const beta = (2 * Math.PI * freqHz) / (e.velocityFactor * SPEED_OF_LIGHT_M_PER_S);
   // γℓ = a + jb; sinh and cosh of a complex argument
-  const a = alpha * e.lengthM;
-  const b = beta * e.lengthM;
-  const sh = c(Math.sinh(a) * Math.cos(b), Math.cosh(a) * Math.sin(b));
-  const ch = c(Math.cosh(a) * Math.cos(b), Math.sinh(a) * Math.sin(b));
+  const a = alpha * lengthM;
+  const b = beta * lengthM;
+  return {
+    sh: c(Math.sinh(a) * Math.cos(b), Math.cosh(a) * Math.sin(b)),
+    ch: c(Math.cosh(a) * Math.cos(b), Math.sinh(a) * Math.sin(b)),
+  };
+}
+
+/** Two-port admittance (Y11 = Y22, Y12 = Y21) of a line at one frequency. */
+export function lineAdmittance(
+  e: Extract<NetworkElement, { kind: 'line' }>,
+  freqHz: number,
+): { y11: Complex; y12: Complex } {
+  const { sh, ch } = lineHyperbolics(e, e.lengthM, freqHz);
   const zs = c(sh.re * e.z0Ohm, sh.im * e.z0Ohm);
   if (cAbs2(zs) < 1e-30)
     throw new ModelError(
